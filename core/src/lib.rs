@@ -1,0 +1,10 @@
+//! Natural frequencies and mode shapes of beams that carry masses, springs and supports.
+//!
+//! # Conventions
+//! - Everything inside the crate is SI (m, kg, s, N, Pa, rad) in `f64`; units are converted only
+//!   where a scenario is read and where results are displayed.
+//! - Frequencies are reported in hertz, ascending; angular frequency ω = 2πf is used internally.
+
+pub mod error;
+
+pub use error::{Error, ErrorKind, Result};

@@ -1,0 +1,3 @@
+//! Builds and serves the Modebench documentation site.
+
+fn main() {}

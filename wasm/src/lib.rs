@@ -1,0 +1,1 @@
+//! Browser binding and live calculator widget for Modebench.

@@ -1,0 +1,3 @@
+//! Build, serve and test orchestration for Modebench (`cargo xtask <command>`).
+
+fn main() {}
