@@ -8,3 +8,12 @@
 pub mod error;
 
 pub use error::{Error, ErrorKind, Result};
+pub mod model;
+
+mod band;
+mod layout;
+mod member;
+mod roots;
+
+pub use model::{Attachment, End, Model, ModelParts, Segment, Theory};
+pub mod exact;

@@ -1,0 +1,71 @@
+//! The exact method: dynamic stiffness, the Wittrick–Williams count, and mode shapes.
+//!
+//! Each uniform member's exact dynamic stiffness is assembled with the attachments into K(ω).
+//! The number of natural frequencies below ω is J(ω) = J₀(ω) + s{K(ω)}, where s{K} is the number
+//! of negative pivots of K(ω) and J₀ counts the members' own clamped–clamped frequencies below ω
+//! (Wittrick & Williams, Q. J. Mech. Appl. Math. 24, 1971). Bisection on J isolates each
+//! frequency, and Brent's method on det K polishes it.
+
+mod assemble;
+mod shape;
+
+pub(crate) use assemble::{Exact, System};
+pub use shape::ModeShape;
+
+use crate::error::Result;
+use crate::layout::Layout;
+use crate::model::Model;
+use crate::roots;
+
+/// One natural mode from the exact method.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ExactMode {
+    /// Angular frequency ω, rad/s (zero for a rigid-body mode).
+    pub omega: f64,
+    /// Number of coincident frequencies at this value (1 for a simple one).
+    pub multiplicity: usize,
+    /// Whether this is a rigid-body mode (ω = 0).
+    pub rigid_body: bool,
+    /// The mode shape.
+    pub shape: ModeShape,
+}
+
+/// The first natural modes from the exact method, rigid-body modes first.
+pub fn modes(model: &Model, elastic: usize) -> Result<Vec<ExactMode>> {
+    let rigid = model.rigid_body_modes();
+    let omegas = frequencies(model, elastic)?;
+    let mut out = Vec::with_capacity(rigid + omegas.len());
+    let mut all: Vec<(f64, usize)> = vec![(0.0, rigid); rigid];
+    all.extend(omegas.iter().map(|r| (r.omega, r.multiplicity)));
+    let mut i = 0;
+    while i < all.len() {
+        let (omega, multiplicity) = all[i];
+        let group = multiplicity.max(1).min(all.len() - i);
+        let shapes = shape::shapes(model, omega, group);
+        for s in shapes {
+            out.push(ExactMode { omega, multiplicity, rigid_body: omega == 0.0, shape: s });
+        }
+        i += group;
+    }
+    Ok(out)
+}
+
+/// The first `elastic` natural angular frequencies above the rigid-body modes, ascending.
+pub(crate) fn frequencies(model: &Model, elastic: usize) -> Result<Vec<roots::Root>> {
+    let spectrum = Exact { model, natural: System::new(model, Layout::new(model, |_| 1)) };
+    let rigid = model.rigid_body_modes();
+    roots::find(rigid, elastic, guess(model, rigid + elastic), &spectrum)
+}
+
+/// A rough first trial ω: the `n`-th pinned–pinned frequency of the whole length with the
+/// most flexible, heaviest segment's properties. The search widens it as needed.
+pub(crate) fn guess(model: &Model, n: usize) -> f64 {
+    let length = model.length();
+    let ratio = model
+        .segments()
+        .iter()
+        .map(|s| s.flexural_rigidity / s.mass_per_length)
+        .fold(f64::INFINITY, f64::min);
+    let k = n.max(1) as f64 * std::f64::consts::PI / length;
+    k * k * ratio.sqrt() * 0.25
+}
