@@ -16,4 +16,9 @@ mod member;
 mod roots;
 
 pub use model::{Attachment, End, Model, ModelParts, Segment, Theory};
+pub mod analysis;
+pub mod bounds;
 pub mod exact;
+pub mod fe;
+
+pub use analysis::{analyse, Analysis, Options};

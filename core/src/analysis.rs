@@ -1,0 +1,198 @@
+//! The three methods run side by side on one validated model.
+
+use crate::bounds::{self, Equivalent};
+use crate::error::{Error, ErrorKind, Result};
+use crate::exact::{self, ModeShape};
+use crate::fe::{self, Mesh};
+use crate::model::Model;
+
+/// Most modes one analysis reports (besides rigid-body modes).
+pub const MAX_MODES: usize = 20;
+
+/// What to compute.
+#[derive(Clone, Debug, PartialEq)]
+#[non_exhaustive]
+pub struct Options {
+    /// Elastic modes to report, 1 to [`MAX_MODES`].
+    pub modes: usize,
+    /// Finite elements in all; `None` picks enough for about 1e-4 on the last mode.
+    pub elements: Option<usize>,
+    /// Point for the equivalent single-degree-of-freedom system of mode 1, m from the left end;
+    /// `None` uses the point of largest deflection.
+    pub report_point: Option<f64>,
+}
+
+impl Default for Options {
+    fn default() -> Self {
+        Options { modes: 6, elements: None, report_point: None }
+    }
+}
+
+/// One mode from all methods.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ModeResult {
+    /// 1-based mode number, rigid-body modes first.
+    pub number: usize,
+    /// Exact angular frequency, rad/s.
+    pub omega: f64,
+    /// Number of coincident frequencies at this value.
+    pub multiplicity: usize,
+    /// Whether the mode is a rigid-body mode (0 Hz).
+    pub rigid_body: bool,
+    /// Finite-element angular frequency, rad/s (`None` for rigid-body modes).
+    pub fe_omega: Option<f64>,
+    /// The exact mode shape.
+    pub shape: ModeShape,
+}
+
+impl ModeResult {
+    /// Exact frequency, Hz.
+    pub fn frequency_hz(&self) -> f64 {
+        self.omega / std::f64::consts::TAU
+    }
+
+    /// Relative difference of the finite-element frequency to the exact one.
+    pub fn fe_difference(&self) -> Option<f64> {
+        self.fe_omega.map(|f| (f - self.omega) / self.omega)
+    }
+}
+
+/// The fundamental (first elastic) mode by the approximate methods.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Fundamental {
+    /// Exact, rad/s.
+    pub omega: f64,
+    /// Rayleigh's quotient with the static deflection curve (upper bound), rad/s.
+    pub rayleigh: Option<f64>,
+    /// Dunkerley's sum (lower bound), rad/s.
+    pub dunkerley: Option<f64>,
+    /// Equivalent single-degree-of-freedom system.
+    pub equivalent: Option<Equivalent>,
+}
+
+/// A note for the user about the results.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct Warning {
+    /// A stable identifier (`rigid-body`, `fe-unconverged`, …).
+    pub code: &'static str,
+    /// What it means, in plain words.
+    pub message: String,
+}
+
+/// Everything the three methods found.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Analysis {
+    /// Rigid-body modes (at 0 Hz, listed first in `modes`).
+    pub rigid_body_modes: usize,
+    /// Modes, ascending.
+    pub modes: Vec<ModeResult>,
+    /// Mode 1 by the approximate methods (`None` for an unrestrained model).
+    pub fundamental: Option<Fundamental>,
+    /// Finite elements used.
+    pub fe_elements: usize,
+    /// Finite-element unknowns.
+    pub fe_dofs: usize,
+    /// Notes for the user.
+    pub warnings: Vec<Warning>,
+}
+
+/// Runs the exact method, finite elements and the bounds.
+pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
+    if options.modes == 0 || options.modes > MAX_MODES {
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!("the number of modes must be from 1 to {MAX_MODES}"),
+        )
+        .at("modes")
+        .with_value(options.modes));
+    }
+    let mut warnings = Vec::new();
+    let exact_modes = exact::modes(model, options.modes)?;
+    let rigid = model.rigid_body_modes();
+    let last = exact_modes.last().map_or(1.0, |m| m.omega);
+    let mesh = match options.elements {
+        Some(0) => {
+            return Err(Error::new(ErrorKind::OutOfRange, "the number of finite elements must be at least 1")
+                .at("fe.elements")
+                .with_value(0))
+        }
+        Some(n) => Mesh::Total(n),
+        None => Mesh::UpTo(last),
+    };
+    let fe = fe::frequencies(model, options.modes, mesh)?;
+    let mut modes = Vec::with_capacity(exact_modes.len());
+    for (i, m) in exact_modes.into_iter().enumerate() {
+        let fe_omega = if m.rigid_body { None } else { fe.omegas.get(i - rigid).copied() };
+        modes.push(ModeResult {
+            number: i + 1,
+            omega: m.omega,
+            multiplicity: m.multiplicity,
+            rigid_body: m.rigid_body,
+            fe_omega,
+            shape: m.shape,
+        });
+    }
+    if rigid > 0 {
+        warnings.push(Warning {
+            code: "rigid-body",
+            message: format!(
+                "The beam is not held against {}: {rigid} rigid-body mode{} at 0 Hz. Rayleigh and Dunkerley \
+                 estimates need a restrained beam and are not shown.",
+                if rigid == 2 { "translation or rotation" } else { "moving as a rigid body" },
+                if rigid == 1 { "" } else { "s" }
+            ),
+        });
+    }
+    if let Some(worst) =
+        modes.iter().filter(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)).map(|m| m.number).next()
+    {
+        warnings.push(Warning {
+            code: "fe-unconverged",
+            message: format!(
+                "The finite-element result differs from the exact one by more than 0.1 % from mode {worst} on; \
+                 use more elements if you rely on it."
+            ),
+        });
+    }
+    if modes.iter().any(|m| m.multiplicity > 1 && !m.rigid_body) {
+        warnings.push(Warning {
+            code: "repeated",
+            message:
+                "Some frequencies are repeated; their mode shapes are one mass-orthogonal choice among many."
+                    .to_string(),
+        });
+    }
+    let fundamental = match modes.get(rigid) {
+        Some(first) if rigid == 0 => {
+            let position = options.report_point.unwrap_or_else(|| bounds::largest_deflection(&first.shape));
+            if !(0.0..=model.length()).contains(&position) {
+                return Err(Error::new(ErrorKind::OutOfRange, "the report point must lie on the beam")
+                    .at("report_point")
+                    .with_value(position));
+            }
+            let equivalent = bounds::equivalent(&first.shape, first.omega, position);
+            if equivalent.is_none() {
+                warnings.push(Warning {
+                    code: "report-point-at-node",
+                    message: "Mode 1 barely moves at the chosen report point, so no equivalent mass is given there."
+                        .to_string(),
+                });
+            }
+            Some(Fundamental {
+                omega: first.omega,
+                rayleigh: bounds::rayleigh(model, &first.shape, first.omega),
+                dunkerley: bounds::dunkerley(model)?,
+                equivalent,
+            })
+        }
+        _ => None,
+    };
+    Ok(Analysis {
+        rigid_body_modes: rigid,
+        modes,
+        fundamental,
+        fe_elements: fe.elements,
+        fe_dofs: fe.dofs,
+        warnings,
+    })
+}
