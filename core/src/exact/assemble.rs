@@ -26,11 +26,18 @@ impl System {
 
     /// K(ω) with held degrees of freedom removed.
     pub(crate) fn assemble(&self, omega: f64) -> SymBand {
+        self.assemble_with_poles(omega).0
+    }
+
+    /// K(ω) and J₀(ω), the members' clamped–clamped frequencies below ω.
+    pub(crate) fn assemble_with_poles(&self, omega: f64) -> (SymBand, usize) {
         let layout = &self.layout;
         let mut k = SymBand::zeros(layout.dofs, layout.bandwidth);
+        let mut poles = 0;
         let w2 = omega * omega;
         for (span, member) in layout.spans.iter().zip(&self.members) {
-            let local = member.stiffness(omega);
+            let (local, count) = member.stiffness_and_count(omega);
+            poles += count;
             let ids = layout.span_dofs(span);
             for (a, ia) in ids.iter().enumerate() {
                 let Some(ia) = ia else { continue };
@@ -56,7 +63,7 @@ impl System {
                 }
             }
         }
-        k
+        (k, poles)
     }
 }
 
@@ -77,8 +84,8 @@ impl Spectrum for Exact<'_> {
     fn count(&self, omega: f64) -> Count {
         let mut trial = omega;
         for attempt in 1..=4 {
-            let poles: usize = self.natural.members.iter().map(|m| m.clamped_count(trial)).sum();
-            let inertia = self.natural.assemble(trial).inertia();
+            let (k, poles) = self.natural.assemble_with_poles(trial);
+            let inertia = k.inertia();
             if inertia.weakest_pivot > WEAK_PIVOT || attempt == 4 {
                 return Count { below: poles + inertia.negative, poles };
             }
@@ -94,6 +101,9 @@ impl Spectrum for Exact<'_> {
                 .pole_free_pieces(omega_max)
         });
         let refined = System::new(model, layout);
+        // A Timoshenko member's stiffness is itself condensed from a chain and may have poles;
+        // the refined pieces are cut below their first clamped–clamped frequency at omega_max,
+        // so the chain has one piece each and no poles.
         Box::new(move |omega| refined.assemble(omega).lu().determinant())
     }
 }

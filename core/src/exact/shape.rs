@@ -15,8 +15,6 @@ use crate::layout::Layout;
 use crate::member::Member;
 use crate::model::Model;
 
-/// Largest piece parameter λ (bending wavenumber × length) of the shape layout.
-const PIECE_LAMBDA: f64 = 1.0;
 /// Points sampled along the beam for plotting (at least).
 const SAMPLES: usize = 240;
 /// Deflections below this fraction of the largest count as zero when looking for nodes.
@@ -45,6 +43,8 @@ struct Piece {
     length: f64,
     member: Member,
     q: [f64; 4],
+    /// Left-end state for [`Member::propagate`], linear in `q`.
+    state: [f64; 4],
     mass_per_length: f64,
     rotary_inertia_per_length: f64,
 }
@@ -54,7 +54,7 @@ impl ModeShape {
     pub fn at(&self, x: f64) -> (f64, f64) {
         let i = self.pieces.partition_point(|p| p.x0 + p.length < x).min(self.pieces.len() - 1);
         let p = &self.pieces[i];
-        p.member.deflection(self.omega, p.q, (x - p.x0).clamp(0.0, p.length))
+        p.member.propagate(self.omega, p.state, (x - p.x0).clamp(0.0, p.length))
     }
 
     /// The mass-weighted inner product of two shapes of the same model:
@@ -71,9 +71,7 @@ impl ModeShape {
             *v *= factor;
         }
         for p in &mut self.pieces {
-            for q in &mut p.q {
-                *q *= factor;
-            }
+            p.q.iter_mut().chain(p.state.iter_mut()).for_each(|v| *v *= factor);
         }
         self.generalized_mass *= factor * factor;
     }
@@ -84,7 +82,7 @@ pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Vec<ModeShape> 
     let theory = model.theory();
     let layout = Layout::new(model, |span| {
         let member = Member::new(&model.segments()[span.segment], span.length, theory);
-        (member.wave_length_parameter(omega) / PIECE_LAMBDA).ceil() as usize
+        member.shape_pieces(omega)
     });
     let system = System::new(model, layout);
     let k = system.assemble(omega);
@@ -135,11 +133,13 @@ fn build(model: &Model, system: &System, omega: f64, v: &[f64]) -> ModeShape {
         .zip(&system.members)
         .map(|(span, member)| {
             let seg = &model.segments()[span.segment];
+            let q = layout.span_values(span, v);
             Piece {
                 x0: layout.span_start(span),
                 length: span.length,
                 member: *member,
-                q: layout.span_values(span, v),
+                q,
+                state: member.start_state(omega, q),
                 mass_per_length: seg.mass_per_length,
                 rotary_inertia_per_length: match model.theory() {
                     crate::model::Theory::Timoshenko => seg.rotary_inertia_per_length,
@@ -157,7 +157,7 @@ fn build(model: &Model, system: &System, omega: f64, v: &[f64]) -> ModeShape {
         for j in 0..per_piece {
             let local = p.length * j as f64 / per_piece as f64;
             x.push(p.x0 + local);
-            deflection.push(p.member.deflection(omega, p.q, local).0);
+            deflection.push(p.member.propagate(omega, p.state, local).0);
         }
     }
     if let Some(p) = pieces.last() {
@@ -192,7 +192,7 @@ fn rebuild(model: &Model, system: &System, omega: f64, s: &ModeShape) -> ModeSha
 
 fn subtract(target: &mut ModeShape, other: &ModeShape, c: f64) {
     for (p, o) in target.pieces.iter_mut().zip(&other.pieces) {
-        for (a, b) in p.q.iter_mut().zip(o.q) {
+        for (a, b) in p.q.iter_mut().zip(o.q).chain(p.state.iter_mut().zip(o.state)) {
             *a -= c * b;
         }
     }
@@ -217,8 +217,8 @@ fn inner(model: &Model, a: &ModeShape, b: &ModeShape) -> f64 {
         let half = 0.5 * pa.length;
         for (xi, weight) in GAUSS {
             let local = half * (1.0 + xi);
-            let (wa, ta) = pa.member.deflection(a.omega, pa.q, local);
-            let (wb, tb) = pb.member.deflection(b.omega, pb.q, local);
+            let (wa, ta) = pa.member.propagate(a.omega, pa.state, local);
+            let (wb, tb) = pb.member.propagate(b.omega, pb.state, local);
             sum += weight * half * (pa.mass_per_length * wa * wb + pa.rotary_inertia_per_length * ta * tb);
         }
     }

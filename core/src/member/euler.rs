@@ -140,20 +140,24 @@ impl Euler {
         (i - 0.5 * (1.0 - parity * sign)) as usize
     }
 
-    /// Deflection and slope at distance `x` from the left end, for end displacements `q` at ω.
-    ///
-    /// Starts from the left end's deflection, slope, moment and shear (the moment and shear
-    /// from the dynamic stiffness) and carries them along with the Krylov–Duncan functions,
-    /// which are summed as series. Accurate while β·x stays below about 2; the shape solver
-    /// cuts members into pieces short enough for that.
-    pub(crate) fn deflection(&self, omega: f64, q: [f64; 4], x: f64) -> (f64, f64) {
+    /// The left-end state (w, θ, M/EI, V/EI) for end values q at ω: deflection, slope, and the
+    /// nodal moment and force (from the dynamic stiffness) per unit EI.
+    pub(crate) fn start_state(&self, omega: f64, q: [f64; 4]) -> [f64; 4] {
         let k = self.stiffness(omega);
         let shear = (0..4).map(|j| k[0][j] * q[j]).sum::<f64>() / self.ei;
         let moment = (0..4).map(|j| k[1][j] * q[j]).sum::<f64>() / self.ei;
+        [q[0], q[1], moment, shear]
+    }
+
+    /// Deflection and slope at distance `x` from the left end, carried from the left-end state
+    /// by the Krylov–Duncan functions, summed as series. Accurate while β·x stays below about 2;
+    /// the shape solver cuts members into pieces short enough for that.
+    pub(crate) fn propagate(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
+        let [w0, t0, moment, shear] = state;
         let b4 = self.m * omega * omega / self.ei;
         let s = krylov(b4, x);
-        let w = q[0] * s[0] + q[1] * s[1] - moment * s[2] + shear * s[3];
-        let slope = q[0] * b4 * s[3] + q[1] * s[0] - moment * s[1] + shear * s[2];
+        let w = w0 * s[0] + t0 * s[1] - moment * s[2] + shear * s[3];
+        let slope = w0 * b4 * s[3] + t0 * s[0] - moment * s[1] + shear * s[2];
         (w, slope)
     }
 }
@@ -252,8 +256,9 @@ mod tests {
         let member = Euler { length: 0.4, ei: 2.0, m: 3.0 };
         let omega = 9.0; // λ ≈ 1.0
         let q = [0.3, -1.2, 0.8, 0.5];
-        let (w0, t0) = member.deflection(omega, q, 0.0);
-        let (w1, t1) = member.deflection(omega, q, member.length);
+        let state = member.start_state(omega, q);
+        let (w0, t0) = member.propagate(omega, state, 0.0);
+        let (w1, t1) = member.propagate(omega, state, member.length);
         for (got, want) in [(w0, q[0]), (t0, q[1]), (w1, q[2]), (t1, q[3])] {
             assert!((got - want).abs() < 1e-12, "{got} vs {want}");
         }

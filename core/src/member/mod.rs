@@ -1,8 +1,10 @@
 //! Uniform beam members: their exact dynamic stiffness, clamped–clamped count and interior shape.
 
 mod euler;
+mod timoshenko;
 
 pub(crate) use euler::Euler;
+pub(crate) use timoshenko::Timoshenko;
 
 use crate::model::{Segment, Theory};
 
@@ -10,44 +12,63 @@ use crate::model::{Segment, Theory};
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub(crate) enum Member {
     Euler(Euler),
+    Timoshenko(Timoshenko),
 }
 
 impl Member {
     /// The member of `length` cut from `segment` under `theory`.
     pub(crate) fn new(segment: &Segment, length: f64, theory: Theory) -> Member {
         match theory {
-            Theory::EulerBernoulli | Theory::Timoshenko => {
+            Theory::Timoshenko => match segment.shear_rigidity {
+                Some(kga) => Member::Timoshenko(Timoshenko {
+                    length,
+                    ei: segment.flexural_rigidity,
+                    kga,
+                    m: segment.mass_per_length,
+                    rho_i: segment.rotary_inertia_per_length,
+                }),
+                None => {
+                    Member::Euler(Euler { length, ei: segment.flexural_rigidity, m: segment.mass_per_length })
+                }
+            },
+            Theory::EulerBernoulli => {
                 Member::Euler(Euler { length, ei: segment.flexural_rigidity, m: segment.mass_per_length })
             }
         }
     }
 
-    /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω.
-    pub(crate) fn stiffness(&self, omega: f64) -> [[f64; 4]; 4] {
+    /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
+    /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀).
+    pub(crate) fn stiffness_and_count(&self, omega: f64) -> ([[f64; 4]; 4], usize) {
         match self {
-            Member::Euler(e) => e.stiffness(omega),
+            Member::Euler(e) => (e.stiffness(omega), e.clamped_count(omega)),
+            Member::Timoshenko(t) => t.stiffness_and_count(omega),
         }
     }
 
-    /// Number of clamped–clamped natural frequencies strictly below ω (the member's share of J₀).
-    pub(crate) fn clamped_count(&self, omega: f64) -> usize {
+    /// The state at the left end from which [`Member::propagate`] carries the shape inside the
+    /// member; linear in the end values `q`.
+    pub(crate) fn start_state(&self, omega: f64, q: [f64; 4]) -> [f64; 4] {
         match self {
-            Member::Euler(e) => e.clamped_count(omega),
+            Member::Euler(e) => e.start_state(omega, q),
+            Member::Timoshenko(t) => t.start_state(omega, q),
         }
     }
 
-    /// Deflection and rotation at `x` from the left end for end displacements `q`.
-    pub(crate) fn deflection(&self, omega: f64, q: [f64; 4], x: f64) -> (f64, f64) {
+    /// Deflection and rotation at `x` from the left end, given the left-end state.
+    pub(crate) fn propagate(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
         match self {
-            Member::Euler(e) => e.deflection(omega, q, x),
+            Member::Euler(e) => e.propagate(omega, state, x),
+            Member::Timoshenko(t) => t.propagate(omega, state, x),
         }
     }
 
-    /// A dimensionless wavenumber-length: how many "radians of bending wave" fit in the member
-    /// at ω. Used to cut members into pieces short enough for the interior shape.
-    pub(crate) fn wave_length_parameter(&self, omega: f64) -> f64 {
+    /// Pieces to cut this member into for its interior shape at ω: short enough that the
+    /// interior formulas are accurate and no piece reaches its own clamped–clamped frequency.
+    pub(crate) fn shape_pieces(&self, omega: f64) -> usize {
         match self {
-            Member::Euler(e) => e.lambda(omega),
+            Member::Euler(e) => (e.lambda(omega) / 1.0).ceil().max(1.0) as usize,
+            Member::Timoshenko(t) => t.pieces(omega).max(t.lambda(omega).ceil() as usize),
         }
     }
 
@@ -56,6 +77,7 @@ impl Member {
     pub(crate) fn pole_free_pieces(&self, omega_max: f64) -> usize {
         match self {
             Member::Euler(e) => (e.lambda(omega_max) / 3.5).ceil().max(1.0) as usize,
+            Member::Timoshenko(t) => t.pieces(omega_max),
         }
     }
 }
