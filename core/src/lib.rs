@@ -6,5 +6,9 @@
 //! - Frequencies are reported in hertz, ascending; angular frequency ω = 2πf is used internally.
 
 pub mod error;
+pub mod units;
+
+#[cfg(test)]
+mod test_support;
 
 pub use error::{Error, ErrorKind, Result};
