@@ -12,6 +12,8 @@ pub mod section;
 pub mod units;
 
 #[cfg(test)]
+mod robustness;
+#[cfg(test)]
 mod test_support;
 
 pub use error::{Error, ErrorKind, Result};
