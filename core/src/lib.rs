@@ -6,6 +6,15 @@
 //! - Frequencies are reported in hertz, ascending; angular frequency ω = 2πf is used internally.
 
 pub mod error;
+pub mod extra_mass;
+pub mod material;
+pub mod section;
+pub mod units;
+
+#[cfg(test)]
+mod robustness;
+#[cfg(test)]
+mod test_support;
 
 pub use error::{Error, ErrorKind, Result};
 pub mod model;

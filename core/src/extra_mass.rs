@@ -1,0 +1,174 @@
+//! Mass per length that moves with a beam besides its own material: pipe contents, lining and the
+//! water a submerged member drags along.
+//!
+//! - Contents fill the bore and move with the pipe in bending: m = ρ_f · A_bore.
+//! - A circular cylinder vibrating in still water far from walls and the free surface carries an
+//!   added mass m_a = C_a · ρ_w · π·D_o²/4 with C_a ≈ 1, the standard potential-flow result that
+//!   offshore design practice uses (from memory). Only round sections are modelled: for other
+//!   shapes the coefficient depends on the shape and direction, and none is cited here.
+
+#[cfg(test)]
+mod tests;
+
+use crate::error::{Error, ErrorKind};
+use crate::section::SectionProps;
+use crate::units::{self, Conversion, Kind, Quantity};
+use std::f64::consts::PI;
+
+/// Water density assumed for a submerged member, kg/m³: seawater, the common offshore design
+/// value (from memory). Write 1000 kg/m³ for fresh water.
+pub const DEFAULT_WATER_DENSITY: f64 = 1025.0;
+
+/// Added-mass coefficient C_a assumed for a submerged circular cylinder.
+pub const DEFAULT_ADDED_MASS_COEFFICIENT: f64 = 1.0;
+
+/// Non-structural mass as written in a scenario; every part is optional.
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
+#[serde(default, deny_unknown_fields)]
+pub struct ExtraMassInput {
+    /// Density of a fluid or solid filling the bore.
+    pub contents_density: Option<Quantity>,
+    /// Mass per length of insulation, lining, cables and the like.
+    pub lining: Option<Quantity>,
+    /// Present when the member vibrates in water.
+    pub submerged: Option<Submerged>,
+}
+
+/// The surrounding water of a submerged member.
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
+#[serde(default, deny_unknown_fields)]
+pub struct Submerged {
+    /// Water density; [`DEFAULT_WATER_DENSITY`] (seawater) when omitted.
+    pub water_density: Option<Quantity>,
+    /// Added-mass coefficient C_a; [`DEFAULT_ADDED_MASS_COEFFICIENT`] when omitted.
+    pub added_mass_coefficient: Option<Quantity>,
+}
+
+/// Mass per length of each part, kg/m.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct MassBreakdown {
+    /// The beam's own material: ρ·A.
+    pub structural: f64,
+    /// Contents of the bore.
+    pub contents: f64,
+    /// Lining, insulation, cables.
+    pub lining: f64,
+    /// Added mass of the surrounding water.
+    pub added_water: f64,
+    /// Unit conversions applied to the written values.
+    pub conversions: Vec<Conversion>,
+}
+
+impl MassBreakdown {
+    /// Total mass per length that moves with the beam, kg/m.
+    pub fn total(&self) -> f64 {
+        self.structural + self.contents + self.lining + self.added_water
+    }
+}
+
+/// Adds up the mass per length of a section of material density `material_density` (kg/m³) and
+/// the extra mass described by `extra`.
+///
+/// Errors carry a path relative to `extra` (`contents_density`, `submerged.water_density`).
+pub fn breakdown(
+    section: &SectionProps,
+    material_density: f64,
+    extra: &ExtraMassInput,
+) -> Result<MassBreakdown, Error> {
+    if !(material_density.is_finite() && material_density > 0.0) {
+        return Err(Error::new(ErrorKind::OutOfRange, "the material density must be positive and finite")
+            .with_value(material_density));
+    }
+    let structural = material_density * section.area;
+    if !(structural.is_finite() && structural > 0.0) {
+        return Err(Error::new(ErrorKind::OutOfRange, "the section area must be positive and finite")
+            .with_value(section.area));
+    }
+    let mut conversions = Vec::new();
+    let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
+        let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
+        conversions.extend(converted.conversion);
+        Ok::<f64, Error>(converted.si)
+    };
+    let not_negative = |value: f64, quantity: &Quantity, field: &str, what: &str| {
+        if value >= 0.0 {
+            Ok(value)
+        } else {
+            Err(Error::new(ErrorKind::OutOfRange, format!("{what} must not be negative"))
+                .at(field)
+                .with_value(quantity))
+        }
+    };
+
+    let contents = match &extra.contents_density {
+        None => 0.0,
+        Some(quantity) => {
+            if section.bore_area.is_nan() || section.bore_area <= 0.0 {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    "the section is solid: it has no bore to hold contents (use a tube or \
+                     rectangular tube, or give the contents as lining mass per length)",
+                )
+                .at("contents_density")
+                .with_value(quantity));
+            }
+            let rho = read(quantity, Kind::Density, "contents_density")?;
+            not_negative(rho, quantity, "contents_density", "the contents density")? * section.bore_area
+        }
+    };
+
+    let lining = match &extra.lining {
+        None => 0.0,
+        Some(quantity) => not_negative(
+            read(quantity, Kind::MassPerLength, "lining")?,
+            quantity,
+            "lining",
+            "the lining mass",
+        )?,
+    };
+
+    let added_water = match &extra.submerged {
+        None => 0.0,
+        Some(submerged) => {
+            let Some(d_o) = section.outer_diameter else {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    "submerged added mass is only modelled for round sections (round bar or tube)",
+                )
+                .at("submerged"));
+            };
+            let rho_w = match &submerged.water_density {
+                None => DEFAULT_WATER_DENSITY,
+                Some(quantity) => {
+                    let field = "submerged.water_density";
+                    let rho_w = read(quantity, Kind::Density, field)?;
+                    if rho_w <= 0.0 {
+                        return Err(Error::new(ErrorKind::OutOfRange, "the water density must be positive")
+                            .at(field)
+                            .with_value(quantity));
+                    }
+                    rho_w
+                }
+            };
+            let c_a = match &submerged.added_mass_coefficient {
+                None => DEFAULT_ADDED_MASS_COEFFICIENT,
+                Some(quantity) => {
+                    let field = "submerged.added_mass_coefficient";
+                    not_negative(
+                        read(quantity, Kind::Ratio, field)?,
+                        quantity,
+                        field,
+                        "the added-mass coefficient",
+                    )?
+                }
+            };
+            c_a * rho_w * PI * d_o * d_o / 4.0
+        }
+    };
+
+    let result = MassBreakdown { structural, contents, lining, added_water, conversions };
+    if !result.total().is_finite() {
+        return Err(Error::new(ErrorKind::OutOfRange, "the mass per length is too large to compute"));
+    }
+    Ok(result)
+}

@@ -1,0 +1,336 @@
+//! Cross-sections: area, second moment, shear coefficient and bore of the common beam shapes.
+//!
+//! Every dimension is read with its unit and checked once here; the solver only sees the
+//! resulting [`SectionProps`] in SI. Bending is about the axis perpendicular to `depth`, that is,
+//! `depth` is measured in the plane of vibration.
+
+mod shear;
+#[cfg(test)]
+mod tests;
+#[cfg(test)]
+mod tests_grid;
+
+use crate::error::{Error, ErrorKind};
+use crate::units::{self, Conversion, Kind, Quantity};
+use std::f64::consts::PI;
+
+/// Which principal axis an I-section bends about.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+#[non_exhaustive]
+pub enum BendingAxis {
+    /// Bending about the axis parallel to the flanges: the web lies in the plane of vibration.
+    #[default]
+    Strong,
+    /// Bending about the axis of the web: the flanges lie in the plane of vibration.
+    Weak,
+}
+
+/// A cross-section as written in a scenario, every dimension a [`Quantity`] with its unit.
+///
+/// Unknown fields are rejected: `deny_unknown_fields` works with this internally tagged enum
+/// because every variant is a struct variant (the tests check it).
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
+#[serde(tag = "shape", rename_all = "kebab-case", deny_unknown_fields)]
+#[non_exhaustive]
+pub enum SectionInput {
+    /// Solid rectangle; `depth` is measured in the plane of vibration.
+    Rectangle {
+        /// Side across the plane of vibration.
+        width: Quantity,
+        /// Side in the plane of vibration.
+        depth: Quantity,
+    },
+    /// Solid round bar.
+    Round {
+        /// Diameter.
+        diameter: Quantity,
+    },
+    /// Round tube or pipe.
+    Tube {
+        /// Outer diameter.
+        outer_diameter: Quantity,
+        /// Wall thickness.
+        wall: Quantity,
+    },
+    /// Rectangular hollow section with a uniform wall.
+    RectangularTube {
+        /// Outer side across the plane of vibration.
+        width: Quantity,
+        /// Outer side in the plane of vibration.
+        depth: Quantity,
+        /// Wall thickness.
+        wall: Quantity,
+    },
+    /// I-section (wide flange) with equal flanges, corner fillets ignored.
+    IBeam {
+        /// Overall depth, outside of flange to outside of flange.
+        depth: Quantity,
+        /// Width of each flange.
+        flange_width: Quantity,
+        /// Thickness of each flange.
+        flange_thickness: Quantity,
+        /// Thickness of the web.
+        web_thickness: Quantity,
+        /// The axis of bending; strong by default.
+        #[serde(default)]
+        axis: BendingAxis,
+    },
+    /// Properties given directly, for shapes not listed.
+    Custom {
+        /// Cross-section area.
+        area: Quantity,
+        /// Second moment of area about the bending axis.
+        second_moment: Quantity,
+        /// Depth in the plane of vibration; defaults to √(12·I/A), the depth of the rectangle
+        /// with the same radius of gyration.
+        #[serde(default)]
+        depth: Option<Quantity>,
+        /// Shear coefficient κ in (0, 1]; defaults to Cowper's solid-rectangle value for the
+        /// material's Poisson's ratio.
+        #[serde(default)]
+        shear_coefficient: Option<Quantity>,
+    },
+}
+
+/// Section properties in SI, ready for the solver.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct SectionProps {
+    /// Cross-section area, m².
+    pub area: f64,
+    /// Second moment of area about the bending axis, m⁴.
+    pub second_moment: f64,
+    /// Depth in the plane of vibration, m, for slenderness checks.
+    pub depth: f64,
+    /// Timoshenko shear coefficient κ (Cowper 1966).
+    pub shear_coefficient: f64,
+    /// Outer diameter of round shapes, m, for the added mass of surrounding water.
+    pub outer_diameter: Option<f64>,
+    /// Open internal area that can hold contents, m²; 0 for solid shapes.
+    pub bore_area: f64,
+    /// Unit conversions applied to the written dimensions.
+    pub conversions: Vec<Conversion>,
+}
+
+/// Computes the properties of a section for a material with Poisson's ratio `poisson`.
+///
+/// Errors carry a path relative to the section (`wall`), which the caller prefixes.
+pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Error> {
+    if !(poisson.is_finite() && (0.0..0.5).contains(&poisson)) {
+        return Err(Error::new(ErrorKind::OutOfRange, "Poisson's ratio must be at least 0 and below 0.5")
+            .with_value(poisson));
+    }
+    let mut read = Reader::default();
+    let mut props = match input {
+        SectionInput::Rectangle { width, depth } => {
+            let (b, h) = (read.positive(width, "width")?, read.positive(depth, "depth")?);
+            solid(b * h, b * h.powi(3) / 12.0, h, shear::rectangle(poisson))
+        }
+        SectionInput::Round { diameter } => {
+            let d = read.positive(diameter, "diameter")?;
+            let mut props = solid(PI * d * d / 4.0, PI * d.powi(4) / 64.0, d, shear::circle(poisson));
+            props.outer_diameter = Some(d);
+            props
+        }
+        SectionInput::Tube { outer_diameter, wall } => {
+            let (d_o, t) = (read.positive(outer_diameter, "outer_diameter")?, read.positive(wall, "wall")?);
+            if t >= d_o / 2.0 {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    format!(
+                        "the wall ({wall}) must be thinner than half the outer diameter ({outer_diameter})"
+                    ),
+                )
+                .at("wall")
+                .with_value(wall));
+            }
+            tube(d_o, t, poisson)
+        }
+        SectionInput::RectangularTube { width, depth, wall } => {
+            let (b, h) = (read.positive(width, "width")?, read.positive(depth, "depth")?);
+            let t = read.positive(wall, "wall")?;
+            if t >= b.min(h) / 2.0 {
+                let smaller = if b <= h { width } else { depth };
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    format!("the wall ({wall}) must be thinner than half the smaller side ({smaller})"),
+                )
+                .at("wall")
+                .with_value(wall));
+            }
+            rectangular_tube(b, h, t, poisson)
+        }
+        SectionInput::IBeam { depth, flange_width, flange_thickness, web_thickness, axis } => {
+            let h = read.positive(depth, "depth")?;
+            let b = read.positive(flange_width, "flange_width")?;
+            let t_f = read.positive(flange_thickness, "flange_thickness")?;
+            let t_w = read.positive(web_thickness, "web_thickness")?;
+            if 2.0 * t_f >= h {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    format!(
+                        "the two flanges (2 × {flange_thickness}) must be thinner than the depth ({depth})"
+                    ),
+                )
+                .at("flange_thickness")
+                .with_value(flange_thickness));
+            }
+            if t_w > b {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    format!(
+                        "the web ({web_thickness}) must not be thicker than the flange width ({flange_width})"
+                    ),
+                )
+                .at("web_thickness")
+                .with_value(web_thickness));
+            }
+            i_beam(h, b, t_f, t_w, *axis, poisson)
+        }
+        SectionInput::Custom { area, second_moment, depth, shear_coefficient } => {
+            let a = read.positive_of(area, Kind::Area, "area")?;
+            let i = read.positive_of(second_moment, Kind::SecondMoment, "second_moment")?;
+            let h = match depth {
+                Some(depth) => read.positive(depth, "depth")?,
+                None => (12.0 * i / a).sqrt(),
+            };
+            let kappa = match shear_coefficient {
+                Some(kappa) => read.shear_coefficient(kappa)?,
+                None => shear::rectangle(poisson),
+            };
+            solid(a, i, h, kappa)
+        }
+    };
+    for (value, name) in [
+        (props.area, "area"),
+        (props.second_moment, "second moment of area"),
+        (props.depth, "depth"),
+        (props.shear_coefficient, "shear coefficient"),
+    ] {
+        // Extreme but individually valid dimensions (1e-200 m, 1e200 m) can still underflow or
+        // overflow once raised to the fourth power.
+        if !(value.is_finite() && value > 0.0) {
+            return Err(Error::new(
+                ErrorKind::OutOfRange,
+                format!(
+                    "the section's {name} ({value:e}) is outside what can be computed; check the dimensions"
+                ),
+            ));
+        }
+    }
+    props.conversions = read.conversions;
+    Ok(props)
+}
+
+fn solid(area: f64, second_moment: f64, depth: f64, shear_coefficient: f64) -> SectionProps {
+    SectionProps {
+        area,
+        second_moment,
+        depth,
+        shear_coefficient,
+        outer_diameter: None,
+        bore_area: 0.0,
+        conversions: Vec::new(),
+    }
+}
+
+fn tube(d_o: f64, t: f64, poisson: f64) -> SectionProps {
+    let d_i = d_o - 2.0 * t;
+    // D² − d² = 4t(D − t) avoids the cancellation of subtracting two close squares for thin walls.
+    let difference_of_squares = 4.0 * t * (d_o - t);
+    SectionProps {
+        area: PI * difference_of_squares / 4.0,
+        second_moment: PI * difference_of_squares * (d_o * d_o + d_i * d_i) / 64.0,
+        depth: d_o,
+        shear_coefficient: shear::hollow_circle(poisson, d_i / d_o),
+        outer_diameter: Some(d_o),
+        bore_area: PI * d_i * d_i / 4.0,
+        conversions: Vec::new(),
+    }
+}
+
+fn rectangular_tube(b: f64, h: f64, t: f64, poisson: f64) -> SectionProps {
+    let (b_i, h_i) = (b - 2.0 * t, h - 2.0 * t);
+    SectionProps {
+        area: b * h - b_i * h_i,
+        second_moment: (b * h.powi(3) - b_i * h_i.powi(3)) / 12.0,
+        depth: h,
+        // Cowper's thin-walled formula is written with wall centreline dimensions.
+        shear_coefficient: shear::thin_walled_box(poisson, b - t, h - t, t, t),
+        outer_diameter: None,
+        bore_area: b_i * h_i,
+        conversions: Vec::new(),
+    }
+}
+
+fn i_beam(h: f64, b: f64, t_f: f64, t_w: f64, axis: BendingAxis, poisson: f64) -> SectionProps {
+    let h_w = h - 2.0 * t_f;
+    let flange_area = 2.0 * b * t_f;
+    let area = flange_area + h_w * t_w;
+    let (second_moment, depth, shear_coefficient) = match axis {
+        BendingAxis::Strong => (
+            (b * h.powi(3) - (b - t_w) * h_w.powi(3)) / 12.0,
+            h,
+            shear::thin_walled_i(poisson, b, h - t_f, t_f, t_w),
+        ),
+        BendingAxis::Weak => (
+            (2.0 * t_f * b.powi(3) + h_w * t_w.powi(3)) / 12.0,
+            b,
+            shear::i_weak_axis(poisson, flange_area, area),
+        ),
+    };
+    SectionProps {
+        area,
+        second_moment,
+        depth,
+        shear_coefficient,
+        outer_diameter: None,
+        bore_area: 0.0,
+        conversions: Vec::new(),
+    }
+}
+
+/// Reads dimensions with their units, checks their range and keeps the conversions applied.
+#[derive(Default)]
+struct Reader {
+    conversions: Vec<Conversion>,
+}
+
+impl Reader {
+    fn positive(&mut self, quantity: &Quantity, field: &str) -> Result<f64, Error> {
+        self.positive_of(quantity, Kind::Length, field)
+    }
+
+    fn positive_of(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
+        let value = self.read(quantity, kind, field)?;
+        if value > 0.0 {
+            Ok(value)
+        } else {
+            Err(Error::new(
+                ErrorKind::OutOfRange,
+                format!("the {} must be positive", field.replace('_', " ")),
+            )
+            .at(field)
+            .with_value(quantity))
+        }
+    }
+
+    fn shear_coefficient(&mut self, quantity: &Quantity) -> Result<f64, Error> {
+        let value = self.read(quantity, Kind::Ratio, "shear_coefficient")?;
+        if value > 0.0 && value <= 1.0 {
+            Ok(value)
+        } else {
+            let mut message = "the shear coefficient κ must be above 0 and at most 1".to_string();
+            if value > 1.0 {
+                message.push_str(&format!(" (a value such as {value} may be the form factor 1/κ)"));
+            }
+            Err(Error::new(ErrorKind::OutOfRange, message).at("shear_coefficient").with_value(quantity))
+        }
+    }
+
+    fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
+        let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
+        self.conversions.extend(converted.conversion);
+        Ok(converted.si)
+    }
+}

@@ -1,0 +1,240 @@
+//! Reading quantities with units ("27.2 in", "0.283 lb/in³") into SI, and writing SI values back
+//! in a chosen unit system.
+//!
+//! # Why our own table
+//! The crates we could use either check units at compile time (which cannot read a unit typed
+//! into a scenario at run time) or parse unit strings without the dimension checks and the
+//! pound-mass / pound-force distinction this engine depends on. The set of units a beam scenario
+//! needs is small, so the crate keeps its own table ([`unit_list`]) with exact factors from
+//! NIST SP 811, and a small grammar, both covered by tests against those definitions.
+//!
+//! # Conventions
+//! - A plain JSON number is already SI. A string without a unit (`"2.5"`) is SI too.
+//! - `lb` (and `lbm`) is always pound-mass; pound-force is `lbf`. A density in `lb/in³` is
+//!   therefore converted as a mass density, never as lbf·s²/in⁴.
+//! - Frequencies are stored in hertz. A frequency field accepts Hz, kHz, rpm, cpm (cycles per
+//!   minute) and rad/s; the cycle units are accepted nowhere else.
+//! - Angles are dimensionless: `N·m/rad` and `N·m` are both rotational stiffnesses.
+//! - Every conversion applied to a written unit is returned as a [`Conversion`] so that the user
+//!   can see it.
+
+mod display;
+mod kind;
+mod list;
+mod parse;
+pub(crate) mod table;
+
+#[cfg(test)]
+mod tests;
+#[cfg(test)]
+mod tests_display;
+
+pub use display::{display_unit, format, DisplayUnit, UnitSystem};
+pub use kind::Kind;
+pub use list::{unit_list, UnitInfo};
+
+use crate::error::{Error, ErrorKind};
+use parse::Factor;
+use table::{Class, Dim};
+
+/// A value as written in a scenario: a plain number (already SI) or text with a unit, "27.2 in".
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
+#[serde(untagged)]
+pub enum Quantity {
+    /// A number in SI units (hertz for frequencies).
+    Number(f64),
+    /// A number with an optional unit, as in "27.2 in"; without a unit it is SI.
+    Text(String),
+}
+
+impl std::fmt::Display for Quantity {
+    /// Writes the value as the user gave it: "27.2 in", or the bare SI number.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            Quantity::Number(value) => write!(f, "{value}"),
+            Quantity::Text(text) => f.write_str(&shorten(text.trim())),
+        }
+    }
+}
+
+impl From<f64> for Quantity {
+    fn from(value: f64) -> Self {
+        Quantity::Number(value)
+    }
+}
+
+impl From<&str> for Quantity {
+    fn from(text: &str) -> Self {
+        Quantity::Text(text.to_string())
+    }
+}
+
+/// A value converted to SI, with the record of the conversion when a unit was converted.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Converted {
+    /// The value in SI units (hertz for frequencies).
+    pub si: f64,
+    /// What was converted, or `None` when the value was already SI.
+    pub conversion: Option<Conversion>,
+}
+
+/// A record of one conversion applied, for display: "0.283 lb/in³ = 7833.4 kg/m³".
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct Conversion {
+    /// The value as written, tidied: "0.283 lb/in³".
+    pub written: String,
+    /// The SI value.
+    pub si: f64,
+    /// The SI unit of `si`, for example "kg/m³".
+    pub si_unit: &'static str,
+    /// The whole conversion in words, "0.283 lb/in³ = 7833.4 kg/m³".
+    pub text: String,
+}
+
+/// Converts a scenario value to SI for a field of the given kind.
+///
+/// A [`Quantity::Number`] is taken as SI and produces no conversion record; it must be finite.
+/// Errors carry the offending value but no path: the caller adds the field path with
+/// [`Error::at`].
+pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
+    match quantity {
+        Quantity::Number(value) if value.is_finite() => Ok(Converted { si: *value, conversion: None }),
+        Quantity::Number(value) => {
+            Err(Error::new(ErrorKind::NotFinite, "the value must be a finite number").with_value(value))
+        }
+        Quantity::Text(text) => parse(text, kind),
+    }
+}
+
+/// Reads a quantity string such as "27.2 in" for a field of the given kind and converts it to SI.
+pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
+    let shown = shorten(text.trim());
+    let parsed = parse::parse_text(text).map_err(|mut e| {
+        if e.kind == ErrorKind::UnknownUnit {
+            let examples = display::examples(kind).join(", ");
+            let described = kind.describe();
+            let mut sentence = described.chars();
+            let capital: String =
+                sentence.next().map(|c| c.to_uppercase().chain(sentence).collect()).unwrap_or_default();
+            let separator = if e.message.ends_with('?') { " " } else { ". " };
+            e.message = format!("{}{separator}{capital} is written in units like {examples}", e.message);
+        }
+        e.with_value(&shown)
+    })?;
+    if parsed.factors.is_empty() {
+        return Ok(Converted { si: parsed.number, conversion: None });
+    }
+    let factor = unit_factor(&parsed.factors, kind, &shown).map_err(|e| e.with_value(&shown))?;
+    let si = parsed.number * factor;
+    if !si.is_finite() {
+        return Err(Error::new(
+            ErrorKind::NotFinite,
+            format!("{shown} is too large to represent in SI (it overflows a 64-bit float)"),
+        )
+        .with_value(&shown));
+    }
+    let conversion = (factor != 1.0).then(|| {
+        let written = format!("{} {}", parsed.number_text, pretty_unit(&parsed.factors));
+        let si_unit = kind.si_unit();
+        let text = format!("{written} = {} {si_unit}", display::format_number(si, 5)).trim_end().to_string();
+        Conversion { written, si, si_unit, text }
+    });
+    Ok(Converted { si, conversion })
+}
+
+/// The SI value of one of the written unit, checked against the field's kind.
+fn unit_factor(factors: &[Factor], kind: Kind, shown: &str) -> Result<f64, Error> {
+    let mut dim = table::NONE;
+    let mut factor = 1.0;
+    let mut angle_power = 0;
+    let mut pound_mass_power = 0;
+    let mut pound_force_power = 0;
+    for f in factors {
+        dim = dim.times(f.unit.dim.pow(f.power));
+        factor *= f.unit.factor.powi(f.power);
+        match f.unit.class {
+            Class::Angle => angle_power += f.power,
+            Class::PoundMass => pound_mass_power += f.power,
+            Class::PoundForce => pound_force_power += f.power,
+            Class::Cycle => return cycle_unit(factors, f, kind, shown),
+            Class::Plain => {}
+        }
+    }
+    if kind == Kind::Frequency {
+        if dim == table::PER_TIME && angle_power == 1 {
+            // An angular frequency in rad/s; the field stores cycles per second.
+            return Ok(factor / std::f64::consts::TAU);
+        }
+        let mut message = format!("expected a frequency, got {} ({shown})", kind::describe_dim(dim));
+        if dim == table::PER_TIME {
+            message = format!(
+                "a frequency needs a unit that says what is counted: write Hz, kHz, rpm, cpm or rad/s, \
+                 not {shown}"
+            );
+        }
+        return Err(Error::new(ErrorKind::WrongDimension, message));
+    }
+    if dim == kind.dim() {
+        return Ok(factor);
+    }
+    let mut message = format!("expected {}, got {} ({shown})", kind.describe(), kind::describe_dim(dim));
+    // Reading every lb as lbf (or the reverse) would make the dimension fit: say which was meant.
+    let force_per_mass = Dim::new(0, 1, -2);
+    if pound_mass_power != 0 && dim.times(force_per_mass.pow(pound_mass_power)) == kind.dim() {
+        message.push_str("; lb is pound-mass: write lbf for pound-force");
+    } else if pound_force_power != 0 && dim.times(force_per_mass.pow(-pound_force_power)) == kind.dim() {
+        message.push_str("; lbf is pound-force: write lb for pound-mass");
+    }
+    Err(Error::new(ErrorKind::WrongDimension, message))
+}
+
+/// Cycle units (Hz, rpm) are only valid alone and only in a frequency field.
+fn cycle_unit(factors: &[Factor], cycle: &Factor, kind: Kind, shown: &str) -> Result<f64, Error> {
+    if kind != Kind::Frequency {
+        return Err(Error::new(
+            ErrorKind::WrongDimension,
+            format!(
+                "expected {}, got a frequency ({shown}); {} is accepted only in frequency fields",
+                kind.describe(),
+                cycle.symbol
+            ),
+        ));
+    }
+    if factors.len() != 1 || cycle.power != 1 {
+        return Err(Error::new(
+            ErrorKind::WrongDimension,
+            format!(
+                "write {} on its own, not {shown}: a frequency is Hz, kHz, rpm, cpm or rad/s",
+                cycle.symbol
+            ),
+        ));
+    }
+    Ok(cycle.unit.factor)
+}
+
+/// The unit expression written tidily: `lb/in^3` becomes `lb/in³`, `N*m` becomes `N·m`.
+fn pretty_unit(factors: &[Factor]) -> String {
+    let power = |f: &Factor| {
+        let superscript = match f.power.abs() {
+            1 => "",
+            2 => "²",
+            3 => "³",
+            _ => "⁴",
+        };
+        format!("{}{superscript}", f.symbol)
+    };
+    let numerator: Vec<String> = factors.iter().filter(|f| f.power > 0).map(power).collect();
+    let denominator: String =
+        factors.iter().filter(|f| f.power < 0).map(|f| format!("/{}", power(f))).collect();
+    format!("{}{denominator}", numerator.join("·"))
+}
+
+/// Keeps error values readable when someone pastes a whole paragraph into a field.
+fn shorten(text: &str) -> String {
+    const LIMIT: usize = 60;
+    if text.chars().count() <= LIMIT {
+        text.to_string()
+    } else {
+        format!("{}…", text.chars().take(LIMIT).collect::<String>())
+    }
+}

@@ -1,0 +1,220 @@
+//! The grammar of a quantity string: a number, then an optional unit expression.
+//!
+//! ```text
+//! quantity   = number [ws] [units]
+//! number     = [+-] digits [. digits] [(e|E) [+-] digits]     (or . digits)
+//! units      = factor { [ws] ("*" | "·" | "⋅") [ws] factor } { [ws] "/" [ws] factor }
+//! factor     = symbol [ "^" (1|2|3|4) | "¹" | "²" | "³" | "⁴" ]
+//! ```
+//!
+//! A space between two units is rejected rather than read as a product, because `N m` next to
+//! `N/m` is too easy to misread. Everything after the first `/` is a denominator, and a `*` after a
+//! `/` is rejected as ambiguous (`kg/m*s`): each denominator unit takes its own `/` (`kg/m/s`).
+//! This module checks only the grammar; dimensions are checked by the caller.
+
+use super::table::{self, Unit};
+use crate::error::{Error, ErrorKind};
+
+/// At most this many units in one expression; real ones need three or four.
+const MAX_FACTORS: usize = 8;
+
+/// One unit of an expression with its signed power (negative in the denominator).
+#[derive(Clone, Copy, Debug)]
+pub(crate) struct Factor {
+    pub(crate) unit: &'static Unit,
+    /// The spelling that was written, as stored in the table.
+    pub(crate) symbol: &'static str,
+    pub(crate) power: i32,
+}
+
+/// A quantity string split into its finite number and its unit factors (empty for a bare number).
+#[derive(Clone, Debug)]
+pub(crate) struct Parsed<'a> {
+    pub(crate) number: f64,
+    pub(crate) number_text: &'a str,
+    pub(crate) factors: Vec<Factor>,
+}
+
+fn syntax(message: impl Into<String>) -> Error {
+    Error::new(ErrorKind::Syntax, message)
+}
+
+/// Splits `text` into a number and unit factors, or says what is wrong with its form.
+pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
+    let s = text.trim();
+    if s.is_empty() {
+        return Err(syntax("the value is empty: write a number, optionally with a unit, as in \"27.2 in\""));
+    }
+    let length = scan_number(s);
+    if length == 0 {
+        return Err(missing_number(s));
+    }
+    let number_text = &s[..length];
+    let number: f64 = number_text
+        .parse()
+        .map_err(|_| syntax(format!("\"{number_text}\" is not a number that can be read")))?;
+    if !number.is_finite() {
+        return Err(Error::new(
+            ErrorKind::NotFinite,
+            format!("the number {number_text} is too large to represent (it overflows a 64-bit float)"),
+        ));
+    }
+    let rest = s[length..].trim_start();
+    let factors = if rest.is_empty() { Vec::new() } else { parse_units(rest)? };
+    Ok(Parsed { number, number_text, factors })
+}
+
+/// The length in bytes of the number at the start of `s`, or 0 when there is none.
+fn scan_number(s: &str) -> usize {
+    let b = s.as_bytes();
+    let digits_from = |mut i: usize| {
+        while i < b.len() && b[i].is_ascii_digit() {
+            i += 1;
+        }
+        i
+    };
+    let mut i = 0;
+    if i < b.len() && (b[i] == b'+' || b[i] == b'-') {
+        i += 1;
+    }
+    let integer_end = digits_from(i);
+    let mut digits = integer_end - i;
+    i = integer_end;
+    if i < b.len() && b[i] == b'.' {
+        let fraction_end = digits_from(i + 1);
+        digits += fraction_end - (i + 1);
+        i = fraction_end;
+    }
+    if digits == 0 {
+        return 0;
+    }
+    if i < b.len() && (b[i] == b'e' || b[i] == b'E') {
+        let mut j = i + 1;
+        if j < b.len() && (b[j] == b'+' || b[j] == b'-') {
+            j += 1;
+        }
+        let exponent_end = digits_from(j);
+        // Only digits make an exponent; otherwise the `e` is left for the unit parser to reject.
+        if exponent_end > j {
+            i = exponent_end;
+        }
+    }
+    i
+}
+
+fn missing_number(s: &str) -> Error {
+    let unsigned = s.trim_start_matches(['+', '-']).to_lowercase();
+    if unsigned.starts_with("nan") || unsigned.starts_with("inf") {
+        return Error::new(ErrorKind::NotFinite, "the value must be a finite number");
+    }
+    match s.chars().next() {
+        Some(c) if c.is_alphabetic() => {
+            syntax("the number is missing: write it before the unit, as in \"27.2 in\"")
+        }
+        _ => syntax("the value must start with a number, as in \"27.2 in\""),
+    }
+}
+
+/// Parses the unit expression that follows the number.
+fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
+    let mut chars = s.chars().peekable();
+    let mut factors = Vec::new();
+    let mut in_denominator = false;
+    loop {
+        let symbol: String = std::iter::from_fn(|| chars.next_if(|c| c.is_alphabetic())).collect();
+        if symbol.is_empty() {
+            return Err(match chars.peek() {
+                Some(c) => syntax(format!("expected a unit symbol where '{c}' stands")),
+                None => syntax("expected a unit symbol at the end"),
+            });
+        }
+        let (unit, spelled) = table::lookup(&symbol).ok_or_else(|| unknown_unit(&symbol))?;
+        let power = parse_power(&mut chars, spelled)?;
+        factors.push(Factor { unit, symbol: spelled, power: if in_denominator { -power } else { power } });
+        if factors.len() > MAX_FACTORS {
+            return Err(syntax(format!("the unit has more than {MAX_FACTORS} parts")));
+        }
+
+        let mut spaced = false;
+        while chars.next_if(|c| c.is_whitespace()).is_some() {
+            spaced = true;
+        }
+        match chars.next() {
+            None => return Ok(factors),
+            Some('*' | '·' | '⋅') if in_denominator => {
+                return Err(syntax(
+                    "'*' after '/' is ambiguous: give each unit of the denominator its own '/', \
+                     as in kg/m/s",
+                ));
+            }
+            Some('*' | '·' | '⋅') => {}
+            Some('/') => in_denominator = true,
+            Some(c) if spaced && c.is_alphabetic() => {
+                return Err(syntax(format!(
+                    "a space between units is not a product: write {spelled}*{c}… or {spelled}·{c}…"
+                )));
+            }
+            Some(c) => return Err(syntax(format!("unexpected '{c}' after the unit {spelled}"))),
+        }
+        while chars.next_if(|c| c.is_whitespace()).is_some() {}
+    }
+}
+
+/// Reads an optional exponent after a unit symbol: `^2` or a superscript digit.
+fn parse_power(chars: &mut std::iter::Peekable<std::str::Chars<'_>>, symbol: &str) -> Result<i32, Error> {
+    let bad_power = || {
+        syntax(format!(
+            "the power of {symbol} must be 1, 2, 3 or 4 (as in {symbol}^2 or {symbol}²); \
+             divide with '/' instead of a negative power"
+        ))
+    };
+    let power = match chars.peek().copied() {
+        Some('^') => {
+            chars.next();
+            match chars.next().and_then(|c| c.to_digit(10)) {
+                Some(d @ 1..=4) => d as i32,
+                _ => return Err(bad_power()),
+            }
+        }
+        Some(c @ ('¹' | '²' | '³' | '⁴')) => {
+            chars.next();
+            match c {
+                '¹' => 1,
+                '²' => 2,
+                '³' => 3,
+                _ => 4,
+            }
+        }
+        Some('⁰' | '⁵'..='⁹' | '⁻') => return Err(bad_power()),
+        Some(c) if c.is_ascii_digit() => {
+            return Err(syntax(format!(
+                "write a power as {symbol}^{c} or with a superscript, not {symbol}{c}"
+            )));
+        }
+        _ => return Ok(1),
+    };
+    // A second digit (`m^22`, `m²³`) would be a power above 4.
+    if chars.peek().is_some_and(|c| c.is_ascii_digit() || "⁰¹²³⁴⁵⁶⁷⁸⁹".contains(*c)) {
+        return Err(bad_power());
+    }
+    Ok(power)
+}
+
+fn unknown_unit(symbol: &str) -> Error {
+    // "lbs" is common in writing but ambiguous between mass and force, which this engine must not
+    // guess.
+    if symbol == "lbs" {
+        return Error::new(
+            ErrorKind::UnknownUnit,
+            "unknown unit \"lbs\": write lb for pound-mass or lbf for pound-force",
+        );
+    }
+    // Very long words are not unit symbols; do not spend time comparing them with the table.
+    let shown: String = symbol.chars().take(24).collect();
+    let similar = if symbol.chars().count() <= 12 { table::similar(symbol) } else { Vec::new() };
+    let mut message = format!("unknown unit \"{shown}\"");
+    if !similar.is_empty() {
+        message.push_str(&format!("; did you mean {}?", similar.join(" or ")));
+    }
+    Error::new(ErrorKind::UnknownUnit, message)
+}
