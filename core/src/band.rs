@@ -35,16 +35,6 @@ impl SymBand {
         SymBand { n, b, data: vec![0.0; n * (b + 1)] }
     }
 
-    /// Order of the matrix.
-    pub(crate) fn order(&self) -> usize {
-        self.n
-    }
-
-    /// Half-bandwidth.
-    pub(crate) fn bandwidth(&self) -> usize {
-        self.b
-    }
-
     /// Adds `v` to A[i][j] (and so to A[j][i]).
     ///
     /// # Panics
@@ -367,7 +357,7 @@ mod tests {
             assert!((log - det.abs().ln()).abs() < 1e-9);
             // A positive definite one through the LDLᵀ path.
             let (spd, dense_spd) = sample(15, 4, 12.0, 200 + seed);
-            let x = spd.solve_positive(&[rhs.clone()]).unwrap().remove(0);
+            let x = spd.solve_positive(std::slice::from_ref(&rhs)).unwrap().remove(0);
             let reference = dense_spd.cholesky().unwrap().solve(&nalgebra::DVector::from_vec(rhs));
             for i in 0..15 {
                 assert!((x[i] - reference[i]).abs() < 1e-12 * (1.0 + reference[i].abs()));

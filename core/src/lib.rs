@@ -31,3 +31,8 @@ pub mod exact;
 pub mod fe;
 
 pub use analysis::{analyse, Analysis, Options};
+pub mod report;
+pub mod scenario;
+
+pub use report::{solve, solve_json, Report};
+pub use scenario::Scenario;

@@ -59,7 +59,8 @@ impl ModeShape {
 
     /// The mass-weighted inner product of two shapes of the same model:
     /// ∫ m·φ·ψ dx + ∫ ρI·φ′·ψ′ dx + Σ point masses and rotary inertias + Σ sprung masses.
-    pub(crate) fn mass_product(&self, other: &ModeShape, model: &Model) -> f64 {
+    /// Zero (to rounding) for two different modes: the modes are mass-orthogonal.
+    pub fn mass_product(&self, other: &ModeShape, model: &Model) -> f64 {
         inner(model, self, other)
     }
 

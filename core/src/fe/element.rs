@@ -129,12 +129,6 @@ impl Element {
         }
         f
     }
-
-    /// Deflection and section rotation at ξ for end values q.
-    pub(crate) fn interpolate(&self, q: [f64; 4], xi: f64) -> (f64, f64) {
-        let n = self.shapes(xi);
-        ((0..4).map(|i| n.w[i] * q[i]).sum(), (0..4).map(|i| n.psi[i] * q[i]).sum())
-    }
 }
 
 #[cfg(test)]
@@ -202,10 +196,9 @@ mod tests {
         let e = element(3.0e4, 0.0);
         let unit = |i: usize| -> [f64; 4] { std::array::from_fn(|j| if i == j { 1.0 } else { 0.0 }) };
         for i in 0..4 {
-            let (w0, t0) = e.interpolate(unit(i), 0.0);
-            let (w1, t1) = e.interpolate(unit(i), 1.0);
+            let (s0, s1) = (e.shapes(0.0), e.shapes(1.0));
             let expect = unit(i);
-            for (got, want) in [w0, t0, w1, t1].iter().zip(expect) {
+            for (got, want) in [s0.w[i], s0.psi[i], s1.w[i], s1.psi[i]].iter().zip(expect) {
                 assert!((got - want).abs() < 1e-14);
             }
             // EI·ψ″ + κGA·(w′ − ψ) = 0 and (w′ − ψ)′ = 0 everywhere (no load).

@@ -138,7 +138,7 @@ impl Timoshenko {
             // Piece `piece` joins station `piece` (local 0,1) and `piece + 1` (local 2,3).
             let ids: [Option<usize>; 4] = std::array::from_fn(|a| {
                 let station = piece + a / 2;
-                (station >= 1 && station <= n - 1).then(|| 2 * (station - 1) + a % 2)
+                (station >= 1 && station < n).then(|| 2 * (station - 1) + a % 2)
             });
             for a in 0..4 {
                 for b in 0..=a {

@@ -38,7 +38,7 @@ use parse::Factor;
 use table::{Class, Dim};
 
 /// A value as written in a scenario: a plain number (already SI) or text with a unit, "27.2 in".
-#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
 #[serde(untagged)]
 pub enum Quantity {
     /// A number in SI units (hertz for frequencies).
@@ -54,6 +54,33 @@ impl std::fmt::Display for Quantity {
             Quantity::Number(value) => write!(f, "{value}"),
             Quantity::Text(text) => f.write_str(&shorten(text.trim())),
         }
+    }
+}
+
+impl<'de> serde::Deserialize<'de> for Quantity {
+    /// Accepts a JSON number or string, with a message that says so for anything else (an
+    /// untagged derive would only say that no variant matched).
+    fn deserialize<D: serde::Deserializer<'de>>(deserializer: D) -> Result<Self, D::Error> {
+        struct Visitor;
+        impl serde::de::Visitor<'_> for Visitor {
+            type Value = Quantity;
+            fn expecting(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+                f.write_str("a number (SI) or a text with a unit, like \"27.2 in\"")
+            }
+            fn visit_f64<E>(self, v: f64) -> Result<Quantity, E> {
+                Ok(Quantity::Number(v))
+            }
+            fn visit_i64<E>(self, v: i64) -> Result<Quantity, E> {
+                Ok(Quantity::Number(v as f64))
+            }
+            fn visit_u64<E>(self, v: u64) -> Result<Quantity, E> {
+                Ok(Quantity::Number(v as f64))
+            }
+            fn visit_str<E>(self, v: &str) -> Result<Quantity, E> {
+                Ok(Quantity::Text(v.to_string()))
+            }
+        }
+        deserializer.deserialize_any(Visitor)
     }
 }
 

@@ -1,0 +1,483 @@
+//! The results of a scenario, in SI, ready to be shown: one row per mode from every method, the
+//! bounds on mode 1, the inputs echoed, every conversion applied, and the warnings.
+//!
+//! Every number in a report is finite; a method that cannot give a value gives `None` (JSON
+//! `null`), never NaN.
+
+use crate::analysis::{self, Analysis, Warning};
+use crate::bounds::Equivalent;
+use crate::error::Result;
+use crate::exact;
+use crate::model::{Attachment, End, Model, Theory};
+use crate::scenario::{Inputs, Scenario, SegmentEcho};
+use crate::units::UnitSystem;
+
+/// Everything shown for one scenario.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct Report {
+    /// The scenario's title.
+    pub title: String,
+    /// Unit system the user chose for display.
+    pub units: UnitSystem,
+    /// Beam theory of the main results.
+    pub theory: Theory,
+    /// The theory of `ModeReport::other_theory_hz`, when both are shown.
+    pub comparison: Option<Theory>,
+    /// The beam as modelled, in SI.
+    pub beam: BeamEcho,
+    /// Rigid-body modes (listed first in `modes`).
+    pub rigid_body_modes: usize,
+    /// One row per mode, ascending.
+    pub modes: Vec<ModeReport>,
+    /// Mode 1 by the approximate methods.
+    pub fundamental: Option<FundamentalReport>,
+    /// The finite-element mesh.
+    pub fe: FeReport,
+    /// Excitations and the margin checked against them.
+    pub excitations: Vec<ExcitationEcho>,
+    /// Separation margin wanted, as a ratio.
+    pub margin: f64,
+    /// Notes for the user.
+    pub warnings: Vec<Warning>,
+    /// Every unit conversion applied to the input.
+    pub conversions: Vec<ConversionEcho>,
+}
+
+/// The beam as modelled.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct BeamEcho {
+    /// Total length, m.
+    pub length: f64,
+    /// Segments left to right.
+    pub segments: Vec<SegmentReport>,
+    /// Left end.
+    pub left: EndEcho,
+    /// Right end.
+    pub right: EndEcho,
+    /// Attachments in input order.
+    pub attachments: Vec<AttachmentEcho>,
+}
+
+/// One segment as modelled.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct SegmentReport {
+    /// Start, m from the left end.
+    pub start: f64,
+    /// End, m from the left end.
+    pub end: f64,
+    /// EI, N·m².
+    pub flexural_rigidity: f64,
+    /// Mass per length, kg/m.
+    pub mass_per_length: f64,
+    /// κGA, N, when known.
+    pub shear_rigidity: Option<f64>,
+    /// How the properties came about.
+    #[serde(flatten)]
+    pub echo: SegmentEcho,
+}
+
+/// An end as modelled. A stiffness of `None` in an elastic end means rigid.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct EndEcho {
+    /// "free", "pinned", "clamped", "guided" or "elastic".
+    pub kind: &'static str,
+    /// Translational spring, N/m (`None`: rigid); elastic ends only.
+    pub translational: Option<f64>,
+    /// Rotational spring, N·m/rad (`None`: rigid); elastic ends only.
+    pub rotational: Option<f64>,
+}
+
+/// An attachment as modelled. A stiffness of `None` on a spring means rigid.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct AttachmentEcho {
+    /// "mass", "spring", "rotational-spring", "support" or "sprung-mass".
+    pub kind: &'static str,
+    /// Position, m from the left end.
+    pub position: f64,
+    /// The user's label, possibly empty.
+    pub label: String,
+    /// Mass, kg.
+    pub mass: Option<f64>,
+    /// Rotary inertia, kg·m².
+    pub rotary_inertia: Option<f64>,
+    /// Stiffness, N/m or N·m/rad (`None` with `rigid`).
+    pub stiffness: Option<f64>,
+    /// Whether a spring is rigid.
+    pub rigid: bool,
+}
+
+/// One mode.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct ModeReport {
+    /// 1-based, rigid-body modes first.
+    pub number: usize,
+    /// A rigid-body mode at 0 Hz.
+    pub rigid_body: bool,
+    /// Coincident frequencies at this value.
+    pub multiplicity: usize,
+    /// Exact natural frequency, Hz.
+    pub frequency_hz: f64,
+    /// The same in revolutions (cycles) per minute.
+    pub rpm: f64,
+    /// Finite-element frequency, Hz.
+    pub fe_frequency_hz: Option<f64>,
+    /// (FE − exact)/exact.
+    pub fe_difference: Option<f64>,
+    /// The other theory's exact frequency, Hz, when `Report::comparison` is set.
+    pub other_theory_hz: Option<f64>,
+    /// Interior points where the deflection changes sign, m.
+    pub nodes: Vec<f64>,
+    /// Modal mass with the shape normalised to a largest translation of 1, kg.
+    pub generalized_mass: f64,
+    /// Sampled mode shape.
+    pub shape: ShapeSamples,
+    /// Translation of each sprung mass in this mode (same normalisation).
+    pub sprung: Vec<SprungAmplitude>,
+    /// The closest excitation (or harmonic) and how far away it is.
+    pub nearest_excitation: Option<Separation>,
+}
+
+/// A sampled mode shape.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct ShapeSamples {
+    /// Positions, m.
+    pub x: Vec<f64>,
+    /// Deflections, largest translation +1.
+    pub w: Vec<f64>,
+}
+
+/// A sprung mass's translation in a mode.
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+pub struct SprungAmplitude {
+    /// Index of the attachment.
+    pub attachment: usize,
+    /// Translation.
+    pub amplitude: f64,
+}
+
+/// The separation of a natural frequency from an excitation.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct Separation {
+    /// Index of the excitation.
+    pub excitation: usize,
+    /// Harmonic order (1 = the excitation itself).
+    pub order: usize,
+    /// The excitation frequency times the order, Hz.
+    pub frequency_hz: f64,
+    /// |f_natural − f_excitation| / f_excitation.
+    pub margin: f64,
+    /// Whether the margin is below the one wanted.
+    pub too_close: bool,
+}
+
+/// An excitation as read.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct ExcitationEcho {
+    /// Its label.
+    pub label: String,
+    /// Frequency, Hz.
+    pub frequency_hz: f64,
+    /// Harmonics checked.
+    pub harmonics: usize,
+}
+
+/// Mode 1 by the approximate methods.
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+pub struct FundamentalReport {
+    /// Exact, Hz.
+    pub exact_hz: f64,
+    /// Rayleigh's quotient with the static deflection curve (upper bound), Hz.
+    pub rayleigh_hz: Option<f64>,
+    /// Dunkerley's sum (lower bound), Hz.
+    pub dunkerley_hz: Option<f64>,
+    /// Equivalent single-degree-of-freedom system at a point.
+    pub equivalent: Option<Equivalent>,
+}
+
+/// The finite-element mesh used.
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+pub struct FeReport {
+    /// Elements.
+    pub elements: usize,
+    /// Unknowns.
+    pub dofs: usize,
+}
+
+/// One unit conversion applied to an input.
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+pub struct ConversionEcho {
+    /// Field path.
+    pub path: String,
+    /// "0.283 lb/in³ = 7833.4 kg/m³".
+    pub text: String,
+}
+
+/// Reads, checks and solves a scenario given as JSON text.
+pub fn solve_json(text: &str) -> Result<Report> {
+    solve(&Scenario::from_json(text)?)
+}
+
+/// Reads, checks and solves a scenario.
+pub fn solve(scenario: &Scenario) -> Result<Report> {
+    let inputs = scenario.to_model()?;
+    let analysis = analysis::analyse(&inputs.model, &inputs.options)?;
+    build(scenario, inputs, analysis)
+}
+
+fn build(scenario: &Scenario, inputs: Inputs, analysis: Analysis) -> Result<Report> {
+    let model = &inputs.model;
+    let hz = |omega: f64| omega / std::f64::consts::TAU;
+    let mut warnings = analysis.warnings.clone();
+    let (comparison, other) = comparison(model, &inputs, &analysis, &mut warnings)?;
+    let excitations: Vec<ExcitationEcho> = inputs
+        .excitations
+        .iter()
+        .map(|(label, f, harmonics)| ExcitationEcho {
+            label: label.clone(),
+            frequency_hz: *f,
+            harmonics: *harmonics,
+        })
+        .collect();
+    let modes: Vec<ModeReport> = analysis
+        .modes
+        .iter()
+        .enumerate()
+        .map(|(i, m)| {
+            let f = hz(m.omega);
+            ModeReport {
+                number: m.number,
+                rigid_body: m.rigid_body,
+                multiplicity: m.multiplicity,
+                frequency_hz: f,
+                rpm: f * 60.0,
+                fe_frequency_hz: m.fe_omega.map(hz),
+                fe_difference: m.fe_difference(),
+                other_theory_hz: other.as_ref().and_then(|o| o.get(i).copied()).map(hz),
+                nodes: m.shape.nodes.clone(),
+                generalized_mass: m.shape.generalized_mass,
+                shape: ShapeSamples { x: m.shape.x.clone(), w: m.shape.deflection.clone() },
+                sprung: m
+                    .shape
+                    .sprung
+                    .iter()
+                    .map(|(attachment, amplitude)| SprungAmplitude {
+                        attachment: *attachment,
+                        amplitude: *amplitude,
+                    })
+                    .collect(),
+                nearest_excitation: if m.rigid_body { None } else { nearest(f, &excitations, inputs.margin) },
+            }
+        })
+        .collect();
+    if let Some(close) = modes.iter().find(|m| m.nearest_excitation.as_ref().is_some_and(|s| s.too_close)) {
+        let s =
+            close.nearest_excitation.as_ref().map(|s| (s.margin, s.excitation, s.order)).unwrap_or_default();
+        let label = &excitations[s.1].label;
+        warnings.push(Warning {
+            code: "resonance-margin",
+            message: format!(
+                "Mode {} lies within {:.1} % of {}{} — less than the {:.0} % margin asked for. Resonance there can \
+                 crack welds and fail parts in fatigue: stiffen, lighten or move the part, and confirm by test.",
+                close.number,
+                100.0 * s.0,
+                if label.is_empty() { "an excitation" } else { label },
+                if s.2 > 1 { format!(" (harmonic {})", s.2) } else { String::new() },
+                100.0 * inputs.margin
+            ),
+        });
+    }
+    let fundamental = analysis.fundamental.map(|f| FundamentalReport {
+        exact_hz: hz(f.omega),
+        rayleigh_hz: f.rayleigh.map(hz),
+        dunkerley_hz: f.dunkerley.map(hz),
+        equivalent: f.equivalent,
+    });
+    Ok(Report {
+        title: scenario.title.clone(),
+        units: scenario.units,
+        theory: model.theory(),
+        comparison,
+        beam: beam_echo(model, &inputs),
+        rigid_body_modes: analysis.rigid_body_modes,
+        modes,
+        fundamental,
+        fe: FeReport { elements: analysis.fe_elements, dofs: analysis.fe_dofs },
+        excitations,
+        margin: inputs.margin,
+        warnings,
+        conversions: inputs
+            .conversions
+            .iter()
+            .map(|(path, c)| ConversionEcho { path: path.clone(), text: c.text.clone() })
+            .collect(),
+    })
+}
+
+/// The closest excitation harmonic to a natural frequency.
+fn nearest(f: f64, excitations: &[ExcitationEcho], margin: f64) -> Option<Separation> {
+    let mut best: Option<Separation> = None;
+    for (i, e) in excitations.iter().enumerate() {
+        for order in 1..=e.harmonics {
+            let fe = e.frequency_hz * order as f64;
+            let m = (f - fe).abs() / fe;
+            if best.as_ref().is_none_or(|b| m < b.margin) {
+                best = Some(Separation {
+                    excitation: i,
+                    order,
+                    frequency_hz: fe,
+                    margin: m,
+                    too_close: m < margin,
+                });
+            }
+        }
+    }
+    best
+}
+
+/// First-order estimate of how much Euler–Bernoulli overestimates a mode at ω: for a wave of
+/// wavenumber k, ω_T ≈ ω_EB·(1 − ½k²(I/A + EI/κGA)) (from the pinned–pinned Timoshenko frequency
+/// equation expanded in k²). The largest over segments; `None` without shear data.
+fn shear_effect(model: &Model, inputs: &Inputs, omega: f64) -> Option<f64> {
+    let mut worst: Option<f64> = None;
+    for (s, echo) in model.segments().iter().zip(&inputs.segments) {
+        let (kga, r2) = (s.shear_rigidity?, echo.gyration_squared?);
+        let k2 = (s.mass_per_length * omega * omega / s.flexural_rigidity).sqrt();
+        let effect = 0.5 * k2 * (r2 + s.flexural_rigidity / kga);
+        worst = Some(worst.map_or(effect, |w: f64| w.max(effect)));
+    }
+    worst
+}
+
+/// Decides whether to show the other theory beside the chosen one, and computes it.
+fn comparison(
+    model: &Model,
+    inputs: &Inputs,
+    analysis: &Analysis,
+    warnings: &mut Vec<Warning>,
+) -> Result<(Option<Theory>, Option<Vec<f64>>)> {
+    let elastic = analysis.modes.len() - analysis.rigid_body_modes;
+    let rigid = vec![0.0; analysis.rigid_body_modes];
+    match model.theory() {
+        Theory::Timoshenko => {
+            let eb = exact::frequencies(&model.with_theory(Theory::EulerBernoulli)?, elastic)?;
+            let other: Vec<f64> = rigid.into_iter().chain(eb.iter().map(|r| r.omega)).collect();
+            if let Some((m, ratio)) = analysis
+                .modes
+                .iter()
+                .zip(&other)
+                .filter(|(m, _)| !m.rigid_body)
+                .map(|(m, o)| (m.number, o / m.omega - 1.0))
+                .find(|(_, r)| *r > 0.01)
+            {
+                warnings.push(Warning {
+                    code: "shear-matters",
+                    message: format!(
+                        "Shear deformation and rotary inertia matter here: the slender-beam (Euler–Bernoulli) \
+                         result is {:.1} % higher for mode {m}. Both are shown.",
+                        100.0 * ratio
+                    ),
+                });
+            }
+            Ok((Some(Theory::EulerBernoulli), Some(other)))
+        }
+        _ => {
+            let estimate = analysis.modes.iter().filter(|m| !m.rigid_body).find_map(|m| {
+                shear_effect(model, inputs, m.omega).filter(|e| *e > 0.01).map(|e| (m.number, e))
+            });
+            let Some((number, effect)) = estimate else { return Ok((None, None)) };
+            let timoshenko = exact::frequencies(&model.with_theory(Theory::Timoshenko)?, elastic)?;
+            let other: Vec<f64> = rigid.into_iter().chain(timoshenko.iter().map(|r| r.omega)).collect();
+            warnings.push(Warning {
+                code: "shear-matters",
+                message: format!(
+                    "From mode {number} on, the wavelength is short for the section depth: the slender-beam result \
+                     is estimated to be {:.1} % too high (first-order shear and rotary-inertia correction). The \
+                     Timoshenko result is shown beside it; consider switching the theory to Timoshenko.",
+                    100.0 * effect
+                ),
+            });
+            Ok((Some(Theory::Timoshenko), Some(other)))
+        }
+    }
+}
+
+fn beam_echo(model: &Model, inputs: &Inputs) -> BeamEcho {
+    let mut start = 0.0;
+    let segments = model
+        .segments()
+        .iter()
+        .zip(&inputs.segments)
+        .map(|(s, echo)| {
+            let report = SegmentReport {
+                start,
+                end: start + s.length,
+                flexural_rigidity: s.flexural_rigidity,
+                mass_per_length: s.mass_per_length,
+                shear_rigidity: s.shear_rigidity,
+                echo: echo.clone(),
+            };
+            start += s.length;
+            report
+        })
+        .collect();
+    let finite = |v: f64| v.is_finite().then_some(v);
+    let end = |e: End| match e {
+        End::Free => EndEcho { kind: "free", translational: None, rotational: None },
+        End::Pinned => EndEcho { kind: "pinned", translational: None, rotational: None },
+        End::Clamped => EndEcho { kind: "clamped", translational: None, rotational: None },
+        End::Guided => EndEcho { kind: "guided", translational: None, rotational: None },
+        End::Elastic { translational, rotational } => {
+            EndEcho { kind: "elastic", translational: finite(translational), rotational: finite(rotational) }
+        }
+    };
+    let attachments = model
+        .attachments()
+        .iter()
+        .zip(&inputs.labels)
+        .map(|(a, label)| {
+            let base = AttachmentEcho {
+                kind: "",
+                position: a.position(),
+                label: label.clone(),
+                mass: None,
+                rotary_inertia: None,
+                stiffness: None,
+                rigid: false,
+            };
+            match *a {
+                Attachment::Mass { mass, rotary_inertia, .. } => AttachmentEcho {
+                    kind: "mass",
+                    mass: Some(mass),
+                    rotary_inertia: Some(rotary_inertia),
+                    ..base
+                },
+                Attachment::Spring { stiffness, .. } => AttachmentEcho {
+                    kind: "spring",
+                    stiffness: finite(stiffness),
+                    rigid: stiffness.is_infinite(),
+                    ..base
+                },
+                Attachment::RotationalSpring { stiffness, .. } => AttachmentEcho {
+                    kind: "rotational-spring",
+                    stiffness: finite(stiffness),
+                    rigid: stiffness.is_infinite(),
+                    ..base
+                },
+                Attachment::Support { .. } => AttachmentEcho { kind: "support", rigid: true, ..base },
+                Attachment::SprungMass { mass, stiffness, .. } => AttachmentEcho {
+                    kind: "sprung-mass",
+                    mass: Some(mass),
+                    stiffness: Some(stiffness),
+                    ..base
+                },
+            }
+        })
+        .collect();
+    BeamEcho {
+        length: model.length(),
+        segments,
+        left: end(model.left()),
+        right: end(model.right()),
+        attachments,
+    }
+}

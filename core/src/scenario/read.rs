@@ -1,0 +1,324 @@
+//! Reading a scenario into a validated model: every value with its unit, every field checked,
+//! every conversion recorded for display.
+
+use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
+use crate::analysis::Options;
+use crate::error::{Error, ErrorKind, Result};
+use crate::extra_mass::{self, MassBreakdown};
+use crate::material;
+use crate::model::{Attachment, End, Model, ModelParts, Segment};
+use crate::section;
+use crate::units::{self, Conversion, Kind, Quantity};
+
+/// The default separation margin between natural and excitation frequencies (common practice
+/// keeps 10–20 %; the larger figure is the default — common practice, no single source).
+pub const DEFAULT_MARGIN: f64 = 0.2;
+
+/// A scenario read and checked: the model, the options, and what the inputs were in SI.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Inputs {
+    /// The validated model.
+    pub model: Model,
+    /// Analysis options.
+    pub options: Options,
+    /// Per segment: how its properties came about.
+    pub segments: Vec<SegmentEcho>,
+    /// Per attachment: its label (empty when none was given).
+    pub labels: Vec<String>,
+    /// Excitations: (label, frequency in Hz, harmonics to check).
+    pub excitations: Vec<(String, f64, usize)>,
+    /// Separation margin as a ratio.
+    pub margin: f64,
+    /// Every unit conversion applied: (field path, record).
+    pub conversions: Vec<(String, Conversion)>,
+}
+
+/// How a segment's properties came about.
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
+pub struct SegmentEcho {
+    /// The section's shape name, when given by section.
+    pub section: Option<String>,
+    /// The material's name, when given by material.
+    pub material: Option<String>,
+    /// Where the mass per length comes from, when given by section.
+    pub mass: Option<MassBreakdown>,
+    /// Depth in the plane of vibration, m, when known.
+    pub depth: Option<f64>,
+    /// Squared radius of gyration I/A, m², when known.
+    pub gyration_squared: Option<f64>,
+}
+
+#[derive(Default)]
+struct Reader {
+    conversions: Vec<(String, Conversion)>,
+}
+
+impl Reader {
+    fn read(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
+        let converted = units::convert(q, kind).map_err(|e| e.at(path))?;
+        if let Some(c) = converted.conversion {
+            self.conversions.push((path.to_string(), c));
+        }
+        Ok(converted.si)
+    }
+
+    /// A stiffness that may also be written "rigid".
+    fn spring(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
+        if let Quantity::Text(t) = q {
+            if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
+                return Ok(f64::INFINITY);
+            }
+        }
+        self.read(q, kind, path)
+    }
+
+    fn keep(&mut self, path: &str, conversions: Vec<Conversion>) {
+        self.conversions.extend(conversions.into_iter().map(|c| (path.to_string(), c)));
+    }
+}
+
+impl Scenario {
+    /// Reads every value, checks the model, and returns it with the options and an echo.
+    pub fn to_model(&self) -> Result<Inputs> {
+        let mut r = Reader::default();
+        let mut segments = Vec::with_capacity(self.segments.len());
+        let mut echoes = Vec::with_capacity(self.segments.len());
+        for (i, s) in self.segments.iter().enumerate() {
+            let (segment, echo) = read_segment(&mut r, s, &format!("segments[{i}]"))?;
+            segments.push(segment);
+            echoes.push(echo);
+        }
+        let left = read_end(&mut r, &self.left, "left")?;
+        let right = read_end(&mut r, &self.right, "right")?;
+        let mut attachments = Vec::with_capacity(self.attachments.len());
+        let mut labels = Vec::with_capacity(self.attachments.len());
+        for (i, a) in self.attachments.iter().enumerate() {
+            let (attachment, label) = read_attachment(&mut r, a, &format!("attachments[{i}]"))?;
+            attachments.push(attachment);
+            labels.push(label);
+        }
+        let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })?;
+        let report_point = match &self.report_point {
+            Some(q) => Some(r.read(q, Kind::Length, "report_point")?),
+            None => None,
+        };
+        let options = Options { modes: self.modes, elements: self.elements, report_point };
+        let mut excitations = Vec::with_capacity(self.excitations.len());
+        for (i, e) in self.excitations.iter().enumerate() {
+            excitations.push(read_excitation(&mut r, e, &format!("excitations[{i}]"))?);
+        }
+        let margin = match &self.margin {
+            None => DEFAULT_MARGIN,
+            Some(q) => read_ratio(q).map_err(|e| e.at("margin"))?,
+        };
+        Ok(Inputs {
+            model,
+            options,
+            segments: echoes,
+            labels,
+            excitations,
+            margin,
+            conversions: r.conversions,
+        })
+    }
+}
+
+fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<(Segment, SegmentEcho)> {
+    let at = |field: &str| format!("{path}.{field}");
+    let length = match &s.length {
+        Some(q) => r.read(q, Kind::Length, &at("length"))?,
+        None => return Err(Error::new(ErrorKind::Missing, "a segment needs a length").at(at("length"))),
+    };
+    let direct = s.flexural_rigidity.is_some() || s.mass_per_length.is_some();
+    let by_section = s.section.is_some() || s.material.is_some();
+    if direct && by_section {
+        return Err(Error::new(
+            ErrorKind::Conflict,
+            "give either flexural_rigidity and mass_per_length, or section and material, not both",
+        )
+        .at(path));
+    }
+    if s.extra_mass.is_some() && !by_section {
+        return Err(Error::new(
+            ErrorKind::Conflict,
+            "extra_mass needs a section and material (the bore and outer diameter come from the section); \
+             otherwise include it in mass_per_length",
+        )
+        .at(at("extra_mass")));
+    }
+    if by_section {
+        let (Some(section_input), Some(material_input)) = (&s.section, &s.material) else {
+            let missing = if s.section.is_none() { "section" } else { "material" };
+            return Err(Error::new(
+                ErrorKind::Missing,
+                "a segment given by section also needs a material, and the reverse",
+            )
+            .at(at(missing)));
+        };
+        if s.shear_rigidity.is_some() || s.rotary_inertia_per_length.is_some() {
+            return Err(Error::new(
+                ErrorKind::Conflict,
+                "shear rigidity and rotary inertia come from the section and material; remove these fields",
+            )
+            .at(at(if s.shear_rigidity.is_some() {
+                "shear_rigidity"
+            } else {
+                "rotary_inertia_per_length"
+            })));
+        }
+        let mat = material::resolve(material_input).map_err(|e| e.at(at("material")))?;
+        r.keep(&at("material"), mat.conversions.clone());
+        let props = section::properties(section_input, mat.poisson).map_err(|e| e.at(at("section")))?;
+        r.keep(&at("section"), props.conversions.clone());
+        let extra = s.extra_mass.clone().unwrap_or_default();
+        let mass = extra_mass::breakdown(&props, mat.density, &extra).map_err(|e| e.at(at("extra_mass")))?;
+        r.keep(&at("extra_mass"), mass.conversions.clone());
+        let segment = Segment {
+            length,
+            flexural_rigidity: mat.youngs_modulus * props.second_moment,
+            mass_per_length: mass.total(),
+            shear_rigidity: Some(props.shear_coefficient * mat.shear_modulus * props.area),
+            // Only the beam's own material turns with the section; contents and water are
+            // taken to translate only (the usual assumption).
+            rotary_inertia_per_length: mat.density * props.second_moment,
+        };
+        let echo = SegmentEcho {
+            section: Some(section_name(section_input).to_string()),
+            material: Some(mat.name.clone()),
+            mass: Some(mass),
+            depth: Some(props.depth),
+            gyration_squared: Some(props.second_moment / props.area),
+        };
+        return Ok((segment, echo));
+    }
+    let (Some(ei), Some(m)) = (&s.flexural_rigidity, &s.mass_per_length) else {
+        let missing = if s.flexural_rigidity.is_none() { "flexural_rigidity" } else { "mass_per_length" };
+        return Err(Error::new(
+            ErrorKind::Missing,
+            "a segment needs flexural_rigidity and mass_per_length, or a section and a material",
+        )
+        .at(at(missing)));
+    };
+    let flexural_rigidity = r.read(ei, Kind::FlexuralRigidity, &at("flexural_rigidity"))?;
+    let mass_per_length = r.read(m, Kind::MassPerLength, &at("mass_per_length"))?;
+    let shear_rigidity = match &s.shear_rigidity {
+        Some(q) => Some(r.read(q, Kind::ShearRigidity, &at("shear_rigidity"))?),
+        None => None,
+    };
+    let rotary_inertia_per_length = match &s.rotary_inertia_per_length {
+        Some(q) => r.read(q, Kind::RotaryInertiaPerLength, &at("rotary_inertia_per_length"))?,
+        None => 0.0,
+    };
+    let gyration_squared =
+        (rotary_inertia_per_length > 0.0).then(|| rotary_inertia_per_length / mass_per_length);
+    let segment =
+        Segment { length, flexural_rigidity, mass_per_length, shear_rigidity, rotary_inertia_per_length };
+    Ok((segment, SegmentEcho { gyration_squared, ..SegmentEcho::default() }))
+}
+
+fn section_name(s: &section::SectionInput) -> &'static str {
+    match s {
+        section::SectionInput::Rectangle { .. } => "solid rectangle",
+        section::SectionInput::Round { .. } => "solid round",
+        section::SectionInput::Tube { .. } => "round tube",
+        section::SectionInput::RectangularTube { .. } => "rectangular tube",
+        section::SectionInput::IBeam { .. } => "I-section",
+        _ => "custom section",
+    }
+}
+
+fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
+    Ok(match end {
+        EndInput::Free => End::Free,
+        EndInput::Pinned => End::Pinned,
+        EndInput::Clamped => End::Clamped,
+        EndInput::Guided => End::Guided,
+        EndInput::Elastic { translational, rotational } => {
+            let mut spring = |q: &Option<Quantity>, kind, field: &str| match q {
+                Some(q) => r.spring(q, kind, &format!("{path}.{field}")),
+                None => Ok(0.0),
+            };
+            End::Elastic {
+                translational: spring(translational, Kind::Stiffness, "translational")?,
+                rotational: spring(rotational, Kind::RotationalStiffness, "rotational")?,
+            }
+        }
+    })
+}
+
+fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &str) -> Result<(Attachment, String)> {
+    let at = |field: &str| format!("{path}.{field}");
+    let label = |l: &Option<String>| l.clone().unwrap_or_default();
+    Ok(match a {
+        AttachmentInput::Mass { position, mass, rotary_inertia, label: l } => {
+            let position = r.read(position, Kind::Length, &at("position"))?;
+            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
+            let rotary_inertia = match rotary_inertia {
+                Some(q) => r.read(q, Kind::RotaryInertia, &at("rotary_inertia"))?,
+                None => 0.0,
+            };
+            (Attachment::Mass { position, mass, rotary_inertia }, label(l))
+        }
+        AttachmentInput::Spring { position, stiffness, label: l } => {
+            let position = r.read(position, Kind::Length, &at("position"))?;
+            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
+            (Attachment::Spring { position, stiffness }, label(l))
+        }
+        AttachmentInput::RotationalSpring { position, stiffness, label: l } => {
+            let position = r.read(position, Kind::Length, &at("position"))?;
+            let stiffness = r.spring(stiffness, Kind::RotationalStiffness, &at("stiffness"))?;
+            (Attachment::RotationalSpring { position, stiffness }, label(l))
+        }
+        AttachmentInput::Support { position, label: l } => {
+            let position = r.read(position, Kind::Length, &at("position"))?;
+            (Attachment::Support { position }, label(l))
+        }
+        AttachmentInput::SprungMass { position, mass, stiffness, label: l } => {
+            let position = r.read(position, Kind::Length, &at("position"))?;
+            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
+            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
+            (Attachment::SprungMass { position, mass, stiffness }, label(l))
+        }
+    })
+}
+
+fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &str) -> Result<(String, f64, usize)> {
+    let f = r.read(&e.frequency, Kind::Frequency, &format!("{path}.frequency"))?;
+    if f <= 0.0 {
+        return Err(Error::new(ErrorKind::OutOfRange, "an excitation frequency must be greater than zero")
+            .at(format!("{path}.frequency"))
+            .with_value(&e.frequency));
+    }
+    if e.harmonics == 0 || e.harmonics > 50 {
+        return Err(Error::new(ErrorKind::OutOfRange, "harmonics must be from 1 to 50")
+            .at(format!("{path}.harmonics"))
+            .with_value(e.harmonics));
+    }
+    Ok((e.label.clone(), f, e.harmonics))
+}
+
+/// A ratio written as a number (0.2) or a percentage ("20 %").
+fn read_ratio(q: &Quantity) -> Result<f64> {
+    let value = match q {
+        Quantity::Number(v) => *v,
+        Quantity::Text(t) => {
+            let t = t.trim();
+            match t.strip_suffix('%') {
+                Some(number) => number.trim().parse::<f64>().map(|v| v / 100.0).map_err(|_| {
+                    Error::new(
+                        ErrorKind::Syntax,
+                        "write the margin as a ratio (0.2) or a percentage (\"20 %\")",
+                    )
+                    .with_value(t)
+                })?,
+                None => units::parse(t, Kind::Ratio)?.si,
+            }
+        }
+    };
+    if !(value.is_finite() && value > 0.0 && value < 1.0) {
+        return Err(
+            Error::new(ErrorKind::OutOfRange, "the margin must lie between 0 and 100 %").with_value(q)
+        );
+    }
+    Ok(value)
+}
