@@ -22,6 +22,27 @@ pub struct Options {
     pub report_point: Option<f64>,
 }
 
+impl Options {
+    /// Options for `modes` elastic modes, other settings at their defaults.
+    pub fn with_modes(modes: usize) -> Options {
+        Options { modes, ..Options::default() }
+    }
+
+    /// Sets the total number of finite elements.
+    #[must_use]
+    pub fn elements(mut self, elements: usize) -> Options {
+        self.elements = Some(elements);
+        self
+    }
+
+    /// Sets the point for the equivalent single-degree-of-freedom system, m from the left end.
+    #[must_use]
+    pub fn report_point(mut self, position: f64) -> Options {
+        self.report_point = Some(position);
+        self
+    }
+}
+
 impl Default for Options {
     fn default() -> Self {
         Options { modes: 6, elements: None, report_point: None }

@@ -111,8 +111,7 @@ impl Discrete {
                 Mesh::Total(total) => (total as f64 * span.length / total_length).round(),
                 Mesh::UpTo(omega) => {
                     let s = &model.segments()[span.segment];
-                    let beta = (s.mass_per_length * omega * omega / s.flexural_rigidity).sqrt().sqrt();
-                    (beta * span.length / WAVE_PER_ELEMENT).ceil()
+                    (wavenumber(s, model.theory(), omega) * span.length / WAVE_PER_ELEMENT).ceil()
                 }
             };
             if n.is_finite() {
@@ -171,6 +170,20 @@ impl Discrete {
         }
         Discrete { layout, elements, stiffness, mass }
     }
+}
+
+/// The bending wavenumber of free waves at ω in a segment: (mω²/EI)^¼ for Euler–Bernoulli; for
+/// Timoshenko the larger root k² of κGA·EI·k⁴ − ω²(κGA·ρI + ρA·EI)·k² + ρA·ω²(ρI·ω² − κGA) = 0
+/// (the pinned–pinned frequency equation read for k), which is shorter-waved.
+fn wavenumber(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
+    let w2 = omega * omega;
+    let euler = (s.mass_per_length * w2 / s.flexural_rigidity).sqrt().sqrt();
+    let (Theory::Timoshenko, Some(kga)) = (theory, s.shear_rigidity) else { return euler };
+    let (ei, ra, ri) = (s.flexural_rigidity, s.mass_per_length, s.rotary_inertia_per_length);
+    let b = w2 * (kga * ri + ra * ei);
+    let c = ra * w2 * (ri * w2 - kga);
+    let k2 = (b + (b * b - 4.0 * kga * ei * c).max(0.0).sqrt()) / (2.0 * kga * ei);
+    k2.sqrt().max(euler)
 }
 
 /// Pivots smaller than this fraction of their diagonal entry make the count doubtful.
