@@ -77,7 +77,7 @@ fn parts(rng: &mut Rng, kinds: Kinds) -> ModelParts {
         .collect();
     let length: f64 = segments.iter().map(|s| s.length).sum();
     let stiff = 1.0 / length.powi(3);
-    let mut end = |rng: &mut Rng| match rng.below(5) {
+    let end = |rng: &mut Rng| match rng.below(5) {
         0 => End::Free,
         1 => End::Pinned,
         2 => End::Clamped,

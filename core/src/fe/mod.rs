@@ -27,7 +27,18 @@ pub enum Mesh {
     /// Enough elements that modes up to this angular frequency (rad/s) converge to about 1e-4:
     /// at most 0.5 rad of bending wavenumber per element.
     UpTo(f64),
+    /// Every span between natural stations (ends, segment boundaries, attachments) cut into this
+    /// many equal elements; doubling it halves every element, as convergence studies need.
+    PerSpan(usize),
 }
+
+/// Most elements a mesh may have. Round-off in the assembled matrices grows like n⁴ (the
+/// condition of the beam stiffness), so beyond a few hundred elements more elements add noise,
+/// not accuracy.
+pub const MAX_ELEMENTS: usize = 2000;
+
+/// Above this many elements the result carries round-off of about 1e-6 and a warning says so.
+pub const NOISY_ELEMENTS: usize = 400;
 
 /// Bending wavenumber × element length allowed by [`Mesh::UpTo`]. The Hermite element's
 /// frequency error is about (βh)⁴/1440, so 0.5 gives about 4e-5.
@@ -63,7 +74,7 @@ pub fn frequencies(model: &Model, elastic: usize, mesh: Mesh) -> Result<FeSoluti
             ErrorKind::OutOfRange,
             format!("the mesh has only {available} elastic modes; use more elements (at least {elastic} modes asked)"),
         )
-        .at("fe.elements"));
+        .at("elements"));
     }
     let guess = crate::exact::guess(model, rigid + elastic);
     let roots = roots::find(rigid, elastic, guess, &discrete)?;
@@ -113,6 +124,7 @@ impl Discrete {
                     let s = &model.segments()[span.segment];
                     (wavenumber(s, model.theory(), omega) * span.length / WAVE_PER_ELEMENT).ceil()
                 }
+                Mesh::PerSpan(n) => n as f64,
             };
             if n.is_finite() {
                 n.clamp(1.0, 1e6) as usize
