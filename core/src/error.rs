@@ -69,6 +69,17 @@ impl Error {
         self.value = Some(value.to_string());
         self
     }
+
+    /// Records an offending number, written compactly (`1e300`, not three hundred digits).
+    #[must_use]
+    pub fn with_number(self, value: f64) -> Self {
+        let text = if value == 0.0 || !value.is_finite() || (1e-4..1e9).contains(&value.abs()) {
+            format!("{value}")
+        } else {
+            format!("{value:e}")
+        };
+        self.with_value(text)
+    }
 }
 
 impl fmt::Display for Error {

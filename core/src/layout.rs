@@ -6,6 +6,7 @@
 //! deflections and rotations get no degree of freedom; each sprung mass gets one, numbered right
 //! after its station's so that the matrices stay narrowly banded.
 
+use crate::error::{Error, ErrorKind, Result};
 use crate::model::{Attachment, Model, SAME_POINT};
 
 /// What is attached at one station, summed over the attachments there.
@@ -39,10 +40,16 @@ pub(crate) struct SprungDof {
     pub(crate) attachment: usize,
 }
 
+/// Most stations one layout may have. Real models need a few hundred at most; more means
+/// segments so different in stiffness or mass that one of them holds thousands of waves at the
+/// frequencies asked for.
+pub(crate) const MAX_STATIONS: usize = 20_000;
+
 /// A uniform piece of beam between two neighbouring stations.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub(crate) struct Span {
-    /// Index of the left station; the right one is `left + 1`.
+    /// Index of the left station; the right one is `left + 1`. (When a `pieces` callback of
+    /// [`Layout::with_points`] sees a span, this is the index of the natural span instead.)
     pub(crate) left: usize,
     /// Index of the model segment the span lies in.
     pub(crate) segment: usize,
@@ -62,12 +69,16 @@ pub(crate) struct Layout {
 impl Layout {
     /// The natural stations of the model (ends, segment boundaries, attachments), with each
     /// natural span cut into `pieces(span)` equal pieces.
-    pub(crate) fn new(model: &Model, pieces: impl Fn(&Span) -> usize) -> Layout {
+    pub(crate) fn new(model: &Model, pieces: impl Fn(&Span) -> usize) -> Result<Layout> {
         Layout::with_points(model, &[], pieces)
     }
 
     /// As [`Layout::new`], with extra station positions added first.
-    pub(crate) fn with_points(model: &Model, extra: &[f64], pieces: impl Fn(&Span) -> usize) -> Layout {
+    pub(crate) fn with_points(
+        model: &Model,
+        extra: &[f64],
+        pieces: impl Fn(&Span) -> usize,
+    ) -> Result<Layout> {
         let length = model.length();
         let tolerance = SAME_POINT * length;
         let mut xs = vec![0.0, length];
@@ -82,10 +93,21 @@ impl Layout {
 
         // Cut natural spans into pieces.
         let mut points = Vec::with_capacity(natural.len());
-        for w in natural.windows(2) {
+        for (index, w) in natural.windows(2).enumerate() {
             let (a, b) = (w[0], w[1]);
-            let span = Span { left: 0, segment: model.segment_at(0.5 * (a + b)), length: b - a };
+            let span = Span { left: index, segment: model.segment_at(0.5 * (a + b)), length: b - a };
             let n = pieces(&span).max(1);
+            if points.len() + n > MAX_STATIONS {
+                return Err(Error::new(
+                    ErrorKind::Model,
+                    format!(
+                        "this segment would need more than {MAX_STATIONS} computation points at the frequencies \
+                         asked for: its stiffness and mass differ from the rest of the beam by too many orders of \
+                         magnitude (check the units), or ask for fewer modes"
+                    ),
+                )
+                .at(format!("segments[{}]", span.segment)));
+            }
             for p in 0..n {
                 points.push(a + (b - a) * p as f64 / n as f64);
             }
@@ -160,7 +182,7 @@ impl Layout {
                 }
             }
         }
-        Layout { stations, spans, dofs, bandwidth }
+        Ok(Layout { stations, spans, dofs, bandwidth })
     }
 
     /// The degree-of-freedom numbers of a span's ends, [w₁, θ₁, w₂, θ₂], `None` where held.
@@ -242,7 +264,7 @@ mod tests {
             Attachment::SprungMass { position: 2.5, mass: 1.0, stiffness: 10.0 },
             Attachment::Mass { position: 1.0, mass: 1.0, rotary_inertia: 0.1 },
         ]);
-        let l = Layout::new(&m, |_| 1);
+        let l = Layout::new(&m, |_| 1).unwrap();
         let xs: Vec<f64> = l.stations.iter().map(|s| s.x).collect();
         assert_eq!(xs, vec![0.0, 1.0, 1.5, 2.5, 3.0]);
         // Clamped left: nothing; x=1: w, θ; x=1.5 supported: θ; x=2.5: w, θ, sprung; right pinned: θ.
@@ -252,7 +274,7 @@ mod tests {
         assert_eq!(l.stations[2].mass, 2.0);
         assert_eq!(l.stations[3].sprung[0].dof, 5);
         assert_eq!(l.spans.iter().map(|s| s.segment).collect::<Vec<_>>(), vec![0, 1, 1, 1]);
-        let fine = Layout::new(&m, |_| 3);
+        let fine = Layout::new(&m, |_| 3).unwrap();
         assert_eq!(fine.stations.len(), 13);
         assert!(fine.bandwidth >= 3);
     }

@@ -172,11 +172,17 @@ impl Model {
         let mut length = 0.0;
         for (i, s) in parts.segments.iter().enumerate() {
             let at = |field: &str| format!("segments[{i}].{field}");
-            positive(s.length, "a length", &at("length"))?;
-            positive(s.flexural_rigidity, "a bending stiffness EI", &at("flexural_rigidity"))?;
-            positive(s.mass_per_length, "a mass per length", &at("mass_per_length"))?;
+            within(s.length, "a length", "m", LENGTH, &at("length"))?;
+            within(
+                s.flexural_rigidity,
+                "a bending stiffness EI",
+                "N·m²",
+                FLEXURAL,
+                &at("flexural_rigidity"),
+            )?;
+            within(s.mass_per_length, "a mass per length", "kg/m", MASS_PER_LENGTH, &at("mass_per_length"))?;
             if let Some(kga) = s.shear_rigidity {
-                positive(kga, "a shear rigidity κGA", &at("shear_rigidity"))?;
+                within(kga, "a shear rigidity κGA", "N", SHEAR, &at("shear_rigidity"))?;
             }
             non_negative(
                 s.rotary_inertia_per_length,
@@ -191,6 +197,9 @@ impl Model {
                 "the total length of the segments is too large to compute with",
             )
             .at("segments"));
+        }
+        for (i, s) in parts.segments.iter().enumerate() {
+            plausible_shear(s).map_err(|e| e.at(format!("segments[{i}].shear_rigidity")))?;
         }
         if parts.theory == Theory::Timoshenko {
             if let Some(i) = parts.segments.iter().position(|s| s.shear_rigidity.is_none()) {
@@ -309,16 +318,59 @@ impl Model {
     }
 }
 
+/// For any solid or hollow section of a real material, EI/κGA = (E/κG)·I/A, and E/κG lies between
+/// about 2.4 (isotropic metals) and a few dozen (wood, pultruded composites across the grain);
+/// I/A = ρI/ρA. A ratio far outside that says a value was typed in the wrong unit, and it would
+/// also make the shear-flexible member needlessly expensive to compute.
+fn plausible_shear(s: &Segment) -> Result<()> {
+    let (Some(kga), true) = (s.shear_rigidity, s.rotary_inertia_per_length > 0.0) else { return Ok(()) };
+    let ratio = (s.flexural_rigidity / kga) / (s.rotary_inertia_per_length / s.mass_per_length);
+    if !(1.0..=1000.0).contains(&ratio) {
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!(
+                "implausible with the other properties: EI/κGA is {ratio:.3} times ρI/ρA, where real sections \
+                 give about 2.5 (metals) to 50 (wood, composites); check the units of κGA, EI, ρI and m"
+            ),
+        )
+        .with_number(kga));
+    }
+    Ok(())
+}
+
+/// Ranges that hold every beam from a micro-machined cantilever to a bridge girder, and keep
+/// every intermediate quantity (ω², EI/L³, …) far inside the range of `f64`. A value outside is
+/// almost always a unit slip.
+const LENGTH: (f64, f64) = (1e-9, 1e6);
+const FLEXURAL: (f64, f64) = (1e-30, 1e20);
+const MASS_PER_LENGTH: (f64, f64) = (1e-20, 1e9);
+const SHEAR: (f64, f64) = (1e-20, 1e20);
+const MASS: (f64, f64) = (0.0, 1e12);
+const STIFFNESS: (f64, f64) = (0.0, 1e20);
+
+fn within(v: f64, what: &str, unit: &str, (lo, hi): (f64, f64), path: &str) -> Result<()> {
+    positive(v, what, path)?;
+    if v < lo || v > hi {
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!("{what} must lie between {lo:e} and {hi:e} {unit}; check the unit"),
+        )
+        .at(path)
+        .with_number(v));
+    }
+    Ok(())
+}
+
 fn positive(v: f64, what: &str, path: &str) -> Result<()> {
     if !v.is_finite() {
         return Err(Error::new(ErrorKind::NotFinite, format!("{what} must be a finite number"))
             .at(path)
-            .with_value(v));
+            .with_number(v));
     }
     if v <= 0.0 {
         return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be greater than zero"))
             .at(path)
-            .with_value(v));
+            .with_number(v));
     }
     Ok(())
 }
@@ -327,22 +379,22 @@ fn non_negative(v: f64, what: &str, path: &str) -> Result<()> {
     if !v.is_finite() {
         return Err(Error::new(ErrorKind::NotFinite, format!("{what} must be a finite number"))
             .at(path)
-            .with_value(v));
+            .with_number(v));
     }
     if v < 0.0 {
         return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be zero or more"))
             .at(path)
-            .with_value(v));
+            .with_number(v));
     }
     Ok(())
 }
 
 /// A spring stiffness may be anything from 0 to +∞ (rigid), but not negative or NaN.
 fn spring(v: f64, what: &str, path: &str) -> Result<()> {
-    if v.is_nan() || v < 0.0 {
+    if v.is_nan() || v < 0.0 || (v.is_finite() && v > STIFFNESS.1) {
         return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be zero or more (or \"rigid\")"))
             .at(path)
-            .with_value(v));
+            .with_number(v));
     }
     Ok(())
 }
@@ -360,7 +412,7 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
     if !position.is_finite() {
         return Err(Error::new(ErrorKind::NotFinite, "a position must be a finite number")
             .at("position")
-            .with_value(position));
+            .with_number(position));
     }
     let tolerance = SAME_POINT * length;
     if position < -tolerance || position > length + tolerance {
@@ -369,7 +421,7 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
             format!("the position must lie on the beam, from 0 to its length {length} m"),
         )
         .at("position")
-        .with_value(position));
+        .with_number(position));
     }
     let snapped = if position.abs() <= tolerance {
         0.0
@@ -383,6 +435,14 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
             *position = snapped;
             non_negative(*mass, "a mass", "mass")?;
             non_negative(*rotary_inertia, "a rotary inertia", "rotary_inertia")?;
+            if *mass > MASS.1 || *rotary_inertia > MASS.1 {
+                let field = if *mass > MASS.1 { "mass" } else { "rotary_inertia" };
+                return Err(Error::new(
+                    ErrorKind::OutOfRange,
+                    format!("must be at most {:e} (SI); check the unit", MASS.1),
+                )
+                .at(field));
+            }
             if *mass == 0.0 && *rotary_inertia == 0.0 {
                 return Err(Error::new(
                     ErrorKind::OutOfRange,
@@ -403,7 +463,7 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
         Attachment::Support { position } => *position = snapped,
         Attachment::SprungMass { position, mass, stiffness } => {
             *position = snapped;
-            positive(*mass, "a sprung mass", "mass")?;
+            within(*mass, "a sprung mass", "kg", (1e-20, MASS.1), "mass")?;
             if *stiffness == f64::INFINITY {
                 return Err(Error::new(
                     ErrorKind::OutOfRange,
@@ -412,20 +472,20 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
                 .at("stiffness")
                 .with_value("rigid"));
             }
-            positive(*stiffness, "a spring stiffness", "stiffness")?;
+            within(*stiffness, "a spring stiffness", "N/m", (1e-20, STIFFNESS.1), "stiffness")?;
         }
     }
     Ok(())
 }
 
 fn positive_or_rigid(v: f64, what: &str) -> Result<()> {
-    if v.is_nan() || v <= 0.0 {
+    if v.is_nan() || v <= 0.0 || (v.is_finite() && v > STIFFNESS.1) {
         return Err(Error::new(
             ErrorKind::OutOfRange,
             format!("{what} must be greater than zero (or \"rigid\")"),
         )
         .at("stiffness")
-        .with_value(v));
+        .with_number(v));
     }
     Ok(())
 }
@@ -454,7 +514,7 @@ fn check_rigid_supports(parts: &ModelParts, length: f64) -> Result<()> {
                 ),
             )
             .at(format!("attachments[{i}].position"))
-            .with_value(x));
+            .with_number(x));
         }
         held.push((x, format!("attachments[{i}]")));
     }

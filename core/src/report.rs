@@ -6,7 +6,7 @@
 
 use crate::analysis::{self, Analysis, Warning};
 use crate::bounds::Equivalent;
-use crate::error::Result;
+use crate::error::{Error, ErrorKind, Result};
 use crate::exact;
 use crate::model::{Attachment, End, Model, Theory};
 use crate::scenario::{Inputs, Scenario, SegmentEcho};
@@ -212,6 +212,43 @@ pub struct ConversionEcho {
     pub text: String,
 }
 
+impl Report {
+    /// Whether every number in the report is finite (the solvers guarantee it; `solve` checks).
+    pub fn is_finite(&self) -> bool {
+        let ok = |v: f64| v.is_finite();
+        let opt = |v: Option<f64>| v.is_none_or(f64::is_finite);
+        let modes = self.modes.iter().all(|m| {
+            ok(m.frequency_hz)
+                && ok(m.rpm)
+                && opt(m.fe_frequency_hz)
+                && opt(m.fe_difference)
+                && opt(m.other_theory_hz)
+                && ok(m.generalized_mass)
+                && m.nodes.iter().chain(&m.shape.x).chain(&m.shape.w).all(|v| v.is_finite())
+                && m.sprung.iter().all(|s| ok(s.amplitude))
+                && m.nearest_excitation.as_ref().is_none_or(|s| ok(s.margin) && ok(s.frequency_hz))
+        });
+        let fundamental = self.fundamental.is_none_or(|f| {
+            ok(f.exact_hz)
+                && opt(f.rayleigh_hz)
+                && opt(f.dunkerley_hz)
+                && f.equivalent.is_none_or(|e| ok(e.mass) && ok(e.stiffness) && ok(e.position))
+        });
+        let beam = ok(self.beam.length)
+            && self
+                .beam
+                .segments
+                .iter()
+                .all(|s| ok(s.flexural_rigidity) && ok(s.mass_per_length) && opt(s.shear_rigidity))
+            && self
+                .beam
+                .attachments
+                .iter()
+                .all(|a| ok(a.position) && opt(a.mass) && opt(a.rotary_inertia) && opt(a.stiffness));
+        modes && fundamental && beam && ok(self.margin) && self.excitations.iter().all(|e| ok(e.frequency_hz))
+    }
+}
+
 /// Reads, checks and solves a scenario given as JSON text.
 pub fn solve_json(text: &str) -> Result<Report> {
     solve(&Scenario::from_json(text)?)
@@ -221,7 +258,15 @@ pub fn solve_json(text: &str) -> Result<Report> {
 pub fn solve(scenario: &Scenario) -> Result<Report> {
     let inputs = scenario.to_model()?;
     let analysis = analysis::analyse(&inputs.model, &inputs.options)?;
-    build(scenario, inputs, analysis)
+    let report = build(scenario, inputs, analysis)?;
+    if !report.is_finite() {
+        return Err(Error::new(
+            ErrorKind::NoConvergence,
+            "a result overflowed the range of numbers the engine computes with; check the orders of magnitude \
+             of the inputs (units, exponents)",
+        ));
+    }
+    Ok(report)
 }
 
 fn build(scenario: &Scenario, inputs: Inputs, analysis: Analysis) -> Result<Report> {

@@ -9,16 +9,19 @@
 
 use crate::error::{Error, ErrorKind, Result};
 
+/// Sign and ln|det| of a matrix as a function of ω.
+pub(crate) type Determinant<'a> = Box<dyn Fn(f64) -> (f64, f64) + 'a>;
+
 /// A system whose natural frequencies can be counted and whose determinant can be evaluated.
 pub(crate) trait Spectrum {
     /// Natural frequencies strictly below ω, and the part of that count that comes from poles
     /// of the matrix (J₀). Computed from pivots without interchanges, so it may misplace a root
     /// by a few parts in 10⁹ where a pivot vanishes; [`Spectrum::determinant`] does not.
-    fn count(&self, omega: f64) -> Count;
+    fn count(&self, omega: f64) -> Result<Count>;
     /// A function of ω giving the sign and ln|det| of a matrix that is singular exactly at the
     /// natural frequencies and has no poles on (0, `omega_max`], computed with a stably pivoted
     /// factorisation.
-    fn determinant(&self, omega_max: f64) -> Box<dyn Fn(f64) -> (f64, f64) + '_>;
+    fn determinant(&self, omega_max: f64) -> Result<Determinant<'_>>;
 }
 
 /// The result of [`Spectrum::count`].
@@ -60,7 +63,7 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
     let mut samples: Vec<(f64, Count)> = vec![(0.0, Count { below: skip, poles: 0 })];
     let mut hi = if guess.is_finite() && guess > 0.0 { guess } else { 1.0 };
     loop {
-        let c = system.count(hi);
+        let c = sane(system.count(hi)?)?;
         samples.push((hi, c));
         if c.below >= target {
             break;
@@ -83,7 +86,7 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
             }
             let (lo, clo, hi, chi) = bracket(&samples, k);
             if clo.below + 1 == k && chi.below == k {
-                let omega = polish(lo, hi, k, system, &mut samples);
+                let omega = polish(lo, hi, k, system, &mut samples)?;
                 roots.push(Root { omega, multiplicity: 1 });
                 k += 1;
                 break;
@@ -95,16 +98,30 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
                 for _ in 0..multiplicity.min(target + 1 - k) {
                     roots.push(Root { omega, multiplicity });
                 }
-                k = chi.below + 1;
+                k = chi.below.saturating_add(1).max(k + 1);
                 break;
             }
             let mid = split(lo, hi);
-            samples.push((mid, system.count(mid)));
+            samples.push((mid, sane(system.count(mid)?)?));
             sort(&mut samples);
         }
     }
     roots.truncate(wanted);
     Ok(roots)
+}
+
+/// Counts beyond this mean the trial frequency has run far past any physical one (the inputs span
+/// too many orders of magnitude); stop rather than bisect through them.
+const MAX_COUNT: usize = 1_000_000;
+
+fn sane(c: Count) -> Result<Count> {
+    if c.below > MAX_COUNT {
+        return Err(Error::new(
+            ErrorKind::NoConvergence,
+            "the frequencies could not be bracketed: the inputs span too many orders of magnitude (check the units)",
+        ));
+    }
+    Ok(c)
 }
 
 /// A point inside (lo, hi), deliberately a little off the middle: the natural frequencies of
@@ -135,12 +152,12 @@ fn polish(
     k: usize,
     system: &impl Spectrum,
     samples: &mut Vec<(f64, Count)>,
-) -> f64 {
+) -> Result<f64> {
     // Narrow by the count first. This moves the ends off ω = 0 (where the determinant vanishes
     // for rigid-body modes) and off neighbouring roots that an earlier sample may sit on.
     while lo == 0.0 || hi - lo > NARROW * hi {
         let mid = split(lo, hi);
-        let c = system.count(mid);
+        let c = system.count(mid)?;
         samples.push((mid, c));
         if c.below >= k {
             hi = mid;
@@ -149,7 +166,7 @@ fn polish(
         }
     }
     sort(samples);
-    let det = system.determinant(hi * (1.0 + WIDEN));
+    let det = system.determinant(hi * (1.0 + WIDEN))?;
     let (mut slo, mut llo) = det(lo);
     let (mut shi, mut lhi) = det(hi);
     // An end may sit on a neighbouring root (a sample that happened to land on it), giving two
@@ -158,7 +175,7 @@ fn polish(
     while slo == shi && narrowing < 80 && hi - lo > POLISH * hi {
         narrowing += 1;
         let mid = split(lo, hi);
-        if system.count(mid).below >= k {
+        if system.count(mid)?.below >= k {
             (hi, (shi, lhi)) = (mid, det(mid));
         } else {
             (lo, (slo, llo)) = (mid, det(mid));
@@ -172,12 +189,12 @@ fn polish(
         step *= 4.0;
     }
     if slo == shi {
-        return 0.5 * (lo + hi);
+        return Ok(0.5 * (lo + hi));
     }
     let reference = llo.max(lhi);
     let value = |(sign, log): (f64, f64)| sign * (log - reference).clamp(-700.0, 700.0).exp();
-    brent(lo, value((slo, llo)), hi, value((shi, lhi)), |omega| Some(value(det(omega))))
-        .unwrap_or(0.5 * (lo + hi))
+    Ok(brent(lo, value((slo, llo)), hi, value((shi, lhi)), |omega| Some(value(det(omega))))
+        .unwrap_or(0.5 * (lo + hi)))
 }
 
 /// Brent's method (Brent, *Algorithms for Minimization without Derivatives*, 1973, ch. 4) on a
@@ -258,13 +275,13 @@ mod tests {
     }
 
     impl Spectrum for Diagonal {
-        fn count(&self, omega: f64) -> Count {
+        fn count(&self, omega: f64) -> Result<Count> {
             let poles = self.poles.iter().filter(|p| **p < omega).count();
-            Count { below: self.roots.iter().filter(|r| **r < omega).count(), poles }
+            Ok(Count { below: self.roots.iter().filter(|r| **r < omega).count(), poles })
         }
-        fn determinant(&self, _: f64) -> Box<dyn Fn(f64) -> (f64, f64) + '_> {
+        fn determinant(&self, _: f64) -> Result<Determinant<'_>> {
             // Pole-free: the poles only enter the count, as in a refined layout.
-            Box::new(move |omega| {
+            Ok(Box::new(move |omega| {
                 let mut sign = 1.0;
                 let mut log = 0.0;
                 for v in self.roots.iter().map(|r| r - omega) {
@@ -272,7 +289,7 @@ mod tests {
                     log += v.abs().ln();
                 }
                 (sign, log)
-            })
+            }))
         }
     }
 

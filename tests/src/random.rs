@@ -51,6 +51,8 @@ pub struct Kinds {
     pub sprung: bool,
     /// Allow rigid intermediate supports.
     pub supports: bool,
+    /// Timoshenko beams with shear deformation and rotary inertia of a stocky section.
+    pub timoshenko: bool,
 }
 
 /// A random valid model: 1–3 segments, random ends, 0–4 attachments at distinct interior points.
@@ -67,12 +69,25 @@ pub fn model(rng: &mut Rng, kinds: Kinds) -> Model {
 fn parts(rng: &mut Rng, kinds: Kinds) -> ModelParts {
     let n = 1 + rng.below(3);
     let segments: Vec<Segment> = (0..n)
-        .map(|_| Segment {
-            length: rng.range(0.3, 1.5),
-            flexural_rigidity: rng.log_range(0.3, 3.0),
-            mass_per_length: rng.log_range(0.5, 2.0),
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
+        .map(|_| {
+            let (length, ei, m) = (rng.range(0.3, 1.5), rng.log_range(0.3, 3.0), rng.log_range(0.5, 2.0));
+            // A section whose radius of gyration is 1–10 % of the segment length, shear stiffness
+            // such that EI/(κGA·L²) is of the same order.
+            let (kga, rho_i) = if kinds.timoshenko {
+                (
+                    Some(ei / (rng.log_range(1e-3, 2e-2) * length * length)),
+                    m * (rng.log_range(0.01, 0.1) * length).powi(2),
+                )
+            } else {
+                (None, 0.0)
+            };
+            Segment {
+                length,
+                flexural_rigidity: ei,
+                mass_per_length: m,
+                shear_rigidity: kga,
+                rotary_inertia_per_length: rho_i,
+            }
         })
         .collect();
     let length: f64 = segments.iter().map(|s| s.length).sum();
@@ -117,5 +132,6 @@ fn parts(rng: &mut Rng, kinds: Kinds) -> ModelParts {
             _ => Attachment::Mass { position: x, mass, rotary_inertia: 0.0 },
         });
     }
-    ModelParts { segments, left, right, attachments, theory: Theory::EulerBernoulli }
+    let theory = if kinds.timoshenko { Theory::Timoshenko } else { Theory::EulerBernoulli };
+    ModelParts { segments, left, right, attachments, theory }
 }

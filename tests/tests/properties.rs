@@ -7,8 +7,8 @@ use modebench::{analyse, exact, Attachment, End, Model, ModelParts, Options, Seg
 use modebench_tests::random::{self, Kinds, Rng};
 use modebench_tests::{check, relative_error};
 
-const RESTRAINED: Kinds = Kinds { unrestrained: false, sprung: true, supports: true };
-const ANY: Kinds = Kinds { unrestrained: true, sprung: true, supports: true };
+const RESTRAINED: Kinds = Kinds { unrestrained: false, sprung: true, supports: true, timoshenko: false };
+const ANY: Kinds = Kinds { unrestrained: true, sprung: true, supports: true, timoshenko: false };
 
 fn rebuild(model: &Model, edit: impl FnOnce(&mut ModelParts)) -> Model {
     let mut parts = model.parts().clone();

@@ -61,7 +61,7 @@ fn exact_method_matches_mpmath_roots_of_the_characteristic_determinant() {
         4,
     ));
     let mut rng = Rng::new(0x5EED_0001);
-    let kinds = Kinds { unrestrained: false, sprung: true, supports: true };
+    let kinds = Kinds { unrestrained: false, sprung: true, supports: true, timoshenko: false };
     for i in 0..12 {
         cases.push((format!("random model {i}"), random::model(&mut rng, kinds), 4));
     }
@@ -90,11 +90,11 @@ fn exact_method_matches_mpmath_roots_of_the_characteristic_determinant() {
 #[test]
 fn banded_fe_solver_matches_scipy_on_the_same_matrices() {
     let mut rng = Rng::new(0x5EED_0002);
-    let kinds = Kinds { unrestrained: false, sprung: true, supports: true };
+    let kinds = Kinds { unrestrained: false, sprung: true, supports: true, timoshenko: false };
     let mut models = Vec::new();
     for i in 0..6 {
         let model = random::model(&mut rng, kinds);
-        let (k, m) = fe::matrices(&model, Mesh::Total(30));
+        let (k, m) = fe::matrices(&model, Mesh::Total(30)).expect("assembles");
         models.push((i, model, k, m));
     }
     let input = serde_json::json!({

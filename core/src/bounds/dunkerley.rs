@@ -30,7 +30,7 @@ pub fn dunkerley(model: &Model) -> Result<Option<f64>> {
 
     // Static flexibilities of the massless beam; the elements are exact at the nodes for
     // concentrated loads, so one element per span is enough.
-    let d = Discrete::new(model, Mesh::Total(1), &[]);
+    let d = Discrete::new(model, Mesh::Total(1), &[])?;
     let mut unit_loads = Vec::new();
     let mut terms: Vec<(usize, f64, f64)> = Vec::new(); // (dof, inertia, added series flexibility)
     for s in &d.layout.stations {

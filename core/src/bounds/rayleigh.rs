@@ -22,7 +22,7 @@ pub fn rayleigh(model: &Model, mode1: &ModeShape, omega1: f64) -> Option<f64> {
     if model.rigid_body_modes() > 0 {
         return None;
     }
-    let d = Discrete::new(model, Mesh::UpTo(4.0 * omega1), &mode1.nodes);
+    let d = Discrete::new(model, Mesh::UpTo(4.0 * omega1), &mode1.nodes).ok()?;
     let sign = |x: f64| if mode1.at(x).0 < 0.0 { -1.0 } else { 1.0 };
     let mut load = vec![0.0; d.layout.dofs];
     for (span, e) in d.layout.spans.iter().zip(&d.elements) {

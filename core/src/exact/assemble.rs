@@ -1,10 +1,11 @@
 //! Assembly of the global dynamic stiffness K(ω) and the Wittrick–Williams count.
 
 use crate::band::SymBand;
+use crate::error::{Error, ErrorKind, Result};
 use crate::layout::Layout;
 use crate::member::Member;
 use crate::model::Model;
-use crate::roots::{Count, Spectrum};
+use crate::roots::{Count, Determinant, Spectrum};
 
 /// A layout with one member per span, ready to assemble at any ω.
 #[derive(Clone, Debug)]
@@ -24,20 +25,32 @@ impl System {
         System { layout, members }
     }
 
-    /// K(ω) with held degrees of freedom removed.
+    /// K(ω) with held degrees of freedom removed. Callers use it only at frequencies the count
+    /// has already reached, where every member can be evaluated.
     pub(crate) fn assemble(&self, omega: f64) -> SymBand {
-        self.assemble_with_poles(omega).0
+        self.assemble_with_poles(omega)
+            .map_or_else(|_| SymBand::zeros(self.layout.dofs, self.layout.bandwidth), |k| k.0)
     }
 
     /// K(ω) and J₀(ω), the members' clamped–clamped frequencies below ω.
-    pub(crate) fn assemble_with_poles(&self, omega: f64) -> (SymBand, usize) {
+    pub(crate) fn assemble_with_poles(&self, omega: f64) -> Result<(SymBand, usize)> {
         let layout = &self.layout;
         let mut k = SymBand::zeros(layout.dofs, layout.bandwidth);
-        let mut poles = 0;
+        let mut poles: usize = 0;
         let w2 = omega * omega;
         for (span, member) in layout.spans.iter().zip(&self.members) {
-            let (local, count) = member.stiffness_and_count(omega);
-            poles += count;
+            let Some((local, count)) = member.stiffness_and_count(omega) else {
+                return Err(Error::new(
+                    ErrorKind::Model,
+                    format!(
+                        "near {:.4e} Hz this segment's shear rigidity κGA is too low for its bending stiffness \
+                         and rotary inertia to be computed as a Timoshenko beam; check κGA and ρI (or the section)",
+                        omega / std::f64::consts::TAU
+                    ),
+                )
+                .at(format!("segments[{}]", span.segment)));
+            };
+            poles = poles.saturating_add(count);
             let ids = layout.span_dofs(span);
             for (a, ia) in ids.iter().enumerate() {
                 let Some(ia) = ia else { continue };
@@ -63,7 +76,7 @@ impl System {
                 }
             }
         }
-        (k, poles)
+        Ok((k, poles))
     }
 }
 
@@ -81,29 +94,29 @@ const WEAK_PIVOT: f64 = 1e-10;
 impl Spectrum for Exact<'_> {
     /// J(ω) = J₀(ω) + s{K(ω)}. When a pivot nearly vanishes (a leading minor of K is singular at
     /// ω, which says nothing about the structure) ω is nudged by a few parts in 10⁹.
-    fn count(&self, omega: f64) -> Count {
+    fn count(&self, omega: f64) -> Result<Count> {
         let mut trial = omega;
         for attempt in 1..=4 {
-            let (k, poles) = self.natural.assemble_with_poles(trial);
+            let (k, poles) = self.natural.assemble_with_poles(trial)?;
             let inertia = k.inertia();
             if inertia.weakest_pivot > WEAK_PIVOT || attempt == 4 {
-                return Count { below: poles + inertia.negative, poles };
+                return Ok(Count { below: poles.saturating_add(inertia.negative), poles });
             }
             trial = omega * (1.0 + 1e-9 * attempt as f64);
         }
         unreachable!("the loop returns on its last attempt")
     }
 
-    fn determinant(&self, omega_max: f64) -> Box<dyn Fn(f64) -> (f64, f64) + '_> {
+    fn determinant(&self, omega_max: f64) -> Result<Determinant<'_>> {
         let model = self.model;
         let layout = Layout::new(model, |span| {
             Member::new(&model.segments()[span.segment], span.length, model.theory())
                 .pole_free_pieces(omega_max)
-        });
+        })?;
         let refined = System::new(model, layout);
         // A Timoshenko member's stiffness is itself condensed from a chain and may have poles;
         // the refined pieces are cut below their first clamped–clamped frequency at omega_max,
         // so the chain has one piece each and no poles.
-        Box::new(move |omega| refined.assemble(omega).lu().determinant())
+        Ok(Box::new(move |omega| refined.assemble(omega).lu().determinant()))
     }
 }

@@ -41,7 +41,7 @@ pub fn modes(model: &Model, elastic: usize) -> Result<Vec<ExactMode>> {
     while i < all.len() {
         let (omega, multiplicity) = all[i];
         let group = multiplicity.max(1).min(all.len() - i);
-        let shapes = shape::shapes(model, omega, group);
+        let shapes = shape::shapes(model, omega, group)?;
         for s in shapes {
             out.push(ExactMode { omega, multiplicity, rigid_body: omega == 0.0, shape: s });
         }
@@ -57,7 +57,7 @@ pub fn frequencies(model: &Model, elastic: usize) -> Result<Vec<f64>> {
 }
 
 fn roots_of(model: &Model, elastic: usize) -> Result<Vec<roots::Root>> {
-    let spectrum = Exact { model, natural: System::new(model, Layout::new(model, |_| 1)) };
+    let spectrum = Exact { model, natural: System::new(model, Layout::new(model, |_| 1)?) };
     let rigid = model.rigid_body_modes();
     roots::find(rigid, elastic, guess(model, rigid + elastic), &spectrum)
 }

@@ -10,6 +10,7 @@
 //!
 //! Normalisation: the largest translation anywhere (beam or sprung mass) is +1.
 
+use crate::error::Result;
 use crate::exact::System;
 use crate::layout::Layout;
 use crate::member::Member;
@@ -79,12 +80,12 @@ impl ModeShape {
 }
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
-pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Vec<ModeShape> {
+pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
     let theory = model.theory();
     let layout = Layout::new(model, |span| {
         let member = Member::new(&model.segments()[span.segment], span.length, theory);
         member.shape_pieces(omega)
-    });
+    })?;
     let system = System::new(model, layout);
     let k = system.assemble(omega);
     let mut vectors: Vec<Vec<f64>> = Vec::with_capacity(count);
@@ -112,7 +113,7 @@ pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Vec<ModeShape> 
     for s in &mut out {
         normalise(s);
     }
-    out
+    Ok(out)
 }
 
 fn start_vector(n: usize, seed: u64) -> Vec<f64> {

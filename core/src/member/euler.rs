@@ -133,7 +133,7 @@ impl Euler {
         if lambda < 4.0 {
             return 0; // The first root is λ = 4.730…; D > 0 below it.
         }
-        let i = (lambda / std::f64::consts::PI).floor();
+        let i = (lambda / std::f64::consts::PI).floor().min(1e12);
         // sgn(1 − C·c) = sgn(sech λ − cos λ) since cosh λ > 0.
         let sign = (sech(lambda) - lambda.cos()).signum();
         let parity = if i % 2.0 == 0.0 { 1.0 } else { -1.0 };

@@ -38,10 +38,11 @@ impl Member {
     }
 
     /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
-    /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀).
-    pub(crate) fn stiffness_and_count(&self, omega: f64) -> ([[f64; 4]; 4], usize) {
+    /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀); `None`
+    /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`).
+    pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<([[f64; 4]; 4], usize)> {
         match self {
-            Member::Euler(e) => (e.stiffness(omega), e.clamped_count(omega)),
+            Member::Euler(e) => Some((e.stiffness(omega), e.clamped_count(omega))),
             Member::Timoshenko(t) => t.stiffness_and_count(omega),
         }
     }
@@ -67,8 +68,8 @@ impl Member {
     /// interior formulas are accurate and no piece reaches its own clamped–clamped frequency.
     pub(crate) fn shape_pieces(&self, omega: f64) -> usize {
         match self {
-            Member::Euler(e) => (e.lambda(omega) / 1.0).ceil().max(1.0) as usize,
-            Member::Timoshenko(t) => t.pieces(omega).max(t.lambda(omega).ceil() as usize),
+            Member::Euler(e) => count((e.lambda(omega) / 1.0).ceil()),
+            Member::Timoshenko(t) => t.pieces(omega).max(count(t.lambda(omega).ceil())),
         }
     }
 
@@ -76,8 +77,18 @@ impl Member {
     /// frequency below `omega_max` (λ = 4.730 for a bending member; 3.5 leaves a margin).
     pub(crate) fn pole_free_pieces(&self, omega_max: f64) -> usize {
         match self {
-            Member::Euler(e) => (e.lambda(omega_max) / 3.5).ceil().max(1.0) as usize,
+            Member::Euler(e) => count((e.lambda(omega_max) / 3.5).ceil()),
             Member::Timoshenko(t) => t.pieces(omega_max),
         }
+    }
+}
+
+/// A piece count from a float, at least 1, saturating past what any layout accepts (the layout
+/// then reports the problem) and treating NaN the same way.
+fn count(n: f64) -> usize {
+    if n.is_nan() {
+        usize::MAX / 4
+    } else {
+        n.clamp(1.0, 1e9) as usize
     }
 }

@@ -39,6 +39,10 @@ pub(crate) struct Timoshenko {
 const PIECE_LAMBDA: f64 = 1.2;
 /// Margin on the piece's clamped–clamped lower bound over the frequency of interest.
 const MARGIN: f64 = 1.1;
+/// Most pieces one member may be cut into. Realistic sections need a few to a few dozen at the
+/// frequencies asked for; thousands mean a shear rigidity implausibly low for the bending
+/// stiffness and rotary inertia, and the computation would crawl.
+pub(crate) const MAX_PIECES: usize = 4000;
 
 impl Timoshenko {
     /// The Euler–Bernoulli λ = L·(ρAω²/EI)^¼ of the whole member.
@@ -63,13 +67,13 @@ impl Timoshenko {
         shear.min(bending).min(accuracy)
     }
 
-    /// Pieces needed at `omega`.
+    /// Pieces needed at `omega`; more than [`MAX_PIECES`] when the member cannot be handled.
     pub(crate) fn pieces(&self, omega: f64) -> usize {
         let n = (self.length / self.longest_piece(omega)).ceil();
-        if n.is_finite() {
-            n.clamp(1.0, 1e6) as usize
+        if n.is_nan() {
+            MAX_PIECES + 1
         } else {
-            1
+            n.clamp(1.0, (MAX_PIECES + 1) as f64) as usize
         }
     }
 
@@ -123,13 +127,17 @@ impl Timoshenko {
         k
     }
 
-    /// Dynamic stiffness of [w₁, ψ₁, w₂, ψ₂] and the number of clamped–clamped frequencies below ω.
-    pub(crate) fn stiffness_and_count(&self, omega: f64) -> ([[f64; 4]; 4], usize) {
+    /// Dynamic stiffness of [w₁, ψ₁, w₂, ψ₂] and the number of clamped–clamped frequencies below ω;
+    /// `None` when the member would need more than [`MAX_PIECES`] pieces.
+    pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<([[f64; 4]; 4], usize)> {
         let n = self.pieces(omega);
+        if n > MAX_PIECES {
+            return None;
+        }
         let h = self.length / n as f64;
         let p = self.piece_stiffness(h, omega);
         if n == 1 {
-            return (p, 0);
+            return Some((p, 0));
         }
         // Interior stations 1..n−1, two unknowns each, ordered (w, ψ) station by station.
         let interior = 2 * (n - 1);
@@ -173,7 +181,7 @@ impl Timoshenko {
                 k[a][b] = kee - correction;
             }
         }
-        (k, count)
+        Some((k, count))
     }
 
     /// The left-end state (w, ψ, M, Q) for end values q at ω, from the piece stiffness.
@@ -196,9 +204,17 @@ impl Timoshenko {
     }
 }
 
-/// exp(A·t)·y by its Taylor series, in sub-steps short enough that the series converges fast.
+/// exp(A·t)·y: by its Taylor series in sub-steps short enough that it converges fast, or, for
+/// a matrix of large norm (a piece much shorter than its section is deep), by nalgebra's Padé
+/// approximant with scaling and squaring, whose cost grows only with log ‖A‖.
 fn propagate(a: &Matrix4<f64>, y: Vector4<f64>, t: f64) -> Vector4<f64> {
     let norm = a.abs().row_sum().max() * t.abs();
+    if !norm.is_finite() {
+        return Vector4::from_element(f64::NAN);
+    }
+    if norm > 48.0 {
+        return (a * t).exp() * y;
+    }
     let steps = (norm / 1.5).ceil().max(1.0) as usize;
     let dt = t / steps as f64;
     let mut y = y;
@@ -230,7 +246,7 @@ mod tests {
         let e = Euler { length: 2.0, ei: 5.0, m: 1.5 };
         for lambda in [0.3, 2.0, 4.0, 6.1, 9.5, 15.0, 23.0] {
             let omega = (lambda / 2.0f64).powi(2) * (5.0f64 / 1.5).sqrt();
-            let (kt, count) = t.stiffness_and_count(omega);
+            let (kt, count) = t.stiffness_and_count(omega).unwrap();
             let ke = e.stiffness(omega);
             assert_eq!(count, e.clamped_count(omega), "λ = {lambda}");
             let scale = ke.iter().flatten().fold(0.0f64, |m, v| m.max(v.abs()));
@@ -250,7 +266,7 @@ mod tests {
     #[test]
     fn stiffness_is_symmetric_and_static_limit_matches_the_shear_element() {
         let t = Timoshenko { length: 0.5, ei: 2.0e4, kga: 3.0e5, m: 20.0, rho_i: 0.02 };
-        let (k, _) = t.stiffness_and_count(1e-6);
+        let (k, _) = t.stiffness_and_count(1e-6).unwrap();
         let (l, p) = (t.length, 12.0 * t.ei / (t.kga * t.length * t.length));
         // Static stiffness of a Timoshenko beam element (Przemieniecki 1968 — from memory).
         let c = t.ei / ((1.0 + p) * l.powi(3));
@@ -258,7 +274,7 @@ mod tests {
         for j in 0..4 {
             assert!((k[1][j] - c * row1[j]).abs() < 1e-8 * (c * row1[j]).abs(), "{j}");
         }
-        let (k, _) = t.stiffness_and_count(900.0);
+        let (k, _) = t.stiffness_and_count(900.0).unwrap();
         for i in 0..4 {
             for j in 0..4 {
                 assert!((k[i][j] - k[j][i]).abs() < 1e-9 * k[i][j].abs().max(1.0));

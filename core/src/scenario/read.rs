@@ -51,10 +51,14 @@ pub struct SegmentEcho {
 #[derive(Default)]
 struct Reader {
     conversions: Vec<(String, Conversion)>,
+    /// Every value read, as written, by path: model checks see SI numbers, but an error should
+    /// show what the user typed ("-3 kg", not "-3").
+    written: Vec<(String, String)>,
 }
 
 impl Reader {
     fn read(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
+        self.written.push((path.to_string(), q.to_string()));
         let converted = units::convert(q, kind).map_err(|e| e.at(path))?;
         if let Some(c) = converted.conversion {
             self.conversions.push((path.to_string(), c));
@@ -66,6 +70,7 @@ impl Reader {
     fn spring(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
+                self.written.push((path.to_string(), q.to_string()));
                 return Ok(f64::INFINITY);
             }
         }
@@ -97,7 +102,13 @@ impl Scenario {
             attachments.push(attachment);
             labels.push(label);
         }
-        let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })?;
+        let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })
+            .map_err(|mut e| {
+                if let Some((_, typed)) = r.written.iter().find(|(path, _)| *path == e.path) {
+                    e.value = Some(typed.clone());
+                }
+                e
+            })?;
         let report_point = match &self.report_point {
             Some(q) => Some(r.read(q, Kind::Length, "report_point")?),
             None => None,
