@@ -124,10 +124,10 @@ pub static ATTACHMENTS: [Choice; 5] = [
 
 /// The end supports.
 pub static ENDS: [Choice; 5] = [
-    Choice { id: "clamped", name: "Clamped (no slope, no deflection)", fields: &[] },
-    Choice { id: "pinned", name: "Pinned (free to turn)", fields: &[] },
+    Choice { id: "clamped", name: "Clamped", fields: &[] },
+    Choice { id: "pinned", name: "Pinned", fields: &[] },
     Choice { id: "free", name: "Free", fields: &[] },
-    Choice { id: "guided", name: "Guided (slides, does not turn)", fields: &[] },
+    Choice { id: "guided", name: "Guided (slides, no turn)", fields: &[] },
     Choice {
         id: "elastic",
         name: "On springs",
@@ -143,17 +143,15 @@ pub static ENDS: [Choice; 5] = [
 
 /// The unit systems with the calculator's words for them.
 pub static SYSTEMS: [(UnitSystem, &str, &str); 4] = [
-    (UnitSystem::Si, "si", "Metric — metres, kilograms, newtons"),
-    (UnitSystem::SiMm, "si-mm", "Metric — millimetres, kilograms, newtons"),
-    (UnitSystem::UsInch, "us-inch", "US — inches, pounds"),
-    (UnitSystem::UsFoot, "us-foot", "US — feet, pounds"),
+    (UnitSystem::Si, "si", "SI — m, kg, N"),
+    (UnitSystem::SiMm, "si-mm", "SI — mm, kg, N"),
+    (UnitSystem::UsInch, "us-inch", "US — in, lb, lbf"),
+    (UnitSystem::UsFoot, "us-foot", "US — ft, lb, lbf"),
 ];
 
 /// The beam theories with the calculator's words for them.
-pub static THEORIES: [(&str, &str); 2] = [
-    ("euler-bernoulli", "Slender beam (Euler–Bernoulli)"),
-    ("timoshenko", "Deep beam: shear and rotary inertia (Timoshenko)"),
-];
+pub static THEORIES: [(&str, &str); 2] =
+    [("euler-bernoulli", "Euler–Bernoulli (slender)"), ("timoshenko", "Timoshenko (deep beams)")];
 
 /// The choice with this id in a list.
 pub fn find(list: &'static [Choice], id: &str) -> Option<&'static Choice> {

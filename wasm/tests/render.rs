@@ -134,7 +134,9 @@ fn rigid_body_modes_show_as_zero_hz_and_labelled() {
         "segments": [{"length": "1 m", "flexural_rigidity": 1, "mass_per_length": 1}]}"#;
     let html = widget_html(json);
     assert_no_bad_numbers("free-free", &html);
-    assert!(html.contains("data-hz=\"0\">0 Hz <span class=\"mb-tag\">rigid-body motion</span>"));
+    assert!(html.contains(
+        "data-hz=\"0\"><span class=\"mb-main\">0 Hz</span> <span class=\"mb-tag\">rigid-body motion</span>"
+    ));
 }
 
 #[test]

@@ -55,7 +55,7 @@ fn bar(lower: Option<f64>, exact: f64, upper: Option<f64>) -> String {
     let span = (high - low).max(high.abs() * 0.01).max(f64::MIN_POSITIVE);
     let (from, to) = (low - 0.25 * span, high + 0.25 * span);
     let x = |v: f64| 12.0 + 296.0 * (v - from) / (to - from);
-    let mut out = format!(
+    let mut out = String::from(
         "<svg class=\"mb-band\" viewBox=\"0 0 320 44\" role=\"img\" aria-label=\"Exact mode 1 frequency between its \
          lower and upper bounds\"><rect class=\"mb-band-track\" x=\"12\" y=\"16\" width=\"296\" height=\"10\" rx=\"5\" \
          fill=\"#e7ecf1\"/>"

@@ -79,11 +79,7 @@ fn setup(form: &mut Form<'_>) -> String {
     body.push_str(&form.text(
         "report_point",
         "Equivalent system of mode 1 at",
-        TextOptions {
-            placeholder: Some("point of largest deflection"),
-            optional: true,
-            ..TextOptions::default()
-        },
+        TextOptions { placeholder: Some("largest deflection"), optional: true, ..TextOptions::default() },
     ));
     body.push_str("</div>");
     group("mb-setup", "Set-up", &body)

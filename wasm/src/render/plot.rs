@@ -9,11 +9,11 @@ use modebench::units::Kind;
 use modebench::Report;
 
 const WIDTH: f64 = 720.0;
-const HEIGHT: f64 = 270.0;
+const HEIGHT: f64 = 290.0;
 const LEFT: f64 = 70.0;
 const RIGHT: f64 = 650.0;
 /// The beam's line at rest.
-const AXIS: f64 = 118.0;
+const AXIS: f64 = 140.0;
 /// The largest deflection drawn, px.
 const AMPLITUDE: f64 = 58.0;
 /// The colour of the deflected shape.
@@ -50,9 +50,12 @@ pub fn plot_svg(report: &Report, number: usize) -> String {
     if let Some(m) = mode {
         out.push_str(&shape_line(m, &px));
     }
-    let ends = &report.beam;
-    out.push_str(&symbols::end(ends.left.kind, LEFT, AXIS, 1.0, ends.left.rotational != Some(0.0)));
-    out.push_str(&symbols::end(ends.right.kind, RIGHT, AXIS, -1.0, ends.right.rotational != Some(0.0)));
+    // Ends that move (free and sprung ones) are drawn where the mode takes them.
+    let beam = &report.beam;
+    for (end, x, at, direction) in [(&beam.left, LEFT, 0.0, 1.0), (&beam.right, RIGHT, length, -1.0)] {
+        let y = AXIS - AMPLITUDE * deflection(mode, at);
+        out.push_str(&symbols::end(end.kind, x, y, direction, end.rotational != Some(0.0)));
+    }
     out.push_str(&attachments(report, mode, &px));
     if let Some(m) = mode {
         for x in &m.nodes {
@@ -143,12 +146,12 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
                 let amplitude =
                     mode.and_then(|m| m.sprung.iter().find(|s| s.attachment == i)).map_or(0.0, |s| {
                         if s.amplitude.is_finite() {
-                            s.amplitude.clamp(-1.5, 1.5)
+                            s.amplitude.clamp(-1.2, 1.2)
                         } else {
                             0.0
                         }
                     });
-                let top = AXIS - 48.0 - AMPLITUDE * amplitude;
+                let top = AXIS - 40.0 - AMPLITUDE * amplitude;
                 out.push_str(&symbols::zigzag(x, top + 8.0, y));
                 out.push_str(&symbols::mass(x, top));
             }
@@ -162,7 +165,7 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
         }
         if !a.label.trim().is_empty() {
             let short: String = a.label.trim().chars().take(28).collect();
-            out.push_str(&symbols::label(x, HEIGHT - 34.0, &escape(&short)));
+            out.push_str(&symbols::label(x, HEIGHT - 32.0, &escape(&short)));
         }
     }
     out
@@ -174,7 +177,7 @@ fn ruler(report: &Report) -> String {
     format!(
         "<g class=\"mb-ruler\" stroke=\"{INK}\" stroke-width=\"1\"><line x1=\"{LEFT}\" y1=\"{y}\" x2=\"{RIGHT}\" y2=\"{y}\"/>\
          <line x1=\"{LEFT}\" y1=\"{0}\" x2=\"{LEFT}\" y2=\"{1}\"/><line x1=\"{RIGHT}\" y1=\"{0}\" x2=\"{RIGHT}\" y2=\"{1}\"/></g>\
-         <text x=\"{2}\" y=\"{3}\" text-anchor=\"middle\" font-size=\"11\" fill=\"{INK}\" class=\"mb-ruler-text\">{4}</text>",
+         <text x=\"{2}\" y=\"{3}\" text-anchor=\"middle\" font-size=\"13\" fill=\"{INK}\" class=\"mb-ruler-text\">{4}</text>",
         n(y - 5.0),
         n(y + 5.0),
         n((LEFT + RIGHT) / 2.0),

@@ -73,8 +73,7 @@ fn table(report: &Report) -> String {
     let mut out = format!(
         "<h4 class=\"mb-results-title\">Natural frequencies — {}</h4><div class=\"mb-table-wrap\">\
          <table class=\"mb-modes\"><thead><tr><th scope=\"col\">Mode</th><th scope=\"col\">Frequency</th>\
-         <th scope=\"col\">Speed</th><th scope=\"col\">Finite-element check</th><th scope=\"col\">Difference</th>\
-         <th scope=\"col\">Nodes from the left end</th>{}",
+         <th scope=\"col\">Finite-element check</th><th scope=\"col\">Nodes from the left end</th>{}",
         theory_name(report.theory),
         other.unwrap_or_default()
     );
@@ -108,21 +107,33 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
     if m.multiplicity > 1 {
         tags.push_str(&format!(" <span class=\"mb-tag\">repeated ×{}</span>", m.multiplicity));
     }
-    out.push_str(&format!("<td class=\"mb-hz\"{data_hz}>{}{tags}</td>", hz(m.frequency_hz)));
-    out.push_str(&format!("<td class=\"mb-rpm\">{}</td>", rpm(m.frequency_hz)));
-    match m.fe_frequency_hz.and_then(|f| number::exact(f).map(|text| (f, text))) {
-        Some((f, text)) => out.push_str(&format!("<td data-fe-hz=\"{text}\">{}</td>", hz(f))),
-        None => out.push_str(&format!("<td>{}</td>", number::MISSING)),
-    }
-    let difference = m.fe_difference.map(|d| {
-        let sign = if d > 0.0 { "+" } else { "" };
-        format!("{sign}{}", percent(d, 2))
+    out.push_str(&format!(
+        "<td class=\"mb-hz\"{data_hz}><span class=\"mb-main\">{}</span>{tags}<span class=\"mb-sub\">{}</span></td>",
+        hz(m.frequency_hz),
+        rpm(m.frequency_hz)
+    ));
+    // Differences far below the digits shown say only that the two methods agree.
+    let difference = m.fe_difference.map(|d| match d {
+        d if d.abs() < 1e-6 => "within 0.0001 %".to_string(),
+        d if d > 0.0 => format!("+{}", percent(d, 2)),
+        d => percent(d, 2),
     });
-    out.push_str(&format!("<td>{}</td>", difference.unwrap_or_else(|| number::MISSING.to_string())));
+    match m.fe_frequency_hz.and_then(|f| number::exact(f).map(|text| (f, text))) {
+        Some((f, text)) => out.push_str(&format!(
+            "<td class=\"mb-fe\" data-fe-hz=\"{text}\"><span class=\"mb-main\">{}</span><span class=\"mb-sub\">{}</span></td>",
+            hz(f),
+            difference.unwrap_or_default()
+        )),
+        None => out.push_str(&format!("<td class=\"mb-fe\">{}</td>", number::MISSING)),
+    }
     let nodes = if m.nodes.is_empty() {
         "none".to_string()
     } else {
-        m.nodes.iter().map(|x| quantity(*x, Kind::Length, system)).collect::<Vec<_>>().join(", ")
+        m.nodes
+            .iter()
+            .map(|x| format!("<span class=\"mb-node-at\">{}</span>", quantity(*x, Kind::Length, system)))
+            .collect::<Vec<_>>()
+            .join(", ")
     };
     out.push_str(&format!("<td class=\"mb-nodes\">{nodes}</td>"));
     if report.comparison.is_some() {
@@ -138,13 +149,19 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
                     .filter(|l| !l.is_empty())
                     .map_or(format!("excitation {}", s.excitation + 1), escape);
                 let order = if s.order > 1 { format!(" ×{}", s.order) } else { String::new() };
-                out.push_str(&format!("<td>{label}{order} at {}</td>", hz(s.frequency_hz)));
+                out.push_str(&format!(
+                    "<td class=\"mb-nearest\">{label}{order}<span class=\"mb-sub\">{}</span></td>",
+                    hz(s.frequency_hz)
+                ));
                 let flag = if s.too_close {
                     "<span class=\"mb-flag mb-flag-close\">⚠ too close</span>"
                 } else {
                     "<span class=\"mb-flag mb-flag-clear\">clear</span>"
                 };
-                out.push_str(&format!("<td>{} {flag}</td>", percent(s.margin, 3)));
+                out.push_str(&format!(
+                    "<td class=\"mb-separation\"><span class=\"mb-main\">{}</span>{flag}</td>",
+                    percent(s.margin, 3)
+                ));
             }
             None => out.push_str(&format!("<td>{0}</td><td>{0}</td>", number::MISSING)),
         }

@@ -145,7 +145,7 @@ pub(crate) fn mass(x: f64, y: f64) -> String {
 /// A text label, already escaped by the caller.
 pub(crate) fn label(x: f64, y: f64, escaped: &str) -> String {
     format!(
-        "<text class=\"mb-plot-label\" x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"11\" fill=\"{INK}\">{escaped}</text>",
+        "<text class=\"mb-plot-label\" x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"13\" fill=\"{INK}\">{escaped}</text>",
         n(x),
         n(y)
     )

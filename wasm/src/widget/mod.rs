@@ -35,9 +35,10 @@ fn mount(root: web_sys::Element, index: usize) -> bool {
         c.draw_all();
     }
     let state = Rc::clone(&calculator);
-    let listener = Closure::<dyn FnMut(Event)>::new(move |event: Event| {
-        // An event raised while the calculator redraws (a blur as an input is replaced) finds it
-        // busy and is ignored, rather than borrowing the state twice.
+    // A plain `Fn` closure, because the browser may call it again while it runs: replacing a
+    // focused input during a redraw makes it fire `change` at once. That nested event finds the
+    // calculator busy and is ignored (the redraw already shows the latest state).
+    let listener = Closure::<dyn Fn(Event)>::new(move |event: Event| {
         if let Ok(mut c) = state.try_borrow_mut() {
             c.handle(&event);
         }
