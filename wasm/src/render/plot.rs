@@ -151,7 +151,9 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
                             0.0
                         }
                     });
-                let top = AXIS - 40.0 - AMPLITUDE * amplitude;
+                // The mass rests well above the beam; however the two move, its spring is drawn
+                // at least 22 px long so the mass never seems to pass through the beam.
+                let top = (AXIS - 64.0 - AMPLITUDE * amplitude).max(34.0).min(y - 30.0);
                 out.push_str(&symbols::zigzag(x, top + 8.0, y));
                 out.push_str(&symbols::mass(x, top));
             }
@@ -165,7 +167,7 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
         }
         if !a.label.trim().is_empty() {
             let short: String = a.label.trim().chars().take(28).collect();
-            out.push_str(&symbols::label(x, HEIGHT - 32.0, &escape(&short)));
+            out.push_str(&symbols::label(x, HEIGHT - 44.0, &escape(&short)));
         }
     }
     out

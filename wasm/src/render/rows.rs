@@ -99,8 +99,8 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
             let axis = if axis.is_empty() { "strong".to_string() } else { axis };
             out.push_str(&form.select(
                 &format!("{section_path}.axis"),
-                "Bends about",
-                &[("strong", "Strong axis (web in the plane)"), ("weak", "Weak axis (flanges in the plane)")],
+                "Bends about (strong: web in the plane)",
+                &[("strong", "Strong axis"), ("weak", "Weak axis")],
                 &axis,
                 "",
             ));

@@ -19,6 +19,11 @@ pub(super) struct Calculator {
     last: Option<Report>,
     error: Option<Error>,
     view: View,
+    /// The callback that solves and redraws at the next animation frame.
+    frame: Option<js_sys::Function>,
+    /// Typed edits wait for that frame: however fast the reader types, the engine solves at
+    /// most once per frame and never falls behind.
+    pending: bool,
 }
 
 impl Calculator {
@@ -33,6 +38,8 @@ impl Calculator {
             last: None,
             error: None,
             view: View::default(),
+            frame: None,
+            pending: false,
         };
         match storage::load(&c.key) {
             Some((doc, mode)) => {
@@ -133,20 +140,58 @@ impl Calculator {
         }
     }
 
-    /// Applies an edit, stores it, solves and redraws; times the whole update on the root's
-    /// `data-update-ms` so the page can be checked for responsiveness.
+    /// Gives the calculator the callback that runs [`Calculator::flush`] at the next frame.
+    pub(super) fn set_frame(&mut self, frame: js_sys::Function) {
+        self.frame = Some(frame);
+    }
+
+    /// Applies an edit and stores it. Typing is solved at the next animation frame; a
+    /// structural edit is solved and the editor redrawn at once.
     fn edit(&mut self, edit: Edit, focus: Option<(&'static str, String)>) {
-        let started = dom::now();
         doc::apply(&mut self.doc, &edit, self.last.as_ref());
         storage::save(&self.key, &self.doc, self.view.mode);
-        self.solve();
         if edit.is_structural() {
+            self.pending = false;
+            let started = dom::now();
+            self.solve();
             self.draw_all();
             self.refocus(focus);
+            self.stamp(started);
         } else {
-            self.draw_results();
+            self.schedule();
         }
-        let _ = self.root.set_attribute("data-update-ms", &format!("{:.2}", dom::now() - started));
+    }
+
+    fn schedule(&mut self) {
+        if self.pending {
+            return;
+        }
+        let requested = match (web_sys::window(), &self.frame) {
+            (Some(window), Some(frame)) => window.request_animation_frame(frame).is_ok(),
+            _ => false,
+        };
+        self.pending = true;
+        if !requested {
+            self.flush();
+        }
+    }
+
+    /// Solves the typed edits waiting for this frame and redraws the results.
+    pub(super) fn flush(&mut self) {
+        if !self.pending {
+            return;
+        }
+        self.pending = false;
+        let started = dom::now();
+        self.solve();
+        self.draw_results();
+        self.stamp(started);
+    }
+
+    /// Records how long the last update took on the root's `data-update-ms`, so that the page
+    /// can be checked for responsiveness.
+    fn stamp(&self, started: f64) {
+        let _ = self.root.set_attribute("data-update-ms", &format!("{:.1}", dom::now() - started));
     }
 
     /// After the editor was redrawn, gives the focus back to the control that had it.

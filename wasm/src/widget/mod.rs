@@ -31,9 +31,18 @@ pub(crate) fn mount_all() -> usize {
 /// Takes over one calculator: draws it from the stored or the page's scenario and listens.
 fn mount(root: web_sys::Element, index: usize) -> bool {
     let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index)));
+    let for_frame = Rc::clone(&calculator);
+    let frame = Closure::<dyn Fn()>::new(move || {
+        if let Ok(mut c) = for_frame.try_borrow_mut() {
+            c.flush();
+        }
+    });
     if let Ok(mut c) = calculator.try_borrow_mut() {
+        c.set_frame(frame.as_ref().unchecked_ref::<js_sys::Function>().clone());
         c.draw_all();
     }
+    // Both callbacks live as long as the page.
+    frame.forget();
     let state = Rc::clone(&calculator);
     // A plain `Fn` closure, because the browser may call it again while it runs: replacing a
     // focused input during a redraw makes it fire `change` at once. That nested event finds the
@@ -47,7 +56,6 @@ fn mount(root: web_sys::Element, index: usize) -> bool {
     let attached = ["input", "change", "click"]
         .iter()
         .all(|kind| root.add_event_listener_with_callback(kind, callback).is_ok());
-    // The listener lives as long as the page; letting it go would detach it.
     listener.forget();
     attached && root.set_attribute("data-live", "true").is_ok()
 }
