@@ -158,6 +158,15 @@ pub fn find(list: &'static [Choice], id: &str) -> Option<&'static Choice> {
     list.iter().find(|c| c.id == id)
 }
 
+/// The choice a scenario object names under `key` (an attachment's `type`, a section's `shape`).
+pub(crate) fn chosen(
+    list: &'static [Choice],
+    object: Option<&serde_json::Value>,
+    key: &str,
+) -> Option<&'static Choice> {
+    object.and_then(|v| v.get(key)).and_then(serde_json::Value::as_str).and_then(|id| find(list, id))
+}
+
 /// Fields of a segment given by its properties.
 pub static PROPERTY_FIELDS: [FieldSpec; 4] = [
     field("flexural_rigidity", "Bending stiffness EI", Kind::FlexuralRigidity),

@@ -5,7 +5,7 @@
 //! another section shape) carry over what still fits and fill the rest with plain defaults.
 
 use super::path;
-use crate::catalog::{self, Choice};
+use crate::catalog;
 use modebench::units::{self, Kind, UnitSystem};
 use modebench::Report;
 use serde_json::{json, Map, Value};
@@ -342,13 +342,4 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
             rows.push(row);
         }
     }
-}
-
-/// The `Choice` an attachment or section currently is, for the editor.
-pub(crate) fn current_choice(
-    list: &'static [Choice],
-    value: Option<&Value>,
-    key: &str,
-) -> Option<&'static Choice> {
-    value.and_then(|v| v.get(key)).and_then(Value::as_str).and_then(|id| catalog::find(list, id))
 }

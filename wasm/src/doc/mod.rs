@@ -10,7 +10,6 @@ pub mod path;
 #[cfg(test)]
 mod tests;
 
-pub(crate) use edit::current_choice;
 pub use edit::{apply, Edit, List};
 
 use crate::catalog;

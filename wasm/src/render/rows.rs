@@ -5,7 +5,7 @@ use super::editor::group;
 use super::escape::escape;
 use super::form::{Form, TextOptions};
 use crate::catalog::{self, Choice};
-use crate::doc::{current_choice, path};
+use crate::doc::path;
 use serde_json::Value;
 
 fn rows<'a>(doc: &'a Value, key: &str) -> &'a [Value] {
@@ -81,7 +81,7 @@ fn segment_by(index: usize, by_section: bool) -> String {
 fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     let mut out = String::new();
     let section_path = format!("{base}.section");
-    let shape = current_choice(&catalog::SHAPES, segment.get("section"), "shape");
+    let shape = catalog::chosen(&catalog::SHAPES, segment.get("section"), "shape");
     let shape_id = segment.get("section").and_then(|s| s.get("shape")).and_then(Value::as_str).unwrap_or("");
     out.push_str(&form.select(
         &format!("{section_path}.shape"),
@@ -156,7 +156,7 @@ pub(crate) fn attachments(form: &mut Form<'_>) -> String {
     let mut body = String::new();
     for (i, attachment) in list.iter().enumerate() {
         let base = format!("attachments[{i}]");
-        let choice = current_choice(&catalog::ATTACHMENTS, Some(attachment), "type");
+        let choice = catalog::chosen(&catalog::ATTACHMENTS, Some(attachment), "type");
         let type_id = attachment.get("type").and_then(Value::as_str).unwrap_or("");
         let title = match attachment.get("label").and_then(Value::as_str).filter(|l| !l.trim().is_empty()) {
             Some(label) => format!("{} — {label}", i + 1),
