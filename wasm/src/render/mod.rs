@@ -1,34 +1,75 @@
-//! HTML and SVG for a calculator: the same markup prerendered by the site builder and drawn live.
+//! HTML and SVG for a calculator: the same markup prerendered by the site builder and redrawn
+//! live by the widget.
+//!
+//! Everything here is a pure function of the scenario (as typed) and its results, so it compiles
+//! natively and in WebAssembly alike. User text is always escaped; no element carries a `style`
+//! attribute (the pages' Content-Security-Policy forbids inline styles), and no number is written
+//! without a guard, so "NaN", "inf" and "undefined" never reach the page.
 
-/// The whole calculator for a scenario given as JSON text: editor and results.
+mod band;
+mod echo;
+mod editor;
+mod errors;
+mod escape;
+mod form;
+mod number;
+mod plot;
+mod results;
+mod rows;
+mod symbols;
+
+pub use editor::{editor_html, field_paths};
+pub use errors::{field_error_html, message, placement};
+pub use escape::escape;
+pub use plot::plot_svg;
+pub use results::{results_html, results_inner, View};
+
+use crate::doc;
+use modebench::{Error, Report};
+use serde_json::Value;
+
+/// The whole calculator for a scenario given as JSON text: the root element with the scenario in
+/// `data-modebench`, the editor and the results (or the error beside its field).
 pub fn widget_html(scenario_json: &str) -> String {
-    let attr = escape(scenario_json);
-    let body = match modebench::solve_json(scenario_json) {
-        Ok(report) => {
-            let rows: String = report
-                .modes
-                .iter()
-                .map(|m| format!("<tr><td>{}</td><td>{:.4}</td></tr>", m.number, m.frequency_hz))
-                .collect();
-            format!("<table class=\"mb-modes\"><tbody>{rows}</tbody></table>")
+    let (doc, outcome) = match doc::read(scenario_json) {
+        Ok(doc) => {
+            let outcome = doc::solve(&doc);
+            (doc, outcome)
         }
-        Err(e) => format!("<p class=\"mb-error\">{}</p>", escape(&e.to_string())),
+        Err(e) => (Value::Object(serde_json::Map::new()), Err(e)),
     };
-    format!("<div class=\"mb-calc\" data-modebench=\"{attr}\">{body}</div>")
+    let (report, error) = match &outcome {
+        Ok(report) => (Some(report), None),
+        Err(e) => (None, Some(e)),
+    };
+    format!(
+        "<div class=\"mb-calc\" data-modebench=\"{}\">{}</div>",
+        escape(scenario_json),
+        calculator_inner(&doc, error, report, &View::default())
+    )
 }
 
-/// Escapes text for HTML content and double-quoted attributes.
-pub fn escape(text: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    for c in text.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            c => out.push(c),
-        }
-    }
-    out
+/// The inside of a calculator's root. With an `error`, `report` is the last good one (or none)
+/// and is shown greyed.
+pub fn calculator_inner(doc: &Value, error: Option<&Error>, report: Option<&Report>, view: &View) -> String {
+    let title = doc.get("title").and_then(Value::as_str).map(str::trim).filter(|t| !t.is_empty());
+    let title = title.map(|t| format!("<h3 class=\"mb-title\">{}</h3>", escape(t))).unwrap_or_default();
+    format!(
+        "<div class=\"mb-head\">{title}<p class=\"mb-static-note\">This calculator becomes editable once the page's \
+         script has loaded; until then it shows the worked example.</p><button type=\"button\" class=\"mb-button \
+         mb-restore\" data-action=\"restore\">Restore the page's example</button></div><div class=\"mb-body\">\
+         <div class=\"mb-editor\">{}</div>{}</div>{}",
+        editor_html(doc, error),
+        results_html(report, error.is_some(), view),
+        caution_html()
+    )
+}
+
+/// The caution shown under every calculator's results.
+pub fn caution_html() -> &'static str {
+    "<p class=\"mb-caution\"><strong>Use with care.</strong> These natural frequencies are estimates from an \
+     idealised model: confirm them by test (a tap test or a run-up) before relying on them. Running near a \
+     natural frequency causes resonance, which cracks welds and fails parts in fatigue. Follow the codes and \
+     standards that apply to your equipment, and have a qualified engineer review any design whose failure \
+     could hurt someone.</p>"
 }

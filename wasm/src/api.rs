@@ -1,0 +1,137 @@
+//! The JavaScript API of the WebAssembly module, for pages and tests.
+//!
+//! ```js
+//! import init, { solve, parseQuantity, listSections, listMaterials, listUnits, mountAll, version }
+//!   from "./modebench_web.js";
+//! await init();
+//! mountAll();                                 // start every calculator on the page; returns how many
+//! const report = solve({ left: "clamped", right: "free",
+//!   segments: [{ length: "1 m", flexural_rigidity: 1, mass_per_length: 1 }] });
+//! report.modes[0].frequency_hz;               // plain objects, SI units, null where no value
+//! parseQuantity("30e6 psi", "pressure");      // { si: 206842718795.3, si_unit: "Pa", conversion: "30e6 psi = …" }
+//! try { solve({}) } catch (e) { e.path; e.kind; e.value; e.message }
+//! ```
+//!
+//! Every failure is thrown as a JS `Error` carrying `path` (the scenario field, `""` for the
+//! whole input), `kind` (as `"unknown-unit"`) and `value` (what was written, or `null`), made by
+//! one helper, [`js_error`]. Nothing panics across the boundary; should a defect panic anyway,
+//! the hook installed at start-up says so on the console.
+
+use modebench::units::Kind;
+use modebench::{Error, ErrorKind};
+use serde::Serialize;
+use wasm_bindgen::prelude::*;
+
+/// Installs the panic hook when the module starts.
+#[wasm_bindgen(start)]
+fn start() {
+    std::panic::set_hook(Box::new(|info| {
+        web_sys::console::error_1(
+            &format!("Modebench stopped on an internal error; please report it with the scenario: {info}")
+                .into(),
+        );
+    }));
+}
+
+/// Turns a core error into a JS `Error` with `path`, `kind` and `value` properties.
+pub fn js_error(error: &Error) -> JsValue {
+    let js = js_sys::Error::new(&error.to_string());
+    let kind = serde_json::to_value(error.kind).ok().and_then(|v| v.as_str().map(str::to_string));
+    let value = error.value.as_deref().map_or(JsValue::NULL, JsValue::from_str);
+    // Setting a property on a fresh Error object cannot fail; there is nothing to do if it did.
+    let _ = js_sys::Reflect::set(&js, &"path".into(), &error.path.as_str().into());
+    let _ = js_sys::Reflect::set(&js, &"kind".into(), &kind.unwrap_or_default().into());
+    let _ = js_sys::Reflect::set(&js, &"value".into(), &value);
+    js.into()
+}
+
+/// Converts a value to plain JS objects (maps as objects, `None` as `null`).
+fn to_js<T: Serialize + ?Sized>(value: &T) -> Result<JsValue, JsValue> {
+    value.serialize(&serde_wasm_bindgen::Serializer::json_compatible()).map_err(|e| {
+        js_error(&Error::new(ErrorKind::Syntax, format!("the result could not be converted: {e}")))
+    })
+}
+
+/// Solves a scenario given as a JS object in the scenario format and returns the report: SI
+/// values, frequencies in hertz, `null` where a method gives no value. Throws an `Error` with
+/// `path`, `kind` and `value` when the scenario is wrong.
+#[wasm_bindgen]
+pub fn solve(scenario: JsValue) -> Result<JsValue, JsValue> {
+    // Going through JSON text lets core's reader name the field path of any mistake.
+    let text = js_sys::JSON::stringify(&scenario).ok().and_then(|t| JsValue::from(t).as_string());
+    let Some(text) = text else {
+        return Err(js_error(&Error::new(
+            ErrorKind::Syntax,
+            "the scenario must be a plain object that can be written as JSON",
+        )));
+    };
+    let report = modebench::solve_json(&text).map_err(|e| js_error(&e))?;
+    to_js(&report)
+}
+
+/// What `parseQuantity` returns.
+#[derive(Serialize)]
+struct Parsed {
+    si: f64,
+    si_unit: &'static str,
+    conversion: Option<String>,
+}
+
+/// Reads a quantity such as `"30e6 psi"` for a field of the given kind (`"length"`, `"pressure"`,
+/// `"stiffness"`, … as in the scenario format) and returns `{ si, si_unit, conversion }`.
+/// Throws an `Error` naming what is allowed when the text or the kind is wrong.
+#[wasm_bindgen(js_name = parseQuantity)]
+pub fn parse_quantity(text: &str, kind: &str) -> Result<JsValue, JsValue> {
+    let kind: Kind = serde_json::from_value(serde_json::Value::String(kind.to_string())).map_err(|_| {
+        let names: Vec<String> = Kind::ALL
+            .iter()
+            .filter_map(|k| serde_json::to_value(k).ok()?.as_str().map(str::to_string))
+            .collect();
+        js_error(
+            &Error::new(
+                ErrorKind::UnknownOption,
+                format!("unknown kind of quantity; use one of {}", names.join(", ")),
+            )
+            .at("kind")
+            .with_value(kind),
+        )
+    })?;
+    let converted = modebench::units::parse(text, kind).map_err(|e| js_error(&e))?;
+    to_js(&Parsed {
+        si: converted.si,
+        si_unit: kind.si_unit(),
+        conversion: converted.conversion.map(|c| c.text),
+    })
+}
+
+/// The section shapes the editor offers, each with its fields (`name`, `label`, `kind`,
+/// `optional`).
+#[wasm_bindgen(js_name = listSections)]
+pub fn list_sections() -> Result<JsValue, JsValue> {
+    to_js(&crate::catalog::SHAPES[..])
+}
+
+/// The preset materials with their properties in SI and their sources.
+#[wasm_bindgen(js_name = listMaterials)]
+pub fn list_materials() -> Result<JsValue, JsValue> {
+    to_js(modebench::material::presets())
+}
+
+/// Every accepted unit symbol with its name, what it measures and its SI factor.
+#[wasm_bindgen(js_name = listUnits)]
+pub fn list_units() -> Result<JsValue, JsValue> {
+    to_js(&modebench::units::unit_list())
+}
+
+/// Starts every calculator on the page (`.mb-calc[data-modebench]`) that is not live yet and
+/// returns how many were started.
+#[wasm_bindgen(js_name = mountAll)]
+pub fn mount_all() -> usize {
+    crate::widget::mount_all()
+}
+
+/// The version of this module.
+#[wasm_bindgen]
+pub fn version() -> String {
+    env!("CARGO_PKG_VERSION").to_string()
+}

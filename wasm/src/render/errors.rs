@@ -1,0 +1,105 @@
+//! Placing an input error beside the field it concerns, and wording it for that place.
+
+use super::escape::escape;
+use modebench::Error;
+
+/// The field an error belongs beside, given the paths of the fields on show: the field it names;
+/// else the first field inside the part it names (`attachments[1]` → that row's first field);
+/// else the field that contains it; else the same for the enclosing part. `None` when nothing
+/// fits (a problem with the whole scenario), and the message then goes above the editor.
+pub fn placement<'a>(error_path: &str, fields: &[&'a str]) -> Option<&'a str> {
+    let mut path = error_path;
+    while !path.is_empty() {
+        if let Some(f) = fields.iter().find(|f| **f == path) {
+            return Some(f);
+        }
+        if let Some(f) = fields.iter().find(|f| is_inside(f, path)) {
+            return Some(f);
+        }
+        if let Some(f) = fields.iter().filter(|f| is_inside(path, f)).max_by_key(|f| f.len()) {
+            return Some(f);
+        }
+        path = parent(path);
+    }
+    None
+}
+
+/// Whether `inner` names a part of `outer` (`segments[0].length` is inside `segments[0]`).
+fn is_inside(inner: &str, outer: &str) -> bool {
+    inner.len() > outer.len()
+        && inner.starts_with(outer)
+        && matches!(inner.as_bytes().get(outer.len()), Some(b'.' | b'['))
+}
+
+/// The path one step up: `segments[0].section` → `segments[0]` → `segments` → ``.
+fn parent(path: &str) -> &str {
+    match path.rfind(['.', '[']) {
+        Some(i) => &path[..i],
+        None => "",
+    }
+}
+
+/// The message shown beside the field: what is wrong and what was typed, without the field
+/// path (the position says it) and without JSON line numbers (the user typed into a field).
+pub fn message(error: &Error) -> String {
+    let mut text = strip_location(&error.message).to_string();
+    if let Some(value) = &error.value {
+        if !value.is_empty() && !text.contains(value.as_str()) {
+            text.push_str(&format!(" (you typed “{value}”)"));
+        }
+    }
+    text
+}
+
+/// Serde ends its messages with "at line 1 column 230", which means nothing in a form.
+fn strip_location(message: &str) -> &str {
+    match message.rfind(" at line ") {
+        Some(i) if message[i + 9..].chars().all(|c| c.is_ascii_digit() || " column".contains(c)) => {
+            &message[..i]
+        }
+        _ => message,
+    }
+}
+
+/// The element holding an error message beside a field (or above the editor, when `general`).
+pub fn field_error_html(error: &Error, general: bool) -> String {
+    let text = if general && !error.path.is_empty() {
+        format!("{}: {}", error.path, message(error))
+    } else {
+        message(error)
+    };
+    format!(
+        "<span class=\"mb-field-error\" data-for=\"{}\" role=\"alert\">{}</span>",
+        escape(&error.path),
+        escape(&text)
+    )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    const FIELDS: [&str; 5] = [
+        "modes",
+        "segments[0].length",
+        "segments[0].section.wall",
+        "attachments[1].type",
+        "attachments[1].position",
+    ];
+
+    #[test]
+    fn errors_go_to_the_named_or_nearest_field() {
+        assert_eq!(placement("segments[0].section.wall", &FIELDS), Some("segments[0].section.wall"));
+        assert_eq!(placement("attachments[1]", &FIELDS), Some("attachments[1].type"));
+        assert_eq!(placement("segments[0].flexural_rigidity", &FIELDS), Some("segments[0].length"));
+        assert_eq!(placement("modes.x", &FIELDS), Some("modes"));
+        assert_eq!(placement("fe.elements", &FIELDS), None);
+        assert_eq!(placement("", &FIELDS), None);
+    }
+
+    #[test]
+    fn messages_drop_json_locations() {
+        assert_eq!(strip_location("unknown field name `x` at line 1 column 23"), "unknown field name `x`");
+        assert_eq!(strip_location("keep at line endings"), "keep at line endings");
+    }
+}

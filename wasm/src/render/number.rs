@@ -1,0 +1,86 @@
+//! Numbers as the page shows them: a few significant figures, never "NaN" or "inf".
+
+use modebench::units::{self, Kind, UnitSystem};
+
+/// What is shown where a number cannot be (it is never expected: core reports only finite
+/// values, but the page must not show "NaN" whatever happens).
+pub(crate) const MISSING: &str = "—";
+
+/// `value` with `significant` significant figures and no trailing zeros; plain notation from
+/// 0.001 up to a million, `2.9e7` style outside that range.
+pub(crate) fn sig(value: f64, significant: usize) -> String {
+    if !value.is_finite() {
+        return MISSING.to_string();
+    }
+    if value == 0.0 {
+        return "0".to_string();
+    }
+    let significant = significant.clamp(1, 17);
+    let exponent = value.abs().log10().floor() as i32;
+    if (-3..6).contains(&exponent) {
+        let decimals = (significant as i32 - 1 - exponent).max(0) as usize;
+        trim_zeros(&format!("{value:.decimals$}")).to_string()
+    } else {
+        let text = format!("{value:.*e}", significant - 1);
+        match text.split_once('e') {
+            Some((mantissa, power)) => format!("{}e{power}", trim_zeros(mantissa)),
+            None => text,
+        }
+    }
+}
+
+fn trim_zeros(text: &str) -> &str {
+    if text.contains('.') {
+        text.trim_end_matches('0').trim_end_matches('.')
+    } else {
+        text
+    }
+}
+
+/// A frequency in hertz for the page: "11.52 Hz".
+pub(crate) fn hz(value: f64) -> String {
+    format!("{} Hz", sig(value, 4))
+}
+
+/// Revolutions (cycles) per minute from hertz: "691.5 rpm".
+pub(crate) fn rpm(value_hz: f64) -> String {
+    format!("{} rpm", sig(value_hz * 60.0, 4))
+}
+
+/// A ratio as a percentage: "12.5 %".
+pub(crate) fn percent(ratio: f64, significant: usize) -> String {
+    format!("{} %", sig(ratio * 100.0, significant))
+}
+
+/// An SI value in the display unit of the chosen system, through core's formatter.
+pub(crate) fn quantity(si: f64, kind: Kind, system: UnitSystem) -> String {
+    if si.is_finite() {
+        units::format(si, kind, system)
+    } else {
+        MISSING.to_string()
+    }
+}
+
+/// The full-precision text of a value for a `data-` attribute (Rust's shortest round-trip
+/// form), or `None` when the value is not finite and the attribute is better left out.
+pub(crate) fn exact(value: f64) -> Option<String> {
+    value.is_finite().then(|| format!("{value}"))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn significant_figures_and_guards() {
+        assert_eq!(sig(11.524645583444405, 4), "11.52");
+        assert_eq!(sig(19235.05, 4), "19235");
+        assert_eq!(sig(3.1468e-9, 2), "3.1e-9");
+        assert_eq!(sig(0.0, 4), "0");
+        assert_eq!(sig(f64::NAN, 4), MISSING);
+        assert_eq!(sig(f64::INFINITY, 4), MISSING);
+        assert_eq!(percent(0.2, 3), "20 %");
+        assert_eq!(exact(f64::NAN), None);
+        assert_eq!(exact(0.1), Some("0.1".to_string()));
+    }
+}

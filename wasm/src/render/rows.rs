@@ -1,0 +1,223 @@
+//! The editor's lists: segments, attachments and excitations, each row with its own fields and
+//! a remove button, each list with an add button.
+
+use super::editor::group;
+use super::escape::escape;
+use super::form::{Form, TextOptions};
+use crate::catalog::{self, Choice};
+use crate::doc::path;
+use serde_json::Value;
+
+fn rows<'a>(doc: &'a Value, key: &str) -> &'a [Value] {
+    doc.get(key).and_then(Value::as_array).map_or(&[], Vec::as_slice)
+}
+
+fn row_open(list: &str, index: usize, title: &str, removable: bool) -> String {
+    let remove = if removable {
+        format!(
+            "<button type=\"button\" class=\"mb-button mb-remove\" data-action=\"remove\" data-list=\"{list}\" \
+             data-index=\"{index}\" aria-label=\"Remove {0}\">Remove</button>",
+            escape(title)
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "<div class=\"mb-row\" data-row=\"{list}[{index}]\"><div class=\"mb-row-head\"><span class=\"mb-row-title\">{}\
+         </span>{remove}</div><div class=\"mb-grid\">",
+        escape(title)
+    )
+}
+
+fn add_button(list: &str, words: &str) -> String {
+    format!("<button type=\"button\" class=\"mb-button mb-add\" data-action=\"add\" data-list=\"{list}\">{words}</button>")
+}
+
+fn names(list: &'static [Choice]) -> Vec<(&'static str, &'static str)> {
+    list.iter().map(|c| (c.id, c.name)).collect()
+}
+
+/// The segments, left to right.
+pub(crate) fn segments(form: &mut Form<'_>) -> String {
+    let doc = form.doc;
+    let segments = rows(doc, "segments");
+    let mut body = String::new();
+    for (i, segment) in segments.iter().enumerate() {
+        let base = format!("segments[{i}]");
+        body.push_str(&row_open("segments", i, &format!("Segment {}", i + 1), segments.len() > 1));
+        body.push_str(&form.text(
+            &format!("{base}.length"),
+            "Length",
+            TextOptions { kind: Some(modebench::units::Kind::Length), ..TextOptions::default() },
+        ));
+        let by_section = segment.get("section").is_some() || segment.get("material").is_some();
+        body.push_str(&segment_by(i, by_section));
+        if by_section {
+            body.push_str(&section_fields(form, &base, segment));
+        } else {
+            for spec in &catalog::PROPERTY_FIELDS {
+                body.push_str(&form.spec(&base, spec));
+            }
+        }
+        body.push_str("</div></div>");
+    }
+    body.push_str(&add_button("segments", "Add a segment"));
+    group("mb-segments", "Segments, left to right", &body)
+}
+
+/// How a segment is described; this choice is not a scenario field but decides which are.
+fn segment_by(index: usize, by_section: bool) -> String {
+    let option = |value: &str, words: &str, on: bool| {
+        format!("<option value=\"{value}\"{}>{words}</option>", if on { " selected" } else { "" })
+    };
+    format!(
+        "<label class=\"mb-field mb-choice\"><span class=\"mb-label\">Described by</span><span class=\"mb-select-row\">\
+         <select class=\"mb-select\" data-control=\"segment-by\" data-index=\"{index}\">{}{}</select></span></label>",
+        option("section", "Section and material", by_section),
+        option("properties", "Bending stiffness and mass", !by_section)
+    )
+}
+
+fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
+    let mut out = String::new();
+    let section_path = format!("{base}.section");
+    let shape = catalog::chosen(&catalog::SHAPES, segment.get("section"), "shape");
+    let shape_id = segment.get("section").and_then(|s| s.get("shape")).and_then(Value::as_str).unwrap_or("");
+    out.push_str(&form.select(
+        &format!("{section_path}.shape"),
+        "Section",
+        &names(&catalog::SHAPES),
+        shape_id,
+        "",
+    ));
+    if let Some(shape) = shape {
+        for spec in shape.fields {
+            out.push_str(&form.spec(&section_path, spec));
+        }
+        if shape.id == "i-beam" {
+            let axis = path::text(form.doc, &format!("{section_path}.axis"));
+            let axis = if axis.is_empty() { "strong".to_string() } else { axis };
+            out.push_str(&form.select(
+                &format!("{section_path}.axis"),
+                "Bends about (strong: web in the plane)",
+                &[("strong", "Strong axis"), ("weak", "Weak axis")],
+                &axis,
+                "",
+            ));
+        }
+    }
+    out.push_str(&material_fields(form, base, segment));
+    let extra = format!("{base}.extra_mass");
+    let has = |key: &str| segment.get("extra_mass").and_then(|e| e.get(key)).is_some();
+    let hollow = matches!(shape_id, "tube" | "rectangular-tube" | "custom");
+    let round = matches!(shape_id, "tube" | "round");
+    for spec in &catalog::EXTRA_MASS_FIELDS {
+        if spec.name != "contents_density" || hollow || has(spec.name) {
+            out.push_str(&form.spec(&extra, spec));
+        }
+    }
+    if round || has("submerged") {
+        out.push_str(
+            &form.tick(&format!("{extra}.submerged"), "Vibrates in water (adds the water it carries)"),
+        );
+        if has("submerged") {
+            for spec in &catalog::SUBMERGED_FIELDS {
+                out.push_str(&form.spec(&format!("{extra}.submerged"), spec));
+            }
+        }
+    }
+    out
+}
+
+fn material_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
+    let presets = modebench::material::presets();
+    let mut options: Vec<(&str, &str)> = presets.iter().map(|m| (m.id, m.name)).collect();
+    options.push(("custom", "Other (type its properties)"));
+    let material = segment.get("material");
+    let current = match material {
+        Some(Value::String(id)) => id.clone(),
+        Some(Value::Object(_)) => "custom".to_string(),
+        _ => String::new(),
+    };
+    let path = format!("{base}.material");
+    let mut out = form.select(&path, "Material", &options, &current, "");
+    if current == "custom" {
+        for spec in &catalog::MATERIAL_FIELDS {
+            out.push_str(&form.spec(&path, spec));
+        }
+    }
+    out
+}
+
+/// Masses, springs and supports along the beam.
+pub(crate) fn attachments(form: &mut Form<'_>) -> String {
+    let doc = form.doc;
+    let list = rows(doc, "attachments");
+    let mut body = String::new();
+    for (i, attachment) in list.iter().enumerate() {
+        let base = format!("attachments[{i}]");
+        let choice = catalog::chosen(&catalog::ATTACHMENTS, Some(attachment), "type");
+        let type_id = attachment.get("type").and_then(Value::as_str).unwrap_or("");
+        let title = match attachment.get("label").and_then(Value::as_str).filter(|l| !l.trim().is_empty()) {
+            Some(label) => format!("{} — {label}", i + 1),
+            None => format!("Attachment {}", i + 1),
+        };
+        body.push_str(&row_open("attachments", i, &title, true));
+        body.push_str(&form.select(
+            &format!("{base}.type"),
+            "Type",
+            &names(&catalog::ATTACHMENTS),
+            type_id,
+            "",
+        ));
+        body.push_str(&form.text(
+            &format!("{base}.position"),
+            "Position from the left end",
+            TextOptions { kind: Some(modebench::units::Kind::Length), ..TextOptions::default() },
+        ));
+        for spec in choice.map_or(&[][..], |c| c.fields) {
+            body.push_str(&form.spec(&base, spec));
+        }
+        body.push_str(&form.text(
+            &format!("{base}.label"),
+            "Label",
+            TextOptions { placeholder: Some("optional name"), optional: true, ..TextOptions::default() },
+        ));
+        body.push_str("</div></div>");
+    }
+    body.push_str(&add_button("attachments", "Add an attachment"));
+    group("mb-attachments", "Attachments", &body)
+}
+
+/// The frequencies the beam is driven at.
+pub(crate) fn excitations(form: &mut Form<'_>) -> String {
+    let doc = form.doc;
+    let list = rows(doc, "excitations");
+    let mut body = String::new();
+    for i in 0..list.len() {
+        let base = format!("excitations[{i}]");
+        body.push_str(&row_open("excitations", i, &format!("Excitation {}", i + 1), true));
+        body.push_str(&form.text(
+            &format!("{base}.label"),
+            "What drives it",
+            TextOptions {
+                placeholder: Some("e.g. pump running speed"),
+                optional: true,
+                ..TextOptions::default()
+            },
+        ));
+        body.push_str(&form.text(
+            &format!("{base}.frequency"),
+            "Frequency",
+            TextOptions { placeholder: Some("e.g. 1780 rpm or 60 Hz"), ..TextOptions::default() },
+        ));
+        body.push_str(&form.text(
+            &format!("{base}.harmonics"),
+            "Multiples to check",
+            TextOptions { placeholder: Some("1"), optional: true, numeric: true, ..TextOptions::default() },
+        ));
+        body.push_str("</div></div>");
+    }
+    body.push_str(&add_button("excitations", "Add an excitation"));
+    group("mb-excitations", "Excitations (running speeds, line frequency, blade pass)", &body)
+}

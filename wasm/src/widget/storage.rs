@@ -1,0 +1,40 @@
+//! Keeping the reader's edits in `localStorage`, so that nothing typed is lost on reload.
+//!
+//! The scenario is stored as JSON with every field's text exactly as typed, invalid input
+//! included. Storage that is missing, full or refused (private browsing) is silently skipped:
+//! the calculator works, it just forgets on reload.
+
+use serde_json::{json, Value};
+
+/// The storage key of a calculator: the page's path and the calculator's place on the page.
+pub(super) fn key(index: usize) -> String {
+    let path = web_sys::window().and_then(|w| w.location().pathname().ok()).unwrap_or_default();
+    format!("modebench:{path}#{index}")
+}
+
+fn storage() -> Option<web_sys::Storage> {
+    web_sys::window()?.local_storage().ok().flatten()
+}
+
+/// The stored scenario and the mode shown, if any.
+pub(super) fn load(key: &str) -> Option<(Value, usize)> {
+    let text = storage()?.get_item(key).ok().flatten()?;
+    let stored: Value = serde_json::from_str(&text).ok()?;
+    let doc = stored.get("scenario")?.clone();
+    let mode = stored.get("mode").and_then(Value::as_u64).unwrap_or(0) as usize;
+    doc.is_object().then_some((doc, mode))
+}
+
+/// Stores the scenario as typed and the mode shown.
+pub(super) fn save(key: &str, doc: &Value, mode: usize) {
+    if let Some(s) = storage() {
+        let _ = s.set_item(key, &json!({ "version": 1, "scenario": doc, "mode": mode }).to_string());
+    }
+}
+
+/// Forgets the stored edits.
+pub(super) fn clear(key: &str) {
+    if let Some(s) = storage() {
+        let _ = s.remove_item(key);
+    }
+}
