@@ -1,0 +1,182 @@
+//! A ```` ```modebench-checks ```` block becomes the table of published checks: every case of
+//! `tests/data/published.json` (the file the native tests read), with the value Modebench
+//! computes for it while the site is built. Nothing in the table is typed by hand.
+
+use std::path::Path;
+
+use anyhow::{bail, Context, Result};
+use modebench_web::render::escape;
+
+/// The published-values file, relative to the repository root.
+pub(crate) const PUBLISHED: &str = "tests/data/published.json";
+
+#[derive(serde::Deserialize)]
+struct Table {
+    cases: Vec<Case>,
+}
+
+/// One published case, as the native tests read it.
+#[derive(serde::Deserialize)]
+struct Case {
+    id: String,
+    case: String,
+    source: String,
+    scenario: serde_json::Value,
+    quantity: String,
+    #[serde(default = "first")]
+    mode: usize,
+    expected: f64,
+    tolerance: f64,
+}
+
+fn first() -> usize {
+    1
+}
+
+/// The HTML table. The block's body is ignored except that it must be empty, so that a page
+/// cannot quietly carry hand-typed rows.
+pub(crate) fn render(block: &str, root: &Path) -> Result<String> {
+    if !block.trim().is_empty() {
+        bail!("the modebench-checks block takes no content; its rows come from {PUBLISHED}");
+    }
+    let path = root.join(PUBLISHED);
+    let text = std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
+    let table: Table = serde_json::from_str(&text).with_context(|| format!("reading {}", path.display()))?;
+    let mut rows = String::new();
+    for case in &table.cases {
+        let got = value(case).with_context(|| format!("{PUBLISHED}: case {}", case.id))?;
+        rows.push_str(&row(case, got));
+    }
+    Ok(format!(
+        "<div class=\"table-scroll\"><table class=\"checks\">\
+         <caption>{count} published cases, computed by Modebench when this page was built</caption>\
+         <thead><tr><th scope=\"col\">Case</th><th scope=\"col\">Source</th>\
+         <th scope=\"col\" class=\"num\">Published</th><th scope=\"col\" class=\"num\">Modebench</th>\
+         <th scope=\"col\" class=\"num\">Difference</th><th scope=\"col\" class=\"num\">Allowed</th></tr></thead>\
+         <tbody>{rows}</tbody></table></div>",
+        count = table.cases.len()
+    ))
+}
+
+/// One row; a difference beyond the case's tolerance is marked, not hidden.
+fn row(case: &Case, got: f64) -> String {
+    let difference = (got - case.expected) / case.expected;
+    let digits = significant_digits(&format!("{}", case.expected));
+    let outside = difference.abs() > case.tolerance;
+    format!(
+        "<tr{class}><th scope=\"row\">{name}</th><td>{source}</td><td class=\"num\">{expected}</td>\
+         <td class=\"num\">{got}</td><td class=\"num\">{difference}{flag}</td><td class=\"num\">{tolerance}</td></tr>",
+        class = if outside { " class=\"outside\"" } else { "" },
+        name = escape(&case.case),
+        source = escape(&case.source),
+        expected = case.expected,
+        got = with_digits(got, digits),
+        difference = relative(difference),
+        flag = if outside { " <strong>outside</strong>" } else { "" },
+        tolerance = relative(case.tolerance),
+    )
+}
+
+/// The quantity a case compares, from the engine's report for its scenario.
+fn value(case: &Case) -> Result<f64> {
+    let report = modebench::solve_json(&case.scenario.to_string()).map_err(|e| anyhow::anyhow!("{e}"))?;
+    let mode = report
+        .modes
+        .iter()
+        .find(|m| m.number == case.mode)
+        .with_context(|| format!("the report has no mode {}", case.mode))?;
+    let fundamental = report.fundamental.as_ref();
+    let value = match case.quantity.as_str() {
+        "frequency_hz" => Some(mode.frequency_hz),
+        "fe_frequency_hz" => mode.fe_frequency_hz,
+        "rayleigh_hz" => fundamental.and_then(|f| f.rayleigh_hz),
+        "dunkerley_hz" => fundamental.and_then(|f| f.dunkerley_hz),
+        "lambda" => Some(lambda(&report, mode.frequency_hz)?),
+        other => bail!(
+            "unknown quantity {other:?}; the table knows frequency_hz, fe_frequency_hz, \
+             rayleigh_hz, dunkerley_hz and lambda"
+        ),
+    };
+    value.with_context(|| format!("the report gives no {} for this case", case.quantity))
+}
+
+/// The frequency parameter λ = L·(m·ω²/EI)^¼ of a uniform beam.
+fn lambda(report: &modebench::Report, frequency_hz: f64) -> Result<f64> {
+    let segments = &report.beam.segments;
+    let first = segments.first().context("the beam has no segment")?;
+    if segments
+        .iter()
+        .any(|s| s.flexural_rigidity != first.flexural_rigidity || s.mass_per_length != first.mass_per_length)
+    {
+        bail!("lambda is defined here for uniform beams only");
+    }
+    let omega = 2.0 * std::f64::consts::PI * frequency_hz;
+    Ok(report.beam.length * (first.mass_per_length * omega * omega / first.flexural_rigidity).powf(0.25))
+}
+
+/// Significant digits in a decimal number as written ("0.0120" has 3).
+fn significant_digits(text: &str) -> usize {
+    let digits: String =
+        text.chars().take_while(|c| *c != 'e' && *c != 'E').filter(char::is_ascii_digit).collect();
+    digits.trim_start_matches('0').len().max(1)
+}
+
+/// `value` rounded to `digits` significant digits, in plain decimal notation.
+fn with_digits(value: f64, digits: usize) -> String {
+    if value == 0.0 {
+        return "0".to_string();
+    }
+    let magnitude = value.abs().log10().floor() as i64;
+    let decimals = (digits as i64 - 1 - magnitude).clamp(0, 17) as usize;
+    format!("{value:.decimals$}")
+}
+
+/// A relative difference as engineers read it: percent when it is large enough to matter,
+/// powers of ten when it is round-off.
+fn relative(value: f64) -> String {
+    if value == 0.0 {
+        return "0".to_string();
+    }
+    if value.abs() >= 1e-4 {
+        return format!("{:.2} %", value * 100.0).replace('-', "−");
+    }
+    let text = format!("{value:.1e}");
+    let (mantissa, exponent) = text.split_once('e').unwrap_or((&text, "0"));
+    let exponent: String = exponent
+        .chars()
+        .map(|c| match c {
+            '-' => '⁻',
+            d => ['⁰', '¹', '²', '³', '⁴', '⁵', '⁶', '⁷', '⁸', '⁹'][d.to_digit(10).unwrap_or(0) as usize],
+        })
+        .collect();
+    format!("{} × 10{exponent}", mantissa.replace('-', "−"))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_are_shown_to_the_published_precision() {
+        assert_eq!(significant_digits("1.87510406871196"), 15);
+        assert_eq!(significant_digits("0.0120"), 3);
+        assert_eq!(with_digits(1.875104068712, 4), "1.875");
+        assert_eq!(with_digits(22.373285, 5), "22.373");
+        assert_eq!(with_digits(1234.5, 2), "1234");
+    }
+
+    #[test]
+    fn differences_read_as_percent_or_powers_of_ten() {
+        assert_eq!(relative(0.0034), "0.34 %");
+        assert_eq!(relative(-2.1e-10), "−2.1 × 10⁻¹⁰");
+        assert_eq!(relative(0.0), "0");
+    }
+
+    #[test]
+    fn the_table_comes_from_the_published_file() {
+        let root = Path::new(concat!(env!("CARGO_MANIFEST_DIR"), "/.."));
+        let html = render("", root).unwrap();
+        assert!(html.contains("Clamped–free"), "{html}");
+        assert!(render("| typed | row |", root).is_err());
+    }
+}
