@@ -54,7 +54,7 @@ pub(crate) fn build(options: &BuildOptions) -> Result<Summary> {
             copy(&options.wasm.join(file), &assets.join(file))?;
         }
     }
-    let frame = Frame { pages: &pages, widget_css: assets.join("widget.css").is_file() };
+    let frame = Frame { pages: &pages, widget_css: assets.join("widget.css").is_file(), engine };
     let context = markdown::Scope { root, pages: &pages };
     for page in &pages {
         let body = markdown::to_html(&page.body, &context)

@@ -16,6 +16,9 @@ pub(crate) struct Frame<'a> {
     pub(crate) pages: &'a [Page],
     /// Whether `assets/widget.css` exists and should be linked.
     pub(crate) widget_css: bool,
+    /// Whether the browser engine was copied into `assets/`; without it pages keep their
+    /// prerendered results and load no script at all.
+    pub(crate) engine: bool,
 }
 
 /// The whole HTML document of `page` with its rendered `body`.
@@ -26,7 +29,7 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
     let widget_css =
         if frame.widget_css { "<link rel=\"stylesheet\" href=\"assets/widget.css\">\n" } else { "" };
     // Only pages that carry a calculator load the engine.
-    let boot = if body.contains("class=\"mb-calc\"") {
+    let boot = if frame.engine && body.contains("class=\"mb-calc\"") {
         "<script type=\"module\" src=\"assets/boot.js\"></script>\n"
     } else {
         ""
@@ -99,7 +102,7 @@ mod tests {
     #[test]
     fn every_page_carries_the_policy_and_relative_links() {
         let pages = [page("index", "Home"), page("boom", "Boom <tube>")];
-        let html = document(&pages[1], "<p>x</p>", &Frame { pages: &pages, widget_css: false });
+        let html = document(&pages[1], "<p>x</p>", &Frame { pages: &pages, widget_css: false, engine: true });
         assert!(html.contains("http-equiv=\"Content-Security-Policy\""));
         assert!(html.contains("<a href=\"boom.html\" aria-current=\"page\">Boom &lt;tube&gt;</a>"), "{html}");
         assert!(!html.contains("href=\"/") && !html.contains("src=\"/"), "{html}");
