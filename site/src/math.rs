@@ -29,7 +29,10 @@ pub(crate) fn to_mathml(tex: &str, display: bool) -> Result<String> {
     if let Err(error) = push_mathml(&mut out, events, config) {
         bail!("could not write MathML for `{}`: {error}", tex.trim());
     }
-    if out.contains("style=\"") {
+    // The renderer writes the TeX control space `\ ` as an escaped `&nbsp;` entity, which
+    // would show as text; a numeric character reference is what it means.
+    let out = out.replace("&amp;nbsp;", "&#160;");
+    if out.contains(" style=\"") {
         bail!(
             "`{}` needs an inline style (colour or negative space), which the content security \
              policy forbids; write it without",
@@ -49,6 +52,18 @@ mod tests {
         assert!(out.starts_with("<math display=\"block\""), "{out}");
         assert!(out.contains("<mfrac>") && out.contains("<msqrt>"), "{out}");
         assert!(!out.contains("mfenced"), "mfenced is not MathML Core: {out}");
+    }
+
+    #[test]
+    fn text_style_fractions_are_not_mistaken_for_inline_styles() {
+        let out = to_mathml(r"\tfrac{33}{140}\,mL", false).unwrap();
+        assert!(out.contains("displaystyle=\"false\""), "{out}");
+    }
+
+    #[test]
+    fn a_control_space_is_a_space_not_an_entity_name() {
+        let out = to_mathml(r"68.9\ \text{GPa}", false).unwrap();
+        assert!(out.contains("&#160;") && !out.contains("&amp;"), "{out}");
     }
 
     #[test]

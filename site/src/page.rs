@@ -14,6 +14,8 @@ pub(crate) struct Page {
     pub(crate) title: String,
     /// One sentence for the list of pages; may be empty.
     pub(crate) summary: String,
+    /// A short label for the navigation; the title when empty.
+    pub(crate) nav: String,
     /// The Markdown file, for error messages.
     pub(crate) source: PathBuf,
     /// The Markdown after the front matter or title line.
@@ -59,11 +61,11 @@ pub(crate) fn read_pages(dir: &Path) -> Result<Vec<Page>> {
 }
 
 /// Reads one page from its text. The title comes from front matter between `---` lines
-/// (`title:` and `summary:`), or else from a first line `# Title`.
+/// (`title:`, `summary:` and a short `nav:` label), or else from a first line `# Title`.
 fn parse(path: &Path, text: &str) -> Result<Page> {
     let slug = slug(path)?;
     let text = text.trim_start_matches('\u{feff}');
-    let (mut title, mut summary, body) = (String::new(), String::new(), text);
+    let (mut title, mut summary, mut nav, body) = (String::new(), String::new(), String::new(), text);
     let body = if let Some(rest) = text.strip_prefix("---\n") {
         let end = rest.find("\n---\n").context("front matter opened with --- is never closed")?;
         for line in rest[..end].lines().filter(|l| !l.trim().is_empty()) {
@@ -73,7 +75,8 @@ fn parse(path: &Path, text: &str) -> Result<Page> {
             match key.trim() {
                 "title" => title = value.trim().to_string(),
                 "summary" => summary = value.trim().to_string(),
-                other => bail!("front matter knows title and summary, not {other:?}"),
+                "nav" => nav = value.trim().to_string(),
+                other => bail!("front matter knows title, summary and nav, not {other:?}"),
             }
         }
         &rest[end + "\n---\n".len()..]
@@ -87,7 +90,10 @@ fn parse(path: &Path, text: &str) -> Result<Page> {
     if title.is_empty() {
         bail!("the page has no title: start it with `# Title` or front matter with `title:`");
     }
-    Ok(Page { slug, title, summary, source: path.to_path_buf(), body: body.to_string() })
+    if nav.is_empty() {
+        nav = if slug == "index" { "Home".to_string() } else { title.clone() };
+    }
+    Ok(Page { slug, title, summary, nav, source: path.to_path_buf(), body: body.to_string() })
 }
 
 /// `20-fan-floor-beam.md` → `fan-floor-beam`. Only lower-case letters, digits and dashes are
@@ -107,19 +113,22 @@ mod tests {
 
     #[test]
     fn front_matter_gives_title_and_summary() {
-        let page =
-            parse(Path::new("10-boom.md"), "---\ntitle: A boom\nsummary: Short: with a colon.\n---\nText.\n")
-                .unwrap();
+        let page = parse(
+            Path::new("10-boom.md"),
+            "---\ntitle: A boom\nsummary: Short: with a colon.\nnav: Boom\n---\nText.\n",
+        )
+        .unwrap();
         assert_eq!(page.slug, "boom");
         assert_eq!(page.title, "A boom");
         assert_eq!(page.summary, "Short: with a colon.");
+        assert_eq!(page.nav, "Boom");
         assert_eq!(page.body, "Text.\n");
     }
 
     #[test]
     fn a_first_line_heading_is_the_title() {
         let page = parse(Path::new("00-index.md"), "# Home\n\nHello.\n").unwrap();
-        assert_eq!((page.slug.as_str(), page.title.as_str()), ("index", "Home"));
+        assert_eq!((page.slug.as_str(), page.title.as_str(), page.nav.as_str()), ("index", "Home", "Home"));
         assert_eq!(page.body, "\nHello.\n");
     }
 

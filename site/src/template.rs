@@ -79,8 +79,7 @@ fn navigation(current: &Page, pages: &[Page]) -> String {
         .iter()
         .map(|p| {
             let here = if p.slug == current.slug { " aria-current=\"page\"" } else { "" };
-            let label = if p.slug == "index" { "Home".to_string() } else { escape(&p.title) };
-            format!("<li><a href=\"{}\"{here}>{label}</a></li>\n", p.file_name())
+            format!("<li><a href=\"{}\"{here}>{}</a></li>\n", p.file_name(), escape(&p.nav))
         })
         .collect()
 }
@@ -94,6 +93,7 @@ mod tests {
             slug: slug.into(),
             title: title.into(),
             summary: String::new(),
+            nav: title.into(),
             source: Default::default(),
             body: String::new(),
         }
