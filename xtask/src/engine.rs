@@ -10,18 +10,12 @@ use crate::run;
 /// The WebAssembly target.
 pub(crate) const TARGET: &str = "wasm32-unknown-unknown";
 
-/// The features Rust's wasm32 target enables by default; wasm-opt must accept them, and
-/// must not use any others.
-const WASM_FEATURES: [&str; 6] = [
-    "--enable-bulk-memory",
-    "--enable-sign-ext",
-    "--enable-mutable-globals",
-    "--enable-nontrapping-float-to-int",
-    "--enable-reference-types",
-    "--enable-multivalue",
-];
-
 /// Builds the engine into [`Project::engine_dir`].
+///
+/// wasm-opt runs on the compiler's output, before wasm-bindgen: the wasm-opt in Debian 12
+/// (binaryen 108) rewrites the table of JavaScript references that wasm-bindgen adds, and the
+/// engine then fails to start. Optimising first and binding second avoids that, and the binding
+/// step adds only a little glue.
 pub(crate) fn build(project: &Project) -> Result<()> {
     run::step("Build the browser engine (WebAssembly)");
     run::status(&mut project.cargo([
@@ -35,26 +29,31 @@ pub(crate) fn build(project: &Project) -> Result<()> {
     ]))?;
     let raw = project.target.join(TARGET).join("wasm").join("modebench_web.wasm");
     let out = project.engine_dir();
-    if out.exists() {
-        std::fs::remove_dir_all(&out).with_context(|| format!("emptying {}", out.display()))?;
+    let scratch = project.root.join("build").join("wasm-opt");
+    for dir in [&out, &scratch] {
+        if dir.exists() {
+            std::fs::remove_dir_all(dir).with_context(|| format!("emptying {}", dir.display()))?;
+        }
     }
+    let input = match run::version("wasm-opt") {
+        Some(_) => {
+            std::fs::create_dir_all(&scratch)?;
+            // wasm-bindgen names its output after its input, so the file keeps its name.
+            let optimised = scratch.join("modebench_web.wasm");
+            run::status(run::cmd("wasm-opt", ["-Os"]).arg(&raw).arg("-o").arg(&optimised))?;
+            println!("wasm-opt -Os: {} → {} bytes", size(&raw)?, size(&optimised)?);
+            optimised
+        }
+        None => {
+            println!("skipped: wasm-opt not found, so the engine is not shrunk; `apt-get install binaryen` provides it");
+            raw
+        }
+    };
     run::status(
         run::cmd("wasm-bindgen", ["--target", "web", "--no-typescript", "--out-dir", path_str(&out)?])
-            .arg(&raw),
+            .arg(&input),
     )?;
-    let wasm = out.join("modebench_web_bg.wasm");
-    let before = size(&wasm)?;
-    if run::version("wasm-opt").is_some() {
-        let optimised = out.join("modebench_web_bg.opt.wasm");
-        run::status(run::cmd("wasm-opt", ["-Os"]).args(WASM_FEATURES).arg(&wasm).arg("-o").arg(&optimised))?;
-        std::fs::rename(&optimised, &wasm)?;
-        println!("wasm-opt -Os: {} → {} bytes", before, size(&wasm)?);
-    } else {
-        println!(
-            "wasm-opt not found, so the engine is not shrunk ({before} bytes); `apt-get install binaryen` \
-             provides it"
-        );
-    }
+    println!("engine: {} bytes", size(&out.join("modebench_web_bg.wasm"))?);
     Ok(())
 }
 
