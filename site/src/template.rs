@@ -29,8 +29,12 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
     let widget_css =
         if frame.widget_css { "<link rel=\"stylesheet\" href=\"assets/widget.css\">\n" } else { "" };
     // Only pages that carry a calculator load the engine.
+    // The engine's files are announced up front so the browser fetches them while it is
+    // still reading the page, instead of one after the other as each import is discovered.
     let boot = if frame.engine && body.contains("class=\"mb-calc\"") {
-        "<script type=\"module\" src=\"assets/boot.js\"></script>\n"
+        "<link rel=\"modulepreload\" href=\"assets/modebench_web.js\">\n\
+         <link rel=\"preload\" href=\"assets/modebench_web_bg.wasm\" as=\"fetch\" type=\"application/wasm\" crossorigin>\n\
+         <script type=\"module\" src=\"assets/boot.js\"></script>\n"
     } else {
         ""
     };
