@@ -49,12 +49,13 @@ pub(crate) fn render(block: &str, root: &Path) -> Result<String> {
     }
     Ok(format!(
         "<div class=\"table-scroll\"><table class=\"checks\">\
-         <caption>{count} published cases, computed by Modebench when this page was built</caption>\
+         <caption>{count} published {cases}, computed by Modebench when this page was built</caption>\
          <thead><tr><th scope=\"col\">Case</th><th scope=\"col\">Source</th>\
          <th scope=\"col\" class=\"num\">Published</th><th scope=\"col\" class=\"num\">Modebench</th>\
-         <th scope=\"col\" class=\"num\">Difference</th><th scope=\"col\" class=\"num\">Allowed</th></tr></thead>\
+         <th scope=\"col\" class=\"num\">Difference <span class=\"allowed\">(allowed)</span></th></tr></thead>\
          <tbody>{rows}</tbody></table></div>",
-        count = table.cases.len()
+        count = table.cases.len(),
+        cases = if table.cases.len() == 1 { "case" } else { "cases" },
     ))
 }
 
@@ -65,7 +66,7 @@ fn row(case: &Case, got: f64) -> String {
     let outside = difference.abs() > case.tolerance;
     format!(
         "<tr{class}><th scope=\"row\">{name}</th><td>{source}</td><td class=\"num\">{expected}</td>\
-         <td class=\"num\">{got}</td><td class=\"num\">{difference}{flag}</td><td class=\"num\">{tolerance}</td></tr>",
+         <td class=\"num\">{got}</td><td class=\"num\">{difference}{flag}<br><span class=\"allowed\">({tolerance})</span></td></tr>",
         class = if outside { " class=\"outside\"" } else { "" },
         name = escape(&case.case),
         source = escape(&case.source),
