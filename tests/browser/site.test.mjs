@@ -163,6 +163,34 @@ describe("the site as files", () => {
     }
   });
 
+  test("printed, a calculator page is a calculation sheet: title, calculator, cautions, no navigation", async () => {
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    for (const file of pages()) {
+      await page.goto(site.url + file);
+      await page.emulateMedia({ media: "print" });
+      const shown = await page.evaluate(() => {
+        const visible = (selector) =>
+          [...document.querySelectorAll(selector)].some((e) => e.getClientRects().length > 0);
+        return {
+          calculator: document.querySelector(".mb-calc") !== null,
+          title: visible("h1"),
+          sheet: visible(".sheet-head"),
+          calculatorShown: visible(".mb-calc"),
+          caution: visible('blockquote[class^="markdown-alert-"]'),
+          navigation: visible(".site-head, .site-nav, .site-foot"),
+          buttons: visible("button"),
+        };
+      });
+      assert.ok(shown.title && !shown.navigation && !shown.buttons, `${file}: ${JSON.stringify(shown)}`);
+      if (shown.calculator) {
+        assert.ok(shown.sheet && shown.calculatorShown && shown.caution, `${file}: ${JSON.stringify(shown)}`);
+      }
+      await page.emulateMedia({ media: "screen" });
+    }
+    await context.close();
+  });
+
   test("the server never leaves the folder it serves", async () => {
     for (const path of ["%2e%2e/Cargo.toml", "assets/%2e%2e/%2e%2e/Cargo.toml"]) {
       assert.notEqual((await fetch(site.url + path)).status, 200, path);
