@@ -22,6 +22,27 @@ pub struct Options {
     pub report_point: Option<f64>,
 }
 
+impl Options {
+    /// Options for `modes` elastic modes, other settings at their defaults.
+    pub fn with_modes(modes: usize) -> Options {
+        Options { modes, ..Options::default() }
+    }
+
+    /// Sets the total number of finite elements.
+    #[must_use]
+    pub fn elements(mut self, elements: usize) -> Options {
+        self.elements = Some(elements);
+        self
+    }
+
+    /// Sets the point for the equivalent single-degree-of-freedom system, m from the left end.
+    #[must_use]
+    pub fn report_point(mut self, position: f64) -> Options {
+        self.report_point = Some(position);
+        self
+    }
+}
+
 impl Default for Options {
     fn default() -> Self {
         Options { modes: 6, elements: None, report_point: None }
@@ -113,8 +134,19 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     let mesh = match options.elements {
         Some(0) => {
             return Err(Error::new(ErrorKind::OutOfRange, "the number of finite elements must be at least 1")
-                .at("fe.elements")
+                .at("elements")
                 .with_value(0))
+        }
+        Some(n) if n > fe::MAX_ELEMENTS => {
+            return Err(Error::new(
+                ErrorKind::OutOfRange,
+                format!(
+                    "at most {} finite elements; round-off grows faster than accuracy beyond that",
+                    fe::MAX_ELEMENTS
+                ),
+            )
+            .at("elements")
+            .with_value(n))
         }
         Some(n) => Mesh::Total(n),
         None => Mesh::UpTo(last),
@@ -130,6 +162,16 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
             rigid_body: m.rigid_body,
             fe_omega,
             shape: m.shape,
+        });
+    }
+    if fe.elements > fe::NOISY_ELEMENTS {
+        warnings.push(Warning {
+            code: "fe-round-off",
+            message: format!(
+                "With {} elements, round-off in the finite-element matrices (it grows with the fourth power of \
+                 the element count) limits that result to about 1e-6; fewer elements are as accurate.",
+                fe.elements
+            ),
         });
     }
     if rigid > 0 {

@@ -360,7 +360,7 @@ fn comparison(
     match model.theory() {
         Theory::Timoshenko => {
             let eb = exact::frequencies(&model.with_theory(Theory::EulerBernoulli)?, elastic)?;
-            let other: Vec<f64> = rigid.into_iter().chain(eb.iter().map(|r| r.omega)).collect();
+            let other: Vec<f64> = rigid.into_iter().chain(eb.iter().copied()).collect();
             if let Some((m, ratio)) = analysis
                 .modes
                 .iter()
@@ -386,7 +386,7 @@ fn comparison(
             });
             let Some((number, effect)) = estimate else { return Ok((None, None)) };
             let timoshenko = exact::frequencies(&model.with_theory(Theory::Timoshenko)?, elastic)?;
-            let other: Vec<f64> = rigid.into_iter().chain(timoshenko.iter().map(|r| r.omega)).collect();
+            let other: Vec<f64> = rigid.into_iter().chain(timoshenko.iter().copied()).collect();
             warnings.push(Warning {
                 code: "shear-matters",
                 message: format!(

@@ -44,6 +44,8 @@ pub(crate) struct Root {
 const REPEATED: f64 = 1e-13;
 /// Relative tolerance of the polished root.
 const POLISH: f64 = 2e-15;
+/// Relative width the count narrows a bracket to before the determinant takes over.
+const NARROW: f64 = 1e-3;
 /// The furthest (relative) the polishing bracket is widened past the count's bracket.
 const WIDEN: f64 = 1e-6;
 
@@ -81,7 +83,7 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
             }
             let (lo, clo, hi, chi) = bracket(&samples, k);
             if clo.below + 1 == k && chi.below == k {
-                let omega = polish(lo, clo, hi, chi, system, &mut samples);
+                let omega = polish(lo, hi, k, system, &mut samples);
                 roots.push(Root { omega, multiplicity: 1 });
                 k += 1;
                 break;
@@ -96,13 +98,19 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
                 k = chi.below + 1;
                 break;
             }
-            let mid = 0.5 * (lo + hi);
+            let mid = split(lo, hi);
             samples.push((mid, system.count(mid)));
             sort(&mut samples);
         }
     }
     roots.truncate(wanted);
     Ok(roots)
+}
+
+/// A point inside (lo, hi), deliberately a little off the middle: the natural frequencies of
+/// regular beams are simple multiples of one another, and exact halving would land on them.
+fn split(lo: f64, hi: f64) -> f64 {
+    lo + 0.471_404_520_791_031_7 * (hi - lo)
 }
 
 fn sort(samples: &mut [(f64, Count)]) {
@@ -118,29 +126,26 @@ fn bracket(samples: &[(f64, Count)], k: usize) -> (f64, Count, f64, Count) {
     (lo, clo, hi, chi)
 }
 
-/// Polishes the single frequency in (lo, hi] with Brent's method on a pole-free determinant,
+/// Polishes the single frequency (the k-th) in (lo, hi] with Brent's method on a pole-free determinant,
 /// scaled to its larger value at the ends. Where the count misplaced the root slightly (a pivot
 /// close to zero), the bracket is widened by small steps until the determinant changes sign.
 fn polish(
     mut lo: f64,
-    clo: Count,
     mut hi: f64,
-    chi: Count,
+    k: usize,
     system: &impl Spectrum,
     samples: &mut Vec<(f64, Count)>,
 ) -> f64 {
-    let k = chi.below;
-    let mut lowest = clo;
-    // The determinant at ω = 0 vanishes when there are rigid-body modes; move off zero first.
-    while lo == 0.0 && lowest.below + 1 == k {
-        let mid = 0.5 * hi;
+    // Narrow by the count first. This moves the ends off ω = 0 (where the determinant vanishes
+    // for rigid-body modes) and off neighbouring roots that an earlier sample may sit on.
+    while lo == 0.0 || hi - lo > NARROW * hi {
+        let mid = split(lo, hi);
         let c = system.count(mid);
         samples.push((mid, c));
         if c.below >= k {
             hi = mid;
         } else {
             lo = mid;
-            lowest = c;
         }
     }
     sort(samples);
@@ -152,7 +157,7 @@ fn polish(
     let mut narrowing = 0;
     while slo == shi && narrowing < 80 && hi - lo > POLISH * hi {
         narrowing += 1;
-        let mid = 0.5 * (lo + hi);
+        let mid = split(lo, hi);
         if system.count(mid).below >= k {
             (hi, (shi, lhi)) = (mid, det(mid));
         } else {

@@ -1,50 +1,25 @@
 //! A ```` ```modebench-checks ```` block becomes the table of published checks: every case of
-//! `tests/data/published.json` (the file the native tests read), with the value Modebench
-//! computes for it while the site is built. Nothing in the table is typed by hand.
+//! `tests/data/published.json`, evaluated by the same function the native tests use
+//! (`modebench_tests::published`), while the site is built. Nothing in the table is typed by
+//! hand, and the page cannot show a value the tests do not check.
 
-use std::path::Path;
-
-use anyhow::{bail, Context, Result};
+use anyhow::{bail, Result};
+use modebench_tests::published::{self, Case};
 use modebench_web::render::escape;
 
-/// The published-values file, relative to the repository root.
-pub(crate) const PUBLISHED: &str = "tests/data/published.json";
-
-#[derive(serde::Deserialize)]
-struct Table {
-    cases: Vec<Case>,
-}
-
-/// One published case, as the native tests read it.
-#[derive(serde::Deserialize)]
-struct Case {
-    id: String,
-    case: String,
-    source: String,
-    scenario: serde_json::Value,
-    quantity: String,
-    #[serde(default = "first")]
-    mode: usize,
-    expected: f64,
-    tolerance: f64,
-}
-
-fn first() -> usize {
-    1
-}
-
-/// The HTML table. The block's body is ignored except that it must be empty, so that a page
-/// cannot quietly carry hand-typed rows.
-pub(crate) fn render(block: &str, root: &Path) -> Result<String> {
+/// The HTML table. The block's body must be empty, so that a page cannot quietly carry
+/// hand-typed rows.
+pub(crate) fn render(block: &str) -> Result<String> {
     if !block.trim().is_empty() {
-        bail!("the modebench-checks block takes no content; its rows come from {PUBLISHED}");
+        bail!("the modebench-checks block takes no content; its rows come from tests/data/published.json");
     }
-    let path = root.join(PUBLISHED);
-    let text = std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
-    let table: Table = serde_json::from_str(&text).with_context(|| format!("reading {}", path.display()))?;
+    let cases = published::cases();
     let mut rows = String::new();
-    for case in &table.cases {
-        let got = value(case).with_context(|| format!("{PUBLISHED}: case {}", case.id))?;
+    for case in &cases {
+        let got = match published::evaluate(case) {
+            Ok(got) => got,
+            Err(error) => bail!("tests/data/published.json: case {}: {error}", case.id),
+        };
         rows.push_str(&row(case, got));
     }
     Ok(format!(
@@ -54,8 +29,8 @@ pub(crate) fn render(block: &str, root: &Path) -> Result<String> {
          <th scope=\"col\" class=\"num\">Published</th><th scope=\"col\" class=\"num\">Modebench</th>\
          <th scope=\"col\" class=\"num\">Difference <span class=\"allowed\">(allowed)</span></th></tr></thead>\
          <tbody>{rows}</tbody></table></div>",
-        count = table.cases.len(),
-        cases = if table.cases.len() == 1 { "case" } else { "cases" },
+        count = cases.len(),
+        cases = if cases.len() == 1 { "case" } else { "cases" },
     ))
 }
 
@@ -76,43 +51,6 @@ fn row(case: &Case, got: f64) -> String {
         flag = if outside { " <strong>outside</strong>" } else { "" },
         tolerance = relative(case.tolerance),
     )
-}
-
-/// The quantity a case compares, from the engine's report for its scenario.
-fn value(case: &Case) -> Result<f64> {
-    let report = modebench::solve_json(&case.scenario.to_string()).map_err(|e| anyhow::anyhow!("{e}"))?;
-    let mode = report
-        .modes
-        .iter()
-        .find(|m| m.number == case.mode)
-        .with_context(|| format!("the report has no mode {}", case.mode))?;
-    let fundamental = report.fundamental.as_ref();
-    let value = match case.quantity.as_str() {
-        "frequency_hz" => Some(mode.frequency_hz),
-        "fe_frequency_hz" => mode.fe_frequency_hz,
-        "rayleigh_hz" => fundamental.and_then(|f| f.rayleigh_hz),
-        "dunkerley_hz" => fundamental.and_then(|f| f.dunkerley_hz),
-        "lambda" => Some(lambda(&report, mode.frequency_hz)?),
-        other => bail!(
-            "unknown quantity {other:?}; the table knows frequency_hz, fe_frequency_hz, \
-             rayleigh_hz, dunkerley_hz and lambda"
-        ),
-    };
-    value.with_context(|| format!("the report gives no {} for this case", case.quantity))
-}
-
-/// The frequency parameter λ = L·(m·ω²/EI)^¼ of a uniform beam.
-fn lambda(report: &modebench::Report, frequency_hz: f64) -> Result<f64> {
-    let segments = &report.beam.segments;
-    let first = segments.first().context("the beam has no segment")?;
-    if segments
-        .iter()
-        .any(|s| s.flexural_rigidity != first.flexural_rigidity || s.mass_per_length != first.mass_per_length)
-    {
-        bail!("lambda is defined here for uniform beams only");
-    }
-    let omega = 2.0 * std::f64::consts::PI * frequency_hz;
-    Ok(report.beam.length * (first.mass_per_length * omega * omega / first.flexural_rigidity).powf(0.25))
 }
 
 /// Significant digits in a decimal number as written ("0.0120" has 3).
@@ -174,10 +112,13 @@ mod tests {
     }
 
     #[test]
-    fn the_table_comes_from_the_published_file() {
-        let root = Path::new(concat!(env!("CARGO_MANIFEST_DIR"), "/.."));
-        let html = render("", root).unwrap();
+    fn the_table_has_a_row_for_every_published_case() {
+        let html = render("").unwrap();
+        assert_eq!(
+            html.matches("<tr><th scope=\"row\">").count() + html.matches("<tr class=\"outside\">").count(),
+            published::cases().len()
+        );
         assert!(html.contains("Clamped–free"), "{html}");
-        assert!(render("| typed | row |", root).is_err());
+        assert!(render("| typed | row |").is_err());
     }
 }

@@ -41,7 +41,7 @@ pub(crate) fn to_html(markdown: &str, context: &Scope<'_>) -> Result<String> {
                             calculator::render(&body, context.root)
                                 .with_context(|| format!("calculator block {calculators}"))?
                         }
-                        "modebench-checks" => checks::render(&body, context.root)?,
+                        "modebench-checks" => checks::render(&body)?,
                         _ => page_list::render(&body, context.pages)?,
                     };
                     events.push(Event::Html(CowStr::from(format!("{html}\n"))));

@@ -1,1 +1,27 @@
-//! Shared helpers for the cross-crate checks.
+//! Shared pieces of the cross-crate checks: the table of published values, one comparison
+//! helper, a seeded generator of random models, and the bridge to the Python reference library.
+
+pub mod published;
+pub mod random;
+pub mod reference;
+
+/// Compares `got` with a sourced `expected` value within a relative tolerance and, on failure,
+/// panics with the case, the source, both values and the tolerance.
+#[track_caller]
+pub fn check(case: &str, source: &str, expected: f64, got: f64, relative_tolerance: f64) {
+    let error = relative_error(expected, got);
+    assert!(
+        error <= relative_tolerance,
+        "{case}\n  source:     {source}\n  expected:   {expected:e}\n  got:        {got:e}\n  \
+         rel. error: {error:e} > tolerance {relative_tolerance:e}"
+    );
+}
+
+/// |got − expected| / |expected| (absolute when expected is zero).
+pub fn relative_error(expected: f64, got: f64) -> f64 {
+    if expected == 0.0 {
+        got.abs()
+    } else {
+        ((got - expected) / expected).abs()
+    }
+}

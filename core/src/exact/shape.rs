@@ -213,14 +213,24 @@ const GAUSS: [(f64, f64); 6] = [
 ];
 
 fn inner(model: &Model, a: &ModeShape, b: &ModeShape) -> f64 {
+    // The two shapes may sit on different piece layouts (each is cut for its own frequency), so
+    // integrate over the union of their piece boundaries; within each interval both are smooth.
+    let mut cuts: Vec<f64> = a.pieces.iter().chain(&b.pieces).map(|p| p.x0).collect();
+    cuts.push(model.length());
+    cuts.sort_by(f64::total_cmp);
+    cuts.dedup_by(|x, y| (*x - *y).abs() <= 1e-12 * model.length());
     let mut sum = 0.0;
-    for (pa, pb) in a.pieces.iter().zip(&b.pieces) {
-        let half = 0.5 * pa.length;
+    for w in cuts.windows(2) {
+        let (x0, x1) = (w[0], w[1]);
+        let half = 0.5 * (x1 - x0);
+        let piece =
+            &a.pieces[a.pieces.partition_point(|p| p.x0 + p.length <= x0 + half).min(a.pieces.len() - 1)];
         for (xi, weight) in GAUSS {
-            let local = half * (1.0 + xi);
-            let (wa, ta) = pa.member.propagate(a.omega, pa.state, local);
-            let (wb, tb) = pb.member.propagate(b.omega, pb.state, local);
-            sum += weight * half * (pa.mass_per_length * wa * wb + pa.rotary_inertia_per_length * ta * tb);
+            let x = x0 + half * (1.0 + xi);
+            let (wa, ta) = a.at(x);
+            let (wb, tb) = b.at(x);
+            sum +=
+                weight * half * (piece.mass_per_length * wa * wb + piece.rotary_inertia_per_length * ta * tb);
         }
     }
     for attachment in model.attachments() {

@@ -27,7 +27,18 @@ pub enum Mesh {
     /// Enough elements that modes up to this angular frequency (rad/s) converge to about 1e-4:
     /// at most 0.5 rad of bending wavenumber per element.
     UpTo(f64),
+    /// Every span between natural stations (ends, segment boundaries, attachments) cut into this
+    /// many equal elements; doubling it halves every element, as convergence studies need.
+    PerSpan(usize),
 }
+
+/// Most elements a mesh may have. Round-off in the assembled matrices grows like n⁴ (the
+/// condition of the beam stiffness), so beyond a few hundred elements more elements add noise,
+/// not accuracy.
+pub const MAX_ELEMENTS: usize = 2000;
+
+/// Above this many elements the result carries round-off of about 1e-6 and a warning says so.
+pub const NOISY_ELEMENTS: usize = 400;
 
 /// Bending wavenumber × element length allowed by [`Mesh::UpTo`]. The Hermite element's
 /// frequency error is about (βh)⁴/1440, so 0.5 gives about 4e-5.
@@ -63,7 +74,7 @@ pub fn frequencies(model: &Model, elastic: usize, mesh: Mesh) -> Result<FeSoluti
             ErrorKind::OutOfRange,
             format!("the mesh has only {available} elastic modes; use more elements (at least {elastic} modes asked)"),
         )
-        .at("fe.elements"));
+        .at("elements"));
     }
     let guess = crate::exact::guess(model, rigid + elastic);
     let roots = roots::find(rigid, elastic, guess, &discrete)?;
@@ -111,9 +122,9 @@ impl Discrete {
                 Mesh::Total(total) => (total as f64 * span.length / total_length).round(),
                 Mesh::UpTo(omega) => {
                     let s = &model.segments()[span.segment];
-                    let beta = (s.mass_per_length * omega * omega / s.flexural_rigidity).sqrt().sqrt();
-                    (beta * span.length / WAVE_PER_ELEMENT).ceil()
+                    (wavenumber(s, model.theory(), omega) * span.length / WAVE_PER_ELEMENT).ceil()
                 }
+                Mesh::PerSpan(n) => n as f64,
             };
             if n.is_finite() {
                 n.clamp(1.0, 1e6) as usize
@@ -171,6 +182,20 @@ impl Discrete {
         }
         Discrete { layout, elements, stiffness, mass }
     }
+}
+
+/// The bending wavenumber of free waves at ω in a segment: (mω²/EI)^¼ for Euler–Bernoulli; for
+/// Timoshenko the larger root k² of κGA·EI·k⁴ − ω²(κGA·ρI + ρA·EI)·k² + ρA·ω²(ρI·ω² − κGA) = 0
+/// (the pinned–pinned frequency equation read for k), which is shorter-waved.
+fn wavenumber(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
+    let w2 = omega * omega;
+    let euler = (s.mass_per_length * w2 / s.flexural_rigidity).sqrt().sqrt();
+    let (Theory::Timoshenko, Some(kga)) = (theory, s.shear_rigidity) else { return euler };
+    let (ei, ra, ri) = (s.flexural_rigidity, s.mass_per_length, s.rotary_inertia_per_length);
+    let b = w2 * (kga * ri + ra * ei);
+    let c = ra * w2 * (ri * w2 - kga);
+    let k2 = (b + (b * b - 4.0 * kga * ei * c).max(0.0).sqrt()) / (2.0 * kga * ei);
+    k2.sqrt().max(euler)
 }
 
 /// Pivots smaller than this fraction of their diagonal entry make the count doubtful.

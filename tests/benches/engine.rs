@@ -1,0 +1,61 @@
+//! Speed of the engine on the budget cases (printed by criterion; figures go in
+//! docs/performance.md):
+//! - exact method, first 10 modes of a 3-segment beam with 10 attachments — budget 1 ms;
+//! - finite elements, 200 elements, first 10 modes — budget 5 ms;
+//! - a whole documented scenario through `solve` (all three methods, shapes, report).
+
+use criterion::{criterion_group, criterion_main, Criterion};
+use modebench::fe::{self, Mesh};
+use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use std::hint::black_box;
+
+/// A stepped, three-segment floor beam carrying ten attachments of every kind.
+fn budget_model() -> Model {
+    let seg = |length, ei, m| Segment {
+        length,
+        flexural_rigidity: ei,
+        mass_per_length: m,
+        shear_rigidity: None,
+        rotary_inertia_per_length: 0.0,
+    };
+    let attachments = vec![
+        Attachment::Mass { position: 0.4, mass: 12.0, rotary_inertia: 0.3 },
+        Attachment::Spring { position: 0.9, stiffness: 2.0e6 },
+        Attachment::Mass { position: 1.3, mass: 30.0, rotary_inertia: 0.0 },
+        Attachment::SprungMass { position: 1.8, mass: 45.0, stiffness: 8.0e5 },
+        Attachment::RotationalSpring { position: 2.2, stiffness: 5.0e4 },
+        Attachment::Support { position: 2.6 },
+        Attachment::Mass { position: 3.1, mass: 8.0, rotary_inertia: 0.1 },
+        Attachment::Spring { position: 3.5, stiffness: 1.0e6 },
+        Attachment::Mass { position: 4.0, mass: 20.0, rotary_inertia: 0.0 },
+        Attachment::SprungMass { position: 4.6, mass: 15.0, stiffness: 3.0e5 },
+    ];
+    Model::new(ModelParts {
+        segments: vec![seg(1.5, 4.0e6, 40.0), seg(2.0, 2.5e6, 32.0), seg(1.5, 4.0e6, 40.0)],
+        left: End::Pinned,
+        right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
+        attachments,
+        theory: Theory::EulerBernoulli,
+    })
+    .expect("the budget model is valid")
+}
+
+fn engine(c: &mut Criterion) {
+    let model = budget_model();
+    c.bench_function("exact frequencies, 10 modes, 3 segments, 10 attachments", |b| {
+        b.iter(|| exact::frequencies(black_box(&model), 10).expect("solves"))
+    });
+    c.bench_function("exact modes with shapes, 10 modes, 3 segments, 10 attachments", |b| {
+        b.iter(|| exact::modes(black_box(&model), 10).expect("solves"))
+    });
+    c.bench_function("finite elements, 200 elements, 10 modes", |b| {
+        b.iter(|| fe::frequencies(black_box(&model), 10, Mesh::Total(200)).expect("solves"))
+    });
+    let scenario = include_str!("../../docs/scenarios/sensor-boom.json");
+    c.bench_function("solve a documented scenario (sensor boom, all methods)", |b| {
+        b.iter(|| modebench::solve_json(black_box(scenario)).expect("solves"))
+    });
+}
+
+criterion_group!(benches, engine);
+criterion_main!(benches);

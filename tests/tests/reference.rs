@@ -1,0 +1,117 @@
+//! The exact method against an independent computation with a general-purpose library: the
+//! roots of the beam's boundary-value determinant, found with mpmath at 30 digits
+//! (`tests/python/beam_roots.py`), for classical cases, published frequency-equation cases and
+//! seeded random stepped beams with every kind of end and attachment; and the banded
+//! finite-element eigensolver against scipy's dense generalized solver on the exported matrices.
+
+use modebench::fe::{self, Mesh};
+use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use modebench_tests::random::{self, Kinds, Rng};
+use modebench_tests::{check, reference};
+
+fn unit_beam(left: End, right: End, attachments: Vec<Attachment>) -> Model {
+    Model::new(ModelParts {
+        segments: vec![Segment {
+            length: 1.0,
+            flexural_rigidity: 1.0,
+            mass_per_length: 1.0,
+            shear_rigidity: None,
+            rotary_inertia_per_length: 0.0,
+        }],
+        left,
+        right,
+        attachments,
+        theory: Theory::EulerBernoulli,
+    })
+    .expect("valid model")
+}
+
+#[test]
+fn exact_method_matches_mpmath_roots_of_the_characteristic_determinant() {
+    let mut cases: Vec<(String, Model, usize)> = Vec::new();
+    // Cantilever with a tip mass (and rotary inertia): the published frequency equation
+    // 1 + cos λ cosh λ + μλ(cos λ sinh λ − sin λ cosh λ) = 0 (Blevins, table 8-8 — from memory)
+    // is what the determinant reduces to without rotary inertia.
+    for (mu, j) in [(0.2, 0.0), (1.0, 0.0), (5.0, 0.0), (1.0, 0.05)] {
+        let tip = Attachment::Mass { position: 1.0, mass: mu, rotary_inertia: j };
+        cases.push((format!("tip mass μ={mu} J={j}"), unit_beam(End::Clamped, End::Free, vec![tip]), 4));
+    }
+    // Simply supported beam with a mass at mid-span, and at a third.
+    for (x, mass) in [(0.5, 1.0), (1.0 / 3.0, 0.5)] {
+        let m = Attachment::Mass { position: x, mass, rotary_inertia: 0.0 };
+        cases.push((
+            format!("pinned beam, mass {mass} at {x:.3}"),
+            unit_beam(End::Pinned, End::Pinned, vec![m]),
+            4,
+        ));
+    }
+    // Two equal spans, and a propped cantilever with a tuned sprung mass.
+    cases.push((
+        "two spans".into(),
+        unit_beam(End::Pinned, End::Pinned, vec![Attachment::Support { position: 0.5 }]),
+        4,
+    ));
+    cases.push((
+        "sprung mass on a propped cantilever".into(),
+        unit_beam(
+            End::Clamped,
+            End::Pinned,
+            vec![Attachment::SprungMass { position: 0.6, mass: 0.3, stiffness: 60.0 }],
+        ),
+        4,
+    ));
+    let mut rng = Rng::new(0x5EED_0001);
+    let kinds = Kinds { unrestrained: false, sprung: true, supports: true };
+    for i in 0..12 {
+        cases.push((format!("random model {i}"), random::model(&mut rng, kinds), 4));
+    }
+    let input = serde_json::json!({
+        "models": cases.iter().map(|(id, m, n)| reference::model_json(id, m, *n)).collect::<Vec<_>>()
+    });
+    let Some(out) = reference::run("beam_roots.py", &["mpmath"], &input.to_string()) else { return };
+    let roots: std::collections::HashMap<String, Vec<f64>> =
+        serde_json::from_str(&out).expect("JSON from beam_roots.py");
+    for (id, model, n) in &cases {
+        let expected = &roots[id];
+        assert_eq!(expected.len(), *n, "{id}: mpmath found {} roots", expected.len());
+        let got = exact::frequencies(model, *n).expect("solves");
+        for (k, (e, g)) in expected.iter().zip(&got).enumerate() {
+            check(
+                &format!("{id}, mode {}", k + 1),
+                "mpmath roots of the characteristic determinant",
+                *e,
+                *g,
+                1e-9,
+            );
+        }
+    }
+}
+
+#[test]
+fn banded_fe_solver_matches_scipy_on_the_same_matrices() {
+    let mut rng = Rng::new(0x5EED_0002);
+    let kinds = Kinds { unrestrained: false, sprung: true, supports: true };
+    let mut models = Vec::new();
+    for i in 0..6 {
+        let model = random::model(&mut rng, kinds);
+        let (k, m) = fe::matrices(&model, Mesh::Total(30));
+        models.push((i, model, k, m));
+    }
+    let input = serde_json::json!({
+        "problems": models.iter().map(|(i, _, k, m)| serde_json::json!({
+            "id": i.to_string(),
+            "k": (0..k.nrows()).map(|r| (0..k.ncols()).map(|c| k[(r, c)]).collect::<Vec<_>>()).collect::<Vec<_>>(),
+            "m": (0..m.nrows()).map(|r| (0..m.ncols()).map(|c| m[(r, c)]).collect::<Vec<_>>()).collect::<Vec<_>>(),
+            "count": 6,
+        })).collect::<Vec<_>>()
+    });
+    let Some(out) = reference::run("fe_eigen.py", &["numpy", "scipy"], &input.to_string()) else { return };
+    let omegas: std::collections::HashMap<String, Vec<f64>> =
+        serde_json::from_str(&out).expect("JSON from fe_eigen.py");
+    for (i, model, _, _) in &models {
+        let got = fe::frequencies(model, 6, Mesh::Total(30)).expect("solves").omegas;
+        for (k, (e, g)) in omegas[&i.to_string()].iter().zip(&got).enumerate() {
+            check(&format!("random model {i}, FE mode {}", k + 1), "scipy.linalg.eigh(K, M)", *e, *g, 1e-9);
+        }
+    }
+}
