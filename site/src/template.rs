@@ -53,7 +53,8 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
 <title>{head_title}</title>
 {summary}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
 <link rel=\"stylesheet\" href=\"assets/site.css\">
-{widget_css}{boot}</head>
+{widget_css}<link rel=\"stylesheet\" href=\"assets/print.css\" media=\"print\">
+{boot}</head>
 <body>
 <a class=\"skip\" href=\"#content\">Skip to the page</a>
 <header class=\"site-head\">
