@@ -1,3 +1,39 @@
-//! Builds and serves the Modebench documentation site.
+//! Builds the Modebench documentation site into a self-contained folder, and serves that folder.
+//!
+//! `modebench-site build` turns the Markdown pages in `site/pages/` into a `dist/` folder that
+//! works from any static host and any sub-path; `modebench-site serve` only serves a folder that
+//! was built before, on 127.0.0.1.
 
-fn main() {}
+mod args;
+mod builder;
+mod calculator;
+mod checks;
+mod markdown;
+mod math;
+mod page;
+mod page_list;
+mod serve;
+mod template;
+mod verify;
+
+use std::process::ExitCode;
+
+fn main() -> ExitCode {
+    let result = args::Command::from_env().and_then(|command| match command {
+        args::Command::Build(options) => builder::build(&options).map(|report| {
+            println!("{report}");
+        }),
+        args::Command::Serve(options) => serve::serve(&options),
+        args::Command::Help => {
+            println!("{}", args::USAGE);
+            Ok(())
+        }
+    });
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(error) => {
+            eprintln!("modebench-site: {error:#}");
+            ExitCode::FAILURE
+        }
+    }
+}

@@ -1,3 +1,69 @@
 //! Build, serve and test orchestration for Modebench (`cargo xtask <command>`).
+//!
+//! Every command first installs what it needs and is missing, and says so: the WebAssembly
+//! target, `wasm-bindgen-cli` at the version in `Cargo.lock`, and for tests the Python
+//! reference libraries, Chromium and the browser-test packages.
 
-fn main() {}
+mod bench;
+mod ci;
+mod engine;
+mod project;
+mod run;
+mod server;
+mod tools;
+
+use std::process::ExitCode;
+
+use anyhow::{bail, Result};
+
+const USAGE: &str = "\
+usage: cargo xtask <command>
+  serve   build the engine and the site, then serve it on http://127.0.0.1:8080/
+  build   build the engine (WebAssembly) and the site into dist/
+  test    everything CI runs: formatting, lints, docs, native and WebAssembly tests,
+          the site build and the browser tests
+  bench   the engine benchmarks and the browser budgets
+  tools   install whatever the commands above need and is missing";
+
+fn main() -> ExitCode {
+    match dispatch() {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(error) => {
+            eprintln!("xtask: {error:#}");
+            ExitCode::FAILURE
+        }
+    }
+}
+
+fn dispatch() -> Result<()> {
+    let command = std::env::args().nth(1).unwrap_or_default();
+    let project = project::Project::find()?;
+    match command.as_str() {
+        "serve" => {
+            tools::ensure(&project, tools::Needs::ENGINE)?;
+            engine::build(&project)?;
+            let site = project.build_site()?;
+            server::serve_forever(&project, &site, 8080)
+        }
+        "build" => {
+            tools::ensure(&project, tools::Needs::ENGINE)?;
+            engine::build(&project)?;
+            project.build_site()?;
+            Ok(())
+        }
+        "test" | "ci" => {
+            tools::ensure(&project, tools::Needs::ALL)?;
+            ci::run(&project)
+        }
+        "bench" => {
+            tools::ensure(&project, tools::Needs::BROWSER)?;
+            bench::run(&project)
+        }
+        "tools" => tools::ensure(&project, tools::Needs::ALL),
+        "" | "help" | "--help" | "-h" => {
+            println!("{USAGE}");
+            Ok(())
+        }
+        other => bail!("unknown command {other:?}\n{USAGE}"),
+    }
+}

@@ -1,0 +1,117 @@
+//! The HTML around every page: head with the content security policy, the site header and
+//! navigation, the page itself, and the footer. Every URL it writes is relative.
+
+use modebench_web::render::escape;
+
+use crate::page::Page;
+
+/// The content security policy of every page, also sent as a header by `serve`. It allows
+/// only the site's own files, WebAssembly compilation, and nothing inline.
+pub(crate) const CSP: &str = "default-src 'self'; script-src 'self' 'wasm-unsafe-eval'; style-src 'self'; \
+     img-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'";
+
+/// What a rendered page needs from the rest of the site.
+pub(crate) struct Frame<'a> {
+    /// Every page, in navigation order.
+    pub(crate) pages: &'a [Page],
+    /// Whether `assets/widget.css` exists and should be linked.
+    pub(crate) widget_css: bool,
+    /// Whether the browser engine was copied into `assets/`; without it pages keep their
+    /// prerendered results and load no script at all.
+    pub(crate) engine: bool,
+}
+
+/// The whole HTML document of `page` with its rendered `body`.
+pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
+    let title = escape(&page.title);
+    let head_title =
+        if page.slug == "index" { "Modebench".to_string() } else { format!("{title} · Modebench") };
+    let widget_css =
+        if frame.widget_css { "<link rel=\"stylesheet\" href=\"assets/widget.css\">\n" } else { "" };
+    // Only pages that carry a calculator load the engine.
+    // The engine's files are announced up front so the browser fetches them while it is
+    // still reading the page, instead of one after the other as each import is discovered.
+    let boot = if frame.engine && body.contains("class=\"mb-calc\"") {
+        "<link rel=\"modulepreload\" href=\"assets/modebench_web.js\">\n\
+         <link rel=\"preload\" href=\"assets/modebench_web_bg.wasm\" as=\"fetch\" type=\"application/wasm\" crossorigin>\n\
+         <script type=\"module\" src=\"assets/boot.js\"></script>\n"
+    } else {
+        ""
+    };
+    let summary = if page.summary.is_empty() {
+        String::new()
+    } else {
+        format!("<meta name=\"description\" content=\"{}\">\n", escape(&page.summary))
+    };
+    format!(
+        "<!doctype html>
+<html lang=\"en\">
+<head>
+<meta charset=\"utf-8\">
+<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">
+<meta http-equiv=\"Content-Security-Policy\" content=\"{CSP}\">
+<title>{head_title}</title>
+{summary}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
+<link rel=\"stylesheet\" href=\"assets/site.css\">
+{widget_css}<link rel=\"stylesheet\" href=\"assets/print.css\" media=\"print\">
+{boot}</head>
+<body>
+<a class=\"skip\" href=\"#content\">Skip to the page</a>
+<header class=\"site-head\">
+<a class=\"brand\" href=\"index.html\"><img src=\"assets/mark.svg\" alt=\"\" width=\"32\" height=\"32\"><span>Modebench</span></a>
+<nav class=\"site-nav\" aria-label=\"Pages\"><ul>
+{nav}</ul></nav>
+</header>
+<main id=\"content\" class=\"page page-{slug}\">
+<p class=\"sheet-head\">Modebench calculation sheet</p>
+<h1>{title}</h1>
+{body}</main>
+<footer class=\"site-foot\">
+<p>Modebench gives estimates. Resonance cracks welds and breaks brackets: confirm the frequencies \
+that matter by test, and follow the codes that apply and a qualified engineer.</p>
+</footer>
+</body>
+</html>
+",
+        nav = navigation(page, frame.pages),
+        slug = page.slug,
+    )
+}
+
+/// One link per page; the current one is marked for assistive technology and for the styles.
+fn navigation(current: &Page, pages: &[Page]) -> String {
+    pages
+        .iter()
+        .map(|p| {
+            let here = if p.slug == current.slug { " aria-current=\"page\"" } else { "" };
+            format!("<li><a href=\"{}\"{here}>{}</a></li>\n", p.file_name(), escape(&p.nav))
+        })
+        .collect()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn page(slug: &str, title: &str) -> Page {
+        Page {
+            slug: slug.into(),
+            title: title.into(),
+            summary: String::new(),
+            nav: title.into(),
+            source: Default::default(),
+            body: String::new(),
+        }
+    }
+
+    #[test]
+    fn every_page_carries_the_policy_and_relative_links() {
+        let pages = [page("index", "Home"), page("boom", "Boom <tube>")];
+        let html = document(&pages[1], "<p>x</p>", &Frame { pages: &pages, widget_css: false, engine: true });
+        assert!(html.contains("http-equiv=\"Content-Security-Policy\""));
+        assert!(html.contains("<a href=\"boom.html\" aria-current=\"page\">Boom &lt;tube&gt;</a>"), "{html}");
+        assert!(!html.contains("href=\"/") && !html.contains("src=\"/"), "{html}");
+        assert!(!html.contains("boot.js"), "a page without a calculator loads no engine");
+        assert!(!html.contains("widget.css"));
+    }
+}

@@ -1,0 +1,190 @@
+// The browser budgets, measured on the built site in headless Chromium and printed as figures:
+// engine size, a whole calculator page gzipped, cold load to the first live result, and the
+// time from an edit to updated results and plot. Run by `cargo xtask bench`; prints, never
+// fails on a figure, so that a regression shows in the numbers recorded in
+// docs/performance.md rather than as a flaky test.
+
+import { readFileSync, statSync } from "node:fs";
+import { cpus } from "node:os";
+import { join } from "node:path";
+import { gzipSync } from "node:zlib";
+import { DIST, isolatedContext, launch, startSite } from "./support.mjs";
+
+// Kilobytes are 1000 bytes here, the stricter reading of each budget.
+const KB = 1000;
+const BUDGET = {
+  wasmBytes: 350 * KB,
+  pageGzipBytes: 200 * KB,
+  coldLoadMs: 300,
+  editMs: 16,
+};
+const PAGES = ["sensor-boom.html", "fan-floor-beam.html"];
+const COLD_RUNS = 7;
+const EDITS = 30;
+
+function median(values) {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)];
+}
+
+function line(what, value, unit, budget) {
+  const shown = unit === "KB" ? (value / KB).toFixed(1) : value.toFixed(1);
+  let verdict = "";
+  if (budget !== undefined) {
+    const limit = unit === "KB" ? budget / KB : budget;
+    verdict = `budget ${String(limit).padStart(4)} ${unit}  ${value <= budget ? "within" : "OVER"}`;
+  }
+  console.log(`${what.padEnd(52)} ${shown.padStart(8)} ${unit.padEnd(3)} ${verdict}`);
+}
+
+// Every file a page fetches, gzipped one by one as a static host would send them.
+async function pageWeight(browser, url) {
+  const { context } = await isolatedContext(browser);
+  const page = await context.newPage();
+  const files = new Set();
+  page.on("response", (response) => {
+    if (response.status() === 200) {
+      files.add(new URL(response.url()).pathname);
+    }
+  });
+  await page.goto(url);
+  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 }).catch(() => {});
+  await context.close();
+  let raw = 0;
+  let gzipped = 0;
+  const parts = [];
+  const prefix = new URL(url).pathname.replace(/[^/]*$/, "");
+  for (const path of files) {
+    const relative = decodeURIComponent(path.slice(prefix.length)) || "index.html";
+    const bytes = readFileSync(join(DIST, relative));
+    const size = gzipSync(bytes).length;
+    raw += bytes.length;
+    gzipped += size;
+    parts.push(`${relative} ${(size / KB).toFixed(1)}`);
+  }
+  return { raw, gzipped, files: files.size, parts };
+}
+
+// Milliseconds from navigation start to the moment the first calculator carries live results,
+// in a fresh context each time so that nothing is cached.
+async function coldLoad(browser, url) {
+  const times = [];
+  for (let run = 0; run < COLD_RUNS; run += 1) {
+    const { context } = await isolatedContext(browser);
+    await context.addInitScript(() => {
+      const seen = () => {
+        const live = document.querySelector('.mb-calc[data-live="true"] td[data-hz]');
+        if (live && window.__modebenchLive === undefined) {
+          window.__modebenchLive = performance.now();
+        }
+      };
+      new MutationObserver(seen).observe(document, { subtree: true, attributes: true, childList: true });
+    });
+    const page = await context.newPage();
+    await page.goto(url);
+    const live = await page
+      .waitForFunction(() => window.__modebenchLive, null, { timeout: 10_000 })
+      .then((handle) => handle.jsonValue())
+      .catch(() => null);
+    await context.close();
+    if (live === null) {
+      return null;
+    }
+    times.push(live);
+  }
+  return { median: median(times), max: Math.max(...times) };
+}
+
+// Milliseconds from typing a new tip mass to the first frequency and the plot both redrawn,
+// layout included.
+async function editTimes(browser, url) {
+  const { context } = await isolatedContext(browser);
+  const page = await context.newPage();
+  await page.goto(url);
+  const ready = await page
+    .waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 })
+    .then(() => true)
+    .catch(() => false);
+  if (!ready) {
+    await context.close();
+    return null;
+  }
+  const times = [];
+  for (let edit = 0; edit < EDITS; edit += 1) {
+    const value = `${(2.0 + 0.1 * (edit % 20)).toFixed(1)} kg`;
+    const ms = await page.evaluate(async (value) => {
+      const root = document.querySelector(".mb-calc");
+      const input = root.querySelector('[data-field="attachments[0].mass"]');
+      const hz = () => root.querySelector('tr[data-mode="1"] td[data-hz]')?.dataset.hz;
+      const plot = () => root.querySelector("svg.mb-plot")?.innerHTML;
+      const [hzBefore, plotBefore] = [hz(), plot()];
+      return new Promise((resolve) => {
+        let start = 0;
+        const done = () => {
+          if (hz() !== hzBefore && plot() !== plotBefore) {
+            root.getBoundingClientRect();
+            resolve(performance.now() - start);
+            return true;
+          }
+          return false;
+        };
+        const watcher = new MutationObserver(() => done() && watcher.disconnect());
+        watcher.observe(root, { subtree: true, childList: true, attributes: true, characterData: true });
+        setTimeout(() => resolve(null), 5000);
+        start = performance.now();
+        input.value = value;
+        input.dispatchEvent(new Event("input", { bubbles: true }));
+        if (done()) {
+          watcher.disconnect();
+        }
+      });
+    }, value);
+    if (ms !== null && edit >= 3) {
+      times.push(ms);
+    }
+  }
+  await context.close();
+  return times.length ? { median: median(times), max: Math.max(...times) } : null;
+}
+
+const site = await startSite();
+const browser = await launch();
+try {
+  console.log(`Browser budgets, ${new Date().toISOString().slice(0, 10)}`);
+  console.log(`Machine: ${cpus().length} × ${cpus()[0]?.model ?? "unknown CPU"}; Chromium ${browser.version()}; Node ${process.version}`);
+  console.log("");
+
+  const engine = join(DIST, "assets", "modebench_web_bg.wasm");
+  const wasmBytes = statSync(engine, { throwIfNoEntry: false })?.size;
+  if (wasmBytes === undefined) {
+    console.log("No engine in the built site: build it with `cargo xtask build` first.");
+  } else {
+    line("Engine (.wasm, after wasm-opt)", wasmBytes, "KB", BUDGET.wasmBytes);
+    line("Engine gzipped (for reference)", gzipSync(readFileSync(engine)).length, "KB");
+  }
+
+  for (const file of PAGES) {
+    const url = site.url + file;
+    console.log(`\n${file}`);
+    const weight = await pageWeight(browser, url);
+    line(`  whole page gzipped (${weight.files} files, ${(weight.raw / KB).toFixed(0)} KB raw)`, weight.gzipped, "KB", BUDGET.pageGzipBytes);
+    console.log(`    gzipped KB by file: ${weight.parts.join(", ")}`);
+    const cold = await coldLoad(browser, url);
+    if (cold) {
+      line(`  cold load to first live result, median of ${COLD_RUNS}`, cold.median, "ms", BUDGET.coldLoadMs);
+      line(`  cold load to first live result, slowest`, cold.max, "ms", BUDGET.coldLoadMs);
+    } else {
+      console.log("  cold load: the calculator never went live");
+    }
+    const edit = await editTimes(browser, url);
+    if (edit) {
+      line(`  edit → results and plot, median of ${EDITS - 3}`, edit.median, "ms", BUDGET.editMs);
+      line(`  edit → results and plot, slowest`, edit.max, "ms", BUDGET.editMs);
+    } else {
+      console.log("  edit: the calculator never went live or never redrew");
+    }
+  }
+} finally {
+  await browser.close();
+  site.stop();
+}

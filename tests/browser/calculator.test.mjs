@@ -1,0 +1,133 @@
+// The live calculator against its DOM contract: the engine takes over the prerendered markup
+// without changing a number, edits move the results the way physics says they must, bad input
+// is named beside its field, and nothing typed is lost on reload.
+
+import assert from "node:assert/strict";
+import { after, before, describe, test } from "node:test";
+import { BROKEN_NUMBER, isolatedContext, launch, pages, startSite, watchedPage } from "./support.mjs";
+
+const BOOM = "sensor-boom.html";
+const TIP_MASS = '[data-field="attachments[0].mass"]';
+const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
+
+// Native and WebAssembly builds use different implementations of sin, cosh and friends, so the
+// last bits of a frequency may differ; one part in 10⁹ is far below any digit shown.
+const SAME = 1e-9;
+
+let site;
+let browser;
+
+before(async () => {
+  site = await startSite();
+  browser = await launch();
+});
+
+after(async () => {
+  await browser?.close();
+  site?.stop();
+});
+
+async function openLive(context, file) {
+  const { page, problems } = await watchedPage(context);
+  await page.goto(site.url + file);
+  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+  return { page, problems };
+}
+
+async function mode1(page) {
+  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
+}
+
+// Types into a field and waits until the first frequency has been recomputed.
+async function typeAndWait(page, field, text) {
+  const before = await page.locator(MODE_1).first().getAttribute("data-hz");
+  await page.locator(field).fill(text);
+  await page.waitForFunction(
+    ([selector, old]) => document.querySelector(selector)?.dataset.hz !== old,
+    [MODE_1, before],
+    { timeout: 5000 },
+  );
+}
+
+async function assertNoBrokenNumbers(page) {
+  const text = await page.evaluate(() => document.body.innerText);
+  assert.doesNotMatch(text, BROKEN_NUMBER, "visible text");
+  const markup = await page.evaluate(() => {
+    const copy = document.body.cloneNode(true);
+    copy.querySelectorAll("[data-modebench]").forEach((e) => e.removeAttribute("data-modebench"));
+    copy.querySelectorAll("input").forEach((e) => e.removeAttribute("value"));
+    return copy.outerHTML;
+  });
+  assert.doesNotMatch(markup, BROKEN_NUMBER, "markup");
+}
+
+describe("the live calculator", () => {
+  for (const file of pages()) {
+    test(`${file}: the live numbers are the prerendered ones`, async () => {
+      const raw = await (await fetch(site.url + file)).text();
+      const prerendered = [...raw.matchAll(/<td[^>]*\sdata-hz="([^"]+)"/g)].map((m) => Number(m[1]));
+      if (!raw.includes('class="mb-calc"')) {
+        return;
+      }
+      assert.ok(prerendered.length > 0, "the prerendered page shows frequencies");
+      const { context } = await isolatedContext(browser);
+      const { page, problems } = await openLive(context, file);
+      const live = await page.$$eval("td[data-hz]", (cells) => cells.map((c) => Number(c.dataset.hz)));
+      assert.equal(live.length, prerendered.length);
+      live.forEach((hz, i) => {
+        assert.ok(Number.isFinite(hz) && hz >= 0, `row ${i}: ${hz}`);
+        assert.ok(Math.abs(hz - prerendered[i]) <= SAME * Math.max(1, prerendered[i]), `row ${i}: ${hz} live, ${prerendered[i]} prerendered`);
+      });
+      assert.deepEqual(problems, []);
+      await context.close();
+    });
+  }
+
+  test("a heavier camera head lowers the first frequency; a lighter one raises it", async () => {
+    const { context } = await isolatedContext(browser);
+    const { page } = await openLive(context, BOOM);
+    const start = await mode1(page);
+    await typeAndWait(page, TIP_MASS, "4.2 kg");
+    const heavier = await mode1(page);
+    assert.ok(heavier < start, `4.2 kg: ${heavier} Hz is not below ${start} Hz`);
+    await typeAndWait(page, TIP_MASS, "1.4 kg");
+    const lighter = await mode1(page);
+    assert.ok(lighter > start, `1.4 kg: ${lighter} Hz is not above ${start} Hz`);
+    assert.equal(await page.locator("svg.mb-plot").count() > 0, true, "the mode plot is shown");
+    await context.close();
+  });
+
+  for (const [typed, why] of [
+    ["-3 kg", "a negative mass"],
+    ["2.8 furlongs", "a length where a mass belongs"],
+    ["", "nothing at all"],
+    ["heavy", "no number"],
+  ]) {
+    test(`${why} ("${typed}") is named beside the field, and no broken number appears`, async () => {
+      const { context } = await isolatedContext(browser);
+      const { page, problems } = await openLive(context, BOOM);
+      const lastGood = await mode1(page);
+      await page.locator(TIP_MASS).fill(typed);
+      const error = page.locator('.mb-field-error[data-for="attachments[0].mass"]');
+      await error.waitFor({ state: "visible", timeout: 5000 });
+      assert.ok((await error.innerText()).trim().length > 0, "the message says something");
+      await page.waitForSelector(".mb-results.mb-stale");
+      assert.equal(await mode1(page), lastGood, "the last good results stay");
+      await assertNoBrokenNumbers(page);
+      assert.deepEqual(problems, []);
+      await context.close();
+    });
+  }
+
+  test("a reload keeps what was typed", async () => {
+    const { context } = await isolatedContext(browser);
+    const { page } = await openLive(context, BOOM);
+    await typeAndWait(page, TIP_MASS, "3.1 kg");
+    const edited = await mode1(page);
+    await page.reload();
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    assert.equal(await page.locator(TIP_MASS).inputValue(), "3.1 kg");
+    assert.equal(await mode1(page), edited);
+    await context.close();
+  });
+});

@@ -1,0 +1,199 @@
+// The built site as a reader on a tablet meets it: every page loads cleanly at both tablet
+// sizes, asks nothing of any other host, fits the screen, and leaves a screenshot for review.
+
+import assert from "node:assert/strict";
+import { mkdirSync, mkdtempSync, rmSync, symlinkSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { after, before, describe, test } from "node:test";
+import {
+  BROKEN_NUMBER,
+  DIST,
+  SCREENSHOTS,
+  TABLETS,
+  isolatedContext,
+  launch,
+  pages,
+  startSite,
+  watchedPage,
+} from "./support.mjs";
+
+const POLICY =
+  "default-src 'self'; script-src 'self' 'wasm-unsafe-eval'; style-src 'self'; img-src 'self'; " +
+  "object-src 'none'; base-uri 'none'; form-action 'none'";
+
+let site;
+let browser;
+
+before(async () => {
+  site = await startSite();
+  browser = await launch();
+  mkdirSync(SCREENSHOTS, { recursive: true });
+});
+
+after(async () => {
+  await browser?.close();
+  site?.stop();
+});
+
+// Waits until the calculators on a page have gone live, if they will; pages keep their
+// prerendered results when the engine is missing, so this never fails on its own.
+async function settle(page) {
+  const engine = await page.locator('script[src$="boot.js"]').count();
+  if (engine > 0) {
+    await page
+      .waitForFunction(() => [...document.querySelectorAll(".mb-calc")].every((c) => c.dataset.live === "true"), null, {
+        timeout: 3000,
+      })
+      .catch(() => {});
+  }
+}
+
+describe("every page", () => {
+  for (const file of pages()) {
+    for (const tablet of TABLETS) {
+      test(`${file} at ${tablet.width}×${tablet.height}: loads cleanly, stays local, fits, and is photographed`, async () => {
+        const { context, external } = await isolatedContext(browser, {
+          viewport: { width: tablet.width, height: tablet.height },
+          hasTouch: true,
+        });
+        const { page, problems } = await watchedPage(context);
+        const response = await page.goto(site.url + file, { waitUntil: "load" });
+        assert.equal(response.status(), 200);
+        await settle(page);
+
+        assert.deepEqual(problems, [], "console errors, exceptions or failed requests");
+        assert.deepEqual(external, [], "requests that would leave 127.0.0.1");
+
+        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+        assert.ok(overflow <= 0, `the page scrolls sideways by ${overflow} px`);
+
+        const small = await page.evaluate(() => {
+          const targets = [
+            ...document.querySelectorAll(".mb-calc input, .mb-calc button, .mb-calc select, .site-nav a"),
+          ];
+          return targets
+            .filter((t) => t.getClientRects().length > 0 && getComputedStyle(t).visibility !== "hidden")
+            .map((t) => ({ what: t.outerHTML.slice(0, 80), height: t.getBoundingClientRect().height }))
+            .filter((t) => t.height < 44);
+        });
+        assert.deepEqual(small, [], "touch targets shorter than 44 px");
+
+        const text = await page.evaluate(() => document.body.innerText);
+        assert.doesNotMatch(text, BROKEN_NUMBER);
+
+        await page.screenshot({
+          path: join(SCREENSHOTS, `${file.replace(/\.html$/, "")}-${tablet.width}x${tablet.height}.png`),
+          fullPage: true,
+        });
+        await context.close();
+      });
+    }
+  }
+});
+
+describe("the site as files", () => {
+  test("every page carries the content security policy, and serve sends it too", async () => {
+    for (const file of pages()) {
+      const response = await fetch(site.url + file);
+      assert.equal(response.headers.get("content-security-policy"), POLICY, file);
+      const html = await response.text();
+      assert.ok(html.includes(`<meta http-equiv="Content-Security-Policy" content="${POLICY}">`), file);
+    }
+  });
+
+  test("every URL in every page is relative and reaches a file", async () => {
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    for (const file of pages()) {
+      await page.goto(site.url + file);
+      const urls = await page.evaluate(() =>
+        [...document.querySelectorAll("[href], [src]")].map((e) => e.getAttribute("href") ?? e.getAttribute("src")),
+      );
+      for (const url of urls) {
+        assert.doesNotMatch(url, /^(\/|[a-z]+:)/i, `${file}: ${url} is not relative`);
+        if (!url.startsWith("#")) {
+          const target = new URL(url, site.url + file);
+          assert.equal((await fetch(target)).status, 200, `${file}: ${url}`);
+        }
+      }
+    }
+    await context.close();
+  });
+
+  test("the engine is served with the types browsers insist on", async () => {
+    const types = {
+      "assets/boot.js": /^text\/javascript/,
+      "assets/site.css": /^text\/css/,
+    };
+    for (const [path, type] of Object.entries(types)) {
+      const response = await fetch(site.url + path);
+      assert.equal(response.status, 200, path);
+      assert.match(response.headers.get("content-type"), type, path);
+    }
+    const wasm = await fetch(site.url + "assets/modebench_web_bg.wasm");
+    if (wasm.status === 200) {
+      assert.equal(wasm.headers.get("content-type"), "application/wasm");
+      const engine = await fetch(site.url + "assets/modebench_web.js");
+      assert.match(engine.headers.get("content-type"), /^text\/javascript/);
+    }
+  });
+
+  test("the site works unchanged under a sub-path of another host", async () => {
+    // A host that keeps the site in a folder of its own, as internal docs servers do.
+    const host = mkdtempSync(join(tmpdir(), "modebench-host-"));
+    mkdirSync(join(host, "docs"));
+    writeFileSync(join(host, "index.html"), "<p>Internal documents</p>");
+    symlinkSync(DIST, join(host, "docs", "modebench"));
+    const elsewhere = await startSite(host);
+    try {
+      const { context, external } = await isolatedContext(browser);
+      for (const file of pages()) {
+        const { page, problems } = await watchedPage(context);
+        await page.goto(`${elsewhere.url}docs/modebench/${file}`);
+        await settle(page);
+        assert.deepEqual(problems, [], file);
+        await page.close();
+      }
+      assert.deepEqual(external, []);
+      await context.close();
+    } finally {
+      elsewhere.stop();
+      rmSync(host, { recursive: true, force: true });
+    }
+  });
+
+  test("printed, a calculator page is a calculation sheet: title, calculator, cautions, no navigation", async () => {
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    for (const file of pages()) {
+      await page.goto(site.url + file);
+      await page.emulateMedia({ media: "print" });
+      const shown = await page.evaluate(() => {
+        const visible = (selector) =>
+          [...document.querySelectorAll(selector)].some((e) => e.getClientRects().length > 0);
+        return {
+          calculator: document.querySelector(".mb-calc") !== null,
+          title: visible("h1"),
+          sheet: visible(".sheet-head"),
+          calculatorShown: visible(".mb-calc"),
+          caution: visible('blockquote[class^="markdown-alert-"]'),
+          navigation: visible(".site-head, .site-nav, .site-foot"),
+          buttons: visible("button"),
+        };
+      });
+      assert.ok(shown.title && !shown.navigation && !shown.buttons, `${file}: ${JSON.stringify(shown)}`);
+      if (shown.calculator) {
+        assert.ok(shown.sheet && shown.calculatorShown && shown.caution, `${file}: ${JSON.stringify(shown)}`);
+      }
+      await page.emulateMedia({ media: "screen" });
+    }
+    await context.close();
+  });
+
+  test("the server never leaves the folder it serves", async () => {
+    for (const path of ["%2e%2e/Cargo.toml", "assets/%2e%2e/%2e%2e/Cargo.toml"]) {
+      assert.notEqual((await fetch(site.url + path)).status, 200, path);
+    }
+  });
+});

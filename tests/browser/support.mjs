@@ -1,0 +1,106 @@
+// Shared set-up of the browser tests: the built site served on 127.0.0.1, headless Chromium,
+// and watchers for console errors and for any request that would leave this machine.
+
+import { spawn } from "node:child_process";
+import { readdirSync } from "node:fs";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { chromium } from "playwright-core";
+
+export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..");
+export const DIST = resolve(process.env.MODEBENCH_DIST ?? join(ROOT, "dist"));
+export const SCREENSHOTS = join(ROOT, "build", "screenshots");
+
+// The two tablet sizes the site is laid out for.
+export const TABLETS = [
+  { name: "portrait", width: 768, height: 1024 },
+  { name: "landscape", width: 1024, height: 768 },
+];
+
+// Every page of the built site, by file name.
+export function pages() {
+  return readdirSync(DIST)
+    .filter((name) => name.endsWith(".html"))
+    .sort();
+}
+
+// Serves the built site. `cargo xtask test` starts one server and passes its address in
+// MODEBENCH_URL; run alone, each test file starts its own on a free port. A `dir` other than
+// the built site always gets a server of its own.
+export async function startSite(dir = DIST) {
+  if (process.env.MODEBENCH_URL && dir === DIST) {
+    return { url: process.env.MODEBENCH_URL.replace(/\/?$/, "/"), stop() {} };
+  }
+  const args = ["serve", "--dir", dir, "--port", "0"];
+  const command = process.env.MODEBENCH_SITE_BIN
+    ? [process.env.MODEBENCH_SITE_BIN, args]
+    : ["cargo", ["run", "-q", "-p", "modebench-site", "--", ...args]];
+  const server = spawn(command[0], command[1], { cwd: ROOT, stdio: ["ignore", "pipe", "inherit"] });
+  const url = await new Promise((found, failed) => {
+    let seen = "";
+    const timer = setTimeout(() => failed(new Error(`the site server did not start: ${seen}`)), 120_000);
+    server.stdout.on("data", (chunk) => {
+      seen += chunk;
+      const match = seen.match(/http:\/\/127\.0\.0\.1:\d+\//);
+      if (match) {
+        clearTimeout(timer);
+        found(match[0]);
+      }
+    });
+    server.on("exit", (code) => failed(new Error(`the site server stopped (exit ${code}): ${seen}`)));
+  });
+  return { url, stop: () => server.kill() };
+}
+
+export async function launch() {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM ?? "/usr/bin/chromium",
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
+  });
+}
+
+// A browser context that lets requests reach 127.0.0.1 only, and remembers the others.
+export async function isolatedContext(browser, options = {}) {
+  const context = await browser.newContext(options);
+  const external = [];
+  await context.route("**/*", (route) => {
+    const url = new URL(route.request().url());
+    if (url.hostname === "127.0.0.1") {
+      return route.continue();
+    }
+    external.push(url.href);
+    return route.abort();
+  });
+  return { context, external };
+}
+
+// A page whose console errors, uncaught exceptions and failed requests are collected.
+export async function watchedPage(context) {
+  const page = await context.newPage();
+  const problems = [];
+  page.on("console", (message) => {
+    if (message.type() === "error") {
+      problems.push(`console: ${message.text()}`);
+    }
+  });
+  page.on("pageerror", (error) => problems.push(`exception: ${error.message}`));
+  page.on("requestfailed", (request) => problems.push(`request failed: ${request.url()}`));
+  page.on("response", (response) => {
+    if (response.status() >= 400) {
+      problems.push(`HTTP ${response.status()}: ${response.url()}`);
+    }
+  });
+  return { page, problems };
+}
+
+// Words that mean a number went wrong somewhere between the engine and the page.
+export const BROKEN_NUMBER = /\b(NaN|undefined|Infinity)\b/;

@@ -1,0 +1,134 @@
+//! Installs what the commands need and is missing, saying what it installs: the WebAssembly
+//! target, wasm-bindgen-cli at the version in `Cargo.lock`, the Python reference libraries,
+//! Chromium, and the browser-test packages.
+
+use anyhow::{bail, Context, Result};
+
+use crate::engine::TARGET;
+use crate::project::Project;
+use crate::run;
+
+/// Which groups of tools a command needs.
+#[derive(Clone, Copy)]
+pub(crate) struct Needs {
+    engine: bool,
+    python: bool,
+    browser: bool,
+}
+
+impl Needs {
+    /// Building the engine and the site.
+    pub(crate) const ENGINE: Needs = Needs { engine: true, python: false, browser: false };
+    /// Building, and driving the site in Chromium.
+    pub(crate) const BROWSER: Needs = Needs { engine: true, python: false, browser: true };
+    /// Everything CI runs.
+    pub(crate) const ALL: Needs = Needs { engine: true, python: true, browser: true };
+}
+
+/// Installs what `needs` asks for and is missing.
+pub(crate) fn ensure(project: &Project, needs: Needs) -> Result<()> {
+    run::step("Tools");
+    if needs.engine {
+        wasm_target()?;
+        wasm_bindgen(project)?;
+        match run::version("wasm-opt") {
+            Some(version) => println!("ok: {version}"),
+            None => println!(
+                "skipped: wasm-opt (Debian package binaryen) is not installed; the engine will not be shrunk"
+            ),
+        }
+    }
+    if needs.python {
+        python()?;
+    }
+    if needs.browser {
+        chromium()?;
+        npm(project)?;
+    }
+    Ok(())
+}
+
+fn wasm_target() -> Result<()> {
+    let out = run::output(&mut run::cmd("rustup", ["target", "list", "--installed"]))?;
+    if String::from_utf8_lossy(&out.stdout).lines().any(|l| l.trim() == TARGET) {
+        println!("ok: Rust target {TARGET}");
+        return Ok(());
+    }
+    println!("installing: Rust target {TARGET}");
+    run::status(&mut run::cmd("rustup", ["target", "add", TARGET]))
+}
+
+/// wasm-bindgen-cli must match the wasm-bindgen library exactly, or the bindings it writes do
+/// not fit the compiled engine.
+fn wasm_bindgen(project: &Project) -> Result<()> {
+    let wanted = wasm_bindgen_version(project)?;
+    let found = run::version("wasm-bindgen");
+    if found.as_deref().is_some_and(|v| v.split_whitespace().nth(1) == Some(wanted.as_str())) {
+        println!("ok: wasm-bindgen {wanted}");
+        return Ok(());
+    }
+    println!(
+        "installing: wasm-bindgen-cli {wanted} (found {}); this compiles for several minutes",
+        found.unwrap_or_else(|| "none".into())
+    );
+    run::status(&mut run::cmd("cargo", ["install", "--locked", "wasm-bindgen-cli", "--version", &wanted]))
+}
+
+/// The wasm-bindgen version in `Cargo.lock`, or else the exact version pinned in the
+/// workspace manifest (before any crate uses it, the lock file does not list it).
+fn wasm_bindgen_version(project: &Project) -> Result<String> {
+    let lock = std::fs::read_to_string(project.root.join("Cargo.lock")).context("reading Cargo.lock")?;
+    let mut lines = lock.lines();
+    while let Some(line) = lines.next() {
+        if line.trim() == "name = \"wasm-bindgen\"" {
+            if let Some(version) = lines.next().and_then(|l| l.trim().strip_prefix("version = ")) {
+                return Ok(version.trim_matches('"').to_string());
+            }
+        }
+    }
+    let manifest = std::fs::read_to_string(project.root.join("Cargo.toml")).context("reading Cargo.toml")?;
+    manifest
+        .lines()
+        .find_map(|l| l.trim().strip_prefix("wasm-bindgen = \"="))
+        .map(|v| v.trim_end_matches('"').to_string())
+        .context("no wasm-bindgen version in Cargo.lock or in Cargo.toml's workspace dependencies")
+}
+
+fn python() -> Result<()> {
+    let check = run::output(&mut run::cmd("python3", ["-c", "import mpmath, numpy, scipy"]))?;
+    if check.status.success() {
+        println!("ok: Python mpmath, numpy, scipy");
+        return Ok(());
+    }
+    println!("installing: Python packages mpmath numpy scipy");
+    run::status(&mut run::cmd("python3", ["-m", "pip", "install", "--quiet", "mpmath", "numpy", "scipy"]))
+}
+
+/// The browser tests drive Debian's Chromium, which can be installed only as root.
+fn chromium() -> Result<()> {
+    if run::exists("/usr/bin/chromium") {
+        println!("ok: {}", run::version("/usr/bin/chromium").unwrap_or_else(|| "chromium".into()));
+        return Ok(());
+    }
+    let uid = run::output(&mut run::cmd("id", ["-u"]))?;
+    if String::from_utf8_lossy(&uid.stdout).trim() != "0" {
+        bail!("Chromium is missing at /usr/bin/chromium; install it (`sudo apt-get install chromium`) and run again");
+    }
+    println!("installing: chromium (apt-get)");
+    run::status(&mut run::cmd("apt-get", ["update"]))?;
+    run::status(run::cmd("apt-get", ["install", "-y", "chromium"]).env("DEBIAN_FRONTEND", "noninteractive"))
+}
+
+/// The browser tests' npm packages, exactly as locked.
+fn npm(project: &Project) -> Result<()> {
+    let dir = project.browser_tests();
+    let installed = dir.join("node_modules").join(".package-lock.json");
+    let lock = dir.join("package-lock.json");
+    let modified = |p: &std::path::Path| std::fs::metadata(p).and_then(|m| m.modified()).ok();
+    if matches!((modified(&installed), modified(&lock)), (Some(a), Some(b)) if a >= b) {
+        println!("ok: npm packages in tests/browser");
+        return Ok(());
+    }
+    println!("installing: npm packages in tests/browser (npm ci)");
+    run::status(run::cmd("npm", ["ci", "--no-audit", "--no-fund"]).current_dir(&dir))
+}
