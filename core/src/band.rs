@@ -81,6 +81,10 @@ impl SymBand {
     /// A − s·B for two matrices of the same shape (bandwidth the larger of the two).
     pub(crate) fn minus_scaled(&self, s: f64, other: &SymBand) -> SymBand {
         debug_assert_eq!(self.n, other.n);
+        if self.b == other.b {
+            let data = self.data.iter().zip(&other.data).map(|(a, m)| a - s * m).collect();
+            return SymBand { n: self.n, b: self.b, data };
+        }
         let b = self.b.max(other.b);
         let mut out = SymBand::zeros(self.n, b);
         for i in 0..self.n {
@@ -121,8 +125,13 @@ impl SymBand {
     /// Inertia and determinant. Pivots are computed without interchanges; a pivot that is exactly
     /// zero is reported through `weakest_pivot == 0` and counted as non-negative.
     pub(crate) fn inertia(&self) -> Inertia {
+        self.clone().into_inertia()
+    }
+
+    /// [`SymBand::inertia`], factoring in place instead of on a copy.
+    pub(crate) fn into_inertia(mut self) -> Inertia {
         let diag: Vec<f64> = (0..self.n).map(|i| self.data[i * (self.b + 1)].abs()).collect();
-        let d = self.clone().factor_in_place();
+        let d = self.factor_in_place();
         let mut out = Inertia { negative: 0, sign: 1.0, log_abs_det: 0.0, weakest_pivot: f64::INFINITY };
         for (p, a) in d.iter().zip(&diag) {
             if *p < 0.0 {
@@ -171,68 +180,59 @@ impl SymBand {
 
     /// LU factorisation with partial pivoting, for matrices that may be indefinite and nearly
     /// singular: a stable determinant near a natural frequency, and inverse iteration there.
+    ///
+    /// The unblocked band algorithm of LAPACK's `dgbtf2`: column-major band storage with room for
+    /// the b extra super-diagonals that row interchanges fill in.
     pub(crate) fn lu(&self) -> BandLu {
-        let (n, b) = (self.n, self.b);
-        // Each row keeps a window of 3b + 1 columns starting at `start[i]`; row interchanges only
-        // happen among the b rows below a pivot, so fill-in never reaches past column k + 3b.
-        let width = 3 * b + 1;
-        let mut rows: Vec<Vec<f64>> = Vec::with_capacity(n);
-        let mut start: Vec<usize> = Vec::with_capacity(n);
-        for i in 0..n {
-            let s = i.saturating_sub(b);
-            let mut row = vec![0.0; width];
-            for j in s..n.min(i + b + 1) {
-                row[j - s] = self.get(i, j);
+        let (n, kl) = (self.n, self.b);
+        let ku = self.b;
+        let ld = 2 * kl + ku + 1;
+        let kv = kl + ku; // storage row of the diagonal
+        let mut ab = vec![0.0; ld * n];
+        for j in 0..n {
+            for i in j.saturating_sub(ku)..n.min(j + kl + 1) {
+                ab[j * ld + kv + i - j] = self.get(i, j);
             }
-            rows.push(row);
-            start.push(s);
         }
-        let entry = |row: &[f64], s: usize, j: usize| if j < s || j - s >= width { 0.0 } else { row[j - s] };
-        // Moves a row's window so that it starts at column k; columns left of k are eliminated.
-        let rebase = |row: &mut Vec<f64>, s: &mut usize, k: usize| {
-            if *s != k {
-                let mut moved = vec![0.0; width];
-                for (c, v) in row.iter().enumerate() {
-                    let j = *s + c;
-                    if j >= k && j - k < width {
-                        moved[j - k] = *v;
-                    }
+        let mut pivots = vec![0usize; n];
+        let mut ju = 0usize;
+        for j in 0..n {
+            let km = kl.min(n - 1 - j);
+            let column = j * ld + kv;
+            let mut p = 0;
+            for i in 1..=km {
+                if ab[column + i].abs() > ab[column + p].abs() {
+                    p = i;
                 }
-                *row = moved;
-                *s = k;
             }
-        };
-        let mut swaps = Vec::with_capacity(n);
-        let mut multipliers = vec![0.0; n * b.max(1)];
-        for k in 0..n {
-            let last = n.min(k + b + 1);
-            let p = (k..last)
-                .max_by(|&i, &j| {
-                    entry(&rows[i], start[i], k).abs().total_cmp(&entry(&rows[j], start[j], k).abs())
-                })
-                .unwrap_or(k);
-            rows.swap(p, k);
-            start.swap(p, k);
-            swaps.push(p);
-            let (head, tail) = rows.split_at_mut(k + 1);
-            let pivot_row = &mut head[k];
-            rebase(pivot_row, &mut start[k], k);
-            let pivot = pivot_row[0];
-            for (offset, row) in tail.iter_mut().take(last - k - 1).enumerate() {
-                let i = k + 1 + offset;
-                let f = if pivot == 0.0 { 0.0 } else { entry(row, start[i], k) / pivot };
-                multipliers[k * b.max(1) + offset] = f;
-                if f == 0.0 {
-                    continue;
+            pivots[j] = j + p;
+            if ab[column + p] == 0.0 {
+                continue;
+            }
+            ju = ju.max((j + ku + p).min(n - 1));
+            if p != 0 {
+                // Swap rows j and j + p in columns j..=ju.
+                for c in j..=ju {
+                    let base = c * ld + kv;
+                    ab.swap(base + j - c, base + j + p - c);
                 }
-                rebase(row, &mut start[i], k);
-                for (r, v) in row.iter_mut().zip(pivot_row.iter()) {
-                    *r -= f * v;
+            }
+            let pivot = ab[column];
+            for i in 1..=km {
+                ab[column + i] /= pivot;
+            }
+            for c in (j + 1)..=ju {
+                let base = c * ld + kv;
+                let u = ab[base + j - c];
+                if u != 0.0 {
+                    for i in 1..=km {
+                        ab[base + j + i - c] -= ab[column + i] * u;
+                    }
                 }
             }
         }
         let scale = self.data.iter().fold(0.0f64, |m, v| m.max(v.abs())).max(f64::MIN_POSITIVE);
-        BandLu { n, b, width, rows, swaps, multipliers, scale }
+        BandLu { n, kl, ld, ab, pivots, scale }
     }
 
     /// Solves A·x = r with partial pivoting (see [`SymBand::lu`]).
@@ -241,29 +241,33 @@ impl SymBand {
     }
 }
 
-/// A banded LU factorisation with partial pivoting (rows of U anchored at their diagonal).
+/// A banded LU factorisation with partial pivoting, in LAPACK's band layout.
 #[derive(Clone, Debug)]
 pub(crate) struct BandLu {
     n: usize,
-    b: usize,
-    width: usize,
-    rows: Vec<Vec<f64>>,
-    swaps: Vec<usize>,
-    multipliers: Vec<f64>,
+    kl: usize,
+    ld: usize,
+    ab: Vec<f64>,
+    pivots: Vec<usize>,
     scale: f64,
 }
 
 impl BandLu {
+    fn diagonal(&self, j: usize) -> f64 {
+        self.ab[j * self.ld + self.ld - 1 - self.kl]
+    }
+
     /// Sign and ln|·| of the determinant.
     pub(crate) fn determinant(&self) -> (f64, f64) {
         let mut sign = 1.0;
         let mut log = 0.0;
-        for (k, row) in self.rows.iter().enumerate() {
-            if self.swaps[k] != k {
+        for j in 0..self.n {
+            if self.pivots[j] != j {
                 sign = -sign;
             }
-            sign *= row[0].signum();
-            log += row[0].abs().ln();
+            let d = self.diagonal(j);
+            sign *= d.signum();
+            log += d.abs().ln();
         }
         (sign, log)
     }
@@ -271,24 +275,34 @@ impl BandLu {
     /// Solves A·x = r. A pivot that vanishes is replaced by a tiny value, the usual device that
     /// makes inverse iteration converge in one step.
     pub(crate) fn solve(&self, rhs: &[f64]) -> Vec<f64> {
-        let (n, stride) = (self.n, self.b.max(1));
+        let (n, kl, ld) = (self.n, self.kl, self.ld);
+        let kv = ld - 1 - kl;
         let mut x = rhs.to_vec();
-        for k in 0..n {
-            x.swap(k, self.swaps[k]);
-            let last = n.min(k + self.b + 1);
-            for i in (k + 1)..last {
-                x[i] -= self.multipliers[k * stride + (i - k - 1)] * x[k];
+        for j in 0..n {
+            x.swap(j, self.pivots[j]);
+            let km = kl.min(n - 1 - j);
+            for i in 1..=km {
+                x[j + i] -= self.ab[j * ld + kv + i] * x[j];
             }
         }
         let tiny = f64::EPSILON * self.scale;
-        for k in (0..n).rev() {
-            let row = &self.rows[k];
-            let mut s = x[k];
-            for c in 1..self.width.min(n - k) {
-                s -= row[c] * x[k + c];
+        let upper = kv; // U has kl + ku super-diagonals
+        for j in (0..n).rev() {
+            let d = self.diagonal(j);
+            let pivot = if d.abs() < tiny * 1e-3 {
+                if d == 0.0 {
+                    tiny
+                } else {
+                    tiny.copysign(d)
+                }
+            } else {
+                d
+            };
+            x[j] /= pivot;
+            let xj = x[j];
+            for i in j.saturating_sub(upper)..j {
+                x[i] -= self.ab[j * ld + kv + i - j] * xj;
             }
-            let pivot = if row[0].abs() < tiny * 1e-3 { tiny.copysign(row[0]) } else { row[0] };
-            x[k] = s / if pivot == 0.0 { tiny } else { pivot };
         }
         x
     }

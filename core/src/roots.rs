@@ -22,6 +22,12 @@ pub(crate) trait Spectrum {
     /// natural frequencies and has no poles on (0, `omega_max`], computed with a stably pivoted
     /// factorisation.
     fn determinant(&self, omega_max: f64) -> Result<Determinant<'_>>;
+    /// Relative tolerance to polish roots to. The default is near machine precision; a system
+    /// whose determinant is noisier than that (a fine finite-element mesh) sets a looser one, as
+    /// polishing inside the noise only costs evaluations.
+    fn tolerance(&self) -> f64 {
+        POLISH
+    }
 }
 
 /// The result of [`Spectrum::count`].
@@ -46,7 +52,7 @@ pub(crate) struct Root {
 /// Relative width below which two frequencies count as one repeated frequency.
 const REPEATED: f64 = 1e-13;
 /// Relative tolerance of the polished root.
-const POLISH: f64 = 2e-15;
+const POLISH: f64 = 4e-14;
 /// Relative width the count narrows a bracket to before the determinant takes over.
 const NARROW: f64 = 1e-3;
 /// The furthest (relative) the polishing bracket is widened past the count's bracket.
@@ -193,13 +199,22 @@ fn polish(
     }
     let reference = llo.max(lhi);
     let value = |(sign, log): (f64, f64)| sign * (log - reference).clamp(-700.0, 700.0).exp();
-    Ok(brent(lo, value((slo, llo)), hi, value((shi, lhi)), |omega| Some(value(det(omega))))
-        .unwrap_or(0.5 * (lo + hi)))
+    Ok(brent(lo, value((slo, llo)), hi, value((shi, lhi)), system.tolerance(), |omega| {
+        Some(value(det(omega)))
+    })
+    .unwrap_or(0.5 * (lo + hi)))
 }
 
 /// Brent's method (Brent, *Algorithms for Minimization without Derivatives*, 1973, ch. 4) on a
 /// sign-changing bracket; `None` if the function stops being defined.
-fn brent(mut a: f64, mut fa: f64, mut b: f64, mut fb: f64, f: impl Fn(f64) -> Option<f64>) -> Option<f64> {
+fn brent(
+    mut a: f64,
+    mut fa: f64,
+    mut b: f64,
+    mut fb: f64,
+    tolerance: f64,
+    f: impl Fn(f64) -> Option<f64>,
+) -> Option<f64> {
     if fa == 0.0 {
         return Some(a);
     }
@@ -220,7 +235,7 @@ fn brent(mut a: f64, mut fa: f64, mut b: f64, mut fb: f64, f: impl Fn(f64) -> Op
             (b, fb) = (c, fc);
             (c, fc) = (a, fa);
         }
-        let tol = 2.0 * f64::EPSILON * b.abs() + 0.5 * POLISH * b.abs();
+        let tol = 2.0 * f64::EPSILON * b.abs() + 0.5 * tolerance * b.abs();
         let m = 0.5 * (c - b);
         if m.abs() <= tol || fb == 0.0 {
             return Some(b);

@@ -98,7 +98,7 @@ impl Spectrum for Exact<'_> {
         let mut trial = omega;
         for attempt in 1..=4 {
             let (k, poles) = self.natural.assemble_with_poles(trial)?;
-            let inertia = k.inertia();
+            let inertia = k.into_inertia();
             if inertia.weakest_pivot > WEAK_PIVOT || attempt == 4 {
                 return Ok(Count { below: poles.saturating_add(inertia.negative), poles });
             }
