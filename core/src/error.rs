@@ -30,6 +30,24 @@ pub enum ErrorKind {
     NoConvergence,
 }
 
+impl ErrorKind {
+    /// The kind's name as serialised: "unknown-unit", "out-of-range", …
+    pub fn id(self) -> &'static str {
+        match self {
+            ErrorKind::Syntax => "syntax",
+            ErrorKind::Missing => "missing",
+            ErrorKind::UnknownOption => "unknown-option",
+            ErrorKind::NotFinite => "not-finite",
+            ErrorKind::OutOfRange => "out-of-range",
+            ErrorKind::UnknownUnit => "unknown-unit",
+            ErrorKind::WrongDimension => "wrong-dimension",
+            ErrorKind::Conflict => "conflict",
+            ErrorKind::Model => "model",
+            ErrorKind::NoConvergence => "no-convergence",
+        }
+    }
+}
+
 /// An error with the field path it concerns (`attachments[2].position`), the offending value
 /// as the user wrote it, and a message that says what is allowed.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]

@@ -23,8 +23,7 @@ pub const DEFAULT_WATER_DENSITY: f64 = 1025.0;
 pub const DEFAULT_ADDED_MASS_COEFFICIENT: f64 = 1.0;
 
 /// Non-structural mass as written in a scenario; every part is optional.
-#[derive(Clone, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(default, deny_unknown_fields)]
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
 pub struct ExtraMassInput {
     /// Density of a fluid or solid filling the bore.
     pub contents_density: Option<Quantity>,
@@ -35,8 +34,7 @@ pub struct ExtraMassInput {
 }
 
 /// The surrounding water of a submerged member.
-#[derive(Clone, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(default, deny_unknown_fields)]
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
 pub struct Submerged {
     /// Water density; [`DEFAULT_WATER_DENSITY`] (seawater) when omitted.
     pub water_density: Option<Quantity>,

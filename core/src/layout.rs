@@ -221,7 +221,7 @@ fn add_restraint(s: &mut Station, held_w: &mut bool, held_theta: &mut bool, kt: 
 
 /// Sorts positions and merges those closer than `tolerance`, keeping the first of each group.
 fn merge_points(mut xs: Vec<f64>, tolerance: f64) -> Vec<f64> {
-    xs.sort_by(f64::total_cmp);
+    crate::sort::floats(&mut xs);
     let mut out: Vec<f64> = Vec::with_capacity(xs.len());
     for x in xs {
         match out.last() {

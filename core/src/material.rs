@@ -145,8 +145,8 @@ pub fn preset(id: &str) -> Option<&'static Material> {
 /// A material as written in a scenario: a preset id, or properties with units.
 ///
 /// Misspelt fields of a custom material are rejected rather than silently defaulted.
-#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(untagged, deny_unknown_fields)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[serde(untagged)]
 pub enum MaterialInput {
     /// The id of a preset, as "steel".
     Preset(String),
@@ -157,10 +157,8 @@ pub enum MaterialInput {
         /// Density (mass per volume).
         density: Quantity,
         /// Poisson's ratio; 0.3 when omitted ([`DEFAULT_POISSON`]).
-        #[serde(default)]
         poisson: Option<Quantity>,
         /// Shear modulus G; E/(2(1+ν)) when omitted. Give it for anisotropic materials.
-        #[serde(default)]
         shear_modulus: Option<Quantity>,
     },
 }

@@ -8,7 +8,7 @@
 use crate::error::{Error, ErrorKind, Result};
 
 /// Which beam theory the exact and finite-element solvers use.
-#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize)]
 #[serde(rename_all = "kebab-case")]
 #[non_exhaustive]
 pub enum Theory {

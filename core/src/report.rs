@@ -249,6 +249,11 @@ impl Report {
     }
 }
 
+/// Reads, checks and solves a scenario given as parsed JSON.
+pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
+    solve(&Scenario::from_value(value)?)
+}
+
 /// Reads, checks and solves a scenario given as JSON text.
 pub fn solve_json(text: &str) -> Result<Report> {
     solve(&Scenario::from_json(text)?)

@@ -70,7 +70,7 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
     let mut hi = if guess.is_finite() && guess > 0.0 { guess } else { 1.0 };
     loop {
         let c = sane(system.count(hi)?)?;
-        samples.push((hi, c));
+        insert(&mut samples, (hi, c));
         if c.below >= target {
             break;
         }
@@ -79,7 +79,6 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
             return Err(no_convergence(target, "no upper bound on the frequencies was found"));
         }
     }
-    sort(&mut samples);
 
     let mut roots = Vec::with_capacity(wanted);
     let mut k = skip + 1;
@@ -108,8 +107,7 @@ pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectru
                 break;
             }
             let mid = split(lo, hi);
-            samples.push((mid, sane(system.count(mid)?)?));
-            sort(&mut samples);
+            insert(&mut samples, (mid, sane(system.count(mid)?)?));
         }
     }
     roots.truncate(wanted);
@@ -136,8 +134,10 @@ fn split(lo: f64, hi: f64) -> f64 {
     lo + 0.471_404_520_791_031_7 * (hi - lo)
 }
 
-fn sort(samples: &mut [(f64, Count)]) {
-    samples.sort_by(|a, b| a.0.total_cmp(&b.0));
+/// Adds a sample, keeping the list sorted by ω (samples arrive one at a time).
+fn insert(samples: &mut Vec<(f64, Count)>, sample: (f64, Count)) {
+    let at = samples.partition_point(|s| s.0 < sample.0);
+    samples.insert(at, sample);
 }
 
 /// The tightest sampled interval with count(lo) < k ≤ count(hi).
@@ -164,14 +164,13 @@ fn polish(
     while lo == 0.0 || hi - lo > NARROW * hi {
         let mid = split(lo, hi);
         let c = system.count(mid)?;
-        samples.push((mid, c));
+        insert(samples, (mid, c));
         if c.below >= k {
             hi = mid;
         } else {
             lo = mid;
         }
     }
-    sort(samples);
     let det = system.determinant(hi * (1.0 + WIDEN))?;
     let (mut slo, mut llo) = det(lo);
     let (mut shi, mut lhi) = det(hi);

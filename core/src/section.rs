@@ -15,7 +15,7 @@ use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
 
 /// Which principal axis an I-section bends about.
-#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize)]
 #[serde(rename_all = "kebab-case")]
 #[non_exhaustive]
 pub enum BendingAxis {
@@ -30,8 +30,8 @@ pub enum BendingAxis {
 ///
 /// Unknown fields are rejected: `deny_unknown_fields` works with this internally tagged enum
 /// because every variant is a struct variant (the tests check it).
-#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(tag = "shape", rename_all = "kebab-case", deny_unknown_fields)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[serde(tag = "shape", rename_all = "kebab-case")]
 #[non_exhaustive]
 pub enum SectionInput {
     /// Solid rectangle; `depth` is measured in the plane of vibration.
@@ -73,7 +73,6 @@ pub enum SectionInput {
         /// Thickness of the web.
         web_thickness: Quantity,
         /// The axis of bending; strong by default.
-        #[serde(default)]
         axis: BendingAxis,
     },
     /// Properties given directly, for shapes not listed.
@@ -84,11 +83,9 @@ pub enum SectionInput {
         second_moment: Quantity,
         /// Depth in the plane of vibration; defaults to √(12·I/A), the depth of the rectangle
         /// with the same radius of gyration.
-        #[serde(default)]
         depth: Option<Quantity>,
         /// Shear coefficient κ in (0, 1]; defaults to Cowper's solid-rectangle value for the
         /// material's Poisson's ratio.
-        #[serde(default)]
         shear_coefficient: Option<Quantity>,
     },
 }

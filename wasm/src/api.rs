@@ -36,11 +36,11 @@ fn start() {
 /// Turns a core error into a JS `Error` with `path`, `kind` and `value` properties.
 pub fn js_error(error: &Error) -> JsValue {
     let js = js_sys::Error::new(&error.to_string());
-    let kind = serde_json::to_value(error.kind).ok().and_then(|v| v.as_str().map(str::to_string));
+    let kind = error.kind.id();
     let value = error.value.as_deref().map_or(JsValue::NULL, JsValue::from_str);
     // Setting a property on a fresh Error object cannot fail; there is nothing to do if it did.
     let _ = js_sys::Reflect::set(&js, &"path".into(), &error.path.as_str().into());
-    let _ = js_sys::Reflect::set(&js, &"kind".into(), &kind.unwrap_or_default().into());
+    let _ = js_sys::Reflect::set(&js, &"kind".into(), &kind.into());
     let _ = js_sys::Reflect::set(&js, &"value".into(), &value);
     js.into()
 }
@@ -82,11 +82,8 @@ struct Parsed {
 /// Throws an `Error` naming what is allowed when the text or the kind is wrong.
 #[wasm_bindgen(js_name = parseQuantity)]
 pub fn parse_quantity(text: &str, kind: &str) -> Result<JsValue, JsValue> {
-    let kind: Kind = serde_json::from_value(serde_json::Value::String(kind.to_string())).map_err(|_| {
-        let names: Vec<String> = Kind::ALL
-            .iter()
-            .filter_map(|k| serde_json::to_value(k).ok()?.as_str().map(str::to_string))
-            .collect();
+    let kind = Kind::from_id(kind).ok_or_else(|| {
+        let names: Vec<&str> = Kind::ALL.iter().map(|k| k.id()).collect();
         js_error(
             &Error::new(
                 ErrorKind::UnknownOption,

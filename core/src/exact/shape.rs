@@ -218,7 +218,7 @@ fn inner(model: &Model, a: &ModeShape, b: &ModeShape) -> f64 {
     // integrate over the union of their piece boundaries; within each interval both are smooth.
     let mut cuts: Vec<f64> = a.pieces.iter().chain(&b.pieces).map(|p| p.x0).collect();
     cuts.push(model.length());
-    cuts.sort_by(f64::total_cmp);
+    crate::sort::floats(&mut cuts);
     cuts.dedup_by(|x, y| (*x - *y).abs() <= 1e-12 * model.length());
     let mut sum = 0.0;
     for w in cuts.windows(2) {

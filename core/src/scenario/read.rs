@@ -315,7 +315,7 @@ fn read_ratio(q: &Quantity) -> Result<f64> {
         Quantity::Text(t) => {
             let t = t.trim();
             match t.strip_suffix('%') {
-                Some(number) => number.trim().parse::<f64>().map(|v| v / 100.0).map_err(|_| {
+                Some(number) => units::decimal(number.trim()).map(|v| v / 100.0).ok_or_else(|| {
                     Error::new(
                         ErrorKind::Syntax,
                         "write the margin as a ratio (0.2) or a percentage (\"20 %\")",

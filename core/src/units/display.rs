@@ -4,7 +4,7 @@ use super::table::{self, FOOT, INCH, POUND, POUND_FORCE, PSI};
 use super::Kind;
 
 /// The set of units results are shown in.
-#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Hash, serde::Serialize, serde::Deserialize)]
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Hash, serde::Serialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum UnitSystem {
     /// Metres, kilograms, newtons; moduli in GPa.
@@ -22,6 +22,21 @@ impl UnitSystem {
     /// Every unit system.
     pub const ALL: [UnitSystem; 4] =
         [UnitSystem::Si, UnitSystem::SiMm, UnitSystem::UsInch, UnitSystem::UsFoot];
+
+    /// The name used in scenarios: "si", "si-mm", "us-inch" or "us-foot".
+    pub fn id(self) -> &'static str {
+        match self {
+            UnitSystem::Si => "si",
+            UnitSystem::SiMm => "si-mm",
+            UnitSystem::UsInch => "us-inch",
+            UnitSystem::UsFoot => "us-foot",
+        }
+    }
+
+    /// The unit system with this scenario name.
+    pub fn from_id(id: &str) -> Option<UnitSystem> {
+        UnitSystem::ALL.into_iter().find(|s| s.id() == id)
+    }
 }
 
 /// The unit a kind is shown in: `value_in_unit = si * per_si`.

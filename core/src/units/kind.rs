@@ -83,6 +83,33 @@ impl Kind {
         }
     }
 
+    /// The kind's name in scenarios and the JS API: "length", "mass-per-length", …
+    pub fn id(self) -> &'static str {
+        match self {
+            Kind::Length => "length",
+            Kind::Mass => "mass",
+            Kind::Force => "force",
+            Kind::Pressure => "pressure",
+            Kind::Density => "density",
+            Kind::MassPerLength => "mass-per-length",
+            Kind::Area => "area",
+            Kind::SecondMoment => "second-moment",
+            Kind::FlexuralRigidity => "flexural-rigidity",
+            Kind::ShearRigidity => "shear-rigidity",
+            Kind::Stiffness => "stiffness",
+            Kind::RotationalStiffness => "rotational-stiffness",
+            Kind::RotaryInertia => "rotary-inertia",
+            Kind::RotaryInertiaPerLength => "rotary-inertia-per-length",
+            Kind::Frequency => "frequency",
+            Kind::Ratio => "ratio",
+        }
+    }
+
+    /// The kind with this name.
+    pub fn from_id(id: &str) -> Option<Kind> {
+        Kind::ALL.into_iter().find(|k| k.id() == id)
+    }
+
     /// The SI unit values of this kind are stored in, written for display.
     pub fn si_unit(self) -> &'static str {
         match self {

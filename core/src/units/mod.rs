@@ -21,6 +21,7 @@
 mod display;
 mod kind;
 mod list;
+mod number;
 mod parse;
 pub(crate) mod table;
 
@@ -32,6 +33,7 @@ mod tests_display;
 pub use display::{display_unit, format, DisplayUnit, UnitSystem};
 pub use kind::Kind;
 pub use list::{unit_list, UnitInfo};
+pub(crate) use number::decimal;
 
 use crate::error::{Error, ErrorKind};
 use parse::Factor;
@@ -141,8 +143,10 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
             let examples = display::examples(kind).join(", ");
             let described = kind.describe();
             let mut sentence = described.chars();
-            let capital: String =
-                sentence.next().map(|c| c.to_uppercase().chain(sentence).collect()).unwrap_or_default();
+            let capital: String = sentence
+                .next()
+                .map(|c| c.to_ascii_uppercase().to_string() + sentence.as_str())
+                .unwrap_or_default();
             let separator = if e.message.ends_with('?') { " " } else { ". " };
             e.message = format!("{}{separator}{capital} is written in units like {examples}", e.message);
         }

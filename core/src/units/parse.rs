@@ -50,9 +50,8 @@ pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
         return Err(missing_number(s));
     }
     let number_text = &s[..length];
-    let number: f64 = number_text
-        .parse()
-        .map_err(|_| syntax(format!("\"{number_text}\" is not a number that can be read")))?;
+    let number = super::number::decimal(number_text)
+        .ok_or_else(|| syntax(format!("\"{number_text}\" is not a number that can be read")))?;
     if !number.is_finite() {
         return Err(Error::new(
             ErrorKind::NotFinite,
@@ -103,16 +102,28 @@ fn scan_number(s: &str) -> usize {
 }
 
 fn missing_number(s: &str) -> Error {
-    let unsigned = s.trim_start_matches(['+', '-']).to_lowercase();
+    let unsigned = s.trim_start_matches(['+', '-']).to_ascii_lowercase();
     if unsigned.starts_with("nan") || unsigned.starts_with("inf") {
         return Error::new(ErrorKind::NotFinite, "the value must be a finite number");
     }
     match s.chars().next() {
-        Some(c) if c.is_alphabetic() => {
+        Some(c) if is_letter(c) => {
             syntax("the number is missing: write it before the unit, as in \"27.2 in\"")
         }
         _ => syntax("the value must start with a number, as in \"27.2 in\""),
     }
+}
+
+/// A letter of a unit symbol: ASCII letters and the micro sign (both code points for it). Unit
+/// symbols need no more, and the full Unicode tables would weigh on the browser build.
+fn is_letter(c: char) -> bool {
+    c.is_ascii_alphabetic() || matches!(c, 'µ' | 'μ')
+}
+
+/// Spaces that may separate a number and its unit: ASCII blanks and the no-break spaces that word
+/// processors put there.
+fn is_space(c: char) -> bool {
+    c.is_ascii_whitespace() || matches!(c, '\u{a0}' | '\u{202f}' | '\u{2009}')
 }
 
 /// Parses the unit expression that follows the number.
@@ -121,7 +132,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
     let mut factors = Vec::new();
     let mut in_denominator = false;
     loop {
-        let symbol: String = std::iter::from_fn(|| chars.next_if(|c| c.is_alphabetic())).collect();
+        let symbol: String = std::iter::from_fn(|| chars.next_if(|c| is_letter(*c))).collect();
         if symbol.is_empty() {
             return Err(match chars.peek() {
                 Some(c) => syntax(format!("expected a unit symbol where '{c}' stands")),
@@ -136,7 +147,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
         }
 
         let mut spaced = false;
-        while chars.next_if(|c| c.is_whitespace()).is_some() {
+        while chars.next_if(|c| is_space(*c)).is_some() {
             spaced = true;
         }
         match chars.next() {
@@ -149,14 +160,14 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
             }
             Some('*' | '·' | '⋅') => {}
             Some('/') => in_denominator = true,
-            Some(c) if spaced && c.is_alphabetic() => {
+            Some(c) if spaced && is_letter(c) => {
                 return Err(syntax(format!(
                     "a space between units is not a product: write {spelled}*{c}… or {spelled}·{c}…"
                 )));
             }
             Some(c) => return Err(syntax(format!("unexpected '{c}' after the unit {spelled}"))),
         }
-        while chars.next_if(|c| c.is_whitespace()).is_some() {}
+        while chars.next_if(|c| is_space(*c)).is_some() {}
     }
 }
 

@@ -136,18 +136,26 @@ pub(crate) fn lookup(symbol: &str) -> Option<(&'static Unit, &'static str)> {
 
 /// Up to four known symbols that look like `symbol`, closest first, for an "unknown unit" hint.
 pub(crate) fn similar(symbol: &str) -> Vec<&'static str> {
-    let lower = symbol.to_lowercase();
+    // ASCII folding is enough for unit symbols, and keeps Unicode case tables out of the build.
+    let lower = symbol.to_ascii_lowercase();
     let mut scored: Vec<(usize, &'static str)> = UNITS
         .iter()
         .flat_map(|unit| unit.symbols.iter().take(1))
         .filter_map(|candidate| {
-            let distance = edit_distance(&lower, &candidate.to_lowercase());
+            let distance = edit_distance(&lower, &candidate.to_ascii_lowercase());
             // A distance as long as both words would suggest every short symbol for any typo.
             let longest = lower.chars().count().max(candidate.chars().count());
             (distance <= 2 && distance < longest).then_some((distance, *candidate))
         })
         .collect();
-    scored.sort_by_key(|(distance, _)| *distance);
+    // Few candidates: a plain minimum-first pass keeps the general sort out of the build.
+    for i in 1..scored.len() {
+        let mut j = i;
+        while j > 0 && scored[j - 1].0 > scored[j].0 {
+            scored.swap(j - 1, j);
+            j -= 1;
+        }
+    }
     scored.into_iter().take(4).map(|(_, s)| s).collect()
 }
 

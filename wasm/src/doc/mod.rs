@@ -25,13 +25,13 @@ pub fn read(text: &str) -> Result<Value, Error> {
 
 /// The unit system the scenario asks for, SI when it is absent or not one we know.
 pub fn unit_system(doc: &Value) -> UnitSystem {
-    doc.get("units").cloned().and_then(|v| serde_json::from_value(v).ok()).unwrap_or_default()
+    doc.get("units").and_then(serde_json::Value::as_str).and_then(UnitSystem::from_id).unwrap_or_default()
 }
 
 /// Solves the scenario as it stands.
 pub fn solve(doc: &Value) -> Result<Report, Error> {
     check_whole_numbers(doc)?;
-    modebench::solve_json(&doc.to_string())
+    modebench::solve_value(doc)
 }
 
 /// Whole-number fields hold text only when what was typed is not a whole number; say so with

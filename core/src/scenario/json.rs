@@ -1,0 +1,167 @@
+//! A small reader over a parsed JSON value that keeps the field path, so every error can name
+//! the field it concerns (`segments[0].section.wall`) and say what was expected.
+//!
+//! The scenario is read by hand rather than by derived deserialisers: the messages are ours, and
+//! the browser build stays small (generic deserialiser code for tagged enums is large).
+
+use crate::error::{Error, ErrorKind, Result};
+use crate::units::Quantity;
+use serde_json::{Map, Value};
+
+/// A JSON value and the path it was found at.
+#[derive(Clone, Debug)]
+pub(crate) struct Node<'a> {
+    value: &'a Value,
+    path: String,
+}
+
+/// What kind of JSON a value is, for messages.
+fn describe(v: &Value) -> &'static str {
+    match v {
+        Value::Null => "null",
+        Value::Bool(_) => "true/false",
+        Value::Number(_) => "a number",
+        Value::String(_) => "a text",
+        Value::Array(_) => "a list",
+        Value::Object(_) => "an object",
+    }
+}
+
+impl<'a> Node<'a> {
+    /// The whole document.
+    pub(crate) fn root(value: &'a Value) -> Node<'a> {
+        Node { value, path: String::new() }
+    }
+
+    fn error(&self, kind: ErrorKind, message: String) -> Error {
+        Error::new(kind, message).at(&self.path)
+    }
+
+    /// An error about this node's type: "expected …, got a list".
+    pub(crate) fn expected(&self, what: &str) -> Error {
+        let e = self.error(ErrorKind::Syntax, format!("expected {what}, got {}", describe(self.value)));
+        match self.value {
+            Value::String(s) => e.with_value(format!("\"{s}\"")),
+            Value::Number(n) => e.with_value(n),
+            _ => e,
+        }
+    }
+
+    fn child_path(&self, name: &str) -> String {
+        if self.path.is_empty() {
+            name.to_string()
+        } else {
+            format!("{}.{name}", self.path)
+        }
+    }
+
+    /// Checks that the node is an object whose field names are all in `allowed`.
+    pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
+        let Value::Object(map) = self.value else { return Err(self.expected(what)) };
+        if let Some(unknown) = map.keys().find(|k| !allowed.contains(&k.as_str())) {
+            return Err(Error::new(
+                ErrorKind::Syntax,
+                format!("unknown field name \"{unknown}\"; allowed here: {}", allowed.join(", ")),
+            )
+            .at(self.child_path(unknown)));
+        }
+        Ok(map)
+    }
+
+    /// A field of this object, when present and not null.
+    pub(crate) fn get(&self, name: &str) -> Option<Node<'a>> {
+        let value = self.value.as_object()?.get(name).filter(|v| !v.is_null())?;
+        Some(Node { value, path: self.child_path(name) })
+    }
+
+    /// A field that must be present.
+    pub(crate) fn require(&self, name: &str, what: &str) -> Result<Node<'a>> {
+        self.get(name).ok_or_else(|| {
+            Error::new(ErrorKind::Missing, format!("this needs {what} (field \"{name}\")"))
+                .at(self.child_path(name))
+        })
+    }
+
+    /// The items of a list.
+    pub(crate) fn items(&self, what: &str) -> Result<Vec<Node<'a>>> {
+        let list = self.value.as_array().ok_or_else(|| self.expected(what))?;
+        Ok(list
+            .iter()
+            .enumerate()
+            .map(|(i, value)| Node { value, path: format!("{}[{i}]", self.path) })
+            .collect())
+    }
+
+    /// The text of a string.
+    pub(crate) fn text(&self, what: &str) -> Result<&'a str> {
+        self.value.as_str().ok_or_else(|| self.expected(what))
+    }
+
+    /// Whether the node is a string.
+    pub(crate) fn is_text(&self) -> bool {
+        self.value.is_string()
+    }
+
+    /// A number or a text with a unit.
+    pub(crate) fn quantity(&self) -> Result<Quantity> {
+        match self.value {
+            Value::Number(n) => Ok(Quantity::Number(n.as_f64().unwrap_or(f64::NAN))),
+            Value::String(s) => Ok(Quantity::Text(s.clone())),
+            _ => Err(self.expected("a number (SI) or a text with a unit, like \"27.2 in\"")),
+        }
+    }
+
+    /// An optional quantity field.
+    pub(crate) fn quantity_at(&self, name: &str) -> Result<Option<Quantity>> {
+        self.get(name).map(|n| n.quantity()).transpose()
+    }
+
+    /// A required quantity field.
+    pub(crate) fn require_quantity(&self, name: &str, what: &str) -> Result<Quantity> {
+        self.require(name, what)?.quantity()
+    }
+
+    /// An optional text field.
+    pub(crate) fn text_at(&self, name: &str) -> Result<Option<String>> {
+        self.get(name).map(|n| n.text("a text").map(str::to_string)).transpose()
+    }
+
+    /// A whole number in `range`.
+    pub(crate) fn count(&self, range: std::ops::RangeInclusive<usize>) -> Result<usize> {
+        let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok()).filter(|n| range.contains(n));
+        n.ok_or_else(|| {
+            self.error(
+                ErrorKind::OutOfRange,
+                format!("expected a whole number from {} to {}", range.start(), range.end()),
+            )
+            .with_value(self.value)
+        })
+    }
+
+    /// One of the `names`, mapped to its value.
+    pub(crate) fn choice<T: Copy>(&self, what: &str, names: &[(&str, T)]) -> Result<T> {
+        let text = self.text(what)?;
+        names.iter().find(|(n, _)| *n == text).map(|(_, v)| *v).ok_or_else(|| {
+            let list: Vec<String> = names.iter().map(|(n, _)| format!("\"{n}\"")).collect();
+            self.error(ErrorKind::UnknownOption, format!("{what} is one of {}", list.join(", ")))
+                .with_value(format!("\"{text}\""))
+        })
+    }
+}
+
+/// Implements `serde::Deserialize` through `serde_json::Value` and one of the scenario readers,
+/// so files and tests can use serde while the reading logic stays in one place.
+macro_rules! deserialize_via_value {
+    ($type:ty, $read:path) => {
+        impl<'de> serde::Deserialize<'de> for $type {
+            fn deserialize<D: serde::Deserializer<'de>>(
+                deserializer: D,
+            ) -> std::result::Result<Self, D::Error> {
+                let value = <serde_json::Value as serde::Deserialize>::deserialize(deserializer)?;
+                $read(&$crate::scenario::json::Node::root(&value))
+                    .map_err(<D::Error as serde::de::Error>::custom)
+            }
+        }
+    };
+}
+pub(crate) use deserialize_via_value;
