@@ -69,7 +69,7 @@ pub(crate) struct Layout {
 impl Layout {
     /// The natural stations of the model (ends, segment boundaries, attachments), with each
     /// natural span cut into `pieces(span)` equal pieces.
-    pub(crate) fn new(model: &Model, pieces: impl Fn(&Span) -> usize) -> Result<Layout> {
+    pub(crate) fn new(model: &Model, pieces: &dyn Fn(&Span) -> usize) -> Result<Layout> {
         Layout::with_points(model, &[], pieces)
     }
 
@@ -77,7 +77,8 @@ impl Layout {
     pub(crate) fn with_points(
         model: &Model,
         extra: &[f64],
-        pieces: impl Fn(&Span) -> usize,
+        // A trait object, not a generic: one copy of this function serves every caller.
+        pieces: &dyn Fn(&Span) -> usize,
     ) -> Result<Layout> {
         let length = model.length();
         let tolerance = SAME_POINT * length;
@@ -264,7 +265,7 @@ mod tests {
             Attachment::SprungMass { position: 2.5, mass: 1.0, stiffness: 10.0 },
             Attachment::Mass { position: 1.0, mass: 1.0, rotary_inertia: 0.1 },
         ]);
-        let l = Layout::new(&m, |_| 1).unwrap();
+        let l = Layout::new(&m, &|_| 1).unwrap();
         let xs: Vec<f64> = l.stations.iter().map(|s| s.x).collect();
         assert_eq!(xs, vec![0.0, 1.0, 1.5, 2.5, 3.0]);
         // Clamped left: nothing; x=1: w, θ; x=1.5 supported: θ; x=2.5: w, θ, sprung; right pinned: θ.
@@ -274,7 +275,7 @@ mod tests {
         assert_eq!(l.stations[2].mass, 2.0);
         assert_eq!(l.stations[3].sprung[0].dof, 5);
         assert_eq!(l.spans.iter().map(|s| s.segment).collect::<Vec<_>>(), vec![0, 1, 1, 1]);
-        let fine = Layout::new(&m, |_| 3).unwrap();
+        let fine = Layout::new(&m, &|_| 3).unwrap();
         assert_eq!(fine.stations.len(), 13);
         assert!(fine.bandwidth >= 3);
     }

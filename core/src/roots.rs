@@ -62,7 +62,7 @@ const WIDEN: f64 = 1e-6;
 /// first `skip` are known to lie at zero (rigid-body modes).
 ///
 /// `guess` is any positive ω of the right order; the search widens it as needed.
-pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &impl Spectrum) -> Result<Vec<Root>> {
+pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &dyn Spectrum) -> Result<Vec<Root>> {
     let target = skip + wanted;
     // Samples sorted by ω; ω = 0 is known to count `skip` (below any positive ω only the
     // rigid-body modes lie).
@@ -156,7 +156,7 @@ fn polish(
     mut lo: f64,
     mut hi: f64,
     k: usize,
-    system: &impl Spectrum,
+    system: &dyn Spectrum,
     samples: &mut Vec<(f64, Count)>,
 ) -> Result<f64> {
     // Narrow by the count first. This moves the ends off ω = 0 (where the determinant vanishes
@@ -198,7 +198,7 @@ fn polish(
     }
     let reference = llo.max(lhi);
     let value = |(sign, log): (f64, f64)| sign * (log - reference).clamp(-700.0, 700.0).exp();
-    Ok(brent(lo, value((slo, llo)), hi, value((shi, lhi)), system.tolerance(), |omega| {
+    Ok(brent(lo, value((slo, llo)), hi, value((shi, lhi)), system.tolerance(), &|omega| {
         Some(value(det(omega)))
     })
     .unwrap_or(0.5 * (lo + hi)))
@@ -212,7 +212,7 @@ fn brent(
     mut b: f64,
     mut fb: f64,
     tolerance: f64,
-    f: impl Fn(f64) -> Option<f64>,
+    f: &dyn Fn(f64) -> Option<f64>,
 ) -> Option<f64> {
     if fa == 0.0 {
         return Some(a);

@@ -17,8 +17,12 @@
 //! one helper, [`js_error`]. Nothing panics across the boundary; should a defect panic anyway,
 //! the hook installed at start-up says so on the console.
 
+#[cfg(feature = "api")]
 use modebench::units::Kind;
-use modebench::{Error, ErrorKind};
+use modebench::Error;
+#[cfg(feature = "api")]
+use modebench::ErrorKind;
+#[cfg(feature = "api")]
 use serde::Serialize;
 use wasm_bindgen::prelude::*;
 
@@ -45,6 +49,7 @@ pub fn js_error(error: &Error) -> JsValue {
     js.into()
 }
 
+#[cfg(feature = "api")]
 /// Converts a value to plain JS objects (maps as objects, `None` as `null`).
 fn to_js<T: Serialize + ?Sized>(value: &T) -> Result<JsValue, JsValue> {
     value.serialize(&serde_wasm_bindgen::Serializer::json_compatible()).map_err(|e| {
@@ -55,6 +60,7 @@ fn to_js<T: Serialize + ?Sized>(value: &T) -> Result<JsValue, JsValue> {
 /// Solves a scenario given as a JS object in the scenario format and returns the report: SI
 /// values, frequencies in hertz, `null` where a method gives no value. Throws an `Error` with
 /// `path`, `kind` and `value` when the scenario is wrong.
+#[cfg(feature = "api")]
 #[wasm_bindgen]
 pub fn solve(scenario: JsValue) -> Result<JsValue, JsValue> {
     // Going through JSON text lets core's reader name the field path of any mistake.
@@ -65,11 +71,13 @@ pub fn solve(scenario: JsValue) -> Result<JsValue, JsValue> {
             "the scenario must be a plain object that can be written as JSON",
         )));
     };
-    let report = modebench::solve_json(&text).map_err(|e| js_error(&e))?;
+    let doc = crate::doc::read(&text).map_err(|e| js_error(&e))?;
+    let report = modebench::solve_value(&doc).map_err(|e| js_error(&e))?;
     to_js(&report)
 }
 
 /// What `parseQuantity` returns.
+#[cfg(feature = "api")]
 #[derive(Serialize)]
 struct Parsed {
     si: f64,
@@ -80,6 +88,7 @@ struct Parsed {
 /// Reads a quantity such as `"30e6 psi"` for a field of the given kind (`"length"`, `"pressure"`,
 /// `"stiffness"`, … as in the scenario format) and returns `{ si, si_unit, conversion }`.
 /// Throws an `Error` naming what is allowed when the text or the kind is wrong.
+#[cfg(feature = "api")]
 #[wasm_bindgen(js_name = parseQuantity)]
 pub fn parse_quantity(text: &str, kind: &str) -> Result<JsValue, JsValue> {
     let kind = Kind::from_id(kind).ok_or_else(|| {
@@ -103,18 +112,21 @@ pub fn parse_quantity(text: &str, kind: &str) -> Result<JsValue, JsValue> {
 
 /// The section shapes the editor offers, each with its fields (`name`, `label`, `kind`,
 /// `optional`).
+#[cfg(feature = "api")]
 #[wasm_bindgen(js_name = listSections)]
 pub fn list_sections() -> Result<JsValue, JsValue> {
     to_js(&crate::catalog::SHAPES[..])
 }
 
 /// The preset materials with their properties in SI and their sources.
+#[cfg(feature = "api")]
 #[wasm_bindgen(js_name = listMaterials)]
 pub fn list_materials() -> Result<JsValue, JsValue> {
     to_js(modebench::material::presets())
 }
 
 /// Every accepted unit symbol with its name, what it measures and its SI factor.
+#[cfg(feature = "api")]
 #[wasm_bindgen(js_name = listUnits)]
 pub fn list_units() -> Result<JsValue, JsValue> {
     to_js(&modebench::units::unit_list())

@@ -16,12 +16,22 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 
     run::step("Lints");
     run::status(&mut project.cargo(["clippy", "--workspace", "--all-targets", "--", "-D", "warnings"]))?;
+    // The widget and the JS API compile only for WebAssembly; lint them there, with and without
+    // the API feature the pages leave out.
+    for features in [&[][..], &["--no-default-features"][..]] {
+        let mut args = vec!["clippy", "-p", "modebench-web", "--target", TARGET, "--all-targets"];
+        args.extend_from_slice(features);
+        args.extend_from_slice(&["--", "-D", "warnings"]);
+        run::status(&mut project.cargo(args))?;
+    }
 
     run::step("Documentation");
     run::status(project.cargo(["doc", "--workspace", "--no-deps"]).env("RUSTDOCFLAGS", "-Dwarnings"))?;
 
     run::step("Native tests");
-    run::status(&mut project.cargo(["test", "--workspace"]))?;
+    // The reference-library checks (mpmath, scipy) must run here, not skip: the tools step
+    // installed Python's packages.
+    run::status(project.cargo(["test", "--workspace"]).env("MODEBENCH_REQUIRE_REFERENCE", "1"))?;
 
     run::step("The core builds for WebAssembly and depends on no web crate");
     run::status(&mut project.cargo(["check", "-p", "modebench", "--target", TARGET]))?;

@@ -1,6 +1,10 @@
 //! The browser engine: `modebench-web` compiled to WebAssembly with the size-first `wasm`
-//! profile, bound with wasm-bindgen for `--target web`, and shrunk by `wasm-opt -Os` when
+//! profile, bound with wasm-bindgen for `--target web`, and shrunk by `wasm-opt -Oz` when
 //! Debian's binaryen is installed.
+//!
+//! Pages get the widget alone (`--no-default-features`): the JS API for integrators (`solve`,
+//! `parseQuantity`, the lists) is the crate's default `api` feature, tested by the
+//! wasm-bindgen tests, and left out of what every page downloads.
 
 use anyhow::{Context, Result};
 
@@ -26,6 +30,7 @@ pub(crate) fn build(project: &Project) -> Result<()> {
         TARGET,
         "--profile",
         "wasm",
+        "--no-default-features",
     ]))?;
     let raw = project.target.join(TARGET).join("wasm").join("modebench_web.wasm");
     let out = project.engine_dir();
@@ -40,8 +45,8 @@ pub(crate) fn build(project: &Project) -> Result<()> {
             std::fs::create_dir_all(&scratch)?;
             // wasm-bindgen names its output after its input, so the file keeps its name.
             let optimised = scratch.join("modebench_web.wasm");
-            run::status(run::cmd("wasm-opt", ["-Os"]).arg(&raw).arg("-o").arg(&optimised))?;
-            println!("wasm-opt -Os: {} → {} bytes", size(&raw)?, size(&optimised)?);
+            run::status(run::cmd("wasm-opt", ["-Oz", "--converge"]).arg(&raw).arg("-o").arg(&optimised))?;
+            println!("wasm-opt -Oz: {} → {} bytes", size(&raw)?, size(&optimised)?);
             optimised
         }
         None => {

@@ -109,7 +109,7 @@ impl Spectrum for Exact<'_> {
 
     fn determinant(&self, omega_max: f64) -> Result<Determinant<'_>> {
         let model = self.model;
-        let layout = Layout::new(model, |span| {
+        let layout = Layout::new(model, &|span| {
             Member::new(&model.segments()[span.segment], span.length, model.theory())
                 .pole_free_pieces(omega_max)
         })?;

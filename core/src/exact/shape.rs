@@ -82,7 +82,7 @@ impl ModeShape {
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
     let theory = model.theory();
-    let layout = Layout::new(model, |span| {
+    let layout = Layout::new(model, &|span| {
         let member = Member::new(&model.segments()[span.segment], span.length, theory);
         member.shape_pieces(omega)
     })?;

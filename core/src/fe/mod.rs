@@ -118,7 +118,7 @@ impl Discrete {
     pub(crate) fn new(model: &Model, mesh: Mesh, points: &[f64]) -> Result<Discrete> {
         let total_length = model.length();
         // Elements per natural span (between ends, segment boundaries, attachments, points).
-        let natural = Layout::with_points(model, points, |_| 1)?;
+        let natural = Layout::with_points(model, points, &|_| 1)?;
         let mut counts: Vec<f64> = natural
             .spans
             .iter()
@@ -142,7 +142,7 @@ impl Discrete {
                 counts.iter_mut().for_each(|n| *n = (*n * shrink).floor().max(1.0));
             }
         }
-        let layout = Layout::with_points(model, points, |span| counts[span.left].min(1e9) as usize)?;
+        let layout = Layout::with_points(model, points, &|span| counts[span.left].min(1e9) as usize)?;
         let elements: Vec<Element> = layout
             .spans
             .iter()

@@ -40,9 +40,15 @@ impl<'a> Node<'a> {
     /// An error about this node's type: "expected …, got a list".
     pub(crate) fn expected(&self, what: &str) -> Error {
         let e = self.error(ErrorKind::Syntax, format!("expected {what}, got {}", describe(self.value)));
+        self.with_shown_value(e)
+    }
+
+    /// Records this node's value on an error, as the user wrote it where that is short.
+    fn with_shown_value(&self, e: Error) -> Error {
         match self.value {
             Value::String(s) => e.with_value(format!("\"{s}\"")),
-            Value::Number(n) => e.with_value(n),
+            Value::Number(n) => e.with_number(n.as_f64().unwrap_or(f64::NAN)),
+            Value::Bool(b) => e.with_value(b),
             _ => e,
         }
     }
@@ -130,11 +136,10 @@ impl<'a> Node<'a> {
     pub(crate) fn count(&self, range: std::ops::RangeInclusive<usize>) -> Result<usize> {
         let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok()).filter(|n| range.contains(n));
         n.ok_or_else(|| {
-            self.error(
+            self.with_shown_value(self.error(
                 ErrorKind::OutOfRange,
                 format!("expected a whole number from {} to {}", range.start(), range.end()),
-            )
-            .with_value(self.value)
+            ))
         })
     }
 

@@ -33,7 +33,7 @@ mod tests_display;
 pub use display::{display_unit, format, DisplayUnit, UnitSystem};
 pub use kind::Kind;
 pub use list::{unit_list, UnitInfo};
-pub(crate) use number::decimal;
+pub use number::decimal;
 
 use crate::error::{Error, ErrorKind};
 use parse::Factor;

@@ -15,7 +15,7 @@ const EXACT: [f64; 23] = [
 
 /// The value of a number written as `[+-]digits[.digits][(e|E)[+-]digits]` (at least one digit
 /// before or after the point), or `None` when `text` is not exactly that.
-pub(crate) fn decimal(text: &str) -> Option<f64> {
+pub fn decimal(text: &str) -> Option<f64> {
     let b = text.as_bytes();
     let mut i = 0;
     let negative = match b.first() {

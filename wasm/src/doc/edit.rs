@@ -8,7 +8,7 @@ use super::path;
 use crate::catalog;
 use modebench::units::{self, Kind, UnitSystem};
 use modebench::Report;
-use serde_json::{json, Map, Value};
+use serde_json::{Map, Value};
 
 /// A list of rows in the editor.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -91,7 +91,7 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
         Edit::Choose { path, value } => choose(doc, path, value, system),
         Edit::Tick { path: p, on: true } => {
             if path::get(doc, p).is_none() {
-                path::set(doc, p, json!({}));
+                path::set(doc, p, Value::Object(Map::new()));
             }
         }
         Edit::Tick { path: p, on: false } => {
@@ -147,7 +147,7 @@ fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
             let current = path::get(doc, path);
             let elastic = current.and_then(|c| c.get("type")).and_then(Value::as_str) == Some("elastic");
             if value == "elastic" && !elastic {
-                path::set(doc, path, json!({ "type": "elastic", "translational": "rigid" }));
+                path::set(doc, path, text_object(&[("type", "elastic"), ("translational", "rigid")]));
             } else if value != "elastic" {
                 path::set(doc, path, Value::String(value.to_string()));
             }
@@ -275,7 +275,7 @@ fn material(doc: &mut Value, path: &str, id: &str, system: UnitSystem) {
         ),
         None => (String::new(), String::new()),
     };
-    path::set(doc, path, json!({ "youngs_modulus": e, "density": rho }));
+    path::set(doc, path, text_object(&[("youngs_modulus", &e), ("density", &rho)]));
 }
 
 fn segment_by(doc: &mut Value, index: usize, by: &str, system: UnitSystem, last: Option<&Report>) {
@@ -291,9 +291,9 @@ fn segment_by(doc: &mut Value, index: usize, by: &str, system: UnitSystem, last:
             let d = defaults(system);
             object.insert(
                 "section".into(),
-                json!({ "shape": "rectangle", "width": d.width, "depth": d.depth }),
+                text_object(&[("shape", "rectangle"), ("width", d.width), ("depth", d.depth)]),
             );
-            object.insert("material".into(), json!("steel"));
+            object.insert("material".into(), Value::String("steel".into()));
         }
         "properties" if by_section => {
             // Keep the same beam: start from the properties the section and material gave.
@@ -326,12 +326,12 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
             .and_then(Value::as_array)
             .and_then(|s| s.last())
             .cloned()
-            .unwrap_or_else(|| json!({ "length": "" })),
+            .unwrap_or_else(|| text_object(&[("length", "")])),
         List::Attachments => {
             let middle = last.map(|r| units::format(r.beam.length / 2.0, Kind::Length, system));
-            json!({ "type": "mass", "position": middle.unwrap_or_default(), "mass": d.mass })
+            text_object(&[("type", "mass"), ("position", &middle.unwrap_or_default()), ("mass", d.mass)])
         }
-        List::Excitations => json!({ "label": "", "frequency": d.frequency }),
+        List::Excitations => text_object(&[("label", ""), ("frequency", d.frequency)]),
     };
     if let Some(object) = doc.as_object_mut() {
         let rows = object.entry(list.key()).or_insert_with(|| Value::Array(Vec::new()));
@@ -342,4 +342,10 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
             rows.push(row);
         }
     }
+}
+
+/// A JSON object of text fields. Built directly rather than with `json!`, which goes through
+/// the general serialiser and would bring it into the browser build.
+fn text_object(fields: &[(&str, &str)]) -> Value {
+    Value::Object(fields.iter().map(|(k, v)| ((*k).to_string(), Value::String((*v).to_string()))).collect())
 }

@@ -6,6 +6,7 @@
 
 mod edit;
 pub mod path;
+pub mod text;
 
 #[cfg(test)]
 mod tests;
@@ -19,7 +20,7 @@ use serde_json::Value;
 
 /// Reads scenario text into the editable form; an error names what is wrong with the JSON.
 pub fn read(text: &str) -> Result<Value, Error> {
-    serde_json::from_str::<Value>(text)
+    text::read(text)
         .map_err(|e| Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}")))
 }
 

@@ -58,7 +58,7 @@ pub fn get<'a>(doc: &'a Value, path: &str) -> Option<&'a Value> {
 pub fn text(doc: &Value, path: &str) -> String {
     match get(doc, path) {
         Some(Value::String(s)) => s.clone(),
-        Some(Value::Number(n)) => n.to_string(),
+        Some(Value::Number(n)) => super::text::number(n),
         _ => String::new(),
     }
 }

@@ -89,7 +89,7 @@ fn setup(form: &mut Form<'_>) -> String {
 fn text_or(doc: &Value, key: &str, default: &str) -> String {
     match path::get(doc, key) {
         Some(Value::String(s)) => s.clone(),
-        Some(other) => other.to_string(),
+        Some(other) => crate::doc::text::write(other),
         None => default.to_string(),
     }
 }

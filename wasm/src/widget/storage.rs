@@ -4,7 +4,7 @@
 //! included. Storage that is missing, full or refused (private browsing) is silently skipped:
 //! the calculator works, it just forgets on reload.
 
-use serde_json::{json, Value};
+use serde_json::Value;
 
 /// The storage key of a calculator: the page's path and the calculator's place on the page.
 pub(super) fn key(index: usize) -> String {
@@ -19,7 +19,7 @@ fn storage() -> Option<web_sys::Storage> {
 /// The stored scenario and the mode shown, if any.
 pub(super) fn load(key: &str) -> Option<(Value, usize)> {
     let text = storage()?.get_item(key).ok().flatten()?;
-    let stored: Value = serde_json::from_str(&text).ok()?;
+    let stored = crate::doc::text::read(&text).ok()?;
     let doc = stored.get("scenario")?.clone();
     let mode = stored.get("mode").and_then(Value::as_u64).unwrap_or(0) as usize;
     doc.is_object().then_some((doc, mode))
@@ -28,7 +28,12 @@ pub(super) fn load(key: &str) -> Option<(Value, usize)> {
 /// Stores the scenario as typed and the mode shown.
 pub(super) fn save(key: &str, doc: &Value, mode: usize) {
     if let Some(s) = storage() {
-        let _ = s.set_item(key, &json!({ "version": 1, "scenario": doc, "mode": mode }).to_string());
+        let mut stored = serde_json::Map::new();
+        stored.insert("version".into(), Value::from(1u64));
+        stored.insert("scenario".into(), doc.clone());
+        stored.insert("mode".into(), Value::from(mode as u64));
+        let stored = Value::Object(stored);
+        let _ = s.set_item(key, &crate::doc::text::write(&stored));
     }
 }
 

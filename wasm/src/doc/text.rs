@@ -1,0 +1,317 @@
+//! Reading and writing the edited scenario as JSON text (the page's `data-modebench`
+//! attribute and `localStorage`).
+//!
+//! A short reader and writer of our own instead of the general ones: the browser build only
+//! handles these small documents, and the general machinery (deserialiser visitors, a second
+//! float printer and parser) weighs more than the whole editor. Numbers are read with the same
+//! decimal reader the unit parser uses.
+
+use serde_json::{Map, Number, Value};
+
+/// Parses JSON text; the error says where (a byte offset) and what was expected.
+pub fn read(text: &str) -> Result<Value, String> {
+    let mut r = Reader { b: text.as_bytes(), i: 0, depth: 0 };
+    let value = r.value()?;
+    r.blank();
+    if r.i != r.b.len() {
+        return Err(r.fail("the end of the text"));
+    }
+    Ok(value)
+}
+
+struct Reader<'a> {
+    b: &'a [u8],
+    i: usize,
+    depth: usize,
+}
+
+/// Deeper nesting than this is not a scenario; refusing it keeps the reader's stack bounded.
+const MAX_DEPTH: usize = 64;
+
+impl Reader<'_> {
+    fn fail(&self, expected: &str) -> String {
+        format!("expected {expected} at character {}", self.i + 1)
+    }
+
+    fn blank(&mut self) {
+        while self.i < self.b.len() && matches!(self.b[self.i], b' ' | b'\t' | b'\n' | b'\r') {
+            self.i += 1;
+        }
+    }
+
+    fn eat(&mut self, c: u8) -> bool {
+        self.blank();
+        if self.b.get(self.i) == Some(&c) {
+            self.i += 1;
+            true
+        } else {
+            false
+        }
+    }
+
+    fn word(&mut self, word: &str, value: Value) -> Result<Value, String> {
+        if self.b[self.i..].starts_with(word.as_bytes()) {
+            self.i += word.len();
+            Ok(value)
+        } else {
+            Err(self.fail("a value"))
+        }
+    }
+
+    fn value(&mut self) -> Result<Value, String> {
+        self.blank();
+        match self.b.get(self.i) {
+            Some(b'{') => self.nested(|r| r.object()),
+            Some(b'[') => self.nested(|r| r.array()),
+            Some(b'"') => Ok(Value::String(self.string()?)),
+            Some(b't') => self.word("true", Value::Bool(true)),
+            Some(b'f') => self.word("false", Value::Bool(false)),
+            Some(b'n') => self.word("null", Value::Null),
+            Some(b'-' | b'0'..=b'9') => self.number(),
+            _ => Err(self.fail("a value")),
+        }
+    }
+
+    fn nested(&mut self, inner: impl FnOnce(&mut Self) -> Result<Value, String>) -> Result<Value, String> {
+        self.depth += 1;
+        if self.depth > MAX_DEPTH {
+            return Err(self.fail("less nesting"));
+        }
+        self.i += 1;
+        let value = inner(self);
+        self.depth -= 1;
+        value
+    }
+
+    fn object(&mut self) -> Result<Value, String> {
+        let mut map = Map::new();
+        if self.eat(b'}') {
+            return Ok(Value::Object(map));
+        }
+        loop {
+            self.blank();
+            if self.b.get(self.i) != Some(&b'"') {
+                return Err(self.fail("a quoted field name"));
+            }
+            let key = self.string()?;
+            if !self.eat(b':') {
+                return Err(self.fail("':'"));
+            }
+            let value = self.value()?;
+            map.insert(key, value);
+            if self.eat(b'}') {
+                return Ok(Value::Object(map));
+            }
+            if !self.eat(b',') {
+                return Err(self.fail("',' or '}'"));
+            }
+        }
+    }
+
+    fn array(&mut self) -> Result<Value, String> {
+        let mut items = Vec::new();
+        if self.eat(b']') {
+            return Ok(Value::Array(items));
+        }
+        loop {
+            items.push(self.value()?);
+            if self.eat(b']') {
+                return Ok(Value::Array(items));
+            }
+            if !self.eat(b',') {
+                return Err(self.fail("',' or ']'"));
+            }
+        }
+    }
+
+    fn hex4(&mut self) -> Result<u32, String> {
+        let digits = self.b.get(self.i..self.i + 4).ok_or_else(|| self.fail("four hex digits"))?;
+        let text = std::str::from_utf8(digits).map_err(|_| self.fail("four hex digits"))?;
+        let code = u32::from_str_radix(text, 16).map_err(|_| self.fail("four hex digits"))?;
+        self.i += 4;
+        Ok(code)
+    }
+
+    fn string(&mut self) -> Result<String, String> {
+        self.i += 1; // the opening quote
+        let mut out = String::new();
+        loop {
+            let start = self.i;
+            while self.i < self.b.len() && !matches!(self.b[self.i], b'"' | b'\\') && self.b[self.i] >= 0x20 {
+                self.i += 1;
+            }
+            // The input is a &str, and we stop only at ASCII bytes, so the slice is valid UTF-8.
+            out.push_str(std::str::from_utf8(&self.b[start..self.i]).map_err(|_| self.fail("text"))?);
+            match self.b.get(self.i) {
+                Some(b'"') => {
+                    self.i += 1;
+                    return Ok(out);
+                }
+                Some(b'\\') => {
+                    self.i += 1;
+                    let escape = *self.b.get(self.i).ok_or_else(|| self.fail("an escape"))?;
+                    self.i += 1;
+                    match escape {
+                        b'"' => out.push('"'),
+                        b'\\' => out.push('\\'),
+                        b'/' => out.push('/'),
+                        b'b' => out.push('\u{8}'),
+                        b'f' => out.push('\u{c}'),
+                        b'n' => out.push('\n'),
+                        b'r' => out.push('\r'),
+                        b't' => out.push('\t'),
+                        b'u' => {
+                            let mut code = self.hex4()?;
+                            if (0xD800..0xDC00).contains(&code) && self.b[self.i..].starts_with(b"\\u") {
+                                self.i += 2;
+                                let low = self.hex4()?;
+                                code = 0x10000 + ((code - 0xD800) << 10) + (low.wrapping_sub(0xDC00) & 0x3FF);
+                            }
+                            out.push(char::from_u32(code).unwrap_or('\u{fffd}'));
+                        }
+                        _ => return Err(self.fail("a valid escape")),
+                    }
+                }
+                _ => return Err(self.fail("a closing '\"'")),
+            }
+        }
+    }
+
+    fn number(&mut self) -> Result<Value, String> {
+        let start = self.i;
+        while self.i < self.b.len()
+            && matches!(self.b[self.i], b'-' | b'+' | b'.' | b'e' | b'E' | b'0'..=b'9')
+        {
+            self.i += 1;
+        }
+        let text = std::str::from_utf8(&self.b[start..self.i]).map_err(|_| self.fail("a number"))?;
+        if let Ok(i) = text.parse::<i64>() {
+            return Ok(Value::Number(i.into()));
+        }
+        let value = modebench::units::decimal(text).ok_or_else(|| self.fail("a number"))?;
+        // JSON has no infinities; a number too large for f64 is kept as text so the scenario
+        // reader can say which field it is in.
+        Ok(Number::from_f64(value).map_or_else(|| Value::String(text.to_string()), Value::Number))
+    }
+}
+
+/// The value as compact JSON text; numbers as Rust prints them (shortest round-trip form).
+pub fn write(value: &Value) -> String {
+    let mut out = String::new();
+    push(&mut out, value);
+    out
+}
+
+/// A JSON number as text, the same way [`write`] writes it.
+pub fn number(n: &serde_json::Number) -> String {
+    match (n.as_i64(), n.as_u64(), n.as_f64()) {
+        (Some(i), _, _) => i.to_string(),
+        (None, Some(u), _) => u.to_string(),
+        (None, None, Some(f)) if f.is_finite() => format!("{f}"),
+        _ => "null".to_string(),
+    }
+}
+
+fn push(out: &mut String, value: &Value) {
+    match value {
+        Value::Null => out.push_str("null"),
+        Value::Bool(b) => out.push_str(if *b { "true" } else { "false" }),
+        Value::Number(n) => out.push_str(&number(n)),
+        Value::String(s) => string(out, s),
+        Value::Array(items) => {
+            out.push('[');
+            for (i, item) in items.iter().enumerate() {
+                if i > 0 {
+                    out.push(',');
+                }
+                push(out, item);
+            }
+            out.push(']');
+        }
+        Value::Object(map) => {
+            out.push('{');
+            for (i, (key, item)) in map.iter().enumerate() {
+                if i > 0 {
+                    out.push(',');
+                }
+                string(out, key);
+                out.push(':');
+                push(out, item);
+            }
+            out.push('}');
+        }
+    }
+}
+
+fn string(out: &mut String, s: &str) {
+    out.push('"');
+    for c in s.chars() {
+        match c {
+            '"' => out.push_str("\\\""),
+            '\\' => out.push_str("\\\\"),
+            '\n' => out.push_str("\\n"),
+            '\r' => out.push_str("\\r"),
+            '\t' => out.push_str("\\t"),
+            c if (c as u32) < 0x20 => {
+                const HEX: &[u8; 16] = b"0123456789abcdef";
+                out.push_str("\\u00");
+                out.push(char::from(HEX[(c as usize) >> 4]));
+                out.push(char::from(HEX[(c as usize) & 15]));
+            }
+            c => out.push(c),
+        }
+    }
+    out.push('"');
+}
+
+#[cfg(test)]
+mod tests {
+    use super::write;
+    use serde_json::{json, Value};
+
+    #[test]
+    fn reads_what_the_general_reader_reads() {
+        // serde_json's reader is the reference.
+        for text in [
+            r#"{"a": [1, -2, 3.5, 1e3, -0.25e-2, true, false, null], "b": {"c": "x\"y\\z\n\u00e9\ud83d\ude00"}}"#,
+            "[]",
+            "{}",
+            " 12 ",
+            r#""µm""#,
+        ] {
+            let ours = super::read(text).expect("reads");
+            let reference: Value = serde_json::from_str(text).expect("valid JSON");
+            assert_eq!(ours, reference, "{text}");
+        }
+        for bad in [
+            "",
+            "{",
+            "[1,]",
+            "{\"a\" 1}",
+            "tru",
+            "\"open",
+            "1 2",
+            "{\"a\":1,}",
+            "[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[[]]",
+        ] {
+            assert!(super::read(bad).is_err(), "{bad:?} must be rejected");
+        }
+    }
+
+    #[test]
+    fn round_trips_through_the_json_reader() {
+        // serde_json's reader is the reference: whatever we write must read back unchanged.
+        let doc = json!({
+            "title": "Boom \"A\" \\ line\nnext\u{1}",
+            "modes": 6,
+            "margin": 0.15,
+            "big": 1.0e300,
+            "neg": -42,
+            "list": [1, 2.5, "x", null, true, false, {}, []],
+            "units": "si-mm"
+        });
+        let text = write(&doc);
+        let back: Value = serde_json::from_str(&text).expect("valid JSON");
+        assert_eq!(back, doc);
+    }
+}
