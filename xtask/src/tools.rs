@@ -71,7 +71,17 @@ fn wasm_bindgen(project: &Project) -> Result<()> {
         "installing: wasm-bindgen-cli {wanted} (found {}); this compiles for several minutes",
         found.unwrap_or_else(|| "none".into())
     );
-    run::status(&mut run::cmd("cargo", ["install", "--locked", "wasm-bindgen-cli", "--version", &wanted]))
+    let locked = run::status(&mut run::cmd(
+        "cargo",
+        ["install", "--locked", "wasm-bindgen-cli", "--version", &wanted],
+    ));
+    if locked.is_ok() {
+        return Ok(());
+    }
+    // The tool's own lock file can name a dependency version the registry no longer serves (it
+    // happened with webpki-roots); the tool's version, which is what must match, stays exact.
+    println!("retrying: wasm-bindgen-cli {wanted} without its lock file, which names a dependency the registry lacks");
+    run::status(&mut run::cmd("cargo", ["install", "wasm-bindgen-cli", "--version", &wanted]))
 }
 
 /// The wasm-bindgen version in `Cargo.lock`, or else the exact version pinned in the

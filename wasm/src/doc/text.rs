@@ -202,7 +202,7 @@ pub fn write(value: &Value) -> String {
     out
 }
 
-/// A JSON number as text, the same way [`write`] writes it.
+/// A JSON number as text, the same way [`write()`] writes it.
 pub fn number(n: &serde_json::Number) -> String {
     match (n.as_i64(), n.as_u64(), n.as_f64()) {
         (Some(i), _, _) => i.to_string(),
@@ -279,9 +279,9 @@ mod tests {
             " 12 ",
             r#""µm""#,
         ] {
-            let ours = super::read(text).expect("reads");
-            let reference: Value = serde_json::from_str(text).expect("valid JSON");
-            assert_eq!(ours, reference, "{text}");
+            let reference = serde_json::from_str::<Value>(text).ok();
+            assert!(reference.is_some(), "{text} is valid JSON");
+            assert_eq!(super::read(text).ok(), reference, "{text}");
         }
         for bad in [
             "",
@@ -311,7 +311,6 @@ mod tests {
             "units": "si-mm"
         });
         let text = write(&doc);
-        let back: Value = serde_json::from_str(&text).expect("valid JSON");
-        assert_eq!(back, doc);
+        assert_eq!(serde_json::from_str::<Value>(&text).ok(), Some(doc));
     }
 }
