@@ -151,7 +151,8 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         Some(n) => Mesh::Total(n),
         None => Mesh::UpTo(last),
     };
-    let fe = fe::frequencies(model, options.modes, mesh)?;
+    let exact_elastic: Vec<f64> = exact_modes.iter().filter(|m| !m.rigid_body).map(|m| m.omega).collect();
+    let fe = fe::frequencies_near(model, options.modes, mesh, &exact_elastic)?;
     let mut modes = Vec::with_capacity(exact_modes.len());
     for (i, m) in exact_modes.into_iter().enumerate() {
         let fe_omega = if m.rigid_body { None } else { fe.omegas.get(i - rigid).copied() };

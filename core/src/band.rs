@@ -15,15 +15,12 @@ pub(crate) struct SymBand {
     data: Vec<f64>,
 }
 
-/// Inertia and determinant of a symmetric matrix from its LDLᵀ pivots.
+/// Inertia of a symmetric matrix from its LDLᵀ pivots (the determinant, when needed, comes from
+/// the pivoted [`SymBand::lu`]).
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub(crate) struct Inertia {
     /// Number of negative pivots.
     pub(crate) negative: usize,
-    /// Sign of the determinant (+1 or −1).
-    pub(crate) sign: f64,
-    /// Natural logarithm of |det|.
-    pub(crate) log_abs_det: f64,
     /// Smallest |pivot| relative to the magnitude of its diagonal entry; near zero means the
     /// matrix is close to singular and a count may be unreliable.
     pub(crate) weakest_pivot: f64,
@@ -122,27 +119,28 @@ impl SymBand {
         d
     }
 
-    /// Inertia and determinant. Pivots are computed without interchanges; a pivot that is exactly
-    /// zero is reported through `weakest_pivot == 0` and counted as non-negative.
-    pub(crate) fn inertia(&self) -> Inertia {
-        self.clone().into_inertia()
-    }
-
-    /// [`SymBand::inertia`], factoring in place instead of on a copy.
+    /// Inertia, factoring in place. Pivots are computed without interchanges; a pivot that is
+    /// exactly zero is reported through `weakest_pivot == 0` and counted as non-negative.
     pub(crate) fn into_inertia(mut self) -> Inertia {
         let diag: Vec<f64> = (0..self.n).map(|i| self.data[i * (self.b + 1)].abs()).collect();
         let d = self.factor_in_place();
-        let mut out = Inertia { negative: 0, sign: 1.0, log_abs_det: 0.0, weakest_pivot: f64::INFINITY };
+        let mut out = Inertia { negative: 0, weakest_pivot: f64::INFINITY };
         for (p, a) in d.iter().zip(&diag) {
             if *p < 0.0 {
                 out.negative += 1;
-                out.sign = -out.sign;
             }
-            out.log_abs_det += p.abs().ln();
             let relative = if *a > 0.0 { p.abs() / a } else { p.abs() };
             out.weakest_pivot = out.weakest_pivot.min(relative);
         }
         out
+    }
+
+    /// The LDLᵀ factorisation without interchanges, kept for solving. For the inertia of a
+    /// matrix and for solves where moderate accuracy near a singular point is enough (the
+    /// pivoted [`SymBand::lu`] is the stable choice otherwise).
+    pub(crate) fn ldlt(mut self) -> Ldlt {
+        let d = self.factor_in_place();
+        Ldlt { factors: self, d }
     }
 
     /// Solves A·x = r for a symmetric positive definite A. Returns `None` when a pivot is not
@@ -234,10 +232,40 @@ impl SymBand {
         let scale = self.data.iter().fold(0.0f64, |m, v| m.max(v.abs())).max(f64::MIN_POSITIVE);
         BandLu { n, kl, ld, ab, pivots, scale }
     }
+}
 
-    /// Solves A·x = r with partial pivoting (see [`SymBand::lu`]).
-    pub(crate) fn solve_pivoted(&self, rhs: &[f64]) -> Vec<f64> {
-        self.lu().solve(rhs)
+/// An LDLᵀ factorisation: L in the strict lower band of `factors`, D in `d`.
+#[derive(Clone, Debug)]
+pub(crate) struct Ldlt {
+    factors: SymBand,
+    d: Vec<f64>,
+}
+
+impl Ldlt {
+    /// Number of negative pivots, the number of negative eigenvalues.
+    pub(crate) fn negative(&self) -> usize {
+        self.d.iter().filter(|p| **p < 0.0).count()
+    }
+
+    /// Solves A·x = r.
+    pub(crate) fn solve(&self, rhs: &[f64]) -> Vec<f64> {
+        let f = &self.factors;
+        let (n, b, w) = (f.n, f.b, f.b + 1);
+        let mut x = rhs.to_vec();
+        for i in 0..n {
+            for k in i.saturating_sub(b)..i {
+                x[i] -= f.data[i * w + (i - k)] * x[k];
+            }
+        }
+        for i in 0..n {
+            x[i] /= self.d[i];
+        }
+        for i in (0..n).rev() {
+            for r in (i + 1)..n.min(i + b + 1) {
+                x[i] -= f.data[r * w + (r - i)] * x[r];
+            }
+        }
+        x
     }
 }
 
@@ -344,11 +372,12 @@ mod tests {
             let (band, dense) = sample(12, 3, 0.3 * (seed % 7) as f64 - 1.0, seed);
             let eig = dense.clone().symmetric_eigen().eigenvalues;
             let negative = eig.iter().filter(|v| **v < 0.0).count();
-            let inertia = band.inertia();
+            let inertia = band.clone().into_inertia();
             assert_eq!(inertia.negative, negative, "seed {seed}");
             let det: f64 = eig.iter().product();
-            assert!((inertia.log_abs_det - det.abs().ln()).abs() < 1e-9, "seed {seed}");
-            assert_eq!(inertia.sign, det.signum(), "seed {seed}");
+            let (sign, log) = band.lu().determinant();
+            assert!((log - det.abs().ln()).abs() < 1e-9, "seed {seed}");
+            assert_eq!(sign, det.signum(), "seed {seed}");
         }
     }
 
@@ -357,7 +386,7 @@ mod tests {
         for seed in 0..20 {
             let (band, dense) = sample(15, 4, 0.0, 100 + seed);
             let rhs: Vec<f64> = (0..15).map(|i| (i as f64 * 0.37).sin()).collect();
-            let x = band.solve_pivoted(&rhs);
+            let x = band.lu().solve(&rhs);
             let reference = dense.clone().lu().solve(&nalgebra::DVector::from_vec(rhs.clone())).unwrap();
             for i in 0..15 {
                 assert!(

@@ -61,13 +61,29 @@ const WIDEN: f64 = 1e-6;
 /// The frequencies with indices `skip + 1 ..= skip + wanted` (1-based, ascending), where the
 /// first `skip` are known to lie at zero (rigid-body modes).
 ///
-/// `guess` is any positive ω of the right order; the search widens it as needed.
-pub(crate) fn find(skip: usize, wanted: usize, guess: f64, system: &dyn Spectrum) -> Result<Vec<Root>> {
+/// `guess` is any positive ω of the right order; the search widens it as needed. `hints` are
+/// trial frequencies probed first: good ones (near each root, from another method) save most of
+/// the bisection; poor ones only cost a probe each.
+pub(crate) fn find(
+    skip: usize,
+    wanted: usize,
+    guess: f64,
+    hints: &[f64],
+    system: &dyn Spectrum,
+) -> Result<Vec<Root>> {
     let target = skip + wanted;
     // Samples sorted by ω; ω = 0 is known to count `skip` (below any positive ω only the
     // rigid-body modes lie).
     let mut samples: Vec<(f64, Count)> = vec![(0.0, Count { below: skip, poles: 0 })];
+    for &h in hints.iter().filter(|h| h.is_finite() && **h > 0.0) {
+        insert(&mut samples, (h, sane(system.count(h)?)?));
+    }
     let mut hi = if guess.is_finite() && guess > 0.0 { guess } else { 1.0 };
+    if let Some(&(highest, c)) = samples.last() {
+        if c.below >= target {
+            hi = highest;
+        }
+    }
     loop {
         let c = sane(system.count(hi)?)?;
         insert(&mut samples, (hi, c));
@@ -311,7 +327,7 @@ mod tests {
     fn finds_every_root_once_including_repeated_and_near_poles() {
         static ROOTS: [f64; 6] = [1.0, 2.5, 2.5, 3.0, 3.0 + 1e-9, 7.0];
         static POLES: [f64; 2] = [2.5 + 1e-10, 5.0];
-        let found = find(0, 6, 0.1, &Diagonal { roots: &ROOTS, poles: &POLES }).unwrap();
+        let found = find(0, 6, 0.1, &[], &Diagonal { roots: &ROOTS, poles: &POLES }).unwrap();
         let omegas: Vec<f64> = found.iter().map(|r| r.omega).collect();
         assert_eq!(omegas.len(), 6);
         for (got, want) in omegas.iter().zip(ROOTS.iter()) {
@@ -324,7 +340,12 @@ mod tests {
     #[test]
     fn skips_rigid_body_modes() {
         static ROOTS: [f64; 4] = [0.0, 0.0, 4.0, 9.0];
-        let found = find(2, 2, 100.0, &Diagonal { roots: &ROOTS, poles: &[] }).unwrap();
+        let found = find(2, 2, 100.0, &[], &Diagonal { roots: &ROOTS, poles: &[] }).unwrap();
+        assert!((found[0].omega - 4.0).abs() < 1e-12 && (found[1].omega - 9.0).abs() < 1e-12);
+        // Hints, good or bad, change nothing but the work done.
+        let found =
+            find(2, 2, 100.0, &[3.9, 4.1, 50.0, -1.0, f64::NAN], &Diagonal { roots: &ROOTS, poles: &[] })
+                .unwrap();
         assert!((found[0].omega - 4.0).abs() < 1e-12 && (found[1].omega - 9.0).abs() < 1e-12);
     }
 }

@@ -38,8 +38,18 @@ impl System {
         let mut k = SymBand::zeros(layout.dofs, layout.bandwidth);
         let mut poles: usize = 0;
         let w2 = omega * omega;
+        // Layouts cut members into equal pieces, so neighbouring members are often identical;
+        // their stiffness is computed once.
+        let mut previous: Option<(&Member, ([[f64; 4]; 4], usize))> = None;
         for (span, member) in layout.spans.iter().zip(&self.members) {
-            let Some((local, count)) = member.stiffness_and_count(omega) else {
+            let evaluated = match previous {
+                Some((m, value)) if m == member => Some(value),
+                _ => member.stiffness_and_count(omega),
+            };
+            if let Some(value) = evaluated {
+                previous = Some((member, value));
+            }
+            let Some((local, count)) = evaluated else {
                 return Err(Error::new(
                     ErrorKind::Model,
                     format!(

@@ -59,7 +59,7 @@ pub fn frequencies(model: &Model, elastic: usize) -> Result<Vec<f64>> {
 fn roots_of(model: &Model, elastic: usize) -> Result<Vec<roots::Root>> {
     let spectrum = Exact { model, natural: System::new(model, Layout::new(model, &|_| 1)?) };
     let rigid = model.rigid_body_modes();
-    roots::find(rigid, elastic, guess(model, rigid + elastic), &spectrum)
+    roots::find(rigid, elastic, guess(model, rigid + elastic), &[], &spectrum)
 }
 
 /// A rough first trial ω: the `n`-th pinned–pinned frequency of the whole length with the

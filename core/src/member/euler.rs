@@ -174,6 +174,10 @@ fn krylov(beta4: f64, x: f64) -> [f64; 4] {
             let n = (4 * k + i) as f64;
             *t *= u / ((n + 1.0) * (n + 2.0) * (n + 3.0) * (n + 4.0));
         }
+        // The terms fall by u/(4k)⁴ each round; stop once they no longer change any sum.
+        if (0..4).all(|i| term[i].abs() <= 1e-17 * out[i].abs()) {
+            break;
+        }
     }
     out
 }

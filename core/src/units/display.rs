@@ -118,7 +118,7 @@ pub fn format(si: f64, kind: Kind, system: UnitSystem) -> String {
     if !value.is_finite() {
         return "—".to_string();
     }
-    let number = format_number(value, 4);
+    let number = significant(value, 4);
     if unit.symbol.is_empty() {
         number
     } else {
@@ -128,7 +128,7 @@ pub fn format(si: f64, kind: Kind, system: UnitSystem) -> String {
 
 /// Writes `value` with `significant` significant digits (at least 1), without trailing zeros:
 /// plain notation from 0.001 up to a million, `2.901e7` style outside that range.
-pub(crate) fn format_number(value: f64, significant: usize) -> String {
+pub fn significant(value: f64, significant: usize) -> String {
     if !value.is_finite() {
         return "—".to_string();
     }

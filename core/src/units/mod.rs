@@ -30,7 +30,7 @@ mod tests;
 #[cfg(test)]
 mod tests_display;
 
-pub use display::{display_unit, format, DisplayUnit, UnitSystem};
+pub use display::{display_unit, format, significant, DisplayUnit, UnitSystem};
 pub use kind::Kind;
 pub use list::{unit_list, UnitInfo};
 pub use number::decimal;
@@ -167,7 +167,7 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
     let conversion = (factor != 1.0).then(|| {
         let written = format!("{} {}", parsed.number_text, pretty_unit(&parsed.factors));
         let si_unit = kind.si_unit();
-        let text = format!("{written} = {} {si_unit}", display::format_number(si, 5)).trim_end().to_string();
+        let text = format!("{written} = {} {si_unit}", display::significant(si, 5)).trim_end().to_string();
         Conversion { written, si, si_unit, text }
     });
     Ok(Converted { si, conversion })

@@ -347,5 +347,9 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
 /// A JSON object of text fields. Built directly rather than with `json!`, which goes through
 /// the general serialiser and would bring it into the browser build.
 fn text_object(fields: &[(&str, &str)]) -> Value {
-    Value::Object(fields.iter().map(|(k, v)| ((*k).to_string(), Value::String((*v).to_string()))).collect())
+    let mut map = Map::new();
+    for (key, value) in fields {
+        map.insert((*key).to_string(), Value::String((*value).to_string()));
+    }
+    Value::Object(map)
 }

@@ -185,10 +185,11 @@ impl Reader<'_> {
             self.i += 1;
         }
         let text = std::str::from_utf8(&self.b[start..self.i]).map_err(|_| self.fail("a number"))?;
-        if let Ok(i) = text.parse::<i64>() {
-            return Ok(Value::Number(i.into()));
-        }
         let value = modebench::units::decimal(text).ok_or_else(|| self.fail("a number"))?;
+        // Whole numbers written without a point or exponent stay integers, as JSON readers keep them.
+        if value.fract() == 0.0 && value.abs() < 9e15 && !text.contains(['.', 'e', 'E']) {
+            return Ok(Value::Number((value as i64).into()));
+        }
         // JSON has no infinities; a number too large for f64 is kept as text so the scenario
         // reader can say which field it is in.
         Ok(Number::from_f64(value).map_or_else(|| Value::String(text.to_string()), Value::Number))

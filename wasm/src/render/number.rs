@@ -7,34 +7,9 @@ use modebench::units::{self, Kind, UnitSystem};
 pub(crate) const MISSING: &str = "—";
 
 /// `value` with `significant` significant figures and no trailing zeros; plain notation from
-/// 0.001 up to a million, `2.9e7` style outside that range.
+/// 0.001 up to a million, `2.9e7` style outside that range; "—" for a value that is not finite.
 pub(crate) fn sig(value: f64, significant: usize) -> String {
-    if !value.is_finite() {
-        return MISSING.to_string();
-    }
-    if value == 0.0 {
-        return "0".to_string();
-    }
-    let significant = significant.clamp(1, 17);
-    let exponent = value.abs().log10().floor() as i32;
-    if (-3..6).contains(&exponent) {
-        let decimals = (significant as i32 - 1 - exponent).max(0) as usize;
-        trim_zeros(&format!("{value:.decimals$}")).to_string()
-    } else {
-        let text = format!("{value:.*e}", significant - 1);
-        match text.split_once('e') {
-            Some((mantissa, power)) => format!("{}e{power}", trim_zeros(mantissa)),
-            None => text,
-        }
-    }
-}
-
-fn trim_zeros(text: &str) -> &str {
-    if text.contains('.') {
-        text.trim_end_matches('0').trim_end_matches('.')
-    } else {
-        text
-    }
+    units::significant(value, significant)
 }
 
 /// A frequency in hertz for the page: "11.52 Hz".
