@@ -1,25 +1,31 @@
 // Brings the prerendered calculators on this page to life with the WebAssembly engine.
 //
+// The script is a deferred module, so it runs once the page is parsed; waiting for that
+// explicitly keeps it correct should it ever be loaded `async`.
+//
 // The engine is imported dynamically so that a page whose engine cannot load (an old browser,
 // a host that serves .wasm with the wrong type, a copy of the site without the engine) keeps
 // its prerendered results exactly as they are: nothing is hidden before the engine has taken
 // over, and a failure only leaves a note on the calculators for the curious.
 
-const calculators = document.querySelectorAll(".mb-calc");
+const parsed =
+  document.readyState === "loading"
+    ? new Promise((resolve) => document.addEventListener("DOMContentLoaded", resolve, { once: true }))
+    : Promise.resolve();
 
 async function boot() {
   const engine = await import("./modebench_web.js");
   await engine.default();
+  await parsed;
   engine.mountAll();
 }
 
-if (calculators.length > 0) {
-  try {
-    await boot();
-  } catch (error) {
-    for (const calculator of calculators) {
-      calculator.dataset.engine = "unavailable";
-    }
-    console.warn("Modebench: the live calculator could not start; the results shown were computed when the page was built.", error);
+try {
+  await boot();
+} catch (error) {
+  await parsed;
+  for (const calculator of document.querySelectorAll(".mb-calc")) {
+    calculator.dataset.engine = "unavailable";
   }
+  console.warn("Modebench: the live calculator could not start; the results shown were computed when the page was built.", error);
 }

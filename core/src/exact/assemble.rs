@@ -3,7 +3,7 @@
 use crate::band::SymBand;
 use crate::error::{Error, ErrorKind, Result};
 use crate::layout::Layout;
-use crate::member::Member;
+use crate::member::{Evaluated, Member};
 use crate::model::Model;
 use crate::roots::{Count, Determinant, Spectrum};
 
@@ -40,7 +40,7 @@ impl System {
         let w2 = omega * omega;
         // Layouts cut members into equal pieces, so neighbouring members are often identical;
         // their stiffness is computed once.
-        let mut previous: Option<(&Member, ([[f64; 4]; 4], usize))> = None;
+        let mut previous: Option<(&Member, Evaluated)> = None;
         for (span, member) in layout.spans.iter().zip(&self.members) {
             let evaluated = match previous {
                 Some((m, value)) if m == member => Some(value),

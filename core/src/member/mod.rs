@@ -8,6 +8,10 @@ pub(crate) use timoshenko::Timoshenko;
 
 use crate::model::{Segment, Theory};
 
+/// A member's dynamic stiffness of [w₁, θ₁, w₂, θ₂] and its count of clamped–clamped
+/// frequencies below the trial frequency.
+pub(crate) type Evaluated = ([[f64; 4]; 4], usize);
+
 /// A uniform member of one theory, cut from a segment.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub(crate) enum Member {
@@ -40,7 +44,7 @@ impl Member {
     /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
     /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀); `None`
     /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`).
-    pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<([[f64; 4]; 4], usize)> {
+    pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<Evaluated> {
         match self {
             Member::Euler(e) => Some((e.stiffness(omega), e.clamped_count(omega))),
             Member::Timoshenko(t) => t.stiffness_and_count(omega),

@@ -21,10 +21,17 @@ pub(super) struct Calculator {
     view: View,
     /// The callback that solves and redraws at the next animation frame.
     frame: Option<js_sys::Function>,
-    /// Typed edits wait for that frame: however fast the reader types, the engine solves at
-    /// most once per frame and never falls behind.
+    /// Typed edits that follow another within a frame wait for the next frame: however fast the
+    /// reader types, the engine solves at most about once per frame and never falls behind.
     pending: bool,
+    /// When the results were last brought up to date (`performance.now()`, ms).
+    updated_at: f64,
+    /// Whether the scenario came from the reader's stored edits rather than the page.
+    restored: bool,
 }
+
+/// A display frame at 60 Hz, ms.
+const FRAME_MS: f64 = 16.0;
 
 impl Calculator {
     pub(super) fn new(root: Element, index: usize) -> Self {
@@ -40,11 +47,14 @@ impl Calculator {
             view: View::default(),
             frame: None,
             pending: false,
+            updated_at: f64::NEG_INFINITY,
+            restored: false,
         };
         match storage::load(&c.key) {
             Some((doc, mode)) => {
                 c.doc = doc;
                 c.view.mode = mode;
+                c.restored = true;
                 // Solve the page's example first, so that a stored input that fails still has
                 // results to show greyed.
                 if let Ok(example) = doc::read(&c.original) {
@@ -86,6 +96,22 @@ impl Calculator {
     }
 
     /// Draws the whole calculator.
+    /// Whether the page already shows exactly what the engine just computed: the page's own
+    /// scenario, and every mode's frequency in the prerendered table equal, digit for digit, to
+    /// the live one. Then the calculator need not be redrawn when it goes live — which saves
+    /// re-laying out the whole calculator on every page load — and if a single number differs,
+    /// it is redrawn, so what the reader sees is always the engine's own result.
+    pub(super) fn shows_live_results(&self) -> bool {
+        let (Some(report), None, false) = (&self.last, &self.error, self.restored) else { return false };
+        let rows = dom::all(&self.root, "tr[data-mode]");
+        rows.len() == report.modes.len()
+            && report.modes.iter().all(|m| {
+                let selector = format!("tr[data-mode=\"{}\"] td[data-hz]", m.number);
+                dom::first(&self.root, &selector).and_then(|td| td.get_attribute("data-hz"))
+                    == Some(format!("{}", m.frequency_hz))
+            })
+    }
+
     pub(super) fn draw_all(&mut self) {
         self.keep_open_sections();
         let html = render::calculator_inner(&self.doc, self.error.as_ref(), self.last.as_ref(), &self.view);
@@ -166,6 +192,13 @@ impl Calculator {
         if self.pending {
             return;
         }
+        // The first edit after a quiet spell is answered at once; only edits that crowd into
+        // the same frame wait for the next one.
+        if dom::now() - self.updated_at >= FRAME_MS {
+            self.pending = true;
+            self.flush();
+            return;
+        }
         let requested = match (web_sys::window(), &self.frame) {
             (Some(window), Some(frame)) => window.request_animation_frame(frame).is_ok(),
             _ => false,
@@ -190,8 +223,9 @@ impl Calculator {
 
     /// Records how long the last update took on the root's `data-update-ms`, so that the page
     /// can be checked for responsiveness.
-    fn stamp(&self, started: f64) {
-        let _ = self.root.set_attribute("data-update-ms", &format!("{:.1}", dom::now() - started));
+    fn stamp(&mut self, started: f64) {
+        self.updated_at = dom::now();
+        let _ = self.root.set_attribute("data-update-ms", &format!("{:.1}", self.updated_at - started));
     }
 
     /// After the editor was redrawn, gives the focus back to the control that had it.
