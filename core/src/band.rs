@@ -187,9 +187,14 @@ impl SymBand {
         let ld = 2 * kl + ku + 1;
         let kv = kl + ku; // storage row of the diagonal
         let mut ab = vec![0.0; ld * n];
-        for j in 0..n {
-            for i in j.saturating_sub(ku)..n.min(j + kl + 1) {
-                ab[j * ld + kv + i - j] = self.get(i, j);
+        // Copy the lower band (row i, offset k = i − j) and its mirror above the diagonal.
+        let w = self.b + 1;
+        for i in 0..n {
+            for k in 0..=self.b.min(i) {
+                let v = self.data[i * w + k];
+                let j = i - k;
+                ab[j * ld + kv + k] = v; // A[i][j], i ≥ j
+                ab[i * ld + kv - k] = v; // A[j][i]
             }
         }
         let mut pivots = vec![0usize; n];
@@ -287,17 +292,32 @@ impl BandLu {
 
     /// Sign and ln|·| of the determinant.
     pub(crate) fn determinant(&self) -> (f64, f64) {
+        // A running product kept in range by exact powers of two (2⁵⁰⁰): one logarithm in all,
+        // rather than one per pivot.
+        const SCALE: f64 = 3.273_390_607_896_142e150;
+        let mut product = 1.0f64;
+        let mut shifts: i32 = 0; // factors of SCALE taken out (positive) or put in (negative)
         let mut sign = 1.0;
-        let mut log = 0.0;
         for j in 0..self.n {
             if self.pivots[j] != j {
                 sign = -sign;
             }
             let d = self.diagonal(j);
+            if d == 0.0 {
+                return (0.0, f64::NEG_INFINITY);
+            }
             sign *= d.signum();
-            log += d.abs().ln();
+            product *= d.abs();
+            while product > SCALE {
+                product /= SCALE;
+                shifts += 1;
+            }
+            while product < 1.0 / SCALE {
+                product *= SCALE;
+                shifts -= 1;
+            }
         }
-        (sign, log)
+        (sign, product.ln() + f64::from(shifts) * 500.0 * std::f64::consts::LN_2)
     }
 
     /// Solves A·x = r. A pivot that vanishes is replaced by a tiny value, the usual device that
