@@ -43,7 +43,7 @@ pub fn plot_svg(report: &Report, number: usize) -> String {
     let mut out = format!(
         "<svg class=\"mb-plot\" viewBox=\"0 0 {WIDTH} {HEIGHT}\" role=\"img\" aria-label=\"{0}\" \
          font-family=\"system-ui, sans-serif\"><title>{0}</title>\
-         <text class=\"mb-plot-caption\" x=\"{LEFT}\" y=\"22\" font-size=\"15\" font-weight=\"600\" fill=\"{INK}\">{0}</text>",
+         <text class=\"mb-plot-caption\" x=\"{LEFT}\" y=\"22\" font-size=\"15\" font-weight=\"700\" fill=\"{INK}\">{0}</text>",
         escape(&caption)
     );
     out.push_str(&rest_line(report, &px));
