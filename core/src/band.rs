@@ -198,6 +198,7 @@ impl SymBand {
             }
         }
         let mut pivots = vec![0usize; n];
+        let mut multipliers = vec![0.0; kl];
         let mut ju = 0usize;
         for j in 0..n {
             let km = kl.min(n - 1 - j);
@@ -220,16 +221,20 @@ impl SymBand {
                     ab.swap(base + j - c, base + j + p - c);
                 }
             }
-            let pivot = ab[column];
-            for i in 1..=km {
-                ab[column + i] /= pivot;
+            // The multipliers below the pivot, kept aside for the update of the columns right.
+            let inverse = 1.0 / ab[column];
+            let l = &mut multipliers[..km];
+            for (m, a) in l.iter_mut().zip(&mut ab[column + 1..=column + km]) {
+                *a *= inverse;
+                *m = *a;
             }
             for c in (j + 1)..=ju {
-                let base = c * ld + kv;
-                let u = ab[base + j - c];
+                // Row j of column c, then the rows below it.
+                let top = c * ld + kv + j - c;
+                let u = ab[top];
                 if u != 0.0 {
-                    for i in 1..=km {
-                        ab[base + j + i - c] -= ab[column + i] * u;
+                    for (a, m) in ab[top + 1..=top + km].iter_mut().zip(l.iter()) {
+                        *a -= m * u;
                     }
                 }
             }

@@ -42,13 +42,16 @@ struct Functions {
     b: f64,
 }
 
-fn factorials() -> [f64; 4 * SERIES_TERMS + 4] {
+/// 1/n! for n = 0 ..= 4·SERIES_TERMS + 3, computed once at compile time.
+const INVERSE_FACTORIALS: [f64; 4 * SERIES_TERMS + 4] = {
     let mut out = [1.0; 4 * SERIES_TERMS + 4];
-    for k in 1..out.len() {
-        out[k] = out[k - 1] * k as f64;
+    let mut k = 1;
+    while k < out.len() {
+        out[k] = out[k - 1] / k as f64;
+        k += 1;
     }
     out
-}
+};
 
 fn functions(lambda: f64) -> Functions {
     if lambda < SERIES_LIMIT {
@@ -60,7 +63,7 @@ fn functions(lambda: f64) -> Functions {
 
 /// Power series in t = λ⁴ of each numerator and of D, with λ⁴ divided out of D.
 fn series(lambda: f64) -> Functions {
-    let fact = factorials();
+    let inv = &INVERSE_FACTORIALS;
     let t = lambda.powi(4);
     let (mut d, mut nf, mut nfb, mut nh, mut nhb, mut na, mut nb) = (0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0);
     let mut tk = 1.0; // t^k
@@ -68,34 +71,41 @@ fn series(lambda: f64) -> Functions {
     for k in 0..SERIES_TERMS {
         let kk = 4 * k;
         // D/λ⁴ = Σ (−1)^k 4^(k+1) t^k / (4k+4)!  — note −(−4)^(k+1) = 4·(−4)^k.
-        d += 4.0 * alt * tk / fact[kk + 4];
-        nf += 2.0 * alt * tk / fact[kk + 1];
-        nfb += 2.0 * tk / fact[kk + 1];
-        nh += 2.0 * alt * tk / fact[kk + 2];
-        nhb += 2.0 * tk / fact[kk + 2];
-        na += 4.0 * alt * tk / fact[kk + 3];
-        nb += 2.0 * tk / fact[kk + 3];
+        let signed = alt * tk;
+        d += 4.0 * signed * inv[kk + 4];
+        nf += 2.0 * signed * inv[kk + 1];
+        nfb += 2.0 * tk * inv[kk + 1];
+        nh += 2.0 * signed * inv[kk + 2];
+        nhb += 2.0 * tk * inv[kk + 2];
+        na += 4.0 * signed * inv[kk + 3];
+        nb += 2.0 * tk * inv[kk + 3];
         tk *= t;
         alt *= -4.0;
     }
-    Functions { f: nf / d, fb: nfb / d, h: nh / d, hb: nhb / d, a: na / d, b: nb / d }
+    let r = 1.0 / d;
+    Functions { f: nf * r, fb: nfb * r, h: nh * r, hb: nhb * r, a: na * r, b: nb * r }
 }
 
 /// The closed forms with numerator and denominator divided by cosh λ.
 fn closed(lambda: f64) -> Functions {
     let (s, c) = lambda.sin_cos();
-    let tau = lambda.tanh();
-    let e = sech(lambda);
-    let d = e - c;
-    let l2 = lambda * lambda;
-    let l3 = l2 * lambda;
+    // tanh λ and sech λ from one exponential (λ > 0 here).
+    let q = (-lambda).exp();
+    let q2 = q * q;
+    let over = 1.0 / (1.0 + q2);
+    let tau = (1.0 - q2) * over;
+    let e = 2.0 * q * over;
+    let r = 1.0 / (e - c);
+    let l1 = lambda * r;
+    let l2 = lambda * l1;
+    let l3 = lambda * l2;
     Functions {
-        f: l3 * (tau * c + s) / d,
-        fb: l3 * (tau + s * e) / d,
-        h: l2 * tau * s / d,
-        hb: l2 * (1.0 - c * e) / d,
-        a: lambda * (s - tau * c) / d,
-        b: lambda * (tau - s * e) / d,
+        f: l3 * (tau * c + s),
+        fb: l3 * (tau + s * e),
+        h: l2 * tau * s,
+        hb: l2 * (1.0 - c * e),
+        a: l1 * (s - tau * c),
+        b: l1 * (tau - s * e),
     }
 }
 
