@@ -53,8 +53,8 @@ pub struct MassBreakdown {
     pub lining: f64,
     /// Added mass of the surrounding water.
     pub added_water: f64,
-    /// Unit conversions applied to the written values.
-    pub conversions: Vec<Conversion>,
+    /// Unit conversions applied to the written values, by field ("lining").
+    pub conversions: Vec<(String, Conversion)>,
 }
 
 impl MassBreakdown {
@@ -85,7 +85,7 @@ pub fn breakdown(
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
         let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        conversions.extend(converted.conversion);
+        conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
         Ok::<f64, Error>(converted.si)
     };
     let not_negative = |value: f64, quantity: &Quantity, field: &str, what: &str| {

@@ -176,8 +176,8 @@ pub struct ResolvedMaterial {
     pub shear_modulus: f64,
     /// Poisson's ratio ν.
     pub poisson: f64,
-    /// Unit conversions applied to the written properties.
-    pub conversions: Vec<Conversion>,
+    /// Unit conversions applied to the written properties, by field ("youngs_modulus").
+    pub conversions: Vec<(String, Conversion)>,
 }
 
 /// Resolves a preset id or custom properties to SI values.
@@ -226,7 +226,7 @@ fn resolve_custom(
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
         let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        conversions.extend(converted.conversion);
+        conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
         Ok::<f64, Error>(converted.si)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;

@@ -105,8 +105,8 @@ pub struct SectionProps {
     pub outer_diameter: Option<f64>,
     /// Open internal area that can hold contents, m²; 0 for solid shapes.
     pub bore_area: f64,
-    /// Unit conversions applied to the written dimensions.
-    pub conversions: Vec<Conversion>,
+    /// Unit conversions applied to the written dimensions, by field ("depth").
+    pub conversions: Vec<(String, Conversion)>,
 }
 
 /// Computes the properties of a section for a material with Poisson's ratio `poisson`.
@@ -290,7 +290,7 @@ fn i_beam(h: f64, b: f64, t_f: f64, t_w: f64, axis: BendingAxis, poisson: f64) -
 /// Reads dimensions with their units, checks their range and keeps the conversions applied.
 #[derive(Default)]
 struct Reader {
-    conversions: Vec<Conversion>,
+    conversions: Vec<(String, Conversion)>,
 }
 
 impl Reader {
@@ -327,7 +327,7 @@ impl Reader {
 
     fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
         let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        self.conversions.extend(converted.conversion);
+        self.conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
         Ok(converted.si)
     }
 }

@@ -77,8 +77,8 @@ impl Reader {
         self.read(q, kind, path)
     }
 
-    fn keep(&mut self, path: &str, conversions: Vec<Conversion>) {
-        self.conversions.extend(conversions.into_iter().map(|c| (path.to_string(), c)));
+    fn keep(&mut self, path: &str, conversions: &[(String, Conversion)]) {
+        self.conversions.extend(conversions.iter().map(|(field, c)| (format!("{path}.{field}"), c.clone())));
     }
 }
 
@@ -178,12 +178,12 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<(Segment
             })));
         }
         let mat = material::resolve(material_input).map_err(|e| e.at(at("material")))?;
-        r.keep(&at("material"), mat.conversions.clone());
+        r.keep(&at("material"), &mat.conversions);
         let props = section::properties(section_input, mat.poisson).map_err(|e| e.at(at("section")))?;
-        r.keep(&at("section"), props.conversions.clone());
+        r.keep(&at("section"), &props.conversions);
         let extra = s.extra_mass.clone().unwrap_or_default();
         let mass = extra_mass::breakdown(&props, mat.density, &extra).map_err(|e| e.at(at("extra_mass")))?;
-        r.keep(&at("extra_mass"), mass.conversions.clone());
+        r.keep(&at("extra_mass"), &mass.conversions);
         let segment = Segment {
             length,
             flexural_rigidity: mat.youngs_modulus * props.second_moment,

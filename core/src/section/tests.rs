@@ -91,7 +91,8 @@ fn standard_pipe_matches_published_dimensions() {
     check("NPS 6 Sch 40 area, in²", source, 5.581, pipe.area / 0.0254f64.powi(2), 2e-4);
     check("NPS 6 Sch 40 I, in⁴", source, 28.14, pipe.second_moment / 0.0254f64.powi(4), 5e-4);
     assert_eq!(pipe.conversions.len(), 2, "both inch dimensions are reported as converted");
-    assert_eq!(pipe.conversions[1].text, "0.280 in = 0.007112 m");
+    assert_eq!(pipe.conversions[1].1.text, "0.280 in = 0.007112 m");
+    assert_eq!(pipe.conversions[1].0, "wall");
 }
 
 #[test]
