@@ -79,6 +79,14 @@ describe("every page", () => {
         });
         assert.deepEqual(small, [], "touch targets shorter than 44 px");
 
+        // The mode table, separation margin included, is read without scrolling sideways.
+        const clipped = await page.evaluate(() =>
+          [...document.querySelectorAll(".mb-table-wrap:has(> .mb-modes)")]
+            .filter((wrap) => wrap.scrollWidth > wrap.clientWidth + 1)
+            .map((wrap) => `${wrap.scrollWidth} px of table in ${wrap.clientWidth} px`),
+        );
+        assert.deepEqual(clipped, [], "mode table wider than the calculator");
+
         const text = await page.evaluate(() => document.body.innerText);
         assert.doesNotMatch(text, BROKEN_NUMBER);
 
