@@ -95,25 +95,62 @@ impl SymBand {
     /// In-place LDLᵀ without interchanges; returns the pivots. The strict lower band of `data`
     /// then holds L.
     fn factor_in_place(&mut self) -> Vec<f64> {
-        let (n, b, w) = (self.n, self.b, self.b + 1);
+        // As for the LU: narrow bands get a kernel with the width fixed when compiled.
+        match self.b {
+            1 => self.factor_kernel::<1>(),
+            2 => self.factor_kernel::<2>(),
+            3 => self.factor_kernel::<3>(),
+            4 => self.factor_kernel::<4>(),
+            5 => self.factor_kernel::<5>(),
+            6 => self.factor_kernel::<6>(),
+            _ => self.factor_kernel::<0>(),
+        }
+    }
+
+    /// [`SymBand::factor_in_place`] for half-bandwidth `B`, or for `self.b` when `B` is 0.
+    /// Right-looking: each pivot's column is scaled into L, and the block of the band below and
+    /// right of the pivot loses L·d·Lᵀ at once.
+    fn factor_kernel<const B: usize>(&mut self) -> Vec<f64> {
+        let n = self.n;
+        let b = if B > 0 { B } else { self.b };
+        let w = b + 1;
         let mut d = vec![0.0; n];
+        // The pivot's column before scaling, a(j + i, j) for i = 1..=b.
+        let mut column = vec![0.0; b];
         for j in 0..n {
-            // d_j = a_jj − Σ L_jk² d_k over the band.
-            let first = j.saturating_sub(b);
-            let mut djj = self.data[j * w];
-            for k in first..j {
-                let l = self.data[j * w + (j - k)];
-                djj -= l * l * d[k];
-            }
-            d[j] = djj;
-            // L_ij = (a_ij − Σ L_ik L_jk d_k) / d_j for the rows below j inside the band.
-            for i in (j + 1)..n.min(j + b + 1) {
-                let first_i = i.saturating_sub(b);
-                let mut s = self.data[i * w + (i - j)];
-                for k in first_i.max(first)..j {
-                    s -= self.data[i * w + (i - k)] * self.data[j * w + (j - k)] * d[k];
+            let pivot = self.data[j * w];
+            d[j] = pivot;
+            let m = b.min(n - 1 - j);
+            if B > 0 && m == B {
+                // The same steps with every loop bound known, so that they unroll.
+                let mut column = [0.0; B];
+                for i in 1..=B {
+                    let at = (j + i) * w + i;
+                    column[i - 1] = self.data[at];
+                    self.data[at] /= pivot;
                 }
-                self.data[i * w + (i - j)] = s / djj;
+                for i in 1..=B {
+                    let row = &mut self.data[(j + i) * w..=(j + i) * w + i];
+                    let l = row[i];
+                    for k in 1..=i {
+                        row[i - k] -= l * column[k - 1];
+                    }
+                }
+                continue;
+            }
+            for i in 1..=m {
+                let at = (j + i) * w + i;
+                column[i - 1] = self.data[at];
+                self.data[at] /= pivot;
+            }
+            // Row j + i, columns j + 1 ..= j + i, stored at offsets i − 1 down to 0.
+            for i in 1..=m {
+                let row = (j + i) * w;
+                let l = self.data[row + i];
+                let entries = &mut self.data[row..row + i];
+                for (entry, c) in entries.iter_mut().rev().zip(&column[..i]) {
+                    *entry -= l * c;
+                }
             }
         }
         d
@@ -182,15 +219,32 @@ impl SymBand {
     /// The unblocked band algorithm of LAPACK's `dgbtf2`: column-major band storage with room for
     /// the b extra super-diagonals that row interchanges fill in.
     pub(crate) fn lu(&self) -> BandLu {
-        let (n, kl) = (self.n, self.b);
-        let ku = self.b;
+        // The narrow bands of beams get a kernel whose band width is known when compiled, so
+        // that the short inner loops unroll; any other width runs the same code with it at run
+        // time.
+        match self.b {
+            1 => self.lu_kernel::<1>(),
+            2 => self.lu_kernel::<2>(),
+            3 => self.lu_kernel::<3>(),
+            4 => self.lu_kernel::<4>(),
+            5 => self.lu_kernel::<5>(),
+            6 => self.lu_kernel::<6>(),
+            _ => self.lu_kernel::<0>(),
+        }
+    }
+
+    /// [`SymBand::lu`] for half-bandwidth `B`, or for `self.b` when `B` is 0.
+    fn lu_kernel<const B: usize>(&self) -> BandLu {
+        let n = self.n;
+        let kl = if B > 0 { B } else { self.b };
+        let ku = kl;
         let ld = 2 * kl + ku + 1;
         let kv = kl + ku; // storage row of the diagonal
         let mut ab = vec![0.0; ld * n];
         // Copy the lower band (row i, offset k = i − j) and its mirror above the diagonal.
-        let w = self.b + 1;
+        let w = kl + 1;
         for i in 0..n {
-            for k in 0..=self.b.min(i) {
+            for k in 0..=kl.min(i) {
                 let v = self.data[i * w + k];
                 let j = i - k;
                 ab[j * ld + kv + k] = v; // A[i][j], i ≥ j
@@ -198,7 +252,6 @@ impl SymBand {
             }
         }
         let mut pivots = vec![0usize; n];
-        let mut multipliers = vec![0.0; kl];
         let mut ju = 0usize;
         for j in 0..n {
             let km = kl.min(n - 1 - j);
@@ -221,21 +274,38 @@ impl SymBand {
                     ab.swap(base + j - c, base + j + p - c);
                 }
             }
-            // The multipliers below the pivot, kept aside for the update of the columns right.
-            let inverse = 1.0 / ab[column];
-            let l = &mut multipliers[..km];
-            for (m, a) in l.iter_mut().zip(&mut ab[column + 1..=column + km]) {
-                *a *= inverse;
-                *m = *a;
+            // Scale the multipliers below the pivot; columns j + 1 ..= ju lie after them in
+            // storage, so they are updated through the second half of one split.
+            let (head, tail) = ab.split_at_mut(column + km + 1);
+            let inverse = 1.0 / head[column];
+            let l = &mut head[column + 1..];
+            for m in l.iter_mut() {
+                *m *= inverse;
             }
-            for c in (j + 1)..=ju {
-                // Row j of column c, then the rows below it.
-                let top = c * ld + kv + j - c;
-                let u = ab[top];
-                if u != 0.0 {
-                    for (a, m) in ab[top + 1..=top + km].iter_mut().zip(l.iter()) {
-                        *a -= m * u;
+            // Row j of column c sits at `top` in `tail`, the rows below it follow; from one
+            // column to the next that place moves by ld − 1.
+            let mut top = (j + 1) * ld + kv - 1 - (column + km + 1);
+            if B > 0 && km == B {
+                let l: [f64; B] = std::array::from_fn(|i| l[i]);
+                for _ in (j + 1)..=ju {
+                    let u = tail[top];
+                    if u != 0.0 {
+                        let below = &mut tail[top + 1..top + 1 + B];
+                        for i in 0..B {
+                            below[i] -= l[i] * u;
+                        }
                     }
+                    top += ld - 1;
+                }
+            } else {
+                for _ in (j + 1)..=ju {
+                    let u = tail[top];
+                    if u != 0.0 {
+                        for (a, m) in tail[top + 1..=top + km].iter_mut().zip(l.iter()) {
+                            *a -= m * u;
+                        }
+                    }
+                    top += ld - 1;
                 }
             }
         }
@@ -408,21 +478,23 @@ mod tests {
 
     #[test]
     fn solves_agree_with_dense_lu() {
-        for seed in 0..20 {
-            let (band, dense) = sample(15, 4, 0.0, 100 + seed);
+        // Every band width with a kernel of its own (1 to 6) and two that take the general one.
+        for seed in 0..24 {
+            let b = [1, 2, 3, 4, 5, 6, 7, 9][seed as usize % 8];
+            let (band, dense) = sample(15, b, 0.0, 100 + seed);
             let rhs: Vec<f64> = (0..15).map(|i| (i as f64 * 0.37).sin()).collect();
             let x = band.lu().solve(&rhs);
             let reference = dense.clone().lu().solve(&nalgebra::DVector::from_vec(rhs.clone())).unwrap();
             for i in 0..15 {
                 assert!(
                     (x[i] - reference[i]).abs() < 1e-9 * (1.0 + reference[i].abs()),
-                    "seed {seed} row {i}"
+                    "seed {seed} (b = {b}) row {i}"
                 );
             }
             let (sign, log) = band.lu().determinant();
             let det = dense.determinant();
-            assert_eq!(sign, det.signum());
-            assert!((log - det.abs().ln()).abs() < 1e-9);
+            assert_eq!(sign, det.signum(), "seed {seed} (b = {b})");
+            assert!((log - det.abs().ln()).abs() < 1e-9, "seed {seed} (b = {b})");
             // A positive definite one through the LDLᵀ path.
             let (spd, dense_spd) = sample(15, 4, 12.0, 200 + seed);
             let x = spd.solve_positive(std::slice::from_ref(&rhs)).unwrap().remove(0);
