@@ -26,6 +26,23 @@ pub(crate) struct Inertia {
     pub(crate) weakest_pivot: f64,
 }
 
+/// Calls `$kernel::<B>()` with the half-bandwidth as a constant for the narrow bands of beams
+/// (1 to 6), so that the kernels' short inner loops unroll; any other width runs the same kernel
+/// with `B = 0`, which reads the width at run time.
+macro_rules! by_width {
+    ($band:expr, $kernel:ident) => {
+        match $band.b {
+            1 => $band.$kernel::<1>(),
+            2 => $band.$kernel::<2>(),
+            3 => $band.$kernel::<3>(),
+            4 => $band.$kernel::<4>(),
+            5 => $band.$kernel::<5>(),
+            6 => $band.$kernel::<6>(),
+            _ => $band.$kernel::<0>(),
+        }
+    };
+}
+
 impl SymBand {
     /// A zero matrix.
     pub(crate) fn zeros(n: usize, b: usize) -> SymBand {
@@ -95,16 +112,7 @@ impl SymBand {
     /// In-place LDLᵀ without interchanges; returns the pivots. The strict lower band of `data`
     /// then holds L.
     fn factor_in_place(&mut self) -> Vec<f64> {
-        // As for the LU: narrow bands get a kernel with the width fixed when compiled.
-        match self.b {
-            1 => self.factor_kernel::<1>(),
-            2 => self.factor_kernel::<2>(),
-            3 => self.factor_kernel::<3>(),
-            4 => self.factor_kernel::<4>(),
-            5 => self.factor_kernel::<5>(),
-            6 => self.factor_kernel::<6>(),
-            _ => self.factor_kernel::<0>(),
-        }
+        by_width!(self, factor_kernel)
     }
 
     /// [`SymBand::factor_in_place`] for half-bandwidth `B`, or for `self.b` when `B` is 0.
@@ -219,18 +227,7 @@ impl SymBand {
     /// The unblocked band algorithm of LAPACK's `dgbtf2`: column-major band storage with room for
     /// the b extra super-diagonals that row interchanges fill in.
     pub(crate) fn lu(&self) -> BandLu {
-        // The narrow bands of beams get a kernel whose band width is known when compiled, so
-        // that the short inner loops unroll; any other width runs the same code with it at run
-        // time.
-        match self.b {
-            1 => self.lu_kernel::<1>(),
-            2 => self.lu_kernel::<2>(),
-            3 => self.lu_kernel::<3>(),
-            4 => self.lu_kernel::<4>(),
-            5 => self.lu_kernel::<5>(),
-            6 => self.lu_kernel::<6>(),
-            _ => self.lu_kernel::<0>(),
-        }
+        by_width!(self, lu_kernel)
     }
 
     /// [`SymBand::lu`] for half-bandwidth `B`, or for `self.b` when `B` is 0.
