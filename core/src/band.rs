@@ -28,10 +28,15 @@ pub(crate) struct Inertia {
 
 /// Calls `$kernel::<B>()` with the half-bandwidth as a constant for the narrow bands of beams
 /// (1 to 6), so that the kernels' short inner loops unroll; any other width runs the same kernel
-/// with `B = 0`, which reads the width at run time.
+/// with `B = 0`, which reads the width at run time. The WebAssembly build keeps the general
+/// kernel alone: there the size of what every page downloads is budgeted, and the operations
+/// (so the results, to the last bit) are the same either way.
 macro_rules! by_width {
-    ($band:expr, $kernel:ident) => {
-        match $band.b {
+    ($band:expr, $kernel:ident) => {{
+        #[cfg(target_arch = "wasm32")]
+        let result = $band.$kernel::<0>();
+        #[cfg(not(target_arch = "wasm32"))]
+        let result = match $band.b {
             1 => $band.$kernel::<1>(),
             2 => $band.$kernel::<2>(),
             3 => $band.$kernel::<3>(),
@@ -39,8 +44,9 @@ macro_rules! by_width {
             5 => $band.$kernel::<5>(),
             6 => $band.$kernel::<6>(),
             _ => $band.$kernel::<0>(),
-        }
-    };
+        };
+        result
+    }};
 }
 
 impl SymBand {
