@@ -2,7 +2,7 @@
 // sizes, asks nothing of any other host, fits the screen, and leaves a screenshot for review.
 
 import assert from "node:assert/strict";
-import { mkdirSync, mkdtempSync, rmSync, symlinkSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, rmSync, statSync, symlinkSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
@@ -127,6 +127,12 @@ describe("the site as files", () => {
       }
     }
     await context.close();
+  });
+
+  test("the engine every page downloads fits its size budget", () => {
+    // 350 KB (of 1000 bytes) after wasm-opt; `cargo xtask bench` prints the figure with the rest.
+    const bytes = statSync(join(DIST, "assets", "modebench_web_bg.wasm")).size;
+    assert.ok(bytes <= 350_000, `the engine is ${bytes} bytes, over the 350 KB budget (was it shrunk by wasm-opt?)`);
   });
 
   test("the engine is served with the types browsers insist on", async () => {

@@ -31,12 +31,7 @@ pub(crate) fn ensure(project: &Project, needs: Needs) -> Result<()> {
     if needs.engine {
         wasm_target()?;
         wasm_bindgen(project)?;
-        match run::version("wasm-opt") {
-            Some(version) => println!("ok: {version}"),
-            None => println!(
-                "skipped: wasm-opt (Debian package binaryen) is not installed; the engine will not be shrunk"
-            ),
-        }
+        wasm_opt(needs.browser)?;
     }
     if needs.python {
         python()?;
@@ -114,19 +109,41 @@ fn python() -> Result<()> {
     run::status(&mut run::cmd("python3", ["-m", "pip", "install", "--quiet", "mpmath", "numpy", "scipy"]))
 }
 
-/// The browser tests drive Debian's Chromium, which can be installed only as root.
+/// Debian's wasm-opt shrinks the engine. Serving the site works without it (the engine is then
+/// larger); the tests and the budgets need it, since they hold the engine to its size budget,
+/// so for them it is installed like Chromium.
+fn wasm_opt(required: bool) -> Result<()> {
+    if let Some(version) = run::version("wasm-opt") {
+        println!("ok: {version}");
+        return Ok(());
+    }
+    if !required {
+        println!(
+            "skipped: wasm-opt (Debian package binaryen) is not installed; the engine will not be shrunk"
+        );
+        return Ok(());
+    }
+    apt_install("binaryen", "wasm-opt")
+}
+
+/// The browser tests drive Debian's Chromium.
 fn chromium() -> Result<()> {
     if run::exists("/usr/bin/chromium") {
         println!("ok: {}", run::version("/usr/bin/chromium").unwrap_or_else(|| "chromium".into()));
         return Ok(());
     }
+    apt_install("chromium", "/usr/bin/chromium")
+}
+
+/// Installs a Debian package, which can be done only as root.
+fn apt_install(package: &str, what: &str) -> Result<()> {
     let uid = run::output(&mut run::cmd("id", ["-u"]))?;
     if String::from_utf8_lossy(&uid.stdout).trim() != "0" {
-        bail!("Chromium is missing at /usr/bin/chromium; install it (`sudo apt-get install chromium`) and run again");
+        bail!("{what} is missing; install it (`sudo apt-get install {package}`) and run again");
     }
-    println!("installing: chromium (apt-get)");
+    println!("installing: {package} (apt-get)");
     run::status(&mut run::cmd("apt-get", ["update"]))?;
-    run::status(run::cmd("apt-get", ["install", "-y", "chromium"]).env("DEBIAN_FRONTEND", "noninteractive"))
+    run::status(run::cmd("apt-get", ["install", "-y", package]).env("DEBIAN_FRONTEND", "noninteractive"))
 }
 
 /// The browser tests' npm packages, exactly as locked.
