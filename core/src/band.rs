@@ -132,39 +132,12 @@ impl SymBand {
         // The pivot's column before scaling, a(j + i, j) for i = 1..=b.
         let mut column = vec![0.0; b];
         for j in 0..n {
-            let pivot = self.data[j * w];
-            d[j] = pivot;
+            d[j] = self.data[j * w];
             let m = b.min(n - 1 - j);
             if B > 0 && m == B {
-                // The same steps with every loop bound known, so that they unroll.
-                let mut column = [0.0; B];
-                for i in 1..=B {
-                    let at = (j + i) * w + i;
-                    column[i - 1] = self.data[at];
-                    self.data[at] /= pivot;
-                }
-                for i in 1..=B {
-                    let row = &mut self.data[(j + i) * w..=(j + i) * w + i];
-                    let l = row[i];
-                    for k in 1..=i {
-                        row[i - k] -= l * column[k - 1];
-                    }
-                }
-                continue;
-            }
-            for i in 1..=m {
-                let at = (j + i) * w + i;
-                column[i - 1] = self.data[at];
-                self.data[at] /= pivot;
-            }
-            // Row j + i, columns j + 1 ..= j + i, stored at offsets i − 1 down to 0.
-            for i in 1..=m {
-                let row = (j + i) * w;
-                let l = self.data[row + i];
-                let entries = &mut self.data[row..row + i];
-                for (entry, c) in entries.iter_mut().rev().zip(&column[..i]) {
-                    *entry -= l * c;
-                }
+                ldl_step(&mut self.data, j, w, B, &mut [0.0; B]);
+            } else {
+                ldl_step(&mut self.data, j, w, m, &mut column);
             }
         }
         d
@@ -291,33 +264,53 @@ impl SymBand {
             // Row j of column c sits at `top` in `tail`, the rows below it follow; from one
             // column to the next that place moves by ld − 1. For c = j + 1 that is
             // (j + 1)·ld + kv − 1 in `ab`, less the length of `head`.
-            let mut top = ld - km - 2;
+            let top = ld - km - 2;
             if B > 0 && km == B {
                 let l: [f64; B] = std::array::from_fn(|i| l[i]);
-                for _ in (j + 1)..=ju {
-                    let u = tail[top];
-                    if u != 0.0 {
-                        let below = &mut tail[top + 1..top + 1 + B];
-                        for i in 0..B {
-                            below[i] -= l[i] * u;
-                        }
-                    }
-                    top += ld - 1;
-                }
+                lu_update(tail, top, ju - j, ld - 1, &l);
             } else {
-                for _ in (j + 1)..=ju {
-                    let u = tail[top];
-                    if u != 0.0 {
-                        for (a, m) in tail[top + 1..=top + km].iter_mut().zip(l.iter()) {
-                            *a -= m * u;
-                        }
-                    }
-                    top += ld - 1;
-                }
+                lu_update(tail, top, ju - j, ld - 1, l);
             }
         }
         let scale = self.data.iter().fold(0.0f64, |m, v| m.max(v.abs())).max(f64::MIN_POSITIVE);
         BandLu { n, kl, ld, ab, pivots, scale }
+    }
+}
+
+/// One step of the right-looking LDLᵀ at pivot j: scales the `m` entries below the pivot into
+/// L (keeping them unscaled in `column`) and takes L·d·Lᵀ from the block below and right of it.
+/// Row j + i, columns j + 1 ..= j + i, sits at offsets i − 1 down to 0 of row j + i. Always
+/// inlined, so that a constant `m` unrolls the loops.
+#[inline(always)]
+fn ldl_step(data: &mut [f64], j: usize, w: usize, m: usize, column: &mut [f64]) {
+    let pivot = data[j * w];
+    for i in 1..=m {
+        let at = (j + i) * w + i;
+        column[i - 1] = data[at];
+        data[at] /= pivot;
+    }
+    for i in 1..=m {
+        let row = &mut data[(j + i) * w..=(j + i) * w + i];
+        let l = row[i];
+        for k in 1..=i {
+            row[i - k] -= l * column[k - 1];
+        }
+    }
+}
+
+/// The LU's update right of a pivot: `count` columns, the first with the pivot's row at `top`
+/// in `tail` and each next one `stride` further on, lose u·l from the rows below, u being the
+/// column's entry in the pivot's row. Always inlined, so that an `l` of constant length unrolls.
+#[inline(always)]
+fn lu_update(tail: &mut [f64], mut top: usize, count: usize, stride: usize, l: &[f64]) {
+    for _ in 0..count {
+        let u = tail[top];
+        if u != 0.0 {
+            for (a, m) in tail[top + 1..top + 1 + l.len()].iter_mut().zip(l) {
+                *a -= m * u;
+            }
+        }
+        top += stride;
     }
 }
 
