@@ -58,7 +58,7 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
 <body>
 <a class=\"skip\" href=\"#content\">Skip to the page</a>
 <header class=\"site-head\">
-<a class=\"brand\" href=\"index.html\"><img src=\"assets/mark.svg\" alt=\"\" width=\"32\" height=\"32\"><span>Modebench</span></a>
+<a class=\"brand\" href=\"index.html\">{mark}<span>Modebench</span></a>
 <nav class=\"site-nav\" aria-label=\"Pages\"><ul>
 {nav}</ul></nav>
 </header>
@@ -75,6 +75,17 @@ that matter by test, and follow the codes that apply and a qualified engineer.</
 ",
         nav = navigation(page, frame.pages),
         slug = page.slug,
+        mark = brand_mark(),
+    )
+}
+
+/// The site's mark, drawn inline in the header: as an image it would be a separate SVG document
+/// for the browser to load and lay out before the first paint. The same file is the page icon.
+fn brand_mark() -> String {
+    include_str!("../assets/mark.svg").trim().replacen(
+        "<svg ",
+        "<svg aria-hidden=\"true\" focusable=\"false\" ",
+        1,
     )
 }
 
@@ -113,5 +124,7 @@ mod tests {
         assert!(!html.contains("href=\"/") && !html.contains("src=\"/"), "{html}");
         assert!(!html.contains("boot.js"), "a page without a calculator loads no engine");
         assert!(!html.contains("widget.css"));
+        assert!(html.contains("<a class=\"brand\" href=\"index.html\"><svg aria-hidden=\"true\""), "{html}");
+        assert!(!html.contains("<img"), "the mark is drawn inline, not loaded as an image");
     }
 }
