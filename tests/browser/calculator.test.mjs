@@ -83,6 +83,36 @@ describe("the live calculator", () => {
     });
   }
 
+  test("as built, the editor shows its values fixed; live, its controls take their place without moving", async () => {
+    const editorHeight = (page) =>
+      page.evaluate(() => {
+        const calculator = document.querySelector(".mb-calc");
+        calculator.scrollIntoView();
+        return document.querySelector(".mb-editor").getBoundingClientRect().height;
+      });
+    const still = await browser.newContext({ javaScriptEnabled: false });
+    const built = await still.newPage();
+    await built.goto(site.url + BOOM);
+    const fixed = built.locator(".mb-calc").first();
+    assert.equal(await fixed.locator("input, select, textarea").count(), 0, "no form control before the engine");
+    assert.equal(await fixed.locator(TIP_MASS).textContent(), "2.8 kg");
+    assert.equal(await fixed.evaluate((e) => getComputedStyle(e).contentVisibility), "auto");
+    const fixedHeight = await editorHeight(built);
+    await still.close();
+
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await openLive(context, BOOM);
+    const live = page.locator(".mb-calc").first();
+    assert.ok((await live.locator("input").count()) > 10, "the engine drew the controls");
+    assert.equal(await live.locator(".mb-fixed").count(), 0, "no fixed value is left");
+    assert.equal(await page.locator(TIP_MASS).inputValue(), "2.8 kg");
+    assert.equal(await live.evaluate((e) => getComputedStyle(e).contentVisibility), "visible", "rendered in full once live");
+    const liveHeight = await editorHeight(page);
+    assert.ok(Math.abs(liveHeight - fixedHeight) <= 1, `the editor was ${fixedHeight} px tall fixed, ${liveHeight} px live`);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("a heavier camera head lowers the first frequency; a lighter one raises it", async () => {
     const { context } = await isolatedContext(browser);
     const { page } = await openLive(context, BOOM);

@@ -2,7 +2,7 @@
 //! right field, user text escaped, and the contract's data attributes exact.
 #![cfg(not(target_arch = "wasm32"))]
 
-use modebench_web::render::{self, View};
+use modebench_web::render::{self, Editing, View};
 use modebench_web::{doc, render::widget_html};
 
 const SCENARIOS: [(&str, &str); 4] = [
@@ -21,6 +21,11 @@ fn assert_no_bad_numbers(case: &str, html: &str) {
             "{case}: the markup contains \"{word}\""
         );
     }
+}
+
+/// The value of the `name="…"` attribute in one tag.
+fn attribute<'a>(tag: &'a str, name: &str) -> Option<&'a str> {
+    attributes(tag, name).into_iter().next()
 }
 
 /// The value of every `name="…"` attribute in order.
@@ -93,14 +98,21 @@ fn a_broken_field_gets_its_message_beside_it_and_stale_results() {
     assert_no_bad_numbers("broken mass", &html);
     assert_eq!(attributes(&html, "data-for"), vec!["attachments[0].mass"]);
     assert!(html.contains("class=\"mb-results mb-stale\""));
-    // The error sits inside the mass field's label, right after its input.
+    // The error sits inside the mass field, right after its value.
     let field = html.find("data-field=\"attachments[0].mass\"").unwrap_or(usize::MAX);
     let error = html.find("class=\"mb-field-error\"").unwrap_or(0);
     assert!(
         field < error && !html[field + 1..error].contains("data-field="),
         "the message is not beside the field"
     );
-    assert!(html.contains("value=\"2.8 kgs\""), "what was typed is shown as typed");
+    assert!(
+        html.contains("data-field=\"attachments[0].mass\">2.8 kgs</span>"),
+        "what was typed is shown as typed"
+    );
+    let Ok(doc) = doc::read(&broken) else { panic!("the broken scenario is still JSON") };
+    let error = modebench::solve_json(&broken).err();
+    let live = render::editor_html(&doc, error.as_ref(), Editing::Live);
+    assert!(live.contains("value=\"2.8 kgs\" placeholder=\"kg\" aria-invalid=\"true\">"), "{live}");
 }
 
 #[test]
@@ -172,8 +184,51 @@ fn the_editor_shows_a_field_for_every_part_of_the_scenario() {
     ] {
         assert!(fields.iter().any(|f| f == path), "no field for {path}");
     }
-    let html = render::editor_html(&doc, None);
+    let html = render::editor_html(&doc, None, Editing::Live);
     assert!(html.contains("data-field=\"right.rotational\" value=\"0\""), "numbers are shown as written");
+}
+
+#[test]
+fn the_page_as_built_shows_every_field_fixed_and_no_form_control() {
+    for (case, json) in SCENARIOS {
+        let Ok(doc) = doc::read(json) else { panic!("{case}: the scenario is JSON") };
+        let live = render::editor_html(&doc, None, Editing::Live);
+        let fixed = render::editor_html(&doc, None, Editing::Fixed);
+        for control in ["<input", "<select", "<option", "<label"] {
+            assert!(live.contains(control) || control == "<label", "{case}: the live editor has {control}");
+            assert!(!fixed.contains(control), "{case}: the fixed editor has {control}");
+        }
+        // The same fields in the same order, each showing what was typed (or, when nothing
+        // was, the hint the input would show).
+        assert_eq!(attributes(&fixed, "data-field"), attributes(&live, "data-field"), "{case}");
+        let html = widget_html(json);
+        let mut inputs = 0;
+        for tag in live.split("<input ").skip(1) {
+            let tag = &tag[..tag.find('>').unwrap_or(tag.len())];
+            let (Some(field), Some(value), Some(hint)) =
+                (attribute(tag, "data-field"), attribute(tag, "value"), attribute(tag, "placeholder"))
+            else {
+                continue;
+            };
+            let shown = if value.is_empty() { hint } else { value };
+            assert!(
+                html.contains(&format!("data-field=\"{field}\">{shown}</span>")),
+                "{case}: {field} not shown fixed"
+            );
+            inputs += 1;
+        }
+        assert!(inputs > 10, "{case}: only {inputs} inputs checked");
+        assert!(html.contains(&fixed), "{case}: the page is built with the fixed editor");
+    }
+}
+
+#[test]
+fn a_fixed_select_shows_the_choice_by_name() {
+    let (_, json) = SCENARIOS[0];
+    let Ok(doc) = doc::read(json) else { panic!("the boom scenario is JSON") };
+    let fixed = render::editor_html(&doc, None, Editing::Fixed);
+    assert!(fixed.contains("data-field=\"left\">Clamped</span>"), "{fixed}");
+    assert!(fixed.contains(">Section and material</span>"), "{fixed}");
 }
 
 #[test]

@@ -3,7 +3,7 @@
 
 use super::errors;
 use super::escape::escape;
-use super::form::{Form, TextOptions};
+use super::form::{Editing, Form, TextOptions};
 use super::rows;
 use super::symbols;
 use crate::catalog;
@@ -13,10 +13,10 @@ use serde_json::Value;
 
 /// The editor's inner HTML for a scenario, with `error` (if any) beside the field it concerns,
 /// or above the editor when it concerns no field on show.
-pub fn editor_html(doc: &Value, error: Option<&Error>) -> String {
+pub fn editor_html(doc: &Value, error: Option<&Error>, editing: Editing) -> String {
     // The error's place depends on which fields are on show, so write the form once to learn
     // them, then again with the message in place. Writing it costs microseconds.
-    let mut probe = Form::new(doc, None, None);
+    let mut probe = Form::new(doc, editing, None, None);
     write(&mut probe, String::new());
     let place = error.and_then(|e| {
         let fields: Vec<&str> = probe.fields.iter().map(String::as_str).collect();
@@ -26,13 +26,13 @@ pub fn editor_html(doc: &Value, error: Option<&Error>) -> String {
         (Some(e), None) => errors::field_error_html(e, true),
         _ => String::new(),
     };
-    let mut form = Form::new(doc, error, place);
+    let mut form = Form::new(doc, editing, error, place);
     write(&mut form, general)
 }
 
 /// The field paths the editor shows for a scenario, in page order.
 pub fn field_paths(doc: &Value) -> Vec<String> {
-    let mut form = Form::new(doc, None, None);
+    let mut form = Form::new(doc, Editing::Live, None, None);
     write(&mut form, String::new());
     form.fields
 }

@@ -1,5 +1,8 @@
 //! The editor's building blocks: text fields, selects and checkboxes bound to scenario paths,
 //! with the error message placed beside the field it concerns.
+//!
+//! Each is written in one of two ways (see [`Editing`]): as a form control, or fixed, as the
+//! value in a box of the control's size, for the page as built, before the engine runs.
 
 use super::errors;
 use super::escape::escape;
@@ -9,10 +12,23 @@ use modebench::units::{display_unit, Kind, UnitSystem};
 use modebench::Error;
 use serde_json::Value;
 
+/// Whether the editor can be edited.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Editing {
+    /// Form controls, for the live widget.
+    Live,
+    /// The values as text in boxes the size of the controls, for the page as built: nothing
+    /// there can be edited before the engine has loaded, so nothing pretends to be editable,
+    /// and the browser has no form to examine while it first lays out the page. The engine
+    /// replaces them with the controls, in place, when it takes over.
+    Fixed,
+}
+
 /// The editor being written: the scenario, the unit system, and where the error goes.
 pub(crate) struct Form<'a> {
     pub(crate) doc: &'a Value,
     pub(crate) system: UnitSystem,
+    pub(crate) editing: Editing,
     error: Option<&'a Error>,
     /// The field path the error is shown beside, once known.
     error_at: Option<String>,
@@ -38,8 +54,13 @@ pub(crate) struct TextOptions<'a> {
 }
 
 impl<'a> Form<'a> {
-    pub(crate) fn new(doc: &'a Value, error: Option<&'a Error>, error_at: Option<String>) -> Self {
-        Form { doc, system: crate::doc::unit_system(doc), error, error_at, fields: Vec::new() }
+    pub(crate) fn new(
+        doc: &'a Value,
+        editing: Editing,
+        error: Option<&'a Error>,
+        error_at: Option<String>,
+    ) -> Self {
+        Form { doc, system: crate::doc::unit_system(doc), editing, error, error_at, fields: Vec::new() }
     }
 
     /// Records a field and returns its state: the extra attribute and class when it is the
@@ -74,6 +95,18 @@ impl<'a> Form<'a> {
         };
         let mode = if options.numeric { "numeric" } else { "text" };
         let slot = self.enter(path);
+        if self.editing == Editing::Fixed {
+            let (shown, empty) = if value.is_empty() { (&placeholder, " mb-empty") } else { (&value, "") };
+            return format!(
+                "<div class=\"mb-field{}\"><span class=\"mb-label\">{}</span><span class=\"mb-input mb-fixed{empty}\" \
+                 data-field=\"{}\">{}</span>{}</div>",
+                slot.class,
+                escape(label),
+                escape(path),
+                escape(shown),
+                slot.error
+            );
+        }
         format!(
             "<label class=\"mb-field{}\"><span class=\"mb-label\">{}</span><input class=\"mb-input\" type=\"text\" \
              inputmode=\"{mode}\" autocomplete=\"off\" autocapitalize=\"off\" spellcheck=\"false\" \
@@ -110,6 +143,17 @@ impl<'a> Form<'a> {
         after: &str,
     ) -> String {
         let slot = self.enter(path);
+        if self.editing == Editing::Fixed {
+            let shown = options.iter().find(|(id, _)| *id == current).map_or(current, |(_, name)| *name);
+            return fixed_choice(
+                slot.class,
+                label,
+                &format!(" data-field=\"{}\"", escape(path)),
+                shown,
+                after,
+            ) + &slot.error
+                + "</div>";
+        }
         let mut list = String::new();
         if !options.iter().any(|(id, _)| *id == current) {
             list.push_str(&format!("<option value=\"{0}\" selected>{0}</option>", escape(current)));
@@ -133,6 +177,16 @@ impl<'a> Form<'a> {
     pub(crate) fn tick(&mut self, path: &str, label: &str) -> String {
         let on = path::get(self.doc, path).is_some();
         let slot = self.enter(path);
+        if self.editing == Editing::Fixed {
+            return format!(
+                "<div class=\"mb-field mb-tick{}\"><span class=\"mb-checkbox mb-fixed\" data-field=\"{}\" \
+                 data-checked=\"{on}\"></span><span class=\"mb-label\">{}</span>{}</div>",
+                slot.class,
+                escape(path),
+                escape(label),
+                slot.error
+            );
+        }
         format!(
             "<label class=\"mb-field mb-tick{}\"><input class=\"mb-checkbox\" type=\"checkbox\" data-field=\"{}\"{}{}>\
              <span class=\"mb-label\">{}</span>{}</label>",
@@ -144,4 +198,15 @@ impl<'a> Form<'a> {
             slot.error
         )
     }
+}
+
+/// The opening of a fixed select: its label, the chosen option's words in a box, and what
+/// follows the box (a drawing); the caller adds any message and closes the `div`.
+pub(crate) fn fixed_choice(class: &str, label: &str, attributes: &str, shown: &str, after: &str) -> String {
+    format!(
+        "<div class=\"mb-field mb-choice{class}\"><span class=\"mb-label\">{}</span><span class=\"mb-select-row\">\
+         <span class=\"mb-select mb-fixed\"{attributes}>{}</span>{after}</span>",
+        escape(label),
+        escape(shown)
+    )
 }

@@ -21,6 +21,7 @@ mod symbols;
 pub use editor::{editor_html, field_paths};
 pub use errors::{field_error_html, message, placement};
 pub use escape::escape;
+pub use form::Editing;
 pub use plot::plot_svg;
 pub use results::{results_html, results_inner, View};
 
@@ -28,8 +29,9 @@ use crate::doc;
 use modebench::{Error, Report};
 use serde_json::Value;
 
-/// The whole calculator for a scenario given as JSON text: the root element with the scenario in
-/// `data-modebench`, the editor and the results (or the error beside its field).
+/// The whole calculator for a scenario given as JSON text, as a page is built: the root element
+/// with the scenario in `data-modebench`, the editor with its values fixed until the engine takes
+/// over, and the results (or the error beside its field).
 pub fn widget_html(scenario_json: &str) -> String {
     let (doc, outcome) = match doc::read(scenario_json) {
         Ok(doc) => {
@@ -45,13 +47,19 @@ pub fn widget_html(scenario_json: &str) -> String {
     format!(
         "<div class=\"mb-calc\" data-modebench=\"{}\">{}</div>",
         escape(scenario_json),
-        calculator_inner(&doc, error, report, &View::default())
+        calculator_inner(&doc, error, report, &View::default(), Editing::Fixed)
     )
 }
 
 /// The inside of a calculator's root. With an `error`, `report` is the last good one (or none)
 /// and is shown greyed.
-pub fn calculator_inner(doc: &Value, error: Option<&Error>, report: Option<&Report>, view: &View) -> String {
+pub fn calculator_inner(
+    doc: &Value,
+    error: Option<&Error>,
+    report: Option<&Report>,
+    view: &View,
+    editing: Editing,
+) -> String {
     let title = doc.get("title").and_then(Value::as_str).map(str::trim).filter(|t| !t.is_empty());
     let title = title.map(|t| format!("<h3 class=\"mb-title\">{}</h3>", escape(t))).unwrap_or_default();
     format!(
@@ -59,7 +67,7 @@ pub fn calculator_inner(doc: &Value, error: Option<&Error>, report: Option<&Repo
          script has loaded; until then it shows the worked example.</p><button type=\"button\" class=\"mb-button \
          mb-restore\" data-action=\"restore\">Restore the page's example</button></div><div class=\"mb-body\">\
          <div class=\"mb-editor\">{}</div>{}</div>{}",
-        editor_html(doc, error),
+        editor_html(doc, error, editing),
         results_html(report, error.is_some(), view),
         caution_html()
     )

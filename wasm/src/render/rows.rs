@@ -3,7 +3,7 @@
 
 use super::editor::group;
 use super::escape::escape;
-use super::form::{Form, TextOptions};
+use super::form::{fixed_choice, Editing, Form, TextOptions};
 use crate::catalog::{self, Choice};
 use crate::doc::path;
 use serde_json::Value;
@@ -51,7 +51,7 @@ pub(crate) fn segments(form: &mut Form<'_>) -> String {
             TextOptions { kind: Some(modebench::units::Kind::Length), ..TextOptions::default() },
         ));
         let by_section = segment.get("section").is_some() || segment.get("material").is_some();
-        body.push_str(&segment_by(i, by_section));
+        body.push_str(&segment_by(i, by_section, form.editing));
         if by_section {
             body.push_str(&section_fields(form, &base, segment));
         } else {
@@ -66,15 +66,26 @@ pub(crate) fn segments(form: &mut Form<'_>) -> String {
 }
 
 /// How a segment is described; this choice is not a scenario field but decides which are.
-fn segment_by(index: usize, by_section: bool) -> String {
-    let option = |value: &str, words: &str, on: bool| {
-        format!("<option value=\"{value}\"{}>{words}</option>", if on { " selected" } else { "" })
-    };
+fn segment_by(index: usize, by_section: bool, editing: Editing) -> String {
+    const WAYS: [(&str, &str); 2] =
+        [("section", "Section and material"), ("properties", "Bending stiffness and mass")];
+    let chosen = if by_section { 0 } else { 1 };
+    if editing == Editing::Fixed {
+        return fixed_choice("", "Described by", "", WAYS[chosen].1, "") + "</div>";
+    }
+    let options: String = WAYS
+        .iter()
+        .enumerate()
+        .map(|(i, (value, words))| {
+            format!(
+                "<option value=\"{value}\"{}>{words}</option>",
+                if i == chosen { " selected" } else { "" }
+            )
+        })
+        .collect();
     format!(
         "<label class=\"mb-field mb-choice\"><span class=\"mb-label\">Described by</span><span class=\"mb-select-row\">\
-         <select class=\"mb-select\" data-control=\"segment-by\" data-index=\"{index}\">{}{}</select></span></label>",
-        option("section", "Section and material", by_section),
-        option("properties", "Bending stiffness and mass", !by_section)
+         <select class=\"mb-select\" data-control=\"segment-by\" data-index=\"{index}\">{options}</select></span></label>"
     )
 }
 

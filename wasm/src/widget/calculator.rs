@@ -4,7 +4,7 @@
 
 use super::{dom, storage};
 use crate::doc::{self, Edit, List};
-use crate::render::{self, View};
+use crate::render::{self, Editing, View};
 use modebench::{Error, Report};
 use serde_json::Value;
 use wasm_bindgen::JsCast;
@@ -95,12 +95,11 @@ impl Calculator {
             .collect();
     }
 
-    /// Draws the whole calculator.
     /// Whether the page already shows exactly what the engine just computed: the page's own
     /// scenario, and every mode's frequency in the prerendered table equal, digit for digit, to
-    /// the live one. Then the calculator need not be redrawn when it goes live — which saves
-    /// re-laying out the whole calculator on every page load — and if a single number differs,
-    /// it is redrawn, so what the reader sees is always the engine's own result.
+    /// the live one. Then only the editor is drawn when the calculator goes live (its controls
+    /// replace the fixed values) and the results stay as built; if a single number differs, the
+    /// whole calculator is redrawn, so what the reader sees is always the engine's own result.
     pub(super) fn shows_live_results(&self) -> bool {
         let (Some(report), None, false) = (&self.last, &self.error, self.restored) else { return false };
         let rows = dom::all(&self.root, "tr[data-mode]");
@@ -112,10 +111,25 @@ impl Calculator {
             })
     }
 
+    /// Draws the whole calculator.
     pub(super) fn draw_all(&mut self) {
         self.keep_open_sections();
-        let html = render::calculator_inner(&self.doc, self.error.as_ref(), self.last.as_ref(), &self.view);
+        let html = render::calculator_inner(
+            &self.doc,
+            self.error.as_ref(),
+            self.last.as_ref(),
+            &self.view,
+            Editing::Live,
+        );
         self.root.set_inner_html(&html);
+    }
+
+    /// Draws the editor's controls in place of the fixed values the page was built with,
+    /// leaving the results as they are.
+    pub(super) fn draw_editor(&mut self) {
+        if let Some(editor) = dom::first(&self.root, ".mb-editor") {
+            editor.set_inner_html(&render::editor_html(&self.doc, self.error.as_ref(), Editing::Live));
+        }
     }
 
     /// Draws the results and moves the error mark, leaving the editor's inputs in place.

@@ -39,7 +39,9 @@ fn mount(root: web_sys::Element, index: usize) -> bool {
     });
     if let Ok(mut c) = calculator.try_borrow_mut() {
         c.set_frame(frame.as_ref().unchecked_ref::<js_sys::Function>().clone());
-        if !c.shows_live_results() {
+        if c.shows_live_results() {
+            c.draw_editor();
+        } else {
             c.draw_all();
         }
     }
