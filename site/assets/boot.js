@@ -13,9 +13,27 @@ const parsed =
     ? new Promise((resolve) => document.addEventListener("DOMContentLoaded", resolve, { once: true }))
     : Promise.resolve();
 
+const engineUrl = new URL("./modebench_web_bg.wasm", import.meta.url);
+
+// Compiles the engine while its glue is being imported, rather than after. Streaming
+// compilation needs the host to send .wasm as application/wasm; from any other host the
+// engine is compiled from the downloaded bytes instead.
+function compileEngine() {
+  return WebAssembly.compileStreaming(fetch(engineUrl)).catch(async () => {
+    const response = await fetch(engineUrl);
+    if (!response.ok) {
+      throw new Error(`${engineUrl} answered ${response.status}`);
+    }
+    return WebAssembly.compile(await response.arrayBuffer());
+  });
+}
+
 async function boot() {
+  const compiled = compileEngine();
+  // Should the import fail first, this failure is already reported by it.
+  compiled.catch(() => {});
   const engine = await import("./modebench_web.js");
-  await engine.default();
+  await engine.default({ module_or_path: await compiled });
   await parsed;
   engine.mountAll();
 }

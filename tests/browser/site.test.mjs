@@ -157,6 +157,22 @@ describe("the site as files", () => {
     }
   });
 
+  test("a host that sends the engine with a generic type still gets a live calculator", async () => {
+    // Streaming compilation insists on application/wasm; plenty of file hosts send
+    // application/octet-stream instead, and the page must then compile from the bytes.
+    const context = await browser.newContext();
+    await context.route("**/*.wasm", async (route) => {
+      const response = await route.fetch();
+      await route.fulfill({ response, headers: { ...response.headers(), "content-type": "application/octet-stream" } });
+    });
+    const { page, problems } = await watchedPage(context);
+    await page.goto(site.url + "sensor-boom.html");
+    await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+    assert.equal(await page.locator(".mb-calc[data-engine]").count(), 0, "the engine started");
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("the site works unchanged under a sub-path of another host", async () => {
     // A host that keeps the site in a folder of its own, as internal docs servers do.
     const host = mkdtempSync(join(tmpdir(), "modebench-host-"));
