@@ -117,8 +117,17 @@ pub struct Analysis {
     pub warnings: Vec<Warning>,
 }
 
-/// Runs the exact method, finite elements and the bounds.
-pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
+/// The angular frequencies (rad/s) of the modes [`analyse`] reports, rigid-body modes (0) first,
+/// from the exact method alone: no mode shapes, finite elements or bounds. They are the same
+/// numbers, bit for bit, as the same root finder gives both.
+pub fn exact_omegas(model: &Model, options: &Options) -> Result<Vec<f64>> {
+    check_modes(options)?;
+    let mut omegas = vec![0.0; model.rigid_body_modes()];
+    omegas.extend(exact::frequencies(model, options.modes)?);
+    Ok(omegas)
+}
+
+fn check_modes(options: &Options) -> Result<()> {
     if options.modes == 0 || options.modes > MAX_MODES {
         return Err(Error::new(
             ErrorKind::OutOfRange,
@@ -127,6 +136,12 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         .at("modes")
         .with_value(options.modes));
     }
+    Ok(())
+}
+
+/// Runs the exact method, finite elements and the bounds.
+pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
+    check_modes(options)?;
     let mut warnings = Vec::new();
     let exact_modes = exact::modes(model, options.modes)?;
     let rigid = model.rigid_body_modes();

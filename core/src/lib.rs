@@ -34,6 +34,6 @@ pub use analysis::{analyse, Analysis, Options};
 pub mod report;
 pub mod scenario;
 
-pub use report::{solve, solve_json, solve_value, Report};
+pub use report::{frequencies_value, solve, solve_json, solve_value, Report};
 pub use scenario::Scenario;
 mod sort;

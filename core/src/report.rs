@@ -254,6 +254,32 @@ pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
     solve(&Scenario::from_value(value)?)
 }
 
+/// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
+/// and bit for bit its `frequency_hz`, from the exact method alone. For a first look at a
+/// scenario whose report is known (a page's prerendered one): a fraction of the work of
+/// [`solve_value`]. An error here is the one [`solve_value`] gives, which may also fail in the
+/// steps this leaves out.
+pub fn frequencies_value(value: &serde_json::Value) -> Result<Vec<f64>> {
+    let inputs = Scenario::from_value(value)?.to_model()?;
+    let hz: Vec<f64> = analysis::exact_omegas(&inputs.model, &inputs.options)?
+        .into_iter()
+        .map(|omega| omega / std::f64::consts::TAU)
+        .collect();
+    if !hz.iter().all(|f| f.is_finite()) {
+        return Err(overflow());
+    }
+    Ok(hz)
+}
+
+/// The error of a result too large to compute with.
+fn overflow() -> Error {
+    Error::new(
+        ErrorKind::NoConvergence,
+        "a result overflowed the range of numbers the engine computes with; check the orders of magnitude of \
+         the inputs (units, exponents)",
+    )
+}
+
 /// Reads, checks and solves a scenario given as JSON text.
 pub fn solve_json(text: &str) -> Result<Report> {
     solve(&Scenario::from_json(text)?)
@@ -265,11 +291,7 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
     let analysis = analysis::analyse(&inputs.model, &inputs.options)?;
     let report = build(scenario, inputs, analysis)?;
     if !report.is_finite() {
-        return Err(Error::new(
-            ErrorKind::NoConvergence,
-            "a result overflowed the range of numbers the engine computes with; check the orders of magnitude \
-             of the inputs (units, exponents)",
-        ));
+        return Err(overflow());
     }
     Ok(report)
 }
@@ -529,5 +551,68 @@ fn beam_echo(model: &Model, inputs: &Inputs) -> BeamEcho {
         left: end(model.left()),
         right: end(model.right()),
         attachments,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    const SCENARIOS: [&str; 4] = [
+        include_str!("../../docs/scenarios/sensor-boom.json"),
+        include_str!("../../docs/scenarios/fan-floor-beam-us.json"),
+        include_str!("../../docs/scenarios/filled-pipe-span.json"),
+        include_str!("../../docs/scenarios/absorber-on-platform-beam.json"),
+    ];
+
+    fn both(value: &serde_json::Value) -> (Result<Vec<f64>>, Result<Vec<f64>>) {
+        let quick = frequencies_value(value);
+        let full = solve_value(value).map(|r| r.modes.iter().map(|m| m.frequency_hz).collect());
+        (quick, full)
+    }
+
+    #[test]
+    fn the_quick_frequencies_are_the_reports_bit_for_bit() {
+        for text in SCENARIOS {
+            let Ok(doc) = serde_json::from_str::<serde_json::Value>(text) else { panic!("{text}") };
+            let mut cases = vec![doc.clone()];
+            // The other theory, and a beam free at both ends (two rigid-body modes at 0 Hz).
+            let mut other = doc.clone();
+            other["theory"] = serde_json::json!("timoshenko");
+            cases.push(other);
+            let mut free = doc.clone();
+            free["left"] = serde_json::json!("free");
+            free["right"] = serde_json::json!("free");
+            cases.push(free);
+            for case in cases {
+                let (quick, full) = match both(&case) {
+                    (Ok(quick), Ok(full)) => (quick, full),
+                    // Shear needs a section; a beam given by EI and mass alone cannot be Timoshenko.
+                    (Err(quick), Err(full)) if case["theory"] == "timoshenko" => {
+                        assert_eq!(quick.to_string(), full.to_string());
+                        continue;
+                    }
+                    other => panic!("{case}: {other:?}"),
+                };
+                assert!(!quick.is_empty());
+                let same = quick.len() == full.len()
+                    && quick.iter().zip(&full).all(|(a, b)| a.to_bits() == b.to_bits());
+                assert!(same, "{case}: {quick:?} quick, {full:?} in the report");
+            }
+        }
+    }
+
+    #[test]
+    fn a_scenario_the_quick_path_refuses_is_refused_by_the_report_with_the_same_message() {
+        let Ok(mut doc) = serde_json::from_str::<serde_json::Value>(SCENARIOS[0]) else { panic!() };
+        for (field, value) in [("modes", serde_json::json!(0)), ("left", serde_json::json!("welded"))] {
+            let mut case = doc.clone();
+            case[field] = value;
+            let (Err(quick), Err(full)) = both(&case) else { panic!("{case} should be refused") };
+            assert_eq!(quick.to_string(), full.to_string());
+        }
+        doc["attachments"][0]["mass"] = serde_json::json!("2.8 furlongs");
+        let (Err(quick), Err(full)) = both(&doc) else { panic!("a length is not a mass") };
+        assert_eq!(quick.to_string(), full.to_string());
     }
 }
