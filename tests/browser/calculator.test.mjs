@@ -113,6 +113,20 @@ describe("the live calculator", () => {
     await context.close();
   });
 
+  test("choosing a mode as soon as the calculator is live draws that mode's shape", async () => {
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await openLive(context, BOOM);
+    const caption = () => page.locator(".mb-calc svg.mb-plot title").first().textContent();
+    assert.match(await caption(), /^Mode 1: /);
+    await page.locator('.mb-calc [data-show-mode="3"]').first().click();
+    await page.waitForFunction(() => document.querySelector(".mb-calc svg.mb-plot title")?.textContent.startsWith("Mode 3: "));
+    const hz = await page.locator('table.mb-modes tr[data-mode="3"] td[data-hz]').first().getAttribute("data-hz");
+    assert.ok((await caption()).includes(`${Number(hz).toPrecision(4)} Hz`), `${await caption()} against ${hz} Hz`);
+    assert.equal(await page.locator('.mb-calc [data-show-mode="3"]').first().getAttribute("aria-pressed"), "true");
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("a heavier camera head lowers the first frequency; a lighter one raises it", async () => {
     const { context } = await isolatedContext(browser);
     const { page } = await openLive(context, BOOM);

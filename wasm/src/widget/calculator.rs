@@ -28,6 +28,10 @@ pub(super) struct Calculator {
     updated_at: f64,
     /// Whether the scenario came from the reader's stored edits rather than the page.
     restored: bool,
+    /// Whether the full report of the scenario on show is still to be computed: the page's
+    /// built results were confirmed exact from the frequencies alone, and nothing has needed
+    /// more since.
+    deferred: bool,
 }
 
 /// A display frame at 60 Hz, ms.
@@ -49,6 +53,7 @@ impl Calculator {
             pending: false,
             updated_at: f64::NEG_INFINITY,
             restored: false,
+            deferred: false,
         };
         match storage::load(&c.key) {
             Some((doc, mode)) => {
@@ -60,11 +65,37 @@ impl Calculator {
                 if let Ok(example) = doc::read(&c.original) {
                     c.last = doc::solve(&example).ok();
                 }
+                c.solve();
             }
             None => c.load_example(),
         }
-        c.solve();
         c
+    }
+
+    /// Takes over the calculator. When the page shows exactly what the engine computes for its
+    /// own scenario, only the editor is drawn (its controls replace the fixed values) and the
+    /// full report waits until something needs it ([`Calculator::complete`]); otherwise the
+    /// scenario is solved and the whole calculator drawn. Returns whether the report waits.
+    pub(super) fn go_live(&mut self) -> bool {
+        if self.shows_live_results() {
+            self.deferred = true;
+            self.draw_editor();
+        } else {
+            if !self.restored {
+                self.solve();
+            }
+            self.draw_all();
+        }
+        self.deferred
+    }
+
+    /// Computes the full report of the scenario on show if it is still waiting: before any
+    /// interaction, and once the page is idle after the calculator went live.
+    pub(super) fn complete(&mut self) {
+        if self.deferred {
+            self.deferred = false;
+            self.solve();
+        }
     }
 
     fn load_example(&mut self) {
@@ -95,19 +126,20 @@ impl Calculator {
             .collect();
     }
 
-    /// Whether the page already shows exactly what the engine just computed: the page's own
-    /// scenario, and every mode's frequency in the prerendered table equal, digit for digit, to
-    /// the live one. Then only the editor is drawn when the calculator goes live (its controls
-    /// replace the fixed values) and the results stay as built; if a single number differs, the
-    /// whole calculator is redrawn, so what the reader sees is always the engine's own result.
-    pub(super) fn shows_live_results(&self) -> bool {
-        let (Some(report), None, false) = (&self.last, &self.error, self.restored) else { return false };
+    /// Whether the page already shows exactly what the engine computes: the page's own scenario,
+    /// and every mode's frequency in the prerendered table equal, digit for digit, to the one the
+    /// engine finds now, in this browser. The frequencies come from the exact method alone, a
+    /// fraction of a full solve; if a single one differs the calculator is solved and redrawn, so
+    /// what the reader sees is always the engine's own result.
+    fn shows_live_results(&self) -> bool {
+        let (None, false) = (&self.error, self.restored) else { return false };
+        let Ok(frequencies) = doc::frequencies(&self.doc) else { return false };
         let rows = dom::all(&self.root, "tr[data-mode]");
-        rows.len() == report.modes.len()
-            && report.modes.iter().all(|m| {
-                let selector = format!("tr[data-mode=\"{}\"] td[data-hz]", m.number);
+        rows.len() == frequencies.len()
+            && frequencies.iter().enumerate().all(|(i, hz)| {
+                let selector = format!("tr[data-mode=\"{}\"] td[data-hz]", i + 1);
                 dom::first(&self.root, &selector).and_then(|td| td.get_attribute("data-hz"))
-                    == Some(format!("{}", m.frequency_hz))
+                    == Some(format!("{hz}"))
             })
     }
 
@@ -255,6 +287,9 @@ impl Calculator {
 
     pub(super) fn handle(&mut self, event: &Event) {
         let Some(target) = event.target().and_then(|t| t.dyn_into::<Element>().ok()) else { return };
+        // Edits build on the report of what was on show (a new row takes sensible values from
+        // it), an invalid edit leaves it on show greyed, and a chosen mode is drawn from it.
+        self.complete();
         match event.type_().as_str() {
             "input" => self.on_input(&target),
             "change" => self.on_change(&target),
@@ -324,6 +359,7 @@ impl Calculator {
     fn restore(&mut self) {
         storage::clear(&self.key);
         self.error = None;
+        self.deferred = false;
         self.view = View::default();
         self.load_example();
         self.solve();

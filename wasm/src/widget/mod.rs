@@ -28,6 +28,28 @@ pub(crate) fn mount_all() -> usize {
     started
 }
 
+/// How long after going live a calculator whose report waits computes it, ms: after the page's
+/// first frames, and most likely before the reader's first touch (which computes it anyway).
+const COMPLETE_AFTER_MS: i32 = 200;
+
+/// Computes a waiting report once the page has settled.
+fn complete_later(calculator: &Rc<RefCell<Calculator>>) {
+    let Some(window) = web_sys::window() else { return };
+    let calculator = Rc::clone(calculator);
+    // A plain closure kept for the page's life, like the others: the one-shot kind would need
+    // wasm-bindgen to find its glue in a function table that wasm-opt has already rewritten.
+    let later = Closure::<dyn Fn()>::new(move || {
+        if let Ok(mut c) = calculator.try_borrow_mut() {
+            c.complete();
+        }
+    });
+    let _ = window.set_timeout_with_callback_and_timeout_and_arguments_0(
+        later.as_ref().unchecked_ref(),
+        COMPLETE_AFTER_MS,
+    );
+    later.forget();
+}
+
 /// Takes over one calculator: draws it from the stored or the page's scenario and listens.
 fn mount(root: web_sys::Element, index: usize) -> bool {
     let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index)));
@@ -37,16 +59,16 @@ fn mount(root: web_sys::Element, index: usize) -> bool {
             c.flush();
         }
     });
+    let mut deferred = false;
     if let Ok(mut c) = calculator.try_borrow_mut() {
         c.set_frame(frame.as_ref().unchecked_ref::<js_sys::Function>().clone());
-        if c.shows_live_results() {
-            c.draw_editor();
-        } else {
-            c.draw_all();
-        }
+        deferred = c.go_live();
     }
     // Both callbacks live as long as the page.
     frame.forget();
+    if deferred {
+        complete_later(&calculator);
+    }
     let state = Rc::clone(&calculator);
     // A plain `Fn` closure, because the browser may call it again while it runs: replacing a
     // focused input during a redraw makes it fire `change` at once. That nested event finds the
