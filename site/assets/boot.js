@@ -30,7 +30,8 @@ function compileEngine() {
 
 async function boot() {
   const compiled = compileEngine();
-  // Should the import fail first, this failure is already reported by it.
+  // If the import below fails, it is that failure the page reports; a failed compilation
+  // left unawaited must not also surface as an unhandled rejection.
   compiled.catch(() => {});
   const engine = await import("./modebench_web.js");
   await engine.default({ module_or_path: await compiled });

@@ -90,11 +90,15 @@ impl Calculator {
     }
 
     /// Computes the full report of the scenario on show if it is still waiting: before any
-    /// interaction, and once the page is idle after the calculator went live.
+    /// interaction, and once the page is idle after the calculator went live. Should the full
+    /// solve fail where the frequencies alone did not, the calculator is redrawn to say so.
     pub(super) fn complete(&mut self) {
         if self.deferred {
             self.deferred = false;
             self.solve();
+            if self.error.is_some() {
+                self.draw_all();
+            }
         }
     }
 
