@@ -84,9 +84,7 @@ pub fn breakdown(
     }
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
-        Ok::<f64, Error>(converted.si)
+        units::convert_field(quantity, kind, field, &mut conversions)
     };
     let not_negative = |value: f64, quantity: &Quantity, field: &str, what: &str| {
         if value >= 0.0 {

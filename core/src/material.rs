@@ -225,9 +225,7 @@ fn resolve_custom(
 ) -> Result<ResolvedMaterial, Error> {
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
-        Ok::<f64, Error>(converted.si)
+        units::convert_field(quantity, kind, field, &mut conversions)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;
     let e = plausible(e, youngs_modulus, "youngs_modulus", "Young's modulus", MODULUS_RANGE, Kind::Pressure)?;

@@ -326,8 +326,6 @@ impl Reader {
     }
 
     fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
-        let converted = units::convert(quantity, kind).map_err(|e| e.at(field))?;
-        self.conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
-        Ok(converted.si)
+        units::convert_field(quantity, kind, field, &mut self.conversions)
     }
 }

@@ -59,11 +59,7 @@ struct Reader {
 impl Reader {
     fn read(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
         self.written.push((path.to_string(), q.to_string()));
-        let converted = units::convert(q, kind).map_err(|e| e.at(path))?;
-        if let Some(c) = converted.conversion {
-            self.conversions.push((path.to_string(), c));
-        }
-        Ok(converted.si)
+        units::convert_field(q, kind, path, &mut self.conversions)
     }
 
     /// A stiffness that may also be written "rigid".

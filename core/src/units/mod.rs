@@ -135,6 +135,19 @@ pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
     }
 }
 
+/// [`convert`] for the value written in `field`: an error names the field, and a conversion
+/// applied is recorded in `conversions` with the field's name.
+pub fn convert_field(
+    quantity: &Quantity,
+    kind: Kind,
+    field: &str,
+    conversions: &mut Vec<(String, Conversion)>,
+) -> Result<f64, Error> {
+    let converted = convert(quantity, kind).map_err(|e| e.at(field))?;
+    conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
+    Ok(converted.si)
+}
+
 /// Reads a quantity string such as "27.2 in" for a field of the given kind and converts it to SI.
 pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
     let shown = shorten(text.trim());
