@@ -28,10 +28,6 @@ pub(super) struct Calculator {
     updated_at: f64,
     /// Whether the scenario came from the reader's stored edits rather than the page.
     restored: bool,
-    /// Whether the full report of the scenario on show is still to be computed: the page's
-    /// built results were confirmed exact from the frequencies alone, and nothing has needed
-    /// more since.
-    deferred: bool,
 }
 
 /// A display frame at 60 Hz, ms.
@@ -53,7 +49,6 @@ impl Calculator {
             pending: false,
             updated_at: f64::NEG_INFINITY,
             restored: false,
-            deferred: false,
         };
         match storage::load(&c.key) {
             Some((doc, mode)) => {
@@ -78,7 +73,6 @@ impl Calculator {
     /// scenario is solved and the whole calculator drawn. Returns whether the report waits.
     pub(super) fn go_live(&mut self) -> bool {
         if self.shows_live_results() {
-            self.deferred = true;
             self.draw_editor();
         } else {
             if !self.restored {
@@ -86,15 +80,20 @@ impl Calculator {
             }
             self.draw_all();
         }
-        self.deferred
+        self.report_waits()
+    }
+
+    /// Whether the scenario on show has not been solved yet: neither a report nor an error.
+    /// Every path that shows a scenario solves it, except the page's own confirmed one.
+    fn report_waits(&self) -> bool {
+        self.last.is_none() && self.error.is_none()
     }
 
     /// Computes the full report of the scenario on show if it is still waiting: before any
     /// interaction, and once the page is idle after the calculator went live. Should the full
     /// solve fail where the frequencies alone did not, the calculator is redrawn to say so.
     pub(super) fn complete(&mut self) {
-        if self.deferred {
-            self.deferred = false;
+        if self.report_waits() {
             self.solve();
             if self.error.is_some() {
                 self.draw_all();
@@ -363,7 +362,6 @@ impl Calculator {
     fn restore(&mut self) {
         storage::clear(&self.key);
         self.error = None;
-        self.deferred = false;
         self.view = View::default();
         self.load_example();
         self.solve();
