@@ -5,8 +5,9 @@
 //
 // The engine is imported dynamically so that a page whose engine cannot load (an old browser,
 // a host that will not serve it, a copy of the site without the engine) keeps
-// its prerendered results exactly as they are: nothing is hidden before the engine has taken
-// over, and a failure only leaves a note on the calculators for the curious.
+// its prerendered results exactly as they are. Marking the calculators unavailable shows their
+// bodies at once (the style sheet otherwise holds them back for up to half a second while the
+// engine starts); the console note is for the curious.
 
 const parsed =
   document.readyState === "loading"

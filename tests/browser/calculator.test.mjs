@@ -96,7 +96,8 @@ describe("the live calculator", () => {
     const fixed = built.locator(".mb-calc").first();
     assert.equal(await fixed.locator("input, select, textarea").count(), 0, "no form control before the engine");
     assert.equal(await fixed.locator(TIP_MASS).textContent(), "2.8 kg");
-    assert.equal(await fixed.evaluate((e) => getComputedStyle(e).contentVisibility), "auto");
+    const body = (calculator) => calculator.evaluate((e) => getComputedStyle(e.querySelector(".mb-body")).contentVisibility);
+    assert.equal(await body(fixed), "auto", "with script off, laid out once near the view");
     const fixedHeight = await editorHeight(built);
     await still.close();
 
@@ -106,10 +107,53 @@ describe("the live calculator", () => {
     assert.ok((await live.locator("input").count()) > 10, "the engine drew the controls");
     assert.equal(await live.locator(".mb-fixed").count(), 0, "no fixed value is left");
     assert.equal(await page.locator(TIP_MASS).inputValue(), "2.8 kg");
-    assert.equal(await live.evaluate((e) => getComputedStyle(e).contentVisibility), "visible", "rendered in full once live");
+    assert.equal(await body(live), "visible", "rendered in full once live");
     const liveHeight = await editorHeight(page);
     assert.ok(Math.abs(liveHeight - fixedHeight) <= 1, `the editor was ${fixedHeight} px tall fixed, ${liveHeight} px live`);
     assert.deepEqual(problems, []);
+    await context.close();
+  });
+
+  test("before the engine, the calculator's body is held back for half a second at most, and printed in full", async () => {
+    const { context } = await isolatedContext(browser);
+    // The page's script never arrives, so only the style sheet decides what shows.
+    await context.route("**/assets/boot.js", (route) => route.abort());
+    await context.addInitScript(() => {
+      document.addEventListener("DOMContentLoaded", () => {
+        const body = document.querySelector(".mb-calc > .mb-body");
+        // Held at its start, so that what follows does not race the clock.
+        const hold = body.getAnimations().find((a) => a.animationName === "mb-let-through");
+        hold?.pause();
+        window.__hold = hold ?? null;
+      });
+    });
+    const page = await context.newPage();
+    await page.goto(site.url + BOOM);
+    const state = () =>
+      page.evaluate(() => {
+        const table = document.querySelector(".mb-calc table.mb-modes");
+        return {
+          body: getComputedStyle(document.querySelector(".mb-calc > .mb-body")).contentVisibility,
+          table: table.checkVisibility({ contentVisibilityAuto: true }),
+          head: document.querySelector(".mb-calc .mb-title").checkVisibility(),
+        };
+      });
+    assert.equal(await page.evaluate(() => window.__hold?.effect.getTiming().delay), 500);
+    await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
+    assert.deepEqual(await state(), { body: "hidden", table: false, head: true }, "held back, title shown");
+    await page.emulateMedia({ media: "print" });
+    assert.equal((await state()).table, true, "printed in full even while held back");
+    await page.emulateMedia({ media: "screen" });
+    await page.evaluate(() => window.__hold.play());
+    await page.waitForFunction(
+      () => getComputedStyle(document.querySelector(".mb-calc > .mb-body")).contentVisibility === "auto",
+      null,
+      { timeout: 5000 },
+    );
+    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    assert.deepEqual(await state(), { body: "auto", table: true, head: true }, "let through: the worked example shows");
+    const hz = await page.locator(MODE_1).first().getAttribute("data-hz");
+    assert.ok(Number(hz) > 0, `prerendered first frequency ${hz}`);
     await context.close();
   });
 

@@ -8,11 +8,17 @@
 //
 // For example, with the current build copied to /tmp/before before a change:
 //   node compare-loads.mjs /tmp/before ../../dist sensor-boom.html 25
+//
+// VIEWPORT=768x1024 (or another size) loads at that size instead of the default 1280 × 720.
 
 import { resolve } from "node:path";
 import { launch, startSite } from "./support.mjs";
 
 const [dirA, dirB, file = "sensor-boom.html", loads = "21"] = process.argv.slice(2);
+// VIEWPORT=768x1024 loads at a tablet's size instead of the browser's default 1280 × 720.
+const VIEWPORT = process.env.VIEWPORT
+  ? (([width, height]) => ({ width, height }))(process.env.VIEWPORT.split("x").map(Number))
+  : null;
 if (!dirA || !dirB) {
   console.error("usage: node compare-loads.mjs <built site A> <built site B> [page] [loads]");
   process.exit(2);
@@ -34,7 +40,7 @@ const results = sites.map(() => ({ paint: [], live: [] }));
 try {
   for (let load = 0; load < Number(loads); load += 1) {
     for (const [i, site] of sites.entries()) {
-      const context = await browser.newContext();
+      const context = await browser.newContext(VIEWPORT ? { viewport: VIEWPORT } : {});
       await context.addInitScript(() => {
         new MutationObserver(() => {
           if (window.__live === undefined && document.querySelector('.mb-calc[data-live="true"] td[data-hz]')) {
