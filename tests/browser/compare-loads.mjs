@@ -12,7 +12,7 @@
 // VIEWPORT=768x1024 (or another size) loads at that size instead of the default 1280 × 720.
 
 import { resolve } from "node:path";
-import { launch, startSite } from "./support.mjs";
+import { SETTLE_MS, launch, startSite } from "./support.mjs";
 
 const [dirA, dirB, file = "sensor-boom.html", loads = "21"] = process.argv.slice(2);
 // VIEWPORT=768x1024 loads at a tablet's size instead of the browser's default 1280 × 720.
@@ -49,6 +49,7 @@ try {
         }).observe(document, { subtree: true, attributes: true, childList: true });
       });
       const page = await context.newPage();
+      await new Promise((resolve) => setTimeout(resolve, SETTLE_MS));
       await page.goto(site.url + file);
       await page.waitForFunction(() => window.__live !== undefined, null, { timeout: 10_000 }).catch(() => {});
       const [paint, live] = await page.evaluate(() => [
