@@ -120,9 +120,9 @@ describe("the live calculator", () => {
     await context.route("**/assets/boot.js", (route) => route.abort());
     await context.addInitScript(() => {
       document.addEventListener("DOMContentLoaded", () => {
-        const body = document.querySelector(".mb-calc > .mb-body");
+        const calculator = document.querySelector(".mb-calc");
         // Held at its start, so that what follows does not race the clock.
-        const hold = body.getAnimations().find((a) => a.animationName === "mb-let-through");
+        const hold = calculator.getAnimations().find((a) => a.animationName === "mb-let-through");
         hold?.pause();
         window.__hold = hold ?? null;
       });
