@@ -15,14 +15,12 @@ import { resolve } from "node:path";
 import { SETTLE_MS, launch, startSite } from "./support.mjs";
 
 const [dirA, dirB, file = "sensor-boom.html", loads = "21"] = process.argv.slice(2);
-// VIEWPORT=768x1024 loads at a tablet's size instead of the browser's default 1280 × 720.
-const VIEWPORT = process.env.VIEWPORT
-  ? (([width, height]) => ({ width, height }))(process.env.VIEWPORT.split("x").map(Number))
-  : null;
-if (!dirA || !dirB) {
-  console.error("usage: node compare-loads.mjs <built site A> <built site B> [page] [loads]");
+const size = process.env.VIEWPORT?.match(/^(\d+)x(\d+)$/);
+if (!dirA || !dirB || (process.env.VIEWPORT && !size)) {
+  console.error("usage: [VIEWPORT=<width>x<height>] node compare-loads.mjs <built site A> <built site B> [page] [loads]");
   process.exit(2);
 }
+const VIEWPORT = size ? { width: Number(size[1]), height: Number(size[2]) } : null;
 
 function summary(values) {
   const sorted = values.filter((v) => v !== null).sort((a, b) => a - b);

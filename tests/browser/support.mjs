@@ -23,7 +23,8 @@ export const BUDGET = {
 // A cold load is timed in a fresh browser context (nothing cached) opened this long before the
 // page is asked for. Opening a context, and closing the previous one, keeps the browser busy for
 // a few hundred milliseconds on a small machine; a reader's browser is open and idle when they
-// follow a link. Without the pause the medians here came out 40–70 ms slower, A/B, 21 loads each.
+// follow a link. Without the pause the medians here came out 17–68 ms slower (same build A/B,
+// 15–21 loads each).
 export const SETTLE_MS = 500;
 
 // The two tablet sizes the site is laid out for.
