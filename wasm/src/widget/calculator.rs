@@ -60,7 +60,6 @@ impl Calculator {
                 if let Ok(example) = doc::read(&c.original) {
                     c.last = doc::solve(&example).ok();
                 }
-                c.solve();
             }
             None => c.load_example(),
         }
@@ -75,9 +74,7 @@ impl Calculator {
         if self.shows_live_results() {
             self.draw_editor();
         } else {
-            if !self.restored {
-                self.solve();
-            }
+            self.solve();
             self.draw_all();
         }
         self.report_waits()
