@@ -127,4 +127,11 @@ mod tests {
         assert!(html.contains("<a class=\"brand\" href=\"index.html\"><svg aria-hidden=\"true\""), "{html}");
         assert!(!html.contains("<img"), "the mark is drawn inline, not loaded as an image");
     }
+
+    #[test]
+    fn the_readme_gives_hosts_the_policy_the_pages_carry() {
+        // Firms that host `dist/` themselves copy the header's value from the README.
+        let readme = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/../README.md")).unwrap();
+        assert!(readme.contains(CSP), "README.md must show the policy exactly as in template.rs:\n{CSP}");
+    }
 }
