@@ -143,7 +143,7 @@ fn send_file(out: &mut Timed<'_>, mut head: Vec<u8>, file: &File, length: u64) -
     if sent < length {
         // The file shrank while it was sent; closing the connection short of the announced
         // length tells the client that the body is incomplete.
-        return Err(io::Error::new(io::ErrorKind::UnexpectedEof, "the file shrank while it was sent"));
+        return Err(io::Error::other(format!("a file shrank while it was sent ({sent} of {length} bytes)")));
     }
     out.write_all(&head)?;
     out.flush()

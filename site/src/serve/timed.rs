@@ -55,8 +55,5 @@ impl Write for Timed<'_> {
 /// business and not worth a line on the server's console.
 pub(super) fn is_client_gone(error: &io::Error) -> bool {
     use io::ErrorKind::*;
-    matches!(
-        error.kind(),
-        TimedOut | WouldBlock | BrokenPipe | ConnectionReset | ConnectionAborted | UnexpectedEof
-    )
+    matches!(error.kind(), TimedOut | WouldBlock | BrokenPipe | ConnectionReset | ConnectionAborted)
 }
