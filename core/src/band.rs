@@ -15,17 +15,6 @@ pub(crate) struct SymBand {
     data: Vec<f64>,
 }
 
-/// Inertia of a symmetric matrix from its LDLᵀ pivots (the determinant, when needed, comes from
-/// the pivoted [`SymBand::lu`]).
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub(crate) struct Inertia {
-    /// Number of negative pivots.
-    pub(crate) negative: usize,
-    /// Smallest |pivot| relative to the magnitude of its diagonal entry; near zero means the
-    /// matrix is close to singular and a count may be unreliable.
-    pub(crate) weakest_pivot: f64,
-}
-
 /// Calls `$kernel::<B>()` with the half-bandwidth as a constant for the narrow bands of beams
 /// (1 to 6), so that the kernels' short inner loops unroll; any other width runs the same kernel
 /// with `B = 0`, which reads the width at run time. The WebAssembly build keeps the general
@@ -143,20 +132,22 @@ impl SymBand {
         d
     }
 
-    /// Inertia, factoring in place. Pivots are computed without interchanges; a pivot that is
-    /// exactly zero is reported through `weakest_pivot == 0` and counted as non-negative.
-    pub(crate) fn into_inertia(mut self) -> Inertia {
-        let diag: Vec<f64> = (0..self.n).map(|i| self.data[i * (self.b + 1)].abs()).collect();
+    /// The inertia count and the determinant from one LDLᵀ factorisation without
+    /// interchanges: the Sturm count and the root function of the finite-element search. Without
+    /// pivoting a pivot can be tiny where a leading minor is nearly singular; the determinant is
+    /// still the product of the pivots. An exactly zero pivot before the last spoils the rest of
+    /// the factorisation and shows as a NaN sign, on which the search moves the trial frequency;
+    /// a zero last pivot is a zero determinant, a trial on the root to rounding.
+    pub(crate) fn into_evaluation(mut self) -> crate::roots::Evaluation {
         let d = self.factor_in_place();
-        let mut out = Inertia { negative: 0, weakest_pivot: f64::INFINITY };
-        for (p, a) in d.iter().zip(&diag) {
-            if *p < 0.0 {
-                out.negative += 1;
-            }
-            let relative = if *a > 0.0 { p.abs() / a } else { p.abs() };
-            out.weakest_pivot = out.weakest_pivot.min(relative);
+        let mut product = crate::det::LogProduct::one();
+        let mut below = 0;
+        for p in &d {
+            below += usize::from(*p < 0.0);
+            product.mul(*p);
         }
-        out
+        let sign = if d.iter().all(|p| p.is_finite()) { product.sign() } else { f64::NAN };
+        crate::roots::Evaluation { below, sign, log: product.ln_abs() }
     }
 
     /// The LDLᵀ factorisation without interchanges, kept for solving. For the inertia of a
@@ -365,36 +356,6 @@ impl BandLu {
         self.ab[j * self.ld + self.ld - 1 - self.kl]
     }
 
-    /// Sign and ln|·| of the determinant.
-    pub(crate) fn determinant(&self) -> (f64, f64) {
-        // A running product kept in range by exact powers of two (2⁵⁰⁰): one logarithm in all,
-        // rather than one per pivot.
-        const SCALE: f64 = 3.273_390_607_896_142e150;
-        let mut product = 1.0f64;
-        let mut shifts: i32 = 0; // factors of SCALE taken out (positive) or put in (negative)
-        let mut sign = 1.0;
-        for j in 0..self.n {
-            if self.pivots[j] != j {
-                sign = -sign;
-            }
-            let d = self.diagonal(j);
-            if d == 0.0 {
-                return (0.0, f64::NEG_INFINITY);
-            }
-            sign *= d.signum();
-            product *= d.abs();
-            while product > SCALE {
-                product /= SCALE;
-                shifts += 1;
-            }
-            while product < 1.0 / SCALE {
-                product *= SCALE;
-                shifts -= 1;
-            }
-        }
-        (sign, product.ln() + f64::from(shifts) * 500.0 * std::f64::consts::LN_2)
-    }
-
     /// Solves A·x = r. A pivot that vanishes is replaced by a tiny value, the usual device that
     /// makes inverse iteration converge in one step.
     pub(crate) fn solve(&self, rhs: &[f64]) -> Vec<f64> {
@@ -460,19 +421,19 @@ mod tests {
     }
 
     #[test]
-    fn inertia_matches_dense_eigenvalues() {
-        // Sylvester's law of inertia: the LDLᵀ pivot signs equal the eigenvalue signs, checked
-        // against nalgebra's dense symmetric eigensolver on seeded random matrices.
+    fn count_and_determinant_match_dense_eigenvalues() {
+        // Sylvester's law of inertia: the LDLᵀ pivot signs equal the eigenvalue signs, and the
+        // pivots' product is the eigenvalues' product; checked against nalgebra's dense symmetric
+        // eigensolver on seeded random matrices.
         for seed in 0..40 {
             let (band, dense) = sample(12, 3, 0.3 * (seed % 7) as f64 - 1.0, seed);
             let eig = dense.clone().symmetric_eigen().eigenvalues;
             let negative = eig.iter().filter(|v| **v < 0.0).count();
-            let inertia = band.clone().into_inertia();
-            assert_eq!(inertia.negative, negative, "seed {seed}");
+            let evaluation = band.into_evaluation();
+            assert_eq!(evaluation.below, negative, "seed {seed}");
             let det: f64 = eig.iter().product();
-            let (sign, log) = band.lu().determinant();
-            assert!((log - det.abs().ln()).abs() < 1e-9, "seed {seed}");
-            assert_eq!(sign, det.signum(), "seed {seed}");
+            assert!((evaluation.log - det.abs().ln()).abs() < 1e-9, "seed {seed}");
+            assert_eq!(evaluation.sign, det.signum(), "seed {seed}");
         }
     }
 
@@ -492,10 +453,6 @@ mod tests {
                     "seed {seed} (b = {b}) row {i}"
                 );
             }
-            let (sign, log) = band.lu().determinant();
-            let det = dense.determinant();
-            assert_eq!(sign, det.signum(), "seed {seed} (b = {b})");
-            assert!((log - det.abs().ln()).abs() < 1e-9, "seed {seed} (b = {b})");
             // A positive definite one through the LDLᵀ path.
             let (spd, dense_spd) = sample(15, 4, 12.0, 200 + seed);
             let x = spd.solve_positive(std::slice::from_ref(&rhs)).unwrap().remove(0);

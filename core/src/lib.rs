@@ -20,6 +20,7 @@ pub use error::{Error, ErrorKind, Result};
 pub mod model;
 
 mod band;
+mod det;
 mod layout;
 mod member;
 mod roots;

@@ -1,11 +1,11 @@
-//! Assembly of the global dynamic stiffness K(ω) and the Wittrick–Williams count.
+//! Assembly of the global dynamic stiffness K(ω) on a layout, for the mode shapes; the count and
+//! the determinant come from the station sweep instead (`sweep.rs`).
 
 use crate::band::SymBand;
 use crate::error::{Error, ErrorKind, Result};
 use crate::layout::Layout;
 use crate::member::{Evaluated, Member};
 use crate::model::Model;
-use crate::roots::{Count, Determinant, Spectrum};
 
 /// A layout with one member per span, ready to assemble at any ω.
 #[derive(Clone, Debug)]
@@ -87,46 +87,5 @@ impl System {
             }
         }
         Ok((k, poles))
-    }
-}
-
-/// The exact method's spectrum: counted on the natural layout (one member between neighbouring
-/// stations) and polished on a layout cut fine enough that no piece reaches its own first
-/// clamped–clamped frequency, so that the determinant has no poles.
-pub(crate) struct Exact<'a> {
-    pub(crate) model: &'a Model,
-    pub(crate) natural: System,
-}
-
-/// Pivots smaller than this fraction of their diagonal entry make the count doubtful.
-const WEAK_PIVOT: f64 = 1e-10;
-
-impl Spectrum for Exact<'_> {
-    /// J(ω) = J₀(ω) + s{K(ω)}. When a pivot nearly vanishes (a leading minor of K is singular at
-    /// ω, which says nothing about the structure) ω is nudged by a few parts in 10⁹.
-    fn count(&self, omega: f64) -> Result<Count> {
-        let mut trial = omega;
-        for attempt in 1..=4 {
-            let (k, poles) = self.natural.assemble_with_poles(trial)?;
-            let inertia = k.into_inertia();
-            if inertia.weakest_pivot > WEAK_PIVOT || attempt == 4 {
-                return Ok(Count { below: poles.saturating_add(inertia.negative), poles });
-            }
-            trial = omega * (1.0 + 1e-9 * attempt as f64);
-        }
-        unreachable!("the loop returns on its last attempt")
-    }
-
-    fn determinant(&self, omega_max: f64) -> Result<Determinant<'_>> {
-        let model = self.model;
-        let layout = Layout::new(model, &|span| {
-            Member::new(&model.segments()[span.segment], span.length, model.theory())
-                .pole_free_pieces(omega_max)
-        })?;
-        let refined = System::new(model, layout);
-        // A Timoshenko member's stiffness is itself condensed from a chain and may have poles;
-        // the refined pieces are cut below their first clamped–clamped frequency at omega_max,
-        // so the chain has one piece each and no poles.
-        Ok(Box::new(move |omega| refined.assemble(omega).lu().determinant()))
     }
 }

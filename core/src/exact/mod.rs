@@ -1,15 +1,18 @@
 //! The exact method: dynamic stiffness, the Wittrick–Williams count, and mode shapes.
 //!
-//! Each uniform member's exact dynamic stiffness is assembled with the attachments into K(ω).
 //! The number of natural frequencies below ω is J(ω) = J₀(ω) + s{K(ω)}, where s{K} is the number
-//! of negative pivots of K(ω) and J₀ counts the members' own clamped–clamped frequencies below ω
-//! (Wittrick & Williams, Q. J. Mech. Appl. Math. 24, 1971). Bisection on J isolates each
-//! frequency, and Brent's method on det K polishes it.
+//! of negative pivots of the exact dynamic stiffness K(ω) and J₀ counts the members' own
+//! clamped–clamped frequencies below ω (Wittrick & Williams, Q. J. Mech. Appl. Math. 24, 1971).
+//! The members are cut into pieces far below their own clamped–clamped frequencies, so J₀ = 0,
+//! and K(ω) is eliminated station by station with transfer matrices (`sweep.rs`), which stays
+//! accurate however closely stations crowd. The count isolates each frequency and Brent's method
+//! on the determinant from the same elimination polishes it (`roots.rs`).
 
 mod assemble;
 mod shape;
+mod sweep;
 
-pub(crate) use assemble::{Exact, System};
+pub(crate) use assemble::System;
 pub use shape::ModeShape;
 
 use crate::error::Result;
@@ -57,9 +60,29 @@ pub fn frequencies(model: &Model, elastic: usize) -> Result<Vec<f64>> {
 }
 
 fn roots_of(model: &Model, elastic: usize) -> Result<Vec<roots::Root>> {
-    let spectrum = Exact { model, natural: System::new(model, Layout::new(model, &|_| 1)?) };
+    Ok(search(model, elastic, &[])?.0)
+}
+
+/// The root search with its work, for the tests that hold the factorisations per mode down.
+pub(crate) fn search(
+    model: &Model,
+    elastic: usize,
+    hints: &[f64],
+) -> Result<(Vec<roots::Root>, roots::Work)> {
+    let spectrum = Natural(System::new(model, Layout::new(model, &|_| 1)?));
     let rigid = model.rigid_body_modes();
-    roots::find(rigid, elastic, guess(model, rigid + elastic), &[], &spectrum)
+    roots::find(rigid, elastic, guess(model, rigid + elastic), hints, &spectrum)
+}
+
+/// The exact method's spectrum: the station sweep on the natural stations (ends, segment
+/// joints, attachments), each member cut into pieces for the reference frequency.
+struct Natural(System);
+
+impl roots::Spectrum for Natural {
+    fn evaluator(&self, reference: f64) -> Result<roots::Evaluator<'_>> {
+        let pieces = sweep::pieces(&self.0, reference)?;
+        Ok(Box::new(move |omega| sweep::evaluate(&self.0, &pieces, omega)))
+    }
 }
 
 /// A rough first trial ω: the `n`-th pinned–pinned frequency of the whole length with the

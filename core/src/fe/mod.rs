@@ -15,7 +15,7 @@ use crate::band::SymBand;
 use crate::error::{Error, ErrorKind, Result};
 use crate::layout::Layout;
 use crate::model::{Model, Theory};
-use crate::roots::{self, Count, Determinant, Spectrum};
+use crate::roots::{self, Evaluator, Spectrum};
 
 /// How many elements to use.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -86,7 +86,7 @@ pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]
     // Consistent-mass elements give frequencies at or above the exact ones, usually by less than
     // a few parts in a thousand: probe at each exact value and a little above it.
     let hints: Vec<f64> = exact.iter().filter(|w| **w > 0.0).flat_map(|w| [*w, w * 1.002]).collect();
-    let roots = roots::find(rigid, elastic, guess, &hints, &discrete)?;
+    let (roots, _) = roots::find(rigid, elastic, guess, &hints, &discrete)?;
     Ok(FeSolution {
         omegas: roots.iter().map(|r| r.omega).collect(),
         elements: discrete.elements.len(),
@@ -231,30 +231,15 @@ fn wavenumber(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
     k2.sqrt().max(euler)
 }
 
-/// Pivots smaller than this fraction of their diagonal entry make the count doubtful.
-const WEAK_PIVOT: f64 = 1e-10;
-
 impl Spectrum for Discrete {
-    /// The Sturm count: negative pivots of K − ω²M, nudging ω off a vanishing leading minor.
-    fn count(&self, omega: f64) -> Result<Count> {
-        let mut trial = omega;
-        for attempt in 1..=4 {
-            let inertia = self.stiffness.minus_scaled(trial * trial, &self.mass).into_inertia();
-            if inertia.weakest_pivot > WEAK_PIVOT || attempt == 4 {
-                return Ok(Count { below: inertia.negative, poles: 0 });
-            }
-            trial = omega * (1.0 + 1e-9 * attempt as f64);
-        }
-        unreachable!("the loop returns on its last attempt")
+    /// The Sturm count (negative pivots of K − ω²M) and det(K − ω²M) from one LDLᵀ.
+    fn evaluator(&self, _: f64) -> Result<Evaluator<'_>> {
+        Ok(Box::new(move |omega| self.stiffness.minus_scaled(omega * omega, &self.mass).into_evaluation()))
     }
 
     /// The finite-element frequencies carry round-off of 1e-10 and more on any but the smallest
     /// meshes (the stiffness matrix's condition grows like n⁴); polishing further only costs time.
     fn tolerance(&self) -> f64 {
         1e-11
-    }
-
-    fn determinant(&self, _: f64) -> Result<Determinant<'_>> {
-        Ok(Box::new(move |omega| self.stiffness.minus_scaled(omega * omega, &self.mass).lu().determinant()))
     }
 }

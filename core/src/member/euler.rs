@@ -16,9 +16,12 @@
 //! series in t = λ⁴ with the common powers divided out. For large λ, C and S overflow, so
 //! numerator and denominator are divided by C first.
 
+use super::transfer::Transfer;
+
 /// Below this λ the power series are used; above it the closed forms (D > 1 there until the
 /// first clamped–clamped root at λ ≈ 4.73, so no cancellation).
 const SERIES_LIMIT: f64 = 1.6;
+
 /// Terms of each series: the 12th term is below 1e-19 of the first at λ = 1.6.
 const SERIES_TERMS: usize = 12;
 
@@ -157,6 +160,21 @@ impl Euler {
         let shear = (0..4).map(|j| k[0][j] * q[j]).sum::<f64>() / self.ei;
         let moment = (0..4).map(|j| k[1][j] * q[j]).sum::<f64>() / self.ei;
         [q[0], q[1], moment, shear]
+    }
+
+    /// The transfer matrix of the member at ω in the state (w, θ, Q, M) of [`super::transfer`],
+    /// from the Krylov–Duncan functions (summed as series, so only for members with λ below
+    /// about 2: the sweep cuts longer ones).
+    pub(crate) fn transfer(&self, omega: f64) -> Transfer {
+        let b4 = self.m * omega * omega / self.ei;
+        let [k1, k2, k3, k4] = krylov(b4, self.length);
+        let ei = self.ei;
+        Transfer::from_full(&[
+            [k1, k2, -k4 / ei, k3 / ei],
+            [b4 * k4, k1, -k3 / ei, k2 / ei],
+            [-ei * b4 * k2, -ei * b4 * k3, k1, -b4 * k4],
+            [ei * b4 * k3, ei * b4 * k4, -k2, k1],
+        ])
     }
 
     /// Deflection and slope at distance `x` from the left end, carried from the left-end state

@@ -2,6 +2,7 @@
 
 mod euler;
 mod timoshenko;
+pub(crate) mod transfer;
 
 pub(crate) use euler::Euler;
 pub(crate) use timoshenko::Timoshenko;
@@ -41,6 +42,14 @@ impl Member {
         }
     }
 
+    /// The member's bending stiffness EI, N·m².
+    pub(crate) fn flexural_rigidity(&self) -> f64 {
+        match self {
+            Member::Euler(e) => e.ei,
+            Member::Timoshenko(t) => t.ei,
+        }
+    }
+
     /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
     /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀); `None`
     /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`).
@@ -77,15 +86,35 @@ impl Member {
         }
     }
 
-    /// Pieces to cut this member into so that none reaches its own first clamped–clamped
-    /// frequency below `omega_max` (λ = 4.730 for a bending member; 3.5 leaves a margin).
-    pub(crate) fn pole_free_pieces(&self, omega_max: f64) -> usize {
+    /// Pieces the station sweep cuts this member into for frequencies up to `omega_max`: short
+    /// enough that each piece's transfer matrix is close to the identity and accurately summed
+    /// (λ ≤ [`SWEEP_LAMBDA`] for a slender piece), and so far below the piece's own first
+    /// clamped–clamped frequency (λ = 4.730) that the pieces add no poles and nothing to J₀.
+    /// `None` when a shear-flexible member would need more than its limit of pieces.
+    pub(crate) fn sweep_pieces(&self, omega_max: f64) -> Option<usize> {
         match self {
-            Member::Euler(e) => count((e.lambda(omega_max) / 3.5).ceil()),
-            Member::Timoshenko(t) => t.pieces(omega_max),
+            Member::Euler(e) => Some(count((e.lambda(omega_max) / SWEEP_LAMBDA).ceil())),
+            Member::Timoshenko(t) => {
+                let n = t.pieces(omega_max);
+                (n <= timoshenko::MAX_PIECES).then_some(n)
+            }
+        }
+    }
+
+    /// The transfer matrix at ω of one of `pieces` equal pieces of this member.
+    pub(crate) fn piece_transfer(&self, pieces: usize, omega: f64) -> transfer::Transfer {
+        let share = 1.0 / pieces.max(1) as f64;
+        match *self {
+            Member::Euler(e) => Euler { length: e.length * share, ..e }.transfer(omega),
+            Member::Timoshenko(t) => Timoshenko { length: t.length * share, ..t }.transfer(omega),
         }
     }
 }
+
+/// Largest λ of a slender piece in the station sweep. Its transfer matrix's entries then stay
+/// below cosh 1.5 ≈ 2.4 (in units of the piece), so carrying a stiffness across it amplifies
+/// rounding by no more than a few units.
+pub(crate) const SWEEP_LAMBDA: f64 = 1.5;
 
 /// A piece count from a float, at least 1, saturating past what any layout accepts (the layout
 /// then reports the problem) and treating NaN the same way.

@@ -21,6 +21,7 @@
 
 use nalgebra::{Matrix2, Matrix4, Vector4};
 
+use super::transfer::Transfer;
 use crate::band::SymBand;
 
 /// A uniform Timoshenko member.
@@ -123,6 +124,23 @@ impl Timoshenko {
             }
         }
         k
+    }
+
+    /// The transfer matrix of the member at ω in the state (w, ψ, Q, M) of [`super::transfer`].
+    /// Accurate for a member no longer than one piece at ω (see [`Timoshenko::pieces`]).
+    pub(crate) fn transfer(&self, omega: f64) -> Transfer {
+        let h = self.length;
+        let t = exp_scaled(&self.system(h, omega));
+        // The scaled state is y = (w, h·ψ, h²·M/EI, h³·Q/EI); the physical one s = (w, ψ, Q, M),
+        // so y = P·s with y₀ = s₀, y₁ = h·s₁, y₂ = (h²/EI)·s₃, y₃ = (h³/EI)·s₂, and T = P⁻¹·T̂·P.
+        let p = [(0, 1.0), (1, h), (3, h * h / self.ei), (2, h * h * h / self.ei)];
+        let mut full = [[0.0; 4]; 4];
+        for (yi, &(si, scale_i)) in p.iter().enumerate() {
+            for (yj, &(sj, scale_j)) in p.iter().enumerate() {
+                full[si][sj] = t[(yi, yj)] * scale_j / scale_i;
+            }
+        }
+        Transfer::from_full(&full)
     }
 
     /// Dynamic stiffness of [w₁, ψ₁, w₂, ψ₂] and the number of clamped–clamped frequencies below ω;
