@@ -180,16 +180,6 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
             shape: m.shape,
         });
     }
-    if fe.elements > fe::NOISY_ELEMENTS {
-        warnings.push(Warning {
-            code: "fe-round-off",
-            message: format!(
-                "With {} elements, round-off in the finite-element matrices (it grows with the fourth power of \
-                 the element count) limits that result to about 1e-6; fewer elements are as accurate.",
-                fe.elements
-            ),
-        });
-    }
     if rigid > 0 {
         warnings.push(Warning {
             code: "rigid-body",

@@ -66,27 +66,6 @@ impl SymBand {
         }
     }
 
-    /// y = A·x.
-    pub(crate) fn mul(&self, x: &[f64]) -> Vec<f64> {
-        let mut y = vec![0.0; self.n];
-        for i in 0..self.n {
-            for k in 0..=self.b.min(i) {
-                let j = i - k;
-                let a = self.data[i * (self.b + 1) + k];
-                y[i] += a * x[j];
-                if k > 0 {
-                    y[j] += a * x[i];
-                }
-            }
-        }
-        y
-    }
-
-    /// xᵀ·A·y.
-    pub(crate) fn form(&self, x: &[f64], y: &[f64]) -> f64 {
-        self.mul(y).iter().zip(x).map(|(a, b)| a * b).sum()
-    }
-
     /// A − s·B for two matrices of the same shape (bandwidth the larger of the two).
     pub(crate) fn minus_scaled(&self, s: f64, other: &SymBand) -> SymBand {
         debug_assert_eq!(self.n, other.n);
@@ -150,9 +129,9 @@ impl SymBand {
         crate::roots::Evaluation { below, sign, log: product.ln_abs() }
     }
 
-    /// The LDLᵀ factorisation without interchanges, kept for solving. For the inertia of a
-    /// matrix and for solves where moderate accuracy near a singular point is enough (the
-    /// pivoted [`SymBand::lu`] is the stable choice otherwise).
+    /// The LDLᵀ factorisation without interchanges, kept for solving (the reference stiffness
+    /// of shear-flexible members condenses its chain with it).
+    #[cfg(test)]
     pub(crate) fn ldlt(mut self) -> Ldlt {
         let d = self.factor_in_place();
         Ldlt { factors: self, d }
@@ -190,82 +169,6 @@ impl SymBand {
                 .collect(),
         )
     }
-
-    /// LU factorisation with partial pivoting, for matrices that may be indefinite and nearly
-    /// singular: a stable determinant near a natural frequency, and inverse iteration there.
-    ///
-    /// The unblocked band algorithm of LAPACK's `dgbtf2`: column-major band storage with room for
-    /// the b extra super-diagonals that row interchanges fill in.
-    pub(crate) fn lu(&self) -> BandLu {
-        by_width!(self, lu_kernel)
-    }
-
-    /// [`SymBand::lu`] for half-bandwidth `B`, or for `self.b` when `B` is 0.
-    fn lu_kernel<const B: usize>(&self) -> BandLu {
-        let n = self.n;
-        let kl = if B > 0 { B } else { self.b };
-        let ku = kl;
-        let ld = 2 * kl + ku + 1;
-        let kv = kl + ku; // storage row of the diagonal
-        let mut ab = vec![0.0; ld * n];
-        // Copy the lower band (row i, offset k = i − j) and its mirror above the diagonal.
-        let w = kl + 1;
-        for i in 0..n {
-            for k in 0..=kl.min(i) {
-                let v = self.data[i * w + k];
-                let j = i - k;
-                ab[j * ld + kv + k] = v; // A[i][j], i ≥ j
-                ab[i * ld + kv - k] = v; // A[j][i]
-            }
-        }
-        let mut pivots = vec![0usize; n];
-        let mut ju = 0usize;
-        for j in 0..n {
-            let km = kl.min(n - 1 - j);
-            let column = j * ld + kv;
-            let mut p = 0;
-            for i in 1..=km {
-                if ab[column + i].abs() > ab[column + p].abs() {
-                    p = i;
-                }
-            }
-            pivots[j] = j + p;
-            if ab[column + p] == 0.0 {
-                continue;
-            }
-            ju = ju.max((j + ku + p).min(n - 1));
-            if p != 0 {
-                // Swap rows j and j + p in columns j..=ju.
-                for c in j..=ju {
-                    let base = c * ld + kv;
-                    ab.swap(base + j - c, base + j + p - c);
-                }
-            }
-            // Scale the multipliers below the pivot; columns j + 1 ..= ju lie after them in
-            // storage, so they are updated through the second half of one split.
-            let (head, tail) = ab.split_at_mut(column + km + 1);
-            let inverse = 1.0 / head[column];
-            let l = &mut head[column + 1..];
-            for m in l.iter_mut() {
-                *m *= inverse;
-            }
-            if ju == j {
-                continue; // nothing right of the pivot (the last column, or a diagonal matrix)
-            }
-            // Row j of column c sits at `top` in `tail`, the rows below it follow; from one
-            // column to the next that place moves by ld − 1. For c = j + 1 that is
-            // (j + 1)·ld + kv − 1 in `ab`, less the length of `head`.
-            let top = ld - km - 2;
-            if B > 0 && km == B {
-                let l: [f64; B] = std::array::from_fn(|i| l[i]);
-                lu_update(tail, top, ju - j, ld - 1, &l);
-            } else {
-                lu_update(tail, top, ju - j, ld - 1, l);
-            }
-        }
-        let scale = self.data.iter().fold(0.0f64, |m, v| m.max(v.abs())).max(f64::MIN_POSITIVE);
-        BandLu { n, kl, ld, ab, pivots, scale }
-    }
 }
 
 /// One step of the right-looking LDLᵀ at pivot j: scales the `m` entries below the pivot into
@@ -289,29 +192,15 @@ fn ldl_step(data: &mut [f64], j: usize, w: usize, m: usize, column: &mut [f64]) 
     }
 }
 
-/// The LU's update right of a pivot: `count` columns, the first with the pivot's row at `top`
-/// in `tail` and each next one `stride` further on, lose u·l from the rows below, u being the
-/// column's entry in the pivot's row. Always inlined, so that an `l` of constant length unrolls.
-#[inline(always)]
-fn lu_update(tail: &mut [f64], mut top: usize, count: usize, stride: usize, l: &[f64]) {
-    for _ in 0..count {
-        let u = tail[top];
-        if u != 0.0 {
-            for (a, m) in tail[top + 1..top + 1 + l.len()].iter_mut().zip(l) {
-                *a -= m * u;
-            }
-        }
-        top += stride;
-    }
-}
-
 /// An LDLᵀ factorisation: L in the strict lower band of `factors`, D in `d`.
+#[cfg(test)]
 #[derive(Clone, Debug)]
 pub(crate) struct Ldlt {
     factors: SymBand,
     d: Vec<f64>,
 }
 
+#[cfg(test)]
 impl Ldlt {
     /// Number of negative pivots, the number of negative eigenvalues.
     pub(crate) fn negative(&self) -> usize {
@@ -334,58 +223,6 @@ impl Ldlt {
         for i in (0..n).rev() {
             for r in (i + 1)..n.min(i + b + 1) {
                 x[i] -= f.data[r * w + (r - i)] * x[r];
-            }
-        }
-        x
-    }
-}
-
-/// A banded LU factorisation with partial pivoting, in LAPACK's band layout.
-#[derive(Clone, Debug)]
-pub(crate) struct BandLu {
-    n: usize,
-    kl: usize,
-    ld: usize,
-    ab: Vec<f64>,
-    pivots: Vec<usize>,
-    scale: f64,
-}
-
-impl BandLu {
-    fn diagonal(&self, j: usize) -> f64 {
-        self.ab[j * self.ld + self.ld - 1 - self.kl]
-    }
-
-    /// Solves A·x = r. A pivot that vanishes is replaced by a tiny value, the usual device that
-    /// makes inverse iteration converge in one step.
-    pub(crate) fn solve(&self, rhs: &[f64]) -> Vec<f64> {
-        let (n, kl, ld) = (self.n, self.kl, self.ld);
-        let kv = ld - 1 - kl;
-        let mut x = rhs.to_vec();
-        for j in 0..n {
-            x.swap(j, self.pivots[j]);
-            let km = kl.min(n - 1 - j);
-            for i in 1..=km {
-                x[j + i] -= self.ab[j * ld + kv + i] * x[j];
-            }
-        }
-        let tiny = f64::EPSILON * self.scale;
-        let upper = kv; // U has kl + ku super-diagonals
-        for j in (0..n).rev() {
-            let d = self.diagonal(j);
-            let pivot = if d.abs() < tiny * 1e-3 {
-                if d == 0.0 {
-                    tiny
-                } else {
-                    tiny.copysign(d)
-                }
-            } else {
-                d
-            };
-            x[j] /= pivot;
-            let xj = x[j];
-            for i in j.saturating_sub(upper)..j {
-                x[i] -= self.ab[j * ld + kv + i - j] * xj;
             }
         }
         x
@@ -438,40 +275,19 @@ mod tests {
     }
 
     #[test]
-    fn solves_agree_with_dense_lu() {
+    fn solves_agree_with_dense_cholesky() {
         // Every band width with a kernel of its own (1 to 6) and three that take the general
         // one, a diagonal matrix among them.
         for seed in 0..27 {
             let b = [0, 1, 2, 3, 4, 5, 6, 7, 9][seed as usize % 9];
-            let (band, dense) = sample(15, b, 0.0, 100 + seed);
             let rhs: Vec<f64> = (0..15).map(|i| (i as f64 * 0.37).sin()).collect();
-            let x = band.lu().solve(&rhs);
-            let reference = dense.clone().lu().solve(&nalgebra::DVector::from_vec(rhs.clone())).unwrap();
-            for i in 0..15 {
-                assert!(
-                    (x[i] - reference[i]).abs() < 1e-9 * (1.0 + reference[i].abs()),
-                    "seed {seed} (b = {b}) row {i}"
-                );
-            }
             // A positive definite one through the LDLᵀ path.
-            let (spd, dense_spd) = sample(15, 4, 12.0, 200 + seed);
+            let (spd, dense_spd) = sample(15, b, 12.0, 200 + seed);
             let x = spd.solve_positive(std::slice::from_ref(&rhs)).unwrap().remove(0);
             let reference = dense_spd.cholesky().unwrap().solve(&nalgebra::DVector::from_vec(rhs));
             for i in 0..15 {
                 assert!((x[i] - reference[i]).abs() < 1e-12 * (1.0 + reference[i].abs()));
             }
         }
-    }
-
-    #[test]
-    fn product_and_form() {
-        let (band, dense) = sample(9, 2, 0.5, 7);
-        let x: Vec<f64> = (0..9).map(|i| i as f64 - 4.0).collect();
-        let y = band.mul(&x);
-        let reference = &dense * nalgebra::DVector::from_vec(x.clone());
-        for i in 0..9 {
-            assert!((y[i] - reference[i]).abs() < 1e-12);
-        }
-        assert!((band.form(&x, &x) - x.iter().zip(&y).map(|(a, b)| a * b).sum::<f64>()).abs() < 1e-12);
     }
 }

@@ -57,13 +57,11 @@ pub(crate) struct Span {
     pub(crate) length: f64,
 }
 
-/// Stations, spans and the degree-of-freedom count for one discretisation of a model.
+/// Stations and spans for one discretisation of a model.
 #[derive(Clone, Debug)]
 pub(crate) struct Layout {
     pub(crate) stations: Vec<Station>,
     pub(crate) spans: Vec<Span>,
-    pub(crate) dofs: usize,
-    pub(crate) bandwidth: usize,
 }
 
 impl Layout {
@@ -147,10 +145,10 @@ impl Layout {
                 Attachment::SprungMass { mass, stiffness, .. } => sprung_at[i].push((index, mass, stiffness)),
             }
         }
-        let mut dofs = 0;
+        let mut count = 0;
         let mut next = || {
-            dofs += 1;
-            dofs - 1
+            count += 1;
+            count - 1
         };
         for (i, s) in stations.iter_mut().enumerate() {
             s.w = (!held_w[i]).then(&mut next);
@@ -168,43 +166,47 @@ impl Layout {
                 length: w[1].x - w[0].x,
             })
             .collect();
+        Ok(Layout { stations, spans })
+    }
+}
+
+/// What the assembled reference matrices of the tests need: the unknowns' count, the band and
+/// each span's unknowns.
+#[cfg(test)]
+impl Layout {
+    /// Number of unknowns (degrees of freedom).
+    pub(crate) fn dofs(&self) -> usize {
+        self.stations
+            .iter()
+            .flat_map(|s| [s.w, s.theta].into_iter().flatten().chain(s.sprung.iter().map(|d| d.dof)))
+            .max()
+            .map_or(0, |d| d + 1)
+    }
+
+    /// Half-bandwidth of the assembled matrices.
+    pub(crate) fn bandwidth(&self) -> usize {
         let mut bandwidth = 0;
-        for span in &spans {
-            let ids = span_dofs(&stations, span);
-            let present: Vec<usize> = ids.iter().flatten().copied().collect();
+        for span in &self.spans {
+            let present: Vec<usize> = self.span_dofs(span).iter().flatten().copied().collect();
             if let (Some(lo), Some(hi)) = (present.iter().min(), present.iter().max()) {
                 bandwidth = bandwidth.max(hi - lo);
             }
         }
-        for s in &stations {
+        for s in &self.stations {
             for d in &s.sprung {
                 if let Some(w) = s.w {
                     bandwidth = bandwidth.max(d.dof - w);
                 }
             }
         }
-        Ok(Layout { stations, spans, dofs, bandwidth })
+        bandwidth
     }
 
     /// The degree-of-freedom numbers of a span's ends, [w₁, θ₁, w₂, θ₂], `None` where held.
     pub(crate) fn span_dofs(&self, span: &Span) -> [Option<usize>; 4] {
-        span_dofs(&self.stations, span)
+        let (a, b) = (&self.stations[span.left], &self.stations[span.left + 1]);
+        [a.w, a.theta, b.w, b.theta]
     }
-
-    /// Left-end position of a span.
-    pub(crate) fn span_start(&self, span: &Span) -> f64 {
-        self.stations[span.left].x
-    }
-
-    /// Values of a span's end displacements taken from a global vector (zero where held).
-    pub(crate) fn span_values(&self, span: &Span, v: &[f64]) -> [f64; 4] {
-        self.span_dofs(span).map(|d| d.map_or(0.0, |i| v[i]))
-    }
-}
-
-fn span_dofs(stations: &[Station], span: &Span) -> [Option<usize>; 4] {
-    let (a, b) = (&stations[span.left], &stations[span.left + 1]);
-    [a.w, a.theta, b.w, b.theta]
 }
 
 fn add_restraint(s: &mut Station, held_w: &mut bool, held_theta: &mut bool, kt: f64, kr: f64) {
@@ -269,7 +271,7 @@ mod tests {
         let xs: Vec<f64> = l.stations.iter().map(|s| s.x).collect();
         assert_eq!(xs, vec![0.0, 1.0, 1.5, 2.5, 3.0]);
         // Clamped left: nothing; x=1: w, θ; x=1.5 supported: θ; x=2.5: w, θ, sprung; right pinned: θ.
-        assert_eq!(l.dofs, 7);
+        assert_eq!(l.dofs(), 7);
         assert_eq!(l.stations[0].w, None);
         assert_eq!(l.stations[2].w, None);
         assert_eq!(l.stations[2].mass, 2.0);
@@ -277,6 +279,6 @@ mod tests {
         assert_eq!(l.spans.iter().map(|s| s.segment).collect::<Vec<_>>(), vec![0, 1, 1, 1]);
         let fine = Layout::new(&m, &|_| 3).unwrap();
         assert_eq!(fine.stations.len(), 13);
-        assert!(fine.bandwidth >= 3);
+        assert!(fine.bandwidth() >= 3);
     }
 }

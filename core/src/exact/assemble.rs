@@ -1,41 +1,25 @@
-//! Assembly of the global dynamic stiffness K(ω) on a layout, for the mode shapes; the count and
-//! the determinant come from the station sweep instead (`sweep.rs`).
+//! The global dynamic stiffness K(ω) assembled from the members' closed-form stiffness: the
+//! banded matrix the station sweep eliminates without forming, kept as the reference its count,
+//! determinant and solves are tested against.
 
+use super::System;
 use crate::band::SymBand;
 use crate::error::{Error, ErrorKind, Result};
-use crate::layout::Layout;
-use crate::member::{Evaluated, Member};
-use crate::model::Model;
-
-/// A layout with one member per span, ready to assemble at any ω.
-#[derive(Clone, Debug)]
-pub(crate) struct System {
-    pub(crate) layout: Layout,
-    pub(crate) members: Vec<Member>,
-}
+use crate::member::reference::Evaluated;
+use crate::member::Member;
 
 impl System {
-    /// The members of `layout`, cut from `model`'s segments.
-    pub(crate) fn new(model: &Model, layout: Layout) -> System {
-        let members = layout
-            .spans
-            .iter()
-            .map(|s| Member::new(&model.segments()[s.segment], s.length, model.theory()))
-            .collect();
-        System { layout, members }
-    }
-
     /// K(ω) with held degrees of freedom removed. Callers use it only at frequencies the count
     /// has already reached, where every member can be evaluated.
     pub(crate) fn assemble(&self, omega: f64) -> SymBand {
         self.assemble_with_poles(omega)
-            .map_or_else(|_| SymBand::zeros(self.layout.dofs, self.layout.bandwidth), |k| k.0)
+            .map_or_else(|_| SymBand::zeros(self.layout.dofs(), self.layout.bandwidth()), |k| k.0)
     }
 
     /// K(ω) and J₀(ω), the members' clamped–clamped frequencies below ω.
     pub(crate) fn assemble_with_poles(&self, omega: f64) -> Result<(SymBand, usize)> {
         let layout = &self.layout;
-        let mut k = SymBand::zeros(layout.dofs, layout.bandwidth);
+        let mut k = SymBand::zeros(layout.dofs(), layout.bandwidth());
         let mut poles: usize = 0;
         let w2 = omega * omega;
         // Layouts cut members into equal pieces, so neighbouring members are often identical;

@@ -8,15 +8,18 @@
 //! accurate however closely stations crowd. The count isolates each frequency and Brent's method
 //! on the determinant from the same elimination polishes it (`roots.rs`).
 
+#[cfg(test)]
 mod assemble;
 mod shape;
+mod solve;
+pub(crate) mod statics;
 mod sweep;
 
-pub(crate) use assemble::System;
 pub use shape::ModeShape;
 
 use crate::error::Result;
 use crate::layout::Layout;
+use crate::member::Member;
 use crate::model::Model;
 use crate::roots;
 
@@ -31,6 +34,25 @@ pub struct ExactMode {
     pub rigid_body: bool,
     /// The mode shape.
     pub shape: ModeShape,
+}
+
+/// A layout with one member per span, ready to assemble at any ω.
+#[derive(Clone, Debug)]
+pub(crate) struct System {
+    pub(crate) layout: Layout,
+    pub(crate) members: Vec<Member>,
+}
+
+impl System {
+    /// The members of `layout`, cut from `model`'s segments.
+    pub(crate) fn new(model: &Model, layout: Layout) -> System {
+        let members = layout
+            .spans
+            .iter()
+            .map(|s| Member::new(&model.segments()[s.segment], s.length, model.theory()))
+            .collect();
+        System { layout, members }
+    }
 }
 
 /// The first natural modes from the exact method, rigid-body modes first.

@@ -1,16 +1,19 @@
-//! Mode shapes of the exact method: the null vector of K(ω) at a natural frequency, carried
-//! inside each member by the member's exact shape functions.
+//! Mode shapes of the exact method: the response of the beam to loads at its natural frequency,
+//! by inverse iteration with the station sweep ([`super::solve`]), carried inside each piece by
+//! the member's exact shape functions.
 //!
-//! At a natural frequency a member may sit exactly on one of its own clamped–clamped
-//! frequencies, and then its end values do not determine its interior (the mode can live inside
-//! the member with all station values zero). To stay clear of that, the shape is computed on a
-//! finer layout whose pieces are far below their first clamped–clamped frequency (λ ≤ 1 against
-//! 4.73); the natural frequency of the structure does not depend on where stations are put, so
-//! K(ω) on that layout is singular at the same ω and its null vector carries the whole shape.
+//! K(ω) is singular at a natural frequency, so its response to almost any load is almost wholly
+//! the mode; a second solve with the first response as the load leaves nothing else. The sweep
+//! keeps that exact however closely stations crowd, where a banded factorisation of K would be
+//! swamped by the stiffness of very short pieces. The members are cut into pieces short enough
+//! that the interior formulas are accurate (λ ≤ 1.5 each), and a mode that lives inside a member
+//! with every station at rest is found like any other.
 //!
 //! Normalisation: the largest translation anywhere (beam or sprung mass) is +1.
 
 use crate::error::Result;
+use crate::exact::solve::{respond, StationLoad};
+use crate::exact::sweep;
 use crate::exact::System;
 use crate::layout::Layout;
 use crate::member::Member;
@@ -43,8 +46,7 @@ struct Piece {
     x0: f64,
     length: f64,
     member: Member,
-    q: [f64; 4],
-    /// Left-end state for [`Member::propagate`], linear in `q`.
+    /// Left-end state for [`Member::propagate`].
     state: [f64; 4],
     mass_per_length: f64,
     rotary_inertia_per_length: f64,
@@ -73,7 +75,7 @@ impl ModeShape {
             *v *= factor;
         }
         for p in &mut self.pieces {
-            p.q.iter_mut().chain(p.state.iter_mut()).for_each(|v| *v *= factor);
+            p.state.iter_mut().for_each(|v| *v *= factor);
         }
         self.generalized_mass *= factor * factor;
     }
@@ -81,28 +83,67 @@ impl ModeShape {
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
-    let theory = model.theory();
-    let layout = Layout::new(model, &|span| {
-        let member = Member::new(&model.segments()[span.segment], span.length, theory);
-        member.shape_pieces(omega)
-    })?;
-    let system = System::new(model, layout);
-    // Inverse iteration at the frequency itself: K(ω) is singular there, so each solve
-    // multiplies the null-space part of the vector by ~1/ε; three solves leave nothing else.
-    let lu = system.assemble(omega).lu();
-    let mut vectors: Vec<Vec<f64>> = Vec::with_capacity(count);
-    for j in 0..count {
-        let mut v = start_vector(system.layout.dofs, j as u64);
-        for _ in 0..3 {
-            v = lu.solve(&v);
-            let norm = v.iter().fold(0.0f64, |m, x| m.max(x.abs()));
-            if norm > 0.0 && norm.is_finite() {
-                v.iter_mut().for_each(|x| *x /= norm);
+    let system = System::new(model, Layout::new(model, &|_| 1)?);
+    let pieces = sweep::pieces(&system, omega)?;
+    let mut out: Vec<ModeShape> = Vec::with_capacity(count);
+    if omega == 0.0 {
+        // Rigid-body modes: the motions w = a + b·x that no restraint resists, the sprung masses
+        // moving with the beam.
+        let response = crate::exact::solve::respond(&system, &pieces, 0.0, &[]);
+        for (a, b) in rigid_motions(model).into_iter().take(count) {
+            let mut shape = build(model, 0.0, &response);
+            for p in &mut shape.pieces {
+                p.state = p.member.start_from([a + b * p.x0, b, 0.0, 0.0]);
             }
+            for (i, d) in &mut shape.sprung {
+                *d = a + b * model.attachments()[*i].position();
+            }
+            out.push(shape);
         }
-        vectors.push(v);
     }
-    let mut out: Vec<ModeShape> = vectors.iter().map(|v| build(model, &system, omega, v)).collect();
+    for j in out.len()..count {
+        let mut seed = 0x0005_DEEC_E66D_u64 ^ (j as u64).wrapping_mul(0x9E37_79B9_7F4A_7C15);
+        let mut random = move || {
+            seed = seed.wrapping_mul(6_364_136_223_846_793_005).wrapping_add(1_442_695_040_888_963_407);
+            ((seed >> 11) as f64 / (1u64 << 53) as f64) - 0.5
+        };
+        let mut loads: Vec<StationLoad> = system
+            .layout
+            .stations
+            .iter()
+            .map(|s| StationLoad {
+                force: [random(), random()],
+                sprung: s.sprung.iter().map(|_| random()).collect(),
+            })
+            .collect();
+        let mut shape = None;
+        for _ in 0..2 {
+            let response = respond(&system, &pieces, omega, &loads);
+            let built = build(model, omega, &response);
+            // The next load: this response, scaled to order one, at the stations.
+            let largest = built
+                .deflection
+                .iter()
+                .chain(built.sprung.iter().map(|(_, a)| a))
+                .fold(0.0f64, |m, v| m.max(v.abs()));
+            let scale = if largest > 0.0 && largest.is_finite() { 1.0 / largest } else { 1.0 };
+            let mut cursor = 0;
+            for (s, load) in system.layout.stations.iter().zip(loads.iter_mut()) {
+                let (w, t) = built.at(s.x);
+                load.force = [w * scale, t * scale];
+                for f in load.sprung.iter_mut() {
+                    *f = built.sprung.get(cursor).map_or(0.0, |(_, a)| a * scale);
+                    cursor += 1;
+                }
+            }
+            shape = Some(built);
+        }
+        if let Some(mut s) = shape {
+            // Inverse iteration leaves the shape at an arbitrary, possibly huge, scale.
+            normalise(&mut s);
+            out.push(s);
+        }
+    }
     // Mass-orthonormalise a group of coincident modes (Gram–Schmidt), then normalise each.
     for i in 0..out.len() {
         for j in 0..i {
@@ -111,42 +152,54 @@ pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<Mode
             subtract(&mut tail[0], &head[j], c);
         }
     }
-    if out.len() > 1 {
-        // The combinations changed the piece values; sample them again.
-        out = out.into_iter().map(|s| rebuild(model, &system, omega, &s)).collect();
-    }
     for s in &mut out {
+        resample(s);
+        s.generalized_mass = inner(model, s, s);
         normalise(s);
     }
     Ok(out)
 }
 
-fn start_vector(n: usize, seed: u64) -> Vec<f64> {
-    let mut state = 0x5DEECE66D_u64 ^ seed.wrapping_mul(0x9E37_79B9_7F4A_7C15);
-    (0..n)
-        .map(|_| {
-            state = state.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
-            ((state >> 11) as f64 / (1u64 << 53) as f64) - 0.5
-        })
-        .collect()
+/// A basis (a, b) of the rigid-body motions w = a + b·x the model's restraints allow: every
+/// deflection restraint at x holds a + b·x = 0, every rotation restraint b = 0.
+fn rigid_motions(model: &Model) -> Vec<(f64, f64)> {
+    let mut deflection: Vec<f64> = Vec::new();
+    let mut rotation = false;
+    let (left, right) = (model.left().springs(), model.right().springs());
+    for (x, (kt, kr)) in [(0.0, left), (model.length(), right)] {
+        if kt > 0.0 {
+            deflection.push(x);
+        }
+        rotation |= kr > 0.0;
+    }
+    for a in model.attachments() {
+        match *a {
+            crate::model::Attachment::Spring { position, .. }
+            | crate::model::Attachment::Support { position } => deflection.push(position),
+            crate::model::Attachment::RotationalSpring { .. } => rotation = true,
+            _ => {}
+        }
+    }
+    match (deflection.first(), rotation) {
+        (None, false) => vec![(1.0, 0.0), (0.0, 1.0)],
+        (None, true) => vec![(1.0, 0.0)],
+        (Some(&x0), false) => vec![(-x0, 1.0)],
+        (Some(_), true) => Vec::new(),
+    }
 }
 
-/// The shape for a global vector of station values.
-fn build(model: &Model, system: &System, omega: f64, v: &[f64]) -> ModeShape {
-    let layout = &system.layout;
-    let pieces: Vec<Piece> = layout
-        .spans
+/// The shape for a response of the sweep.
+fn build(model: &Model, omega: f64, response: &crate::exact::solve::Response) -> ModeShape {
+    let pieces: Vec<Piece> = response
+        .pieces
         .iter()
-        .zip(&system.members)
-        .map(|(span, member)| {
-            let seg = &model.segments()[span.segment];
-            let q = layout.span_values(span, v);
+        .map(|&(x0, member, state)| {
+            let seg = &model.segments()[model.segment_at(x0 + 0.5 * member.length())];
             Piece {
-                x0: layout.span_start(span),
-                length: span.length,
-                member: *member,
-                q,
-                state: member.start_state(omega, q),
+                x0,
+                length: member.length(),
+                member,
+                state: member.start_from(state),
                 mass_per_length: seg.mass_per_length,
                 rotary_inertia_per_length: match model.theory() {
                     crate::model::Theory::Timoshenko => seg.rotary_inertia_per_length,
@@ -155,51 +208,40 @@ fn build(model: &Model, system: &System, omega: f64, v: &[f64]) -> ModeShape {
             }
         })
         .collect();
-    let sprung: Vec<(usize, f64)> =
-        layout.stations.iter().flat_map(|s| s.sprung.iter().map(|d| (d.attachment, v[d.dof]))).collect();
-    let per_piece = SAMPLES.div_ceil(pieces.len()).max(2);
-    let mut x = Vec::with_capacity(per_piece * pieces.len() + 1);
-    let mut deflection = Vec::with_capacity(x.capacity());
-    for p in &pieces {
-        for j in 0..per_piece {
-            let local = p.length * j as f64 / per_piece as f64;
-            x.push(p.x0 + local);
-            deflection.push(p.member.propagate(omega, p.state, local).0);
-        }
-    }
-    if let Some(p) = pieces.last() {
-        x.push(p.x0 + p.length);
-        deflection.push(p.q[2]);
-    }
-    let mut shape =
-        ModeShape { x, deflection, nodes: Vec::new(), sprung, generalized_mass: 0.0, pieces, omega };
-    shape.generalized_mass = inner(model, &shape, &shape);
+    let mut shape = ModeShape {
+        x: Vec::new(),
+        deflection: Vec::new(),
+        nodes: Vec::new(),
+        sprung: response.sprung.clone(),
+        generalized_mass: 0.0,
+        pieces,
+        omega,
+    };
+    resample(&mut shape);
     shape
 }
 
-/// Rebuilds a shape's samples after its piece values were combined linearly.
-fn rebuild(model: &Model, system: &System, omega: f64, s: &ModeShape) -> ModeShape {
-    let mut v = vec![0.0; system.layout.dofs];
-    for (span, p) in system.layout.spans.iter().zip(&s.pieces) {
-        for (d, q) in system.layout.span_dofs(span).iter().zip(p.q) {
-            if let Some(d) = d {
-                v[*d] = q;
-            }
+/// Samples the deflection for plotting: at least [`SAMPLES`] points, each piece's ends included.
+fn resample(s: &mut ModeShape) {
+    let per_piece = SAMPLES.div_ceil(s.pieces.len().max(1)).max(2);
+    s.x.clear();
+    s.deflection.clear();
+    for p in &s.pieces {
+        for j in 0..per_piece {
+            let local = p.length * j as f64 / per_piece as f64;
+            s.x.push(p.x0 + local);
+            s.deflection.push(p.member.propagate(s.omega, p.state, local).0);
         }
     }
-    for st in &system.layout.stations {
-        for d in &st.sprung {
-            if let Some((_, a)) = s.sprung.iter().find(|(i, _)| *i == d.attachment) {
-                v[d.dof] = *a;
-            }
-        }
+    if let Some(p) = s.pieces.last() {
+        s.x.push(p.x0 + p.length);
+        s.deflection.push(p.member.propagate(s.omega, p.state, p.length).0);
     }
-    build(model, system, omega, &v)
 }
 
 fn subtract(target: &mut ModeShape, other: &ModeShape, c: f64) {
     for (p, o) in target.pieces.iter_mut().zip(&other.pieces) {
-        for (a, b) in p.q.iter_mut().zip(o.q).chain(p.state.iter_mut().zip(o.state)) {
+        for (a, b) in p.state.iter_mut().zip(o.state) {
             *a -= c * b;
         }
     }

@@ -118,6 +118,38 @@ impl Element {
         m
     }
 
+    /// The deflection and rotation shape functions at ξ = x/L: w = N_w·q, ψ = N_ψ·q (the
+    /// rotation of a slender element's section is w′, which N_ψ then equals).
+    pub(crate) fn at(&self, xi: f64) -> ([f64; 4], [f64; 4]) {
+        let n = self.shapes(xi);
+        (n.w, n.psi)
+    }
+
+    /// The strain and kinetic energies (both times two) of the element's field for end values q,
+    /// summed as squares at the quadrature points rather than as qᵀKq and qᵀMq: the sums of
+    /// squares cannot lose their sign or their digits to cancellation, however short the element.
+    pub(crate) fn energies(&self, q: &[f64; 4]) -> (f64, f64) {
+        let (mut strain, mut kinetic) = (0.0, 0.0);
+        let shear = self.kga.is_finite();
+        let dot = |a: &[f64; 4]| -> f64 { (0..4).map(|i| a[i] * q[i]).sum() };
+        for (xi, weight) in GAUSS4 {
+            let n = self.shapes(xi);
+            let curvature = dot(&n.dpsi);
+            let mut u = self.ei * curvature * curvature;
+            if shear {
+                let gamma: [f64; 4] = std::array::from_fn(|i| n.dw[i] - n.psi[i]);
+                let g = dot(&gamma);
+                u += self.kga * g * g;
+            }
+            let (w, psi) = (dot(&n.w), dot(&n.psi));
+            strain += weight * self.length * u;
+            kinetic += weight
+                * self.length
+                * (self.mass_per_length * w * w + self.rotary_inertia_per_length * psi * psi);
+        }
+        (strain, kinetic)
+    }
+
     /// Consistent nodal loads of a uniform transverse load q (N/m): ∫ q·N_w dx.
     pub(crate) fn uniform_load(&self, q: f64) -> [f64; 4] {
         let mut f = [0.0; 4];

@@ -1,19 +1,23 @@
-//! The finite-element method: two-node beam elements with consistent mass, a node at every
-//! segment boundary and attachment, and the generalised eigenproblem K·x = ω²·M·x.
+//! The finite-element method: two-node beam elements with consistent mass and the generalised
+//! eigenproblem K·x = ω²·M·x.
 //!
 //! The eigenvalues are found the same way as the exact method's: a Sturm count (negative pivots
-//! of K − ω²M, Sylvester's law of inertia) isolates each one, Brent's method on det(K − ω²M)
-//! polishes it. That exploits the band structure: each count costs O(n·b²) for n unknowns and
-//! half-bandwidth b. [`dense_frequencies`] solves the same problem with nalgebra's dense
-//! symmetric eigensolver and serves as the slow obvious reference.
+//! of K − ω²M, Sylvester's law of inertia) isolates each one, and Brent's method on det(K − ω²M)
+//! from the same LDLᵀ factorisation polishes it. That exploits the band structure: each
+//! evaluation costs O(n·b²) for n unknowns and half-bandwidth b. [`dense_frequencies`] solves
+//! the same problem with nalgebra's dense symmetric eigensolver and serves as the slow obvious
+//! reference. Each frequency comes with two error estimates: the mesh's (the element's error
+//! formula at that mode's wavenumber) and round-off's (machine precision times the ratio of the
+//! largest eigenvalue the mesh can carry to the mode's), so that a check that disagrees with the
+//! exact method can be told apart from one that is not converged.
 
 mod element;
+mod mesh;
 
-pub(crate) use element::Element;
+pub(crate) use mesh::{FeMesh, PointKind};
 
 use crate::band::SymBand;
 use crate::error::{Error, ErrorKind, Result};
-use crate::layout::Layout;
 use crate::model::{Model, Theory};
 use crate::roots::{self, Evaluator, Spectrum};
 
@@ -22,13 +26,14 @@ use crate::roots::{self, Evaluator, Spectrum};
 #[non_exhaustive]
 pub enum Mesh {
     /// About this many elements in all, shared out by length (at least one per span between
-    /// natural stations).
+    /// nodes).
     Total(usize),
-    /// Enough elements that modes up to this angular frequency (rad/s) converge to about 1e-4:
-    /// at most 0.5 rad of bending wavenumber per element.
+    /// Enough elements that modes up to this angular frequency (rad/s) converge to about 4e-5:
+    /// at most 0.5 rad of bending wavenumber per element, in every span and segment.
     UpTo(f64),
     /// Every span between natural stations (ends, segment boundaries, attachments) cut into this
-    /// many equal elements; doubling it halves every element, as convergence studies need.
+    /// many equal elements, every attachment on a node of its own; doubling it halves every
+    /// element, as convergence studies need.
     PerSpan(usize),
 }
 
@@ -37,18 +42,14 @@ pub enum Mesh {
 /// not accuracy.
 pub const MAX_ELEMENTS: usize = 2000;
 
-/// Above this many elements the result carries round-off of about 1e-6 and a warning says so.
-pub const NOISY_ELEMENTS: usize = 400;
-
 /// Bending wavenumber × element length allowed by [`Mesh::UpTo`]. The Hermite element's
 /// frequency error is about (βh)⁴/1440, so 0.5 gives about 4e-5.
 const WAVE_PER_ELEMENT: f64 = 0.5;
 
-/// Assembled stiffness and mass on a finite-element layout.
+/// Assembled stiffness and mass on a mesh.
 #[derive(Clone, Debug)]
 pub(crate) struct Discrete {
-    pub(crate) layout: Layout,
-    pub(crate) elements: Vec<Element>,
+    pub(crate) mesh: FeMesh,
     pub(crate) stiffness: SymBand,
     pub(crate) mass: SymBand,
 }
@@ -62,6 +63,10 @@ pub struct FeSolution {
     pub elements: usize,
     /// Unknowns (degrees of freedom) after supports are applied.
     pub dofs: usize,
+    /// Estimated relative error of each frequency from the mesh (the discretisation).
+    pub mesh_error: Vec<f64>,
+    /// Estimated relative error of each frequency from round-off in the matrices.
+    pub round_off: Vec<f64>,
 }
 
 /// The first `elastic` elastic natural frequencies by finite elements.
@@ -74,7 +79,7 @@ pub fn frequencies(model: &Model, elastic: usize, mesh: Mesh) -> Result<FeSoluti
 pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]) -> Result<FeSolution> {
     let discrete = Discrete::new(model, mesh, &[])?;
     let rigid = model.rigid_body_modes();
-    let available = discrete.layout.dofs.saturating_sub(rigid);
+    let available = discrete.mesh.dofs.saturating_sub(rigid);
     if available < elastic {
         return Err(Error::new(
             ErrorKind::OutOfRange,
@@ -87,10 +92,14 @@ pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]
     // a few parts in a thousand: probe at each exact value and a little above it.
     let hints: Vec<f64> = exact.iter().filter(|w| **w > 0.0).flat_map(|w| [*w, w * 1.002]).collect();
     let (roots, _) = roots::find(rigid, elastic, guess, &hints, &discrete)?;
+    let omegas: Vec<f64> = roots.iter().map(|r| r.omega).collect();
+    let largest = discrete.largest_eigenvalue();
     Ok(FeSolution {
-        omegas: roots.iter().map(|r| r.omega).collect(),
-        elements: discrete.elements.len(),
-        dofs: discrete.layout.dofs,
+        mesh_error: omegas.iter().map(|w| discrete.mesh_error(model.theory(), *w)).collect(),
+        round_off: omegas.iter().map(|w| ROUND_OFF * f64::EPSILON * largest / (w * w)).collect(),
+        omegas,
+        elements: discrete.mesh.elements.len(),
+        dofs: discrete.mesh.dofs,
     })
 }
 
@@ -116,91 +125,111 @@ pub fn dense_frequencies(model: &Model, mesh: Mesh) -> Result<Vec<f64>> {
 /// removed), for cross-checks with other libraries.
 pub fn matrices(model: &Model, mesh: Mesh) -> Result<(nalgebra::DMatrix<f64>, nalgebra::DMatrix<f64>)> {
     let d = Discrete::new(model, mesh, &[])?;
-    let n = d.layout.dofs;
+    let n = d.mesh.dofs;
     let k = nalgebra::DMatrix::from_fn(n, n, |i, j| d.stiffness.get(i, j));
     let m = nalgebra::DMatrix::from_fn(n, n, |i, j| d.mass.get(i, j));
     Ok((k, m))
 }
 
+/// The round-off of a frequency is about this many units of machine precision times the ratio
+/// of the largest eigenvalue of the pencil to the mode's own (the usual perturbation bound for a
+/// symmetric eigenproblem, with a margin for the factorisation's growth).
+const ROUND_OFF: f64 = 8.0;
+
 impl Discrete {
     /// Assembles K and M on a mesh, with extra nodes at `points`.
     pub(crate) fn new(model: &Model, mesh: Mesh, points: &[f64]) -> Result<Discrete> {
-        let total_length = model.length();
-        // Elements per natural span (between ends, segment boundaries, attachments, points).
-        let natural = Layout::with_points(model, points, &|_| 1)?;
-        let mut counts: Vec<f64> = natural
-            .spans
-            .iter()
-            .map(|span| match mesh {
-                Mesh::Total(total) => (total as f64 * span.length / total_length).round(),
-                Mesh::UpTo(omega) => {
-                    let s = &model.segments()[span.segment];
-                    let theory = model.theory();
-                    (wavenumber(s, theory, omega) * span.length / per_element(s, theory, omega)).ceil()
-                }
-                Mesh::PerSpan(n) => n as f64,
-            })
-            .map(|n| if n.is_finite() { n.max(1.0) } else { f64::INFINITY })
-            .collect();
-        if let Mesh::UpTo(_) = mesh {
-            // A default mesh never exceeds the size where round-off starts to show; past it the
-            // "not converged" warning tells the user instead.
-            let total: f64 = counts.iter().sum();
-            if total > NOISY_ELEMENTS as f64 {
-                let shrink = NOISY_ELEMENTS as f64 / total;
-                counts.iter_mut().for_each(|n| *n = (*n * shrink).floor().max(1.0));
-            }
-        }
-        let layout = Layout::with_points(model, points, &|span| counts[span.left].min(1e9) as usize)?;
-        let elements: Vec<Element> = layout
-            .spans
-            .iter()
-            .map(|span| {
-                let s = &model.segments()[span.segment];
-                let timoshenko = model.theory() == Theory::Timoshenko;
-                Element {
-                    length: span.length,
-                    ei: s.flexural_rigidity,
-                    kga: if timoshenko { s.shear_rigidity.unwrap_or(f64::INFINITY) } else { f64::INFINITY },
-                    mass_per_length: s.mass_per_length,
-                    rotary_inertia_per_length: if timoshenko { s.rotary_inertia_per_length } else { 0.0 },
-                }
-            })
-            .collect();
-        let mut stiffness = SymBand::zeros(layout.dofs, layout.bandwidth);
-        let mut mass = SymBand::zeros(layout.dofs, layout.bandwidth);
-        for (span, e) in layout.spans.iter().zip(&elements) {
-            let ids = layout.span_dofs(span);
-            let (ke, me) = (e.stiffness(), e.mass());
+        let mesh = FeMesh::new(model, mesh, points)?;
+        let mut stiffness = SymBand::zeros(mesh.dofs, mesh.bandwidth);
+        let mut mass = SymBand::zeros(mesh.dofs, mesh.bandwidth);
+        let add = |band: &mut SymBand, ids: &[Option<usize>; 4], block: &[[f64; 4]; 4]| {
             for (a, ia) in ids.iter().enumerate() {
                 let Some(ia) = ia else { continue };
                 for (b, ib) in ids.iter().enumerate().take(a + 1) {
                     if let Some(ib) = ib {
-                        stiffness.add(*ia, *ib, ke[a][b]);
-                        mass.add(*ia, *ib, me[a][b]);
+                        band.add(*ia, *ib, block[a][b]);
                     }
                 }
             }
+        };
+        let outer = |n: &[f64; 4], scale: f64| -> [[f64; 4]; 4] {
+            std::array::from_fn(|a| std::array::from_fn(|b| scale * n[a] * n[b]))
+        };
+        for e in &mesh.elements {
+            add(&mut stiffness, &e.dofs, &e.element.stiffness());
+            add(&mut mass, &e.dofs, &e.element.mass());
         }
-        for s in &layout.stations {
-            if let Some(w) = s.w {
-                stiffness.add(w, w, s.spring);
-                mass.add(w, w, s.mass);
+        for n in &mesh.nodes {
+            if let Some(w) = n.w {
+                stiffness.add(w, w, n.spring);
             }
-            if let Some(t) = s.theta {
-                stiffness.add(t, t, s.rotational_spring);
-                mass.add(t, t, s.rotary_inertia);
+            if let Some(t) = n.theta {
+                stiffness.add(t, t, n.rotational_spring);
             }
-            for d in &s.sprung {
-                stiffness.add(d.dof, d.dof, d.stiffness);
-                mass.add(d.dof, d.dof, d.mass);
-                if let Some(w) = s.w {
-                    stiffness.add(w, w, d.stiffness);
-                    stiffness.add(w, d.dof, -d.stiffness);
+        }
+        for p in &mesh.points {
+            let placed = &mesh.elements[p.element];
+            let (nw, npsi) = placed.element.at(p.xi);
+            match p.kind {
+                PointKind::Mass { mass: m, rotary_inertia } => {
+                    add(&mut mass, &placed.dofs, &outer(&nw, m));
+                    add(&mut mass, &placed.dofs, &outer(&npsi, rotary_inertia));
+                }
+                PointKind::Spring { stiffness: k } => add(&mut stiffness, &placed.dofs, &outer(&nw, k)),
+                PointKind::RotationalSpring { stiffness: k } => {
+                    add(&mut stiffness, &placed.dofs, &outer(&npsi, k))
+                }
+                PointKind::Sprung { mass: m, stiffness: k, dof, .. } => {
+                    // k·(N·q − d)²: the spring between the beam's point and the mass.
+                    add(&mut stiffness, &placed.dofs, &outer(&nw, k));
+                    for (id, n) in placed.dofs.iter().zip(nw) {
+                        if let Some(id) = id {
+                            stiffness.add(*id, dof, -k * n);
+                        }
+                    }
+                    stiffness.add(dof, dof, k);
+                    mass.add(dof, dof, m);
                 }
             }
         }
-        Ok(Discrete { layout, elements, stiffness, mass })
+        Ok(Discrete { mesh, stiffness, mass })
+    }
+
+    /// An estimate of the largest eigenvalue of K·x = λ·M·x: four times the largest ratio of
+    /// their diagonals (within a small factor of it for beam meshes, and never far below).
+    fn largest_eigenvalue(&self) -> f64 {
+        (0..self.mesh.dofs)
+            .map(|i| self.stiffness.get(i, i) / self.mass.get(i, i))
+            .filter(|r| r.is_finite())
+            .fold(0.0, f64::max)
+            * 4.0
+    }
+
+    /// The mesh's estimated relative error at ω: the worst element's (kh)⁴/1440, plus for a
+    /// shear-flexible element the part that converges only as h² (see [`per_element`]).
+    fn mesh_error(&self, theory: Theory, omega: f64) -> f64 {
+        self.mesh
+            .elements
+            .iter()
+            .map(|p| {
+                let e = &p.element;
+                let segment = crate::model::Segment {
+                    length: e.length,
+                    flexural_rigidity: e.ei,
+                    mass_per_length: e.mass_per_length,
+                    shear_rigidity: e.kga.is_finite().then_some(e.kga),
+                    rotary_inertia_per_length: e.rotary_inertia_per_length,
+                };
+                let kh = wavenumber(&segment, theory, omega) * e.length;
+                let mut error = kh.powi(4) / 1440.0;
+                if let (Theory::Timoshenko, Some(kga)) = (theory, segment.shear_rigidity) {
+                    let k = kh / e.length;
+                    let share = e.ei * k * k / kga;
+                    error += 0.045 * share / (1.0 + share) * kh * kh;
+                }
+                error
+            })
+            .fold(0.0, f64::max)
     }
 }
 
@@ -209,7 +238,7 @@ impl Discrete {
 /// 0.045·σ·(kh)², with σ = s/(1 + s) and s = EI·k²/κGA the share of shear in the wave (fitted
 /// to exact Timoshenko frequencies of rectangles from L/h = 2.5 to 20, modes 1–4), so stocky
 /// sections need finer meshes: that element converges as h², not h⁴.
-fn per_element(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
+pub(crate) fn per_element(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
     let (Theory::Timoshenko, Some(kga)) = (theory, s.shear_rigidity) else { return WAVE_PER_ELEMENT };
     let k = wavenumber(s, theory, omega);
     let share = s.flexural_rigidity * k * k / kga;
@@ -220,7 +249,7 @@ fn per_element(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
 /// The bending wavenumber of free waves at ω in a segment: (mω²/EI)^¼ for Euler–Bernoulli; for
 /// Timoshenko the larger root k² of κGA·EI·k⁴ − ω²(κGA·ρI + ρA·EI)·k² + ρA·ω²(ρI·ω² − κGA) = 0
 /// (the pinned–pinned frequency equation read for k), which is shorter-waved.
-fn wavenumber(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
+pub(crate) fn wavenumber(s: &crate::model::Segment, theory: Theory, omega: f64) -> f64 {
     let w2 = omega * omega;
     let euler = (s.mass_per_length * w2 / s.flexural_rigidity).sqrt().sqrt();
     let (Theory::Timoshenko, Some(kga)) = (theory, s.shear_rigidity) else { return euler };

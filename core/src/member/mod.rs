@@ -1,6 +1,8 @@
 //! Uniform beam members: their exact dynamic stiffness, clamped–clamped count and interior shape.
 
 mod euler;
+#[cfg(test)]
+pub(crate) mod reference;
 mod timoshenko;
 pub(crate) mod transfer;
 
@@ -8,10 +10,6 @@ pub(crate) use euler::Euler;
 pub(crate) use timoshenko::Timoshenko;
 
 use crate::model::{Segment, Theory};
-
-/// A member's dynamic stiffness of [w₁, θ₁, w₂, θ₂] and its count of clamped–clamped
-/// frequencies below the trial frequency.
-pub(crate) type Evaluated = ([[f64; 4]; 4], usize);
 
 /// A uniform member of one theory, cut from a segment.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -42,6 +40,14 @@ impl Member {
         }
     }
 
+    /// The member's length, m.
+    pub(crate) fn length(&self) -> f64 {
+        match self {
+            Member::Euler(e) => e.length,
+            Member::Timoshenko(t) => t.length,
+        }
+    }
+
     /// The member's bending stiffness EI, N·m².
     pub(crate) fn flexural_rigidity(&self) -> f64 {
         match self {
@@ -50,22 +56,14 @@ impl Member {
         }
     }
 
-    /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
-    /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀); `None`
-    /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`).
-    pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<Evaluated> {
+    /// The left-end state for [`Member::propagate`] from the physical state (w, θ, Q, M) of the
+    /// station sweep (see [`transfer`]).
+    pub(crate) fn start_from(&self, s: [f64; 4]) -> [f64; 4] {
         match self {
-            Member::Euler(e) => Some((e.stiffness(omega), e.clamped_count(omega))),
-            Member::Timoshenko(t) => t.stiffness_and_count(omega),
-        }
-    }
-
-    /// The state at the left end from which [`Member::propagate`] carries the shape inside the
-    /// member; linear in the end values `q`.
-    pub(crate) fn start_state(&self, omega: f64, q: [f64; 4]) -> [f64; 4] {
-        match self {
-            Member::Euler(e) => e.start_state(omega, q),
-            Member::Timoshenko(t) => t.start_state(omega, q),
+            // The slender member carries (w, θ, F_θ/EI, F_w/EI) with F the nodal force the
+            // member takes at its left end, which is −(Q, M) there.
+            Member::Euler(e) => [s[0], s[1], -s[3] / e.ei, -s[2] / e.ei],
+            Member::Timoshenko(_) => [s[0], s[1], s[3], s[2]],
         }
     }
 
@@ -74,15 +72,6 @@ impl Member {
         match self {
             Member::Euler(e) => e.propagate(omega, state, x),
             Member::Timoshenko(t) => t.propagate(omega, state, x),
-        }
-    }
-
-    /// Pieces to cut this member into for its interior shape at ω: short enough that the
-    /// interior formulas are accurate and no piece reaches its own clamped–clamped frequency.
-    pub(crate) fn shape_pieces(&self, omega: f64) -> usize {
-        match self {
-            Member::Euler(e) => count((e.lambda(omega) / 1.0).ceil()),
-            Member::Timoshenko(t) => t.pieces(omega).max(count(t.lambda(omega).ceil())),
         }
     }
 
