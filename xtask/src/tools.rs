@@ -100,13 +100,16 @@ fn wasm_bindgen_version(project: &Project) -> Result<String> {
 }
 
 fn python() -> Result<()> {
-    let check = run::output(&mut run::cmd("python3", ["-c", "import mpmath, numpy, scipy"]))?;
+    let check = run::output(&mut run::cmd("python3", ["-c", "import mpmath, numpy, scipy, gmpy2"]))?;
     if check.status.success() {
-        println!("ok: Python mpmath, numpy, scipy");
+        println!("ok: Python mpmath, numpy, scipy, gmpy2");
         return Ok(());
     }
-    println!("installing: Python packages mpmath numpy scipy");
-    run::status(&mut run::cmd("python3", ["-m", "pip", "install", "--quiet", "mpmath", "numpy", "scipy"]))
+    println!("installing: Python packages mpmath numpy scipy gmpy2");
+    run::status(&mut run::cmd(
+        "python3",
+        ["-m", "pip", "install", "--quiet", "mpmath", "numpy", "scipy", "gmpy2"],
+    ))
 }
 
 /// Debian's wasm-opt shrinks the engine. Serving the site works without it (the engine is then

@@ -1,0 +1,189 @@
+//! The exact method on large models and on stations that crowd, against the classical global
+//! formulation in high precision (`tests/python/global_roots.py`: the assembled dynamic
+//! stiffness factored in MPFR (gmpy2) at 30 and more digits, the Wittrick–Williams count from its
+//! pivots and the members' clamped–clamped counts, each root refined on its determinant).
+//!
+//! The reference's count must step at each frequency within 1e-10 of it (which proves the value
+//! and its index right to that), and equal the index between neighbours (no mode missed or
+//! duplicated); two attachments closer than the engine's resolution must give exactly the model
+//! with the two merged.
+
+use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use modebench_tests::random::Rng;
+use modebench_tests::reference;
+use serde_json::{json, Value};
+
+const MODES: usize = 20;
+/// Relative accuracy each frequency is proved to by the reference's count.
+const PROVEN: f64 = 1e-10;
+
+fn segment(length: f64, ei: f64, m: f64) -> Segment {
+    Segment {
+        length,
+        flexural_rigidity: ei,
+        mass_per_length: m,
+        shear_rigidity: None,
+        rotary_inertia_per_length: 0.0,
+    }
+}
+
+fn model(segments: Vec<Segment>, left: End, right: End, attachments: Vec<Attachment>) -> Model {
+    Model::new(ModelParts { segments, left, right, attachments, theory: Theory::EulerBernoulli })
+        .expect("valid model")
+}
+
+/// Distinct sorted interior positions on [0, length], at least `gap` apart.
+fn positions(rng: &mut Rng, n: usize, length: f64) -> Vec<f64> {
+    let mut xs: Vec<f64> = (0..n).map(|_| rng.range(0.001, 0.999) * length).collect();
+    xs.sort_by(f64::total_cmp);
+    xs.dedup_by(|a, b| (*a - *b).abs() < 1e-6 * length);
+    xs
+}
+
+/// The models of the large-model checks.
+fn large_models() -> Vec<(&'static str, Model)> {
+    let mut rng = Rng::new(0x5CA1E);
+    let mut out = Vec::new();
+    let masses: Vec<Attachment> = (0..1000)
+        .map(|i| Attachment::Mass { position: (i as f64 + 0.5) / 1000.0, mass: 1e-3, rotary_inertia: 0.0 })
+        .collect();
+    out.push((
+        "pinned beam, 1000 equal masses",
+        model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, masses),
+    ));
+    let random_masses: Vec<Attachment> = positions(&mut rng, 999, 1.0)
+        .into_iter()
+        .map(|x| Attachment::Mass {
+            position: x,
+            mass: rng.range(5e-4, 1.5e-3),
+            rotary_inertia: rng.log_range(1e-7, 1e-5),
+        })
+        .collect();
+    out.push((
+        "pinned beam, 999 random masses with rotary inertia",
+        model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, random_masses),
+    ));
+    let springs: Vec<Attachment> = positions(&mut rng, 500, 2.0)
+        .into_iter()
+        .map(|x| Attachment::Spring { position: x, stiffness: rng.log_range(0.1, 100.0) })
+        .collect();
+    out.push((
+        "cantilever, 500 random grounded springs",
+        model(vec![segment(2.0, 3.0, 1.5)], End::Clamped, End::Free, springs),
+    ));
+    let sprung: Vec<Attachment> = positions(&mut rng, 300, 1.0)
+        .into_iter()
+        .map(|x| {
+            let mass = rng.range(1e-3, 5e-3);
+            // Own frequencies spread across the beam's first modes.
+            let own = rng.log_range(5.0, 3000.0);
+            Attachment::SprungMass { position: x, mass, stiffness: mass * own * own }
+        })
+        .collect();
+    out.push((
+        "free–free beam, 300 sprung masses",
+        model(vec![segment(1.0, 1.0, 1.0)], End::Free, End::Free, sprung),
+    ));
+    let tapered: Vec<Segment> = (0..200)
+        .map(|i| {
+            let s = 1.0 - 0.6 * (i as f64 + 0.5) / 200.0;
+            segment(0.01, 5.0 * s.powi(3), 2.0 * s)
+        })
+        .collect();
+    out.push(("200-segment tapered cantilever", model(tapered, End::Clamped, End::Free, vec![])));
+    let supports: Vec<Attachment> = (1..1000).map(|i| Attachment::Support { position: i as f64 }).collect();
+    out.push((
+        "1000 equal pinned spans",
+        model(vec![segment(1000.0, 1.0, 1.0)], End::Pinned, End::Pinned, supports),
+    ));
+    out
+}
+
+/// Checks the engine's first `modes` frequencies of each model against the reference.
+fn against_reference(cases: &[(String, Model)], modes: usize) {
+    let mut input = Vec::new();
+    let mut engine = Vec::new();
+    for (i, (name, m)) in cases.iter().enumerate() {
+        let omegas = exact::frequencies(m, modes).unwrap_or_else(|e| panic!("{name}: {e}"));
+        let mut value = reference::model_json(&format!("m{i}"), m, modes);
+        value["omegas"] = json!(omegas);
+        value["rigid"] = json!(m.rigid_body_modes());
+        input.push(value);
+        engine.push(omegas);
+    }
+    // Two reference processes, one per core, each with every other model.
+    let halves: Vec<Option<Value>> = std::thread::scope(|scope| {
+        let jobs: Vec<_> = (0..2)
+            .map(|half| {
+                let models: Vec<&Value> = input.iter().skip(half).step_by(2).collect();
+                let request = json!({ "models": models, "proven": PROVEN }).to_string();
+                scope.spawn(move || {
+                    reference::run("global_roots.py", &["gmpy2"], &request)
+                        .map(|out| serde_json::from_str::<Value>(&out).expect("the reference prints JSON"))
+                })
+            })
+            .collect();
+        jobs.into_iter().map(|j| j.join().expect("the reference thread finishes")).collect()
+    });
+    let mut out = serde_json::Map::new();
+    for half in halves {
+        let Some(Value::Object(map)) = half else { return };
+        out.extend(map);
+    }
+    let mut failures = Vec::new();
+    for (i, ((name, _), omegas)) in cases.iter().zip(&engine).enumerate() {
+        let problems = out[&format!("m{i}")]["problems"].as_array().expect("a list of problems");
+        if !problems.is_empty() {
+            failures.push(format!("{name} ({omegas:?}): {problems:?}"));
+        }
+    }
+    assert!(
+        failures.is_empty(),
+        "against the global dynamic stiffness in MPFR with the Wittrick–Williams count \
+         (tests/python/global_roots.py), to {PROVEN:e}:\n{}",
+        failures.join("\n")
+    );
+}
+
+#[test]
+fn large_models_keep_full_accuracy() {
+    let cases: Vec<(String, Model)> = large_models().into_iter().map(|(n, m)| (n.to_string(), m)).collect();
+    against_reference(&cases, MODES);
+}
+
+/// Two 0.4 point masses on a pinned–pinned unit beam (EI = m = 1), at 0.3 and 0.3 + d.
+fn pair(d: f64) -> Model {
+    let at = |x| Attachment::Mass { position: x, mass: 0.4, rotary_inertia: 0.0 };
+    model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, vec![at(0.3), at(0.3 + d)])
+}
+
+#[test]
+fn close_attachments_give_the_right_answer_at_every_separation() {
+    let separations = [1e-11, 1e-10, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 0.1, 0.4, 0.69];
+    let cases: Vec<(String, Model)> =
+        separations.iter().map(|d| (format!("two masses {d:e} apart"), pair(*d))).collect();
+    against_reference(&cases, 4);
+}
+
+#[test]
+fn attachments_within_the_resolution_are_exactly_the_merged_model() {
+    // Positions closer than a trillionth of the length are one station: the result is the merged
+    // model's, bit for bit, and moving the second mass by less than that changes nothing.
+    let merged = model(
+        vec![segment(1.0, 1.0, 1.0)],
+        End::Pinned,
+        End::Pinned,
+        vec![Attachment::Mass { position: 0.3, mass: 0.8, rotary_inertia: 0.0 }],
+    );
+    let want = exact::frequencies(&merged, 4).expect("solves");
+    for d in [0.0, 1e-15, 1e-13, 5e-13] {
+        assert_eq!(exact::frequencies(&pair(d), 4).expect("solves"), want, "d = {d:e}");
+    }
+    // And the answer moves continuously away from it: moving a mass by d changes a frequency
+    // by about d times ∂ln f/∂x, of order nπ for mode n (a fact of the theory), so 1e-6 apart
+    // is within 1e-5 of merged.
+    let near = exact::frequencies(&pair(1e-6), 4).expect("solves");
+    for (a, b) in near.iter().zip(&want) {
+        assert!(((a - b) / b).abs() < 1e-5, "{a} vs {b}");
+    }
+}
