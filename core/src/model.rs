@@ -588,7 +588,7 @@ mod tests {
     #[test]
     fn positions_at_the_ends_snap() {
         let mut p = uniform(End::Free, End::Free);
-        p.attachments = vec![Attachment::Support { position: 1.0 + 1e-12 }];
+        p.attachments = vec![Attachment::Support { position: 1.0 + 1e-13 }];
         let m = Model::new(p).unwrap();
         assert_eq!(m.attachments()[0].position(), 1.0);
     }
