@@ -46,7 +46,7 @@ impl<'a> Node<'a> {
     /// Records this node's value on an error, as the user wrote it where that is short.
     fn with_shown_value(&self, e: Error) -> Error {
         match self.value {
-            Value::String(s) => e.with_value(format!("\"{s}\"")),
+            Value::String(s) => e.with_value(s),
             Value::Number(n) => e.with_number(n.as_f64().unwrap_or(f64::NAN)),
             Value::Bool(b) => e.with_value(b),
             _ => e,
@@ -149,7 +149,7 @@ impl<'a> Node<'a> {
         names.iter().find(|(n, _)| *n == text).map(|(_, v)| *v).ok_or_else(|| {
             let list: Vec<String> = names.iter().map(|(n, _)| format!("\"{n}\"")).collect();
             self.error(ErrorKind::UnknownOption, format!("{what} is one of {}", list.join(", ")))
-                .with_value(format!("\"{text}\""))
+                .with_value(text)
         })
     }
 }
