@@ -155,14 +155,24 @@ impl<'a> Node<'a> {
 }
 
 /// Implements `serde::Deserialize` through `serde_json::Value` and one of the scenario readers,
-/// so files and tests can use serde while the reading logic stays in one place.
+/// so files and tests can use serde while the reading logic stays in one place (a field given
+/// twice is refused there too).
 macro_rules! deserialize_via_value {
     ($type:ty, $read:path) => {
         impl<'de> serde::Deserialize<'de> for $type {
             fn deserialize<D: serde::Deserializer<'de>>(
                 deserializer: D,
             ) -> std::result::Result<Self, D::Error> {
-                let value = <serde_json::Value as serde::Deserialize>::deserialize(deserializer)?;
+                let repeated = std::cell::RefCell::new(None);
+                let value =
+                    $crate::scenario::text::value(deserializer, &repeated).map_err(|e| {
+                        match repeated.borrow().as_deref() {
+                            Some(path) => <D::Error as serde::de::Error>::custom(
+                                $crate::scenario::text::given_twice(path),
+                            ),
+                            None => e,
+                        }
+                    })?;
                 $read(&$crate::scenario::json::Node::root(&value))
                     .map_err(<D::Error as serde::de::Error>::custom)
             }
