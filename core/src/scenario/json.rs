@@ -33,13 +33,18 @@ impl<'a> Node<'a> {
         Node { value, path: String::new() }
     }
 
+    /// Where this value stands in the scenario (`segments[0].section`; empty for the whole).
+    pub(crate) fn path(&self) -> &str {
+        &self.path
+    }
+
     fn error(&self, kind: ErrorKind, message: String) -> Error {
         Error::new(kind, message).at(&self.path)
     }
 
-    /// An error about this node's type: "expected …, got a list".
+    /// An error about this node's type: "expected …, not a list".
     pub(crate) fn expected(&self, what: &str) -> Error {
-        let e = self.error(ErrorKind::Syntax, format!("expected {what}, got {}", describe(self.value)));
+        let e = self.error(ErrorKind::Syntax, format!("expected {what}, not {}", describe(self.value)));
         self.with_shown_value(e)
     }
 
@@ -61,17 +66,35 @@ impl<'a> Node<'a> {
         }
     }
 
+    /// Checks that the node is an object, before reading a field that says what else it holds.
+    pub(crate) fn object(&self, what: &str) -> Result<&'a Map<String, Value>> {
+        self.value.as_object().ok_or_else(|| self.expected(what))
+    }
+
     /// Checks that the node is an object whose field names are all in `allowed`.
     pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
-        let Value::Object(map) = self.value else { return Err(self.expected(what)) };
-        if let Some(unknown) = map.keys().find(|k| !allowed.contains(&k.as_str())) {
-            return Err(Error::new(
+        let map = self.object(what)?;
+        let allowed_here = allowed.join(", ");
+        match map.keys().find(|k| !allowed.contains(&k.as_str())) {
+            // An empty name has no place of its own: the error stands at the object holding it.
+            Some(unknown) if unknown.is_empty() => {
+                let whose = if self.path.is_empty() { "the scenario has" } else { "this holds" };
+                Err(self.error(
+                    ErrorKind::Syntax,
+                    format!(
+                        "{whose} a field with an empty name; give its name or remove it (allowed here: \
+                         {allowed_here})"
+                    ),
+                ))
+            }
+            // The path ends with the unknown name, so the message need not repeat it.
+            Some(unknown) => Err(Error::new(
                 ErrorKind::Syntax,
-                format!("unknown field name \"{unknown}\"; allowed here: {}", allowed.join(", ")),
+                format!("this field name is not known; allowed here: {allowed_here}"),
             )
-            .at(self.child_path(unknown)));
+            .at(self.child_path(unknown))),
+            None => Ok(map),
         }
-        Ok(map)
     }
 
     /// A field of this object, when present and not null.

@@ -4,9 +4,12 @@
 //! the user wrote, unchecked; [`Scenario::to_model`] reads every value with its unit, checks it,
 //! and returns the validated [`Model`](crate::Model) together with an echo of the inputs in SI.
 
+mod derived;
 pub(crate) mod json;
 mod parse;
 mod read;
+#[cfg(test)]
+mod tests;
 pub(crate) mod text;
 
 pub use read::{Inputs, SegmentEcho, DEFAULT_MARGIN};
