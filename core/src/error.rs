@@ -48,33 +48,107 @@ impl ErrorKind {
     }
 }
 
+/// How many characters of anything the user typed an error repeats: enough to recognise it,
+/// few enough that a pasted paragraph cannot swamp the message.
+pub const ECHO_LIMIT: usize = 60;
+
+/// The longest message the crate writes. Every message quotes user text through [`echo`], so
+/// none comes near it; it is the backstop that keeps a message readable should one not.
+const MESSAGE_LIMIT: usize = 240;
+
+/// User text as an error repeats it: trimmed, and cut to [`ECHO_LIMIT`] characters with an
+/// ellipsis when longer. Every echo of user text in a message goes through here.
+pub fn echo(text: &str) -> String {
+    cut(text.trim(), ECHO_LIMIT)
+}
+
+fn cut(text: &str, limit: usize) -> String {
+    match text.char_indices().nth(limit) {
+        None => text.to_string(),
+        Some((end, _)) => format!("{}…", &text[..end]),
+    }
+}
+
+/// A number written compactly for a message (`1e300`, not three hundred digits; `0.1143`, not
+/// `0.11430000000000001`). Never "NaN" or "inf": a non-finite number is not a value a user can
+/// act on, so it is described instead.
+pub fn number(value: f64) -> String {
+    if value.is_nan() {
+        return "an undefined value".to_string();
+    }
+    if value.is_infinite() {
+        return if value > 0.0 {
+            "a value too large to represent"
+        } else {
+            "a value too negative to represent"
+        }
+        .to_string();
+    }
+    crate::units::significant(value, 6)
+}
+
+/// A ratio or estimate for a message, to three significant figures (`2.6e6`, `380`); never
+/// "NaN" or "inf", like [`number`].
+pub(crate) fn roughly(value: f64) -> String {
+    if value.is_finite() {
+        crate::units::significant(value, 3)
+    } else {
+        number(value)
+    }
+}
+
+/// A number as the user gave it in JSON, written back the shortest way that reads as the same
+/// number (`0.1143`), in exponent form when very large or small (`1e308`, not 309 digits).
+pub fn as_typed(value: f64) -> String {
+    if !value.is_finite() {
+        number(value)
+    } else if value == 0.0 || (1e-4..1e9).contains(&value.abs()) {
+        format!("{value}")
+    } else {
+        format!("{value:e}")
+    }
+}
+
 /// An error with the field path it concerns (`attachments[2].position`), the offending value
 /// as the user wrote it, and a message that says what is allowed.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
+#[non_exhaustive]
 pub struct Error {
     /// The kind of problem.
     pub kind: ErrorKind,
     /// Dotted path of the offending field, empty for whole-input problems.
     pub path: String,
-    /// The offending value as written, when there is one.
+    /// The offending value as written (cut to [`ECHO_LIMIT`] characters), when there is one.
     pub value: Option<String>,
+    /// The offending value in SI with its unit ("7.62 m"), when the check was made in SI.
+    pub si: Option<String>,
     /// What is wrong and what is allowed, in plain words.
     pub message: String,
 }
 
 impl Error {
-    /// A new error without a path; attach one with [`Error::at`].
+    /// A new error without a path; attach one with [`Error::at`]. Quote user text in `message`
+    /// through [`echo`].
     pub fn new(kind: ErrorKind, message: impl Into<String>) -> Self {
-        Error { kind, path: String::new(), value: None, message: message.into() }
+        let message = message.into();
+        let message =
+            if message.chars().count() > MESSAGE_LIMIT { cut(&message, MESSAGE_LIMIT) } else { message };
+        Error { kind, path: String::new(), value: None, si: None, message }
     }
 
     /// Sets the field path, prefixing any path already present (`segments[0]` + `section.wall`).
+    /// A field name the user typed is cut like any other echo.
     #[must_use]
     pub fn at(mut self, path: impl AsRef<str>) -> Self {
         let outer = path.as_ref();
+        let outer = if outer.chars().count() > ECHO_LIMIT {
+            outer.split('.').map(echo).collect::<Vec<_>>().join(".")
+        } else {
+            outer.to_string()
+        };
         self.path = match (outer.is_empty(), self.path.is_empty()) {
             (true, _) => self.path,
-            (false, true) => outer.to_string(),
+            (false, true) => outer,
             (false, false) if self.path.starts_with('[') => format!("{outer}{}", self.path),
             (false, false) => format!("{outer}.{}", self.path),
         };
@@ -84,34 +158,57 @@ impl Error {
     /// Records the offending value as the user wrote it.
     #[must_use]
     pub fn with_value(mut self, value: impl fmt::Display) -> Self {
-        self.value = Some(value.to_string());
+        self.value = Some(echo(&value.to_string()));
         self
     }
 
-    /// Records an offending number, written compactly (`1e300`, not three hundred digits).
+    /// Records an offending number given in SI without a unit (a plain JSON number, or a value
+    /// passed to the API). A non-finite number is left out: the message says what is wrong.
     #[must_use]
     pub fn with_number(self, value: f64) -> Self {
-        let text = if value == 0.0 || !value.is_finite() || (1e-4..1e9).contains(&value.abs()) {
-            format!("{value}")
+        if value.is_finite() {
+            self.with_value(as_typed(value))
         } else {
-            format!("{value:e}")
-        };
-        self.with_value(text)
+            self
+        }
+    }
+
+    /// Records the offending value as checked, in SI with its unit (`unit` empty for a ratio).
+    /// What the user typed, when known, is added with [`Error::with_value`].
+    #[must_use]
+    pub fn with_si(mut self, value: f64, unit: &str) -> Self {
+        if value.is_finite() {
+            self.si = Some(format!("{} {unit}", number(value)).trim_end().to_string());
+        }
+        self
     }
 }
 
 impl fmt::Display for Error {
+    /// `path: message; got "typed" (SI value)`, leaving out what the message already shows.
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         if !self.path.is_empty() {
             write!(f, "{}: ", self.path)?;
         }
         f.write_str(&self.message)?;
-        if let Some(value) = &self.value {
-            if !self.message.contains(value.as_str()) {
-                write!(f, " (got {value})")?;
-            }
+        let shown = |text: &str| !text.is_empty() && self.message.contains(text);
+        let typed = self.value.as_deref().filter(|v| !shown(v));
+        let si = self.si.as_deref().filter(|si| !shown(si) && Some(*si) != self.value.as_deref());
+        match (typed, si) {
+            (Some(typed), Some(si)) => write!(f, "; got {} ({si})", quoted(typed)),
+            (Some(typed), None) => write!(f, "; got {}", quoted(typed)),
+            (None, Some(si)) if self.value.is_none() => write!(f, "; got {si}"),
+            _ => Ok(()),
         }
-        Ok(())
+    }
+}
+
+/// A value as typed, in quotes unless it is a plain number.
+fn quoted(typed: &str) -> String {
+    if crate::units::decimal(typed).is_some() {
+        typed.to_string()
+    } else {
+        format!("\"{typed}\"")
     }
 }
 
@@ -138,6 +235,50 @@ mod tests {
         let e = Error::new(ErrorKind::OutOfRange, "a length must be positive")
             .at("segments[1].length")
             .with_value("-3");
-        assert_eq!(e.to_string(), "segments[1].length: a length must be positive (got -3)");
+        assert_eq!(e.to_string(), "segments[1].length: a length must be positive; got -3");
+    }
+
+    #[test]
+    fn display_gives_the_value_as_typed_and_in_si() {
+        let e = Error::new(ErrorKind::OutOfRange, "must lie on the beam (0 to 7.6 m)")
+            .at("report_point")
+            .with_value("300 in")
+            .with_si(7.62, "m");
+        assert_eq!(e.to_string(), "report_point: must lie on the beam (0 to 7.6 m); got \"300 in\" (7.62 m)");
+        // A value the message already quotes is not repeated.
+        let e = Error::new(ErrorKind::Conflict, "the wall (40 mm) must be thinner").with_value("40 mm");
+        assert_eq!(e.to_string(), "the wall (40 mm) must be thinner");
+        // Without what was typed, the SI value is the echo.
+        let e = Error::new(ErrorKind::OutOfRange, "too long").with_si(2e6, "m");
+        assert_eq!(e.to_string(), "too long; got 2e6 m");
+    }
+
+    #[test]
+    fn echoes_of_user_text_are_cut() {
+        // A pasted paragraph is repeated only as far as ECHO_LIMIT characters, in the value,
+        // the path and the message.
+        let paragraph = "é".repeat(100_000);
+        let e = Error::new(ErrorKind::UnknownOption, format!("unknown material \"{}\"", echo(&paragraph)))
+            .at(format!("segments[0].{paragraph}"))
+            .with_value(&paragraph);
+        assert_eq!(e.value.as_deref().map(|v| v.chars().count()), Some(ECHO_LIMIT + 1));
+        assert!(e.path.starts_with("segments[0].ééé") && e.path.ends_with('…'), "{}", e.path);
+        assert!(e.to_string().chars().count() < 300, "{e}");
+        // The backstop: a message that quotes user text without `echo` is still cut.
+        let e = Error::new(ErrorKind::Syntax, paragraph);
+        assert_eq!(e.message.chars().count(), MESSAGE_LIMIT + 1);
+    }
+
+    #[test]
+    fn non_finite_numbers_are_never_shown() {
+        for v in [f64::NAN, f64::INFINITY, f64::NEG_INFINITY] {
+            let e = Error::new(ErrorKind::NotFinite, "a length must be a finite number")
+                .with_number(v)
+                .with_si(v, "m");
+            assert_eq!(e.to_string(), "a length must be a finite number");
+            assert!(!number(v).contains("inf") && !number(v).contains("NaN"), "{}", number(v));
+        }
+        assert_eq!(number(0.114_300_000_000_000_01), "0.1143");
+        assert_eq!(number(1e300), "1e300");
     }
 }

@@ -75,12 +75,12 @@ pub fn breakdown(
 ) -> Result<MassBreakdown, Error> {
     if !(material_density.is_finite() && material_density > 0.0) {
         return Err(Error::new(ErrorKind::OutOfRange, "the material density must be positive and finite")
-            .with_value(material_density));
+            .with_number(material_density));
     }
     let structural = material_density * section.area;
     if !(structural.is_finite() && structural > 0.0) {
         return Err(Error::new(ErrorKind::OutOfRange, "the section area must be positive and finite")
-            .with_value(section.area));
+            .with_number(section.area));
     }
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
@@ -164,7 +164,27 @@ pub fn breakdown(
 
     let result = MassBreakdown { structural, contents, lining, added_water, conversions };
     if !result.total().is_finite() {
-        return Err(Error::new(ErrorKind::OutOfRange, "the mass per length is too large to compute"));
+        // Name the input whose part overflowed (or is the largest), as typed.
+        let parts = [
+            (contents, "contents_density", extra.contents_density.as_ref()),
+            (lining, "lining", extra.lining.as_ref()),
+            (added_water, "submerged", None),
+        ];
+        let (_, field, typed) =
+            parts.iter().fold(parts[0], |a, b| if b.0.total_cmp(&a.0).is_gt() { *b } else { a });
+        let error = Error::new(
+            ErrorKind::OutOfRange,
+            format!(
+                "the mass per length this gives is too large to compute with (a beam carries at most {} kg/m); \
+                 check the unit",
+                crate::error::number(crate::model::MASS_PER_LENGTH.1)
+            ),
+        )
+        .at(field);
+        return Err(match typed {
+            Some(typed) => error.with_value(typed),
+            None => error,
+        });
     }
     Ok(result)
 }

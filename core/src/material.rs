@@ -6,7 +6,7 @@
 #[cfg(test)]
 mod tests;
 
-use crate::error::{Error, ErrorKind};
+use crate::error::{echo, number, Error, ErrorKind};
 use crate::units::{self, Conversion, Kind, Quantity};
 
 /// Poisson's ratio assumed when a custom material does not give one.
@@ -191,7 +191,7 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
                 let ids: Vec<&str> = PRESETS.iter().map(|m| m.id).collect();
                 Error::new(
                     ErrorKind::UnknownOption,
-                    format!("unknown material \"{id}\"; the presets are {}", ids.join(", ")),
+                    format!("unknown material \"{}\"; the presets are {}", echo(id), ids.join(", ")),
                 )
                 .with_value(id)
             })?;
@@ -277,12 +277,12 @@ fn plausible(
     }
     let unit = kind.si_unit();
     let mut message = if value > 0.0 {
-        format!("{what} must lie between {low:e} and {high:e} {unit}")
+        format!("{what} must lie between {} and {} {unit}", number(low), number(high))
     } else {
-        format!("{what} must be positive")
+        format!("{what} must be greater than zero (between {} and {} {unit})", number(low), number(high))
     };
     if value > 0.0 && value < low {
         message.push_str(&format!("; a number without a unit is read in {unit}, so write the unit"));
     }
-    Err(Error::new(ErrorKind::OutOfRange, message).at(field).with_value(quantity))
+    Err(Error::new(ErrorKind::OutOfRange, message).at(field).with_value(quantity).with_si(value, unit))
 }

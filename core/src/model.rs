@@ -5,7 +5,7 @@
 //! the scenario's field names (`segments[1].length`, `attachments[2].position`) so that a message
 //! points at what the user typed.
 
-use crate::error::{Error, ErrorKind, Result};
+use crate::error::{number, roughly, Error, ErrorKind, Result};
 
 /// Which beam theory the exact and finite-element solvers use.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize)]
@@ -189,6 +189,7 @@ impl Model {
             non_negative(
                 s.rotary_inertia_per_length,
                 "a rotary inertia per length",
+                "kg·m",
                 &at("rotary_inertia_per_length"),
             )?;
             length += s.length;
@@ -320,6 +321,9 @@ impl Model {
     }
 }
 
+/// The ratio EI/κGA ÷ ρI/m that [`plausible_shear`] accepts.
+pub(crate) const SHEAR_RATIO: (f64, f64) = (1.0, 1000.0);
+
 /// For any solid or hollow section of a real material, EI/κGA = (E/κG)·I/A, and E/κG lies between
 /// about 2.4 (isotropic metals) and a few dozen (wood, pultruded composites across the grain);
 /// I/A = ρI/ρA. A ratio far outside that says a value was typed in the wrong unit, and it would
@@ -327,15 +331,19 @@ impl Model {
 fn plausible_shear(s: &Segment) -> Result<()> {
     let (Some(kga), true) = (s.shear_rigidity, s.rotary_inertia_per_length > 0.0) else { return Ok(()) };
     let ratio = (s.flexural_rigidity / kga) / (s.rotary_inertia_per_length / s.mass_per_length);
-    if !(1.0..=1000.0).contains(&ratio) {
+    if !(SHEAR_RATIO.0..=SHEAR_RATIO.1).contains(&ratio) {
         return Err(Error::new(
             ErrorKind::OutOfRange,
             format!(
-                "implausible with the other properties: EI/κGA is {ratio:.3} times ρI/ρA, where real sections \
-                 give about 2.5 (metals) to 50 (wood, composites); check the units of κGA, EI, ρI and m"
+                "implausible with the other properties: EI/κGA is {} times ρI/m, where real sections \
+                 give about 2.5 (metals) to 50 (wood, composites) and {} to {} is accepted; check the units \
+                 of κGA, EI, ρI and m",
+                roughly(ratio),
+                number(SHEAR_RATIO.0),
+                number(SHEAR_RATIO.1)
             ),
         )
-        .with_number(kga));
+        .with_si(kga, "N"));
     }
     Ok(())
 }
@@ -344,86 +352,82 @@ fn plausible_shear(s: &Segment) -> Result<()> {
 /// every intermediate quantity (ω², EI/L³, …) far inside the range of `f64`. A value outside is
 /// almost always a unit slip.
 const LENGTH: (f64, f64) = (1e-9, 1e6);
-const FLEXURAL: (f64, f64) = (1e-30, 1e20);
-const MASS_PER_LENGTH: (f64, f64) = (1e-20, 1e9);
-const SHEAR: (f64, f64) = (1e-20, 1e20);
+pub(crate) const FLEXURAL: (f64, f64) = (1e-30, 1e20);
+pub(crate) const MASS_PER_LENGTH: (f64, f64) = (1e-20, 1e9);
+pub(crate) const SHEAR: (f64, f64) = (1e-20, 1e20);
 const MASS: (f64, f64) = (0.0, 1e12);
 const STIFFNESS: (f64, f64) = (0.0, 1e20);
 
+/// The range `lo` to `hi` in words, for messages: "between 1e-9 and 1e6 m".
+pub(crate) fn range((lo, hi): (f64, f64), unit: &str) -> String {
+    format!("between {} and {} {unit}", number(lo), number(hi)).trim_end().to_string()
+}
+
 fn within(v: f64, what: &str, unit: &str, (lo, hi): (f64, f64), path: &str) -> Result<()> {
-    positive(v, what, path)?;
-    if v < lo || v > hi {
+    let allowed = range((lo, hi), unit);
+    let (kind, message) = if !v.is_finite() {
+        (ErrorKind::NotFinite, format!("{what} must be a finite number {allowed}"))
+    } else if v <= 0.0 {
+        (ErrorKind::OutOfRange, format!("{what} must be greater than zero ({allowed})"))
+    } else if v < lo || v > hi {
+        (ErrorKind::OutOfRange, format!("{what} must lie {allowed}; check the unit"))
+    } else {
+        return Ok(());
+    };
+    Err(Error::new(kind, message).at(path).with_si(v, unit))
+}
+
+fn non_negative(v: f64, what: &str, unit: &str, path: &str) -> Result<()> {
+    if !v.is_finite() {
         return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("{what} must lie between {lo:e} and {hi:e} {unit}; check the unit"),
+            ErrorKind::NotFinite,
+            format!("{what} must be a finite number, zero or more"),
         )
         .at(path)
-        .with_number(v));
-    }
-    Ok(())
-}
-
-fn positive(v: f64, what: &str, path: &str) -> Result<()> {
-    if !v.is_finite() {
-        return Err(Error::new(ErrorKind::NotFinite, format!("{what} must be a finite number"))
-            .at(path)
-            .with_number(v));
-    }
-    if v <= 0.0 {
-        return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be greater than zero"))
-            .at(path)
-            .with_number(v));
-    }
-    Ok(())
-}
-
-fn non_negative(v: f64, what: &str, path: &str) -> Result<()> {
-    if !v.is_finite() {
-        return Err(Error::new(ErrorKind::NotFinite, format!("{what} must be a finite number"))
-            .at(path)
-            .with_number(v));
+        .with_si(v, unit));
     }
     if v < 0.0 {
         return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be zero or more"))
             .at(path)
-            .with_number(v));
+            .with_si(v, unit));
     }
     Ok(())
 }
 
 /// A spring stiffness may be anything from 0 to +∞ (rigid), but not negative or NaN.
-fn spring(v: f64, what: &str, path: &str) -> Result<()> {
+fn spring(v: f64, what: &str, unit: &str, path: &str) -> Result<()> {
     if v.is_nan() || v < 0.0 || (v.is_finite() && v > STIFFNESS.1) {
-        return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be zero or more (or \"rigid\")"))
-            .at(path)
-            .with_number(v));
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!("{what} must lie {}, or be \"rigid\"", range((0.0, STIFFNESS.1), unit)),
+        )
+        .at(path)
+        .with_si(v, unit));
     }
     Ok(())
 }
 
 fn end_springs(end: End, side: &str) -> Result<()> {
     if let End::Elastic { translational, rotational } = end {
-        spring(translational, "a translational end spring", &format!("{side}.translational"))?;
-        spring(rotational, "a rotational end spring", &format!("{side}.rotational"))?;
+        spring(translational, "a translational end spring", "N/m", &format!("{side}.translational"))?;
+        spring(rotational, "a rotational end spring", "N·m/rad", &format!("{side}.rotational"))?;
     }
     Ok(())
 }
 
 fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
     let position = a.position();
+    let on_the_beam = format!("must lie on the beam (0 to {} m)", number(length));
     if !position.is_finite() {
-        return Err(Error::new(ErrorKind::NotFinite, "a position must be a finite number")
+        return Err(Error::new(ErrorKind::NotFinite, format!("the position {on_the_beam}"))
             .at("position")
-            .with_number(position));
+            .with_si(position, "m"));
     }
     let tolerance = SAME_POINT * length;
     if position < -tolerance || position > length + tolerance {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("the position must lie on the beam, from 0 to its length {length} m"),
-        )
-        .at("position")
-        .with_number(position));
+        return Err(Error::new(ErrorKind::OutOfRange, format!("the position {on_the_beam}"))
+            .at("position")
+            .with_si(position, "m"));
     }
     let snapped = if position.abs() <= tolerance {
         0.0
@@ -435,15 +439,20 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
     match a {
         Attachment::Mass { position, mass, rotary_inertia } => {
             *position = snapped;
-            non_negative(*mass, "a mass", "mass")?;
-            non_negative(*rotary_inertia, "a rotary inertia", "rotary_inertia")?;
+            non_negative(*mass, "a mass", "kg", "mass")?;
+            non_negative(*rotary_inertia, "a rotary inertia", "kg·m²", "rotary_inertia")?;
             if *mass > MASS.1 || *rotary_inertia > MASS.1 {
-                let field = if *mass > MASS.1 { "mass" } else { "rotary_inertia" };
+                let (field, what, unit, v) = if *mass > MASS.1 {
+                    ("mass", "a mass", "kg", *mass)
+                } else {
+                    ("rotary_inertia", "a rotary inertia", "kg·m²", *rotary_inertia)
+                };
                 return Err(Error::new(
                     ErrorKind::OutOfRange,
-                    format!("must be at most {:e} (SI); check the unit", MASS.1),
+                    format!("{what} must lie {}; check the unit", range(MASS, unit)),
                 )
-                .at(field));
+                .at(field)
+                .with_si(v, unit));
             }
             if *mass == 0.0 && *rotary_inertia == 0.0 {
                 return Err(Error::new(
@@ -456,11 +465,11 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
         }
         Attachment::Spring { position, stiffness } => {
             *position = snapped;
-            positive_or_rigid(*stiffness, "a spring stiffness")?;
+            positive_or_rigid(*stiffness, "a spring stiffness", "N/m")?;
         }
         Attachment::RotationalSpring { position, stiffness } => {
             *position = snapped;
-            positive_or_rigid(*stiffness, "a rotational spring stiffness")?;
+            positive_or_rigid(*stiffness, "a rotational spring stiffness", "N·m/rad")?;
         }
         Attachment::Support { position } => *position = snapped,
         Attachment::SprungMass { position, mass, stiffness } => {
@@ -480,14 +489,17 @@ fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
     Ok(())
 }
 
-fn positive_or_rigid(v: f64, what: &str) -> Result<()> {
+fn positive_or_rigid(v: f64, what: &str, unit: &str) -> Result<()> {
     if v.is_nan() || v <= 0.0 || (v.is_finite() && v > STIFFNESS.1) {
         return Err(Error::new(
             ErrorKind::OutOfRange,
-            format!("{what} must be greater than zero (or \"rigid\")"),
+            format!(
+                "{what} must be greater than zero, at most {} {unit} (or \"rigid\")",
+                number(STIFFNESS.1)
+            ),
         )
         .at("stiffness")
-        .with_number(v));
+        .with_si(v, unit));
     }
     Ok(())
 }
@@ -516,7 +528,7 @@ fn check_rigid_supports(parts: &ModelParts, length: f64) -> Result<()> {
                 ),
             )
             .at(format!("attachments[{i}].position"))
-            .with_number(x));
+            .with_si(x, "m"));
         }
         held.push((x, format!("attachments[{i}]")));
     }

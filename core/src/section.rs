@@ -10,7 +10,7 @@ mod tests;
 #[cfg(test)]
 mod tests_grid;
 
-use crate::error::{Error, ErrorKind};
+use crate::error::{number, Error, ErrorKind};
 use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
 
@@ -115,7 +115,7 @@ pub struct SectionProps {
 pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Error> {
     if !(poisson.is_finite() && (0.0..0.5).contains(&poisson)) {
         return Err(Error::new(ErrorKind::OutOfRange, "Poisson's ratio must be at least 0 and below 0.5")
-            .with_value(poisson));
+            .with_number(poisson));
     }
     let mut read = Reader::default();
     let mut props = match input {
@@ -198,20 +198,18 @@ pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Er
             solid(a, i, h, kappa)
         }
     };
+    // The ranges of the dimensions keep every property finite and positive, and the formulas
+    // add positive terms only; this stays as the last guard, naming the section as a whole.
     for (value, name) in [
         (props.area, "area"),
         (props.second_moment, "second moment of area"),
         (props.depth, "depth"),
         (props.shear_coefficient, "shear coefficient"),
     ] {
-        // Extreme but individually valid dimensions (1e-200 m, 1e200 m) can still underflow or
-        // overflow once raised to the fourth power.
         if !(value.is_finite() && value > 0.0) {
             return Err(Error::new(
                 ErrorKind::OutOfRange,
-                format!(
-                    "the section's {name} ({value:e}) is outside what can be computed; check the dimensions"
-                ),
+                format!("the section's {name} cannot be computed from these dimensions; check their units"),
             ));
         }
     }
@@ -249,8 +247,10 @@ fn tube(d_o: f64, t: f64, poisson: f64) -> SectionProps {
 fn rectangular_tube(b: f64, h: f64, t: f64, poisson: f64) -> SectionProps {
     let (b_i, h_i) = (b - 2.0 * t, h - 2.0 * t);
     SectionProps {
-        area: b * h - b_i * h_i,
-        second_moment: (b * h.powi(3) - b_i * h_i.powi(3)) / 12.0,
+        // bh − bᵢhᵢ and (bh³ − bᵢhᵢ³)/12 written as sums of positive terms, so that a thin wall
+        // on a large box does not lose its area to cancellation.
+        area: 2.0 * t * (b + h_i),
+        second_moment: (2.0 * t * h.powi(3) + b_i * cube_difference(h, 2.0 * t)) / 12.0,
         depth: h,
         // Cowper's thin-walled formula is written with wall centreline dimensions.
         shear_coefficient: shear::thin_walled_box(poisson, b - t, h - t, t, t),
@@ -265,8 +265,9 @@ fn i_beam(h: f64, b: f64, t_f: f64, t_w: f64, axis: BendingAxis, poisson: f64) -
     let flange_area = 2.0 * b * t_f;
     let area = flange_area + h_w * t_w;
     let (second_moment, depth, shear_coefficient) = match axis {
+        // [bh³ − (b − t_w)h_w³]/12 as a sum of positive terms (b ≥ t_w is checked).
         BendingAxis::Strong => (
-            (b * h.powi(3) - (b - t_w) * h_w.powi(3)) / 12.0,
+            (t_w * h.powi(3) + (b - t_w) * cube_difference(h, 2.0 * t_f)) / 12.0,
             h,
             shear::thin_walled_i(poisson, b, h - t_f, t_f, t_w),
         ),
@@ -287,6 +288,17 @@ fn i_beam(h: f64, b: f64, t_f: f64, t_w: f64, axis: BendingAxis, poisson: f64) -
     }
 }
 
+/// h³ − hᵢ³ for 0 < hᵢ = h − gap, without cancellation: gap·(h² + h·hᵢ + hᵢ²), with the gap
+/// as given rather than recovered from h − hᵢ.
+fn cube_difference(h: f64, gap: f64) -> f64 {
+    let h_i = h - gap;
+    gap * (h * h + h * h_i + h_i * h_i)
+}
+
+/// The range of a section's dimensions, m: a nanometre to a thousand kilometres, as for the
+/// length of a segment.
+const DIMENSION: (f64, f64) = (1e-9, 1e6);
+
 /// Reads dimensions with their units, checks their range and keeps the conversions applied.
 #[derive(Default)]
 struct Reader {
@@ -298,18 +310,27 @@ impl Reader {
         self.positive_of(quantity, Kind::Length, field)
     }
 
+    /// A dimension in its range: from a nanometre to a thousand kilometres for lengths, and the
+    /// squares and fourth powers of those for areas and second moments. Every section property
+    /// of dimensions in range is then a finite positive number, so a dimension that would make
+    /// one overflow or underflow is named here, with what was typed.
     fn positive_of(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
         let value = self.read(quantity, kind, field)?;
-        if value > 0.0 {
-            Ok(value)
-        } else {
-            Err(Error::new(
-                ErrorKind::OutOfRange,
-                format!("the {} must be positive", field.replace('_', " ")),
-            )
-            .at(field)
-            .with_value(quantity))
+        let (low, high) = match kind {
+            Kind::Area => (DIMENSION.0.powi(2), DIMENSION.1.powi(2)),
+            Kind::SecondMoment => (DIMENSION.0.powi(4), DIMENSION.1.powi(4)),
+            _ => DIMENSION,
+        };
+        if (low..=high).contains(&value) {
+            return Ok(value);
         }
+        let (what, unit) = (field.replace('_', " "), kind.si_unit());
+        let message = if value > 0.0 {
+            format!("the {what} must lie between {} and {} {unit}; check the unit", number(low), number(high))
+        } else {
+            format!("the {what} must be greater than zero (at most {} {unit})", number(high))
+        };
+        Err(Error::new(ErrorKind::OutOfRange, message).at(field).with_value(quantity).with_si(value, unit))
     }
 
     fn shear_coefficient(&mut self, quantity: &Quantity) -> Result<f64, Error> {
@@ -319,7 +340,7 @@ impl Reader {
         } else {
             let mut message = "the shear coefficient κ must be above 0 and at most 1".to_string();
             if value > 1.0 {
-                message.push_str(&format!(" (a value such as {value} may be the form factor 1/κ)"));
+                message.push_str(&format!(" (a value such as {} may be the form factor 1/κ)", number(value)));
             }
             Err(Error::new(ErrorKind::OutOfRange, message).at("shear_coefficient").with_value(quantity))
         }

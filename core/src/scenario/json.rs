@@ -33,20 +33,25 @@ impl<'a> Node<'a> {
         Node { value, path: String::new() }
     }
 
+    /// Where this value stands in the scenario (`segments[0].section`; empty for the whole).
+    pub(crate) fn path(&self) -> &str {
+        &self.path
+    }
+
     fn error(&self, kind: ErrorKind, message: String) -> Error {
         Error::new(kind, message).at(&self.path)
     }
 
-    /// An error about this node's type: "expected …, got a list".
+    /// An error about this node's type: "expected …, not a list".
     pub(crate) fn expected(&self, what: &str) -> Error {
-        let e = self.error(ErrorKind::Syntax, format!("expected {what}, got {}", describe(self.value)));
+        let e = self.error(ErrorKind::Syntax, format!("expected {what}, not {}", describe(self.value)));
         self.with_shown_value(e)
     }
 
     /// Records this node's value on an error, as the user wrote it where that is short.
     fn with_shown_value(&self, e: Error) -> Error {
         match self.value {
-            Value::String(s) => e.with_value(format!("\"{s}\"")),
+            Value::String(s) => e.with_value(s),
             Value::Number(n) => e.with_number(n.as_f64().unwrap_or(f64::NAN)),
             Value::Bool(b) => e.with_value(b),
             _ => e,
@@ -61,17 +66,35 @@ impl<'a> Node<'a> {
         }
     }
 
+    /// Checks that the node is an object, before reading a field that says what else it holds.
+    pub(crate) fn object(&self, what: &str) -> Result<&'a Map<String, Value>> {
+        self.value.as_object().ok_or_else(|| self.expected(what))
+    }
+
     /// Checks that the node is an object whose field names are all in `allowed`.
     pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
-        let Value::Object(map) = self.value else { return Err(self.expected(what)) };
-        if let Some(unknown) = map.keys().find(|k| !allowed.contains(&k.as_str())) {
-            return Err(Error::new(
+        let map = self.object(what)?;
+        let allowed_here = allowed.join(", ");
+        match map.keys().find(|k| !allowed.contains(&k.as_str())) {
+            // An empty name has no place of its own: the error stands at the object holding it.
+            Some(unknown) if unknown.is_empty() => {
+                let whose = if self.path.is_empty() { "the scenario has" } else { "this holds" };
+                Err(self.error(
+                    ErrorKind::Syntax,
+                    format!(
+                        "{whose} a field with an empty name; give its name or remove it (allowed here: \
+                         {allowed_here})"
+                    ),
+                ))
+            }
+            // The path ends with the unknown name, so the message need not repeat it.
+            Some(unknown) => Err(Error::new(
                 ErrorKind::Syntax,
-                format!("unknown field name \"{unknown}\"; allowed here: {}", allowed.join(", ")),
+                format!("this field name is not known; allowed here: {allowed_here}"),
             )
-            .at(self.child_path(unknown)));
+            .at(self.child_path(unknown))),
+            None => Ok(map),
         }
-        Ok(map)
     }
 
     /// A field of this object, when present and not null.
@@ -149,20 +172,30 @@ impl<'a> Node<'a> {
         names.iter().find(|(n, _)| *n == text).map(|(_, v)| *v).ok_or_else(|| {
             let list: Vec<String> = names.iter().map(|(n, _)| format!("\"{n}\"")).collect();
             self.error(ErrorKind::UnknownOption, format!("{what} is one of {}", list.join(", ")))
-                .with_value(format!("\"{text}\""))
+                .with_value(text)
         })
     }
 }
 
 /// Implements `serde::Deserialize` through `serde_json::Value` and one of the scenario readers,
-/// so files and tests can use serde while the reading logic stays in one place.
+/// so files and tests can use serde while the reading logic stays in one place (a field given
+/// twice is refused there too).
 macro_rules! deserialize_via_value {
     ($type:ty, $read:path) => {
         impl<'de> serde::Deserialize<'de> for $type {
             fn deserialize<D: serde::Deserializer<'de>>(
                 deserializer: D,
             ) -> std::result::Result<Self, D::Error> {
-                let value = <serde_json::Value as serde::Deserialize>::deserialize(deserializer)?;
+                let repeated = std::cell::RefCell::new(None);
+                let value =
+                    $crate::scenario::text::value(deserializer, &repeated).map_err(|e| {
+                        match repeated.borrow().as_deref() {
+                            Some(path) => <D::Error as serde::de::Error>::custom(
+                                $crate::scenario::text::given_twice(path),
+                            ),
+                            None => e,
+                        }
+                    })?;
                 $read(&$crate::scenario::json::Node::root(&value))
                     .map_err(<D::Error as serde::de::Error>::custom)
             }

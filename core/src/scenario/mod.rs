@@ -4,13 +4,17 @@
 //! the user wrote, unchecked; [`Scenario::to_model`] reads every value with its unit, checks it,
 //! and returns the validated [`Model`](crate::Model) together with an echo of the inputs in SI.
 
+mod derived;
 pub(crate) mod json;
 mod parse;
 mod read;
+#[cfg(test)]
+mod tests;
+pub(crate) mod text;
 
 pub use read::{Inputs, SegmentEcho, DEFAULT_MARGIN};
 
-use crate::error::{Error, ErrorKind, Result};
+use crate::error::Result;
 use crate::extra_mass::ExtraMassInput;
 use crate::material::MaterialInput;
 use crate::model::Theory;
@@ -170,11 +174,10 @@ pub struct ExcitationInput {
 }
 
 impl Scenario {
-    /// Reads a scenario from JSON text. Errors name the field path and what was expected.
+    /// Reads a scenario from JSON text. Errors name the field path and what was expected; a
+    /// field given twice is refused.
     pub fn from_json(text: &str) -> Result<Scenario> {
-        let value: serde_json::Value = serde_json::from_str(text)
-            .map_err(|e| Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}")))?;
-        Scenario::from_value(&value)
+        Scenario::from_value(&text::read(text)?)
     }
 
     /// Reads a scenario from parsed JSON.

@@ -2,7 +2,7 @@
 
 use super::json::Node;
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
-use crate::error::Result;
+use crate::error::{Error, ErrorKind, Result};
 use crate::extra_mass::{ExtraMassInput, Submerged};
 use crate::material::MaterialInput;
 use crate::model::Theory;
@@ -98,9 +98,12 @@ pub(crate) fn end(n: &Node<'_>) -> Result<EndInput> {
     };
     if kind != 4 {
         if let Some(extra) = fields.and_then(|m| m.keys().find(|k| *k != "type")) {
-            return Err(n
-                .require(extra, "")?
-                .expected("no springs on a free, pinned, clamped or guided end"));
+            let place = if n.path().is_empty() { extra.clone() } else { format!("{}.{extra}", n.path()) };
+            return Err(Error::new(
+                ErrorKind::Conflict,
+                "only an \"elastic\" end takes springs; remove this field or make the end elastic",
+            )
+            .at(place));
         }
     }
     Ok(match kind {
@@ -150,6 +153,7 @@ pub(crate) fn section(n: &Node<'_>) -> Result<SectionInput> {
         ("i-beam", 4),
         ("custom", 5),
     ];
+    n.object("a section object, with its \"shape\"")?;
     let shape = n.require("shape", "the section's shape")?.choice("a section shape", &shapes)?;
     let q = |name: &str, what: &str| n.require_quantity(name, what);
     Ok(match shape {
@@ -244,6 +248,7 @@ pub(crate) fn extra_mass(n: &Node<'_>) -> Result<ExtraMassInput> {
 
 pub(crate) fn attachment(n: &Node<'_>) -> Result<AttachmentInput> {
     let kinds = [("mass", 0u8), ("spring", 1), ("rotational-spring", 2), ("support", 3), ("sprung-mass", 4)];
+    n.object("an attachment object, with its \"type\"")?;
     let kind = n.require("type", "the kind of attachment")?.choice("an attachment", &kinds)?;
     let position = || n.require_quantity("position", "a position from the left end");
     let label = || n.text_at("label");

@@ -1,12 +1,13 @@
 //! Reading a scenario into a validated model: every value with its unit, every field checked,
 //! every conversion recorded for display.
 
+use super::derived::{self, SectionOrigin};
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
 use crate::analysis::Options;
-use crate::error::{Error, ErrorKind, Result};
+use crate::error::{number, Error, ErrorKind, Result};
 use crate::extra_mass::{self, MassBreakdown};
 use crate::material;
-use crate::model::{Attachment, End, Model, ModelParts, Segment};
+use crate::model::{Attachment, End, Model, ModelParts, Segment, SAME_POINT};
 use crate::section;
 use crate::units::{self, Conversion, Kind, Quantity};
 
@@ -84,10 +85,12 @@ impl Scenario {
         let mut r = Reader::default();
         let mut segments = Vec::with_capacity(self.segments.len());
         let mut echoes = Vec::with_capacity(self.segments.len());
+        let mut origins = Vec::with_capacity(self.segments.len());
         for (i, s) in self.segments.iter().enumerate() {
-            let (segment, echo) = read_segment(&mut r, s, &format!("segments[{i}]"))?;
+            let (segment, echo, origin) = read_segment(&mut r, s, &format!("segments[{i}]"))?;
             segments.push(segment);
             echoes.push(echo);
+            origins.push(origin);
         }
         let left = read_end(&mut r, &self.left, "left")?;
         let right = read_end(&mut r, &self.right, "right")?;
@@ -99,14 +102,18 @@ impl Scenario {
             labels.push(label);
         }
         let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })
-            .map_err(|mut e| {
-                if let Some((_, typed)) = r.written.iter().find(|(path, _)| *path == e.path) {
-                    e.value = Some(typed.clone());
+            .map_err(|e| {
+                let e = match segment_of(&e.path).and_then(|i| Some((i, origins.get(i)?.as_ref()?))) {
+                    Some((i, origin)) => derived::explain(e, &format!("segments[{i}]"), origin),
+                    None => e,
+                };
+                match r.written.iter().find(|(path, _)| *path == e.path) {
+                    Some((_, typed)) => e.with_value(typed),
+                    None => e,
                 }
-                e
             })?;
         let report_point = match &self.report_point {
-            Some(q) => Some(r.read(q, Kind::Length, "report_point")?),
+            Some(q) => Some(read_report_point(&mut r, q, model.length())?),
             None => None,
         };
         let options = Options { modes: self.modes, elements: self.elements, report_point };
@@ -130,7 +137,33 @@ impl Scenario {
     }
 }
 
-fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<(Segment, SegmentEcho)> {
+/// The index of the segment a path lies in: 2 for `segments[2].length`.
+fn segment_of(path: &str) -> Option<usize> {
+    path.strip_prefix("segments[")?.split_once(']')?.0.parse().ok()
+}
+
+/// The point for mode 1's equivalent mass and stiffness, on the beam; like an attachment's
+/// position, a point within a billionth of the length of an end is that end, so that "300 in"
+/// on a beam of "25 ft" is the end whichever way the conversions round.
+fn read_report_point(r: &mut Reader, q: &Quantity, length: f64) -> Result<f64> {
+    let x = r.read(q, Kind::Length, "report_point")?;
+    let tolerance = SAME_POINT * length;
+    if !(-tolerance..=length + tolerance).contains(&x) {
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!("the report point must lie on the beam (0 to {} m)", number(length)),
+        )
+        .at("report_point")
+        .with_value(q)
+        .with_si(x, "m"));
+    }
+    Ok(x.clamp(0.0, length))
+}
+
+/// A segment, how it was described, and what its section and material were made of.
+type ReadSegment = (Segment, SegmentEcho, Option<SectionOrigin>);
+
+fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<ReadSegment> {
     let at = |field: &str| format!("{path}.{field}");
     let length = match &s.length {
         Some(q) => r.read(q, Kind::Length, &at("length"))?,
@@ -192,11 +225,12 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<(Segment
         let echo = SegmentEcho {
             section: Some(section_name(section_input).to_string()),
             material: Some(mat.name.clone()),
-            mass: Some(mass),
+            mass: Some(mass.clone()),
             depth: Some(props.depth),
             gyration_squared: Some(props.second_moment / props.area),
         };
-        return Ok((segment, echo));
+        let origin = SectionOrigin { material_input: material_input.clone(), material: mat, props, mass };
+        return Ok((segment, echo, Some(origin)));
     }
     let (Some(ei), Some(m)) = (&s.flexural_rigidity, &s.mass_per_length) else {
         let missing = if s.flexural_rigidity.is_none() { "flexural_rigidity" } else { "mass_per_length" };
@@ -220,7 +254,7 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<(Segment
         (rotary_inertia_per_length > 0.0).then(|| rotary_inertia_per_length / mass_per_length);
     let segment =
         Segment { length, flexural_rigidity, mass_per_length, shear_rigidity, rotary_inertia_per_length };
-    Ok((segment, SegmentEcho { gyration_squared, ..SegmentEcho::default() }))
+    Ok((segment, SegmentEcho { gyration_squared, ..SegmentEcho::default() }, None))
 }
 
 fn section_name(s: &section::SectionInput) -> &'static str {
@@ -294,7 +328,8 @@ fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &str) -> Result<(S
     if f <= 0.0 {
         return Err(Error::new(ErrorKind::OutOfRange, "an excitation frequency must be greater than zero")
             .at(format!("{path}.frequency"))
-            .with_value(&e.frequency));
+            .with_value(&e.frequency)
+            .with_si(f, "Hz"));
     }
     if e.harmonics == 0 || e.harmonics > 50 {
         return Err(Error::new(ErrorKind::OutOfRange, "harmonics must be from 1 to 50")

@@ -215,13 +215,13 @@ fn impossible_sections_are_rejected_with_the_field_named() {
             SectionInput::Rectangle { width: q("0 mm"), depth: q("5 mm") },
             ErrorKind::OutOfRange,
             "width",
-            "positive",
+            "greater than zero",
         ),
         (
             SectionInput::Rectangle { width: q("5 mm"), depth: Quantity::Number(-1.0) },
             ErrorKind::OutOfRange,
             "depth",
-            "positive",
+            "greater than zero",
         ),
         (
             SectionInput::Round { diameter: Quantity::Number(f64::NAN) },
@@ -238,8 +238,8 @@ fn impossible_sections_are_rejected_with_the_field_named() {
         (
             SectionInput::Rectangle { width: q("1e-200 m"), depth: q("1e-200 m") },
             ErrorKind::OutOfRange,
-            "",
-            "outside what can be computed",
+            "width",
+            "between 1e-9 and 1e6 m",
         ),
         (
             SectionInput::Custom {
@@ -250,7 +250,7 @@ fn impossible_sections_are_rejected_with_the_field_named() {
             },
             ErrorKind::OutOfRange,
             "area",
-            "positive",
+            "greater than zero",
         ),
         (
             SectionInput::Custom {
@@ -261,7 +261,7 @@ fn impossible_sections_are_rejected_with_the_field_named() {
             },
             ErrorKind::OutOfRange,
             "second_moment",
-            "positive",
+            "greater than zero",
         ),
         (
             SectionInput::Custom {
@@ -344,4 +344,65 @@ fn sections_deserialise_from_scenario_json() {
     assert!(serde_json::from_str::<SectionInput>(unknown_shape).is_err());
     let round_trip = serde_json::to_string(&sections[3]).unwrap();
     assert_eq!(serde_json::from_str::<SectionInput>(&round_trip).unwrap(), sections[3]);
+}
+
+#[test]
+fn a_dimension_that_would_overflow_a_property_is_named_with_its_range() {
+    // 1e308 m squared or raised to the fourth power overflows, and 4.9e-324 m underflows; the
+    // error names the dimension, repeats it as typed and says what is allowed, instead of
+    // showing the property that could not be computed.
+    let i_beam = |depth: Quantity, flange_width: Quantity, web_thickness: Quantity| SectionInput::IBeam {
+        depth,
+        flange_width,
+        flange_thickness: q("10 mm"),
+        web_thickness,
+        axis: BendingAxis::Strong,
+    };
+    let cases = [
+        (SectionInput::Tube { outer_diameter: Quantity::Number(1e308), wall: q("5 mm") }, "outer_diameter"),
+        (SectionInput::Tube { outer_diameter: q("1e308 mm"), wall: q("5 mm") }, "outer_diameter"),
+        (i_beam(Quantity::Number(1e308), q("150 mm"), q("7 mm")), "depth"),
+        (i_beam(q("300 mm"), Quantity::Number(1e308), q("7 mm")), "flange_width"),
+        (i_beam(q("300 mm"), q("150 mm"), Quantity::Number(4.9e-324)), "web_thickness"),
+        (SectionInput::Rectangle { width: q("1 m"), depth: q("1e200 ft") }, "depth"),
+        (
+            SectionInput::Custom {
+                area: q("1 m^2"),
+                second_moment: Quantity::Number(1e308),
+                depth: None,
+                shear_coefficient: None,
+            },
+            "second_moment",
+        ),
+    ];
+    for (input, field) in cases {
+        let e = properties(&input, NU).expect_err(&format!("{input:?} must be rejected"));
+        let shown = e.to_string();
+        assert_eq!((e.kind, e.path.as_str()), (ErrorKind::OutOfRange, field), "{shown}");
+        assert!(shown.contains("must lie between 1e-9 and 1e6 m") || shown.contains("m⁴"), "{shown}");
+        assert!(!shown.contains("inf") && !shown.contains("NaN"), "{shown}");
+        assert!(shown.contains("; got "), "{shown} repeats what was typed");
+    }
+    let e =
+        properties(&SectionInput::Tube { outer_diameter: q("1e308 mm"), wall: q("5 mm") }, NU).unwrap_err();
+    assert_eq!(
+        e.to_string(),
+        "outer_diameter: the outer diameter must lie between 1e-9 and 1e6 m; check the unit; \
+         got \"1e308 mm\" (1e305 m)"
+    );
+}
+
+#[test]
+fn a_thin_wall_on_a_large_box_keeps_its_area() {
+    // bh − bᵢhᵢ loses everything to cancellation for a 1 nm wall on a 1000 km box; the exact
+    // value is 2t(b + h − 2t) (Roark's box formula, expanded).
+    let (b, t) = (1e6, 1e-9);
+    let thin = props(&SectionInput::RectangularTube {
+        width: Quantity::Number(b),
+        depth: Quantity::Number(b),
+        wall: Quantity::Number(t),
+    });
+    check("thin box A = 2t(b + h − 2t)", ROARK, 2.0 * t * (2.0 * b - 2.0 * t), thin.area, 1e-12);
+    // I = (bh³ − bᵢhᵢ³)/12 ≈ (2t·h³ + b·3h²·2t)/12 = 2t·b³·4/12 to first order in t.
+    check("thin box I ≈ (2/3)t·b³", ROARK, 2.0 / 3.0 * t * b.powi(3), thin.second_moment, 1e-9);
 }

@@ -50,11 +50,12 @@ pub enum Quantity {
 }
 
 impl std::fmt::Display for Quantity {
-    /// Writes the value as the user gave it: "27.2 in", or the bare SI number.
+    /// Writes the value as the user gave it: "27.2 in", or the bare SI number (`1e308`, not 309
+    /// digits); long text is cut.
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
-            Quantity::Number(value) => write!(f, "{value}"),
-            Quantity::Text(text) => f.write_str(&shorten(text.trim())),
+            Quantity::Number(value) => f.write_str(&crate::error::as_typed(*value)),
+            Quantity::Text(text) => f.write_str(&crate::error::echo(text)),
         }
     }
 }
@@ -129,7 +130,7 @@ pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
     match quantity {
         Quantity::Number(value) if value.is_finite() => Ok(Converted { si: *value, conversion: None }),
         Quantity::Number(value) => {
-            Err(Error::new(ErrorKind::NotFinite, "the value must be a finite number").with_value(value))
+            Err(Error::new(ErrorKind::NotFinite, "the value must be a finite number").with_number(*value))
         }
         Quantity::Text(text) => parse(text, kind),
     }
@@ -150,7 +151,7 @@ pub fn convert_field(
 
 /// Reads a quantity string such as "27.2 in" for a field of the given kind and converts it to SI.
 pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
-    let shown = shorten(text.trim());
+    let shown = crate::error::echo(text);
     let parsed = parse::parse_text(text).map_err(|mut e| {
         if e.kind == ErrorKind::UnknownUnit {
             let examples = display::examples(kind).join(", ");
@@ -173,7 +174,7 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
     if !si.is_finite() {
         return Err(Error::new(
             ErrorKind::NotFinite,
-            format!("{shown} is too large to represent in SI (it overflows a 64-bit float)"),
+            format!("{shown} is too large to compute with in SI units (the largest is about 1e308)"),
         )
         .with_value(&shown));
     }
@@ -271,14 +272,4 @@ fn pretty_unit(factors: &[Factor]) -> String {
     let denominator: String =
         factors.iter().filter(|f| f.power < 0).map(|f| format!("/{}", power(f))).collect();
     format!("{}{denominator}", numerator.join("·"))
-}
-
-/// Keeps error values readable when someone pastes a whole paragraph into a field.
-fn shorten(text: &str) -> String {
-    const LIMIT: usize = 60;
-    if text.chars().count() <= LIMIT {
-        text.to_string()
-    } else {
-        format!("{}…", text.chars().take(LIMIT).collect::<String>())
-    }
 }

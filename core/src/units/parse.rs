@@ -55,7 +55,10 @@ pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
     if !number.is_finite() {
         return Err(Error::new(
             ErrorKind::NotFinite,
-            format!("the number {number_text} is too large to represent (it overflows a 64-bit float)"),
+            format!(
+                "the number {} is too large to compute with (the largest is about 1e308)",
+                crate::error::echo(number_text)
+            ),
         ));
     }
     let rest = s[length..].trim_start();
@@ -104,7 +107,10 @@ fn scan_number(s: &str) -> usize {
 fn missing_number(s: &str) -> Error {
     let unsigned = s.trim_start_matches(['+', '-']).to_ascii_lowercase();
     if unsigned.starts_with("nan") || unsigned.starts_with("inf") {
-        return Error::new(ErrorKind::NotFinite, "the value must be a finite number");
+        return Error::new(
+            ErrorKind::NotFinite,
+            "the value must be a finite number with an optional unit, as in \"27.2 in\"",
+        );
     }
     match s.chars().next() {
         Some(c) if is_letter(c) => {

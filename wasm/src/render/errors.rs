@@ -39,14 +39,17 @@ fn parent(path: &str) -> &str {
     }
 }
 
-/// The message shown beside the field: what is wrong and what was typed, without the field
-/// path (the position says it) and without JSON line numbers (the user typed into a field).
+/// The message shown beside the field: what is wrong and what was typed (with its value in SI
+/// when the check was made in SI), without the field path (the position says it) and without
+/// JSON line numbers (the user typed into a field).
 pub fn message(error: &Error) -> String {
     let mut text = strip_location(&error.message).to_string();
-    if let Some(value) = &error.value {
-        if !value.is_empty() && !text.contains(value.as_str()) {
-            text.push_str(&format!(" (you typed “{value}”)"));
-        }
+    let typed = error.value.as_deref().filter(|v| !v.is_empty() && !text.contains(v));
+    let si = error.si.as_deref().filter(|si| !text.contains(si) && Some(*si) != error.value.as_deref());
+    match (typed, si) {
+        (Some(typed), Some(si)) => text.push_str(&format!(" (you typed “{typed}”, which is {si})")),
+        (Some(typed), None) => text.push_str(&format!(" (you typed “{typed}”)")),
+        _ => {}
     }
     text
 }
@@ -95,6 +98,24 @@ mod tests {
         assert_eq!(placement("modes.x", &FIELDS), Some("modes"));
         assert_eq!(placement("fe.elements", &FIELDS), None);
         assert_eq!(placement("", &FIELDS), None);
+    }
+
+    #[test]
+    fn messages_give_what_was_typed_and_its_si_value() {
+        let mut doc: serde_json::Value = serde_json::from_str(
+            r#"{"left": "clamped", "right": "free", "segments": [{"length": "1450 mm",
+                "flexural_rigidity": "1e4 N*m^2", "mass_per_length": "2 kg/m"}],
+                "attachments": [{"type": "mass", "position": "2100 mm", "mass": "1 kg"}]}"#,
+        )
+        .unwrap();
+        let e = modebench::solve_value(&doc).unwrap_err();
+        assert_eq!(
+            message(&e),
+            "the position must lie on the beam (0 to 1.45 m) (you typed “2100 mm”, which is 2.1 m)"
+        );
+        doc["attachments"][0]["position"] = serde_json::json!("2.1 m");
+        let e = modebench::solve_value(&doc).unwrap_err();
+        assert_eq!(message(&e), "the position must lie on the beam (0 to 1.45 m) (you typed “2.1 m”)");
     }
 
     #[test]

@@ -62,11 +62,16 @@ pub fn calculator_inner(
 ) -> String {
     let title = doc.get("title").and_then(Value::as_str).map(str::trim).filter(|t| !t.is_empty());
     let title = title.map(|t| format!("<h3 class=\"mb-title\">{}</h3>", escape(t))).unwrap_or_default();
+    // Both notes are in the markup; the style sheet shows the one for the state the page's script
+    // leaves on the root (none while loading, `data-engine="unavailable"` when it gave up), since
+    // no script may be written into the page.
     format!(
         "<div class=\"mb-head\">{title}<p class=\"mb-static-note\">This calculator becomes editable once the page's \
-         script has loaded; until then it shows the worked example.</p><button type=\"button\" class=\"mb-button \
-         mb-restore\" data-action=\"restore\">Restore the page's example</button></div><div class=\"mb-body\">\
-         <div class=\"mb-editor\">{}</div>{}</div>{}",
+         script has loaded; until then it shows the worked example.</p><p class=\"mb-unavailable-note\">The live \
+         calculator could not start in this browser (its script or WebAssembly is unavailable), so it cannot be \
+         edited. The figures shown are the page's worked example, computed when the page was built.</p>\
+         <button type=\"button\" class=\"mb-button mb-restore\" data-action=\"restore\">Restore the page's \
+         example</button></div><div class=\"mb-body\"><div class=\"mb-editor\">{}</div>{}</div>{}",
         editor_html(doc, error, editing),
         results_html(report, error.is_some(), view),
         caution_html()

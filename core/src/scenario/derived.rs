@@ -1,0 +1,122 @@
+//! Model checks on a property that a section and material give (EI, m, κGA, ρI), traced back
+//! to the field the user wrote: such a segment has no `flexural_rigidity` or `shear_rigidity`
+//! field for an error to name.
+
+use crate::error::{number, roughly, Error};
+use crate::extra_mass::MassBreakdown;
+use crate::material::{MaterialInput, ResolvedMaterial};
+use crate::model::{range, FLEXURAL, MASS_PER_LENGTH, SHEAR, SHEAR_RATIO};
+use crate::section::SectionProps;
+
+/// What a segment given by section and material was made of, kept to explain a model error.
+#[derive(Clone, Debug)]
+pub(super) struct SectionOrigin {
+    pub(super) material_input: MaterialInput,
+    pub(super) material: ResolvedMaterial,
+    pub(super) props: SectionProps,
+    pub(super) mass: MassBreakdown,
+}
+
+/// Rewrites a model error at `segment` (`segments[2]`) about a derived property so that it
+/// names the section, the material or the extra mass, whichever decides that property.
+/// Errors about fields the user wrote are returned unchanged.
+pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
+    let Some(field) = e.path.strip_prefix(segment).and_then(|f| f.strip_prefix('.')) else { return e };
+    let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
+    let at = |place: &str| format!("{segment}.{place}");
+    let (place, message, si) = match field {
+        "flexural_rigidity" => {
+            let ei = mat.youngs_modulus * props.second_moment;
+            (
+                at("section"),
+                format!(
+                    "the bending stiffness EI = E·I of this section in this material must lie {}; check \
+                     the section's dimensions and the material's Young's modulus",
+                    range(FLEXURAL, "N·m²")
+                ),
+                (ei, "N·m²"),
+            )
+        }
+        "mass_per_length" => {
+            let total = mass.total();
+            let place = if total > 2.0 * mass.structural { "extra_mass" } else { "section" };
+            (
+                at(place),
+                format!(
+                    "the mass per length of this section in this material, with its extra mass, must lie \
+                     {}; check the units of the density, the dimensions and the extra mass",
+                    range(MASS_PER_LENGTH, "kg/m")
+                ),
+                (total, "kg/m"),
+            )
+        }
+        "shear_rigidity" if e.message.contains("implausible") => {
+            return implausible_shear(e, segment, origin)
+        }
+        "shear_rigidity" => {
+            let kga = props.shear_coefficient * mat.shear_modulus * props.area;
+            (
+                at("section"),
+                format!(
+                    "the shear rigidity κGA of this section in this material must lie {}; check the \
+                     section's dimensions and the material's shear modulus",
+                    range(SHEAR, "N")
+                ),
+                (kga, "N"),
+            )
+        }
+        "rotary_inertia_per_length" => (
+            at("section"),
+            "the rotary inertia ρI of this section in this material cannot be computed; check the \
+             section's dimensions and the material's density"
+                .to_string(),
+            (f64::NAN, ""),
+        ),
+        _ => return e,
+    };
+    Error::new(e.kind, message).at(place).with_si(si.0, si.1)
+}
+
+/// The plausibility check of κGA fails for a section segment when E/G, the shear coefficient
+/// κ, or the share of extra mass in m is far from what real beams have: EI/κGA ÷ ρI/m equals
+/// (E/G)·(1/κ)·(m/ρA). Name the factor to blame.
+fn implausible_shear(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
+    let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
+    let e_over_g = mat.youngs_modulus / mat.shear_modulus;
+    let extra = mass.total() / mass.structural;
+    let inverse_kappa = 1.0 / props.shear_coefficient;
+    let ratio = e_over_g * inverse_kappa * extra;
+    let check = format!(
+        "so EI/κGA is {} times ρI/m, outside the {} to {} accepted",
+        roughly(ratio),
+        number(SHEAR_RATIO.0),
+        number(SHEAR_RATIO.1)
+    );
+    // Real materials have E/G from about 2.5 (metals) to 50 (wood, composites across the grain).
+    if !(1.0..=50.0).contains(&e_over_g) {
+        let given_g = matches!(&origin.material_input, MaterialInput::Custom { shear_modulus: Some(_), .. });
+        let place = if given_g { "material.shear_modulus" } else { "material" };
+        let message = format!(
+            "E/G is {}, but real materials give about 2.5 (metals) to 50 (wood, composites); check the units \
+             of the shear modulus and Young's modulus",
+            roughly(e_over_g)
+        );
+        let mut error = Error::new(e.kind, message).at(format!("{segment}.{place}"));
+        if let MaterialInput::Custom { shear_modulus: Some(g), .. } = &origin.material_input {
+            error = error.with_value(g).with_si(mat.shear_modulus, "Pa");
+        }
+        return error;
+    }
+    if extra > inverse_kappa {
+        let message = format!(
+            "the extra mass (contents, lining, water) is {} times the section's own, {check}; check its units",
+            roughly(extra - 1.0)
+        );
+        return Error::new(e.kind, message).at(format!("{segment}.extra_mass"));
+    }
+    let message = format!(
+        "this section's shear coefficient κ is only {}, {check}; check its dimensions",
+        roughly(props.shear_coefficient)
+    );
+    Error::new(e.kind, message).at(format!("{segment}.section"))
+}

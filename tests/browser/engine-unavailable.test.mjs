@@ -1,0 +1,75 @@
+// A calculator whose engine cannot start says so: it shows the page's worked example and a note
+// that the live calculator could not start, not the promise that it will soon become editable.
+
+import assert from "node:assert/strict";
+import { after, before, describe, test } from "node:test";
+import { isolatedContext, launch, startSite } from "./support.mjs";
+
+const BOOM = "sensor-boom.html";
+const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
+
+let site;
+let browser;
+
+before(async () => {
+  site = await startSite();
+  browser = await launch();
+});
+
+after(async () => {
+  await browser?.close();
+  site?.stop();
+});
+
+// Which of the two notes in the calculator's head can be seen.
+async function notes(page) {
+  const calculator = page.locator(".mb-calc").first();
+  return {
+    loading: await calculator.locator(".mb-static-note").isVisible(),
+    unavailable: await calculator.locator(".mb-unavailable-note").isVisible(),
+  };
+}
+
+describe("a calculator without its engine", () => {
+  for (const [what, pattern] of [
+    ["the engine's WebAssembly", "**/*.wasm"],
+    ["the engine's script", "**/modebench_web.js"],
+  ]) {
+    test(`when ${what} fails to load, it says the live calculator could not start`, async () => {
+      const { context } = await isolatedContext(browser);
+      await context.route(pattern, (route) => route.abort());
+      const page = await context.newPage();
+      await page.goto(site.url + BOOM);
+      await page.waitForSelector('.mb-calc[data-engine="unavailable"]', { timeout: 10_000 });
+      assert.deepEqual(await notes(page), { loading: false, unavailable: true });
+      const note = await page.locator(".mb-calc .mb-unavailable-note").first().innerText();
+      assert.match(note, /could not start/);
+      assert.match(note, /worked example, computed when the page was built/);
+      // The worked example is still there to read.
+      await page.locator(MODE_1).first().scrollIntoViewIfNeeded();
+      assert.ok(await page.locator(MODE_1).first().isVisible(), "the prerendered results show");
+      assert.ok(Number(await page.locator(MODE_1).first().getAttribute("data-hz")) > 0);
+      await context.close();
+    });
+  }
+
+  test("while the page's script has not run, it says the calculator becomes editable once it has", async () => {
+    const { context } = await isolatedContext(browser);
+    // The script never arrives: the state of a page still loading it.
+    await context.route("**/assets/boot.js", (route) => route.abort());
+    const page = await context.newPage();
+    await page.goto(site.url + BOOM);
+    assert.deepEqual(await notes(page), { loading: true, unavailable: false });
+    assert.match(await page.locator(".mb-calc .mb-static-note").first().innerText(), /becomes editable/);
+    await context.close();
+  });
+
+  test("once live, neither note shows", async () => {
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+    assert.deepEqual(await notes(page), { loading: false, unavailable: false });
+    await context.close();
+  });
+});
