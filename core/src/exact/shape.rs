@@ -349,3 +349,36 @@ fn bisect(s: &ModeShape, mut a: f64, mut b: f64, value_at_a: f64) -> f64 {
     }
     0.5 * (a + b)
 }
+
+#[cfg(test)]
+mod tests {
+    use crate::model::{Attachment, End, Model, ModelParts, Segment, Theory};
+
+    #[test]
+    fn a_sprung_mass_on_a_held_point_vibrates_alone() {
+        // A mass on a spring whose base cannot move is a single-degree-of-freedom oscillator:
+        // ω = √(k/m), the beam at rest (a fact of the theory). The inverse iteration meets an
+        // exactly vanishing pivot there and must still give a finite shape.
+        let model = Model::new(ModelParts {
+            segments: vec![Segment {
+                length: 2.0,
+                flexural_rigidity: 4.1e6,
+                mass_per_length: 36.0,
+                shear_rigidity: None,
+                rotary_inertia_per_length: 0.0,
+            }],
+            left: End::Clamped,
+            right: End::Clamped,
+            attachments: vec![Attachment::SprungMass { position: 0.0, mass: 180.0, stiffness: 9.0e5 }],
+            theory: Theory::EulerBernoulli,
+        })
+        .unwrap();
+        let modes = crate::exact::modes(&model, 2).unwrap();
+        let own = (9.0e5f64 / 180.0).sqrt();
+        assert!((modes[0].omega - own).abs() < 1e-12 * own);
+        let shape = &modes[0].shape;
+        assert_eq!(shape.sprung, vec![(0, 1.0)]);
+        assert!(shape.deflection.iter().all(|w| w.is_finite() && w.abs() < 1e-9));
+        assert!(shape.generalized_mass.is_finite() && (shape.generalized_mass - 180.0).abs() < 1e-6);
+    }
+}

@@ -74,8 +74,11 @@ pub(crate) fn respond(system: &System, pieces: &[usize], omega: f64, loads: &[St
         let mut force = load.force;
         let mut sprung = Vec::new();
         for (k, d) in s.sprung.iter().enumerate() {
-            // p·d − k·w = f_d: the spring passes (k − k²/p)·w − k·f_d/p to the beam.
+            // p·d − k·w = f_d: the spring passes (k − k²/p)·w − k·f_d/p to the beam. At the sprung
+            // mass's own frequency p vanishes; a pivot of rounding size stands in for it, the
+            // usual device of inverse iteration (the response then grows along that mode).
             let p = d.stiffness - w2 * d.mass;
+            let p = if p.abs() < f64::EPSILON * d.stiffness { f64::EPSILON * d.stiffness } else { p };
             let fd = load.sprung.get(k).copied().unwrap_or(0.0);
             if !held[0] {
                 a[0] += d.stiffness - d.stiffness * (d.stiffness / p);
