@@ -121,8 +121,7 @@ pub(crate) fn evaluate(system: &System, pieces: &[usize], omega: f64) -> Evaluat
         for _ in 0..n {
             below += negative(&z, held, &t.k11);
             z = carry(&t, &z);
-            factor.mul(1.0 / det_t12);
-            metric.orthonormalise(&mut z, &mut factor);
+            factor.mul(metric.orthonormalise(&mut z) / det_t12);
             held = [false, false];
         }
     }
@@ -194,21 +193,22 @@ fn carry(t: &Transfer, z: &Basis) -> Basis {
     out
 }
 
-/// The weights that make the four rows of a state comparable (each a length): w, θ·ℓ, Q·ℓ³/EI,
-/// M·ℓ²/EI, with ℓ the beam's length and EI its first segment's. Orthonormalising in this
-/// measure keeps the two columns well apart whatever the units.
+/// The squared weights that make the four rows of a state comparable (each a length): w, θ·ℓ,
+/// Q·ℓ³/EI, M·ℓ²/EI, with ℓ the beam's length and EI its first segment's. Orthonormalising in
+/// this measure keeps the two columns well apart whatever the units.
 struct Metric([f64; 4]);
 
 impl Metric {
     fn of(system: &System) -> Metric {
         let length = system.layout.stations.last().map_or(1.0, |s| s.x).max(f64::MIN_POSITIVE);
         let ei = system.members.first().map_or(1.0, Member::flexural_rigidity);
-        Metric([1.0, length, length.powi(3) / ei, length * length / ei])
+        let weights = [1.0, length, length.powi(3) / ei, length * length / ei];
+        Metric(weights.map(|w| w * w))
     }
 
-    /// Gram–Schmidt on the two columns; the product of their lengths before scaling joins the
-    /// factor, which keeps det Y·factor unchanged.
-    fn orthonormalise(&self, z: &mut Basis, factor: &mut LogProduct) {
+    /// Gram–Schmidt on the two columns; returns the product of their lengths before scaling,
+    /// which joins the factor to keep det Y·factor unchanged.
+    fn orthonormalise(&self, z: &mut Basis) -> f64 {
         let d = &self.0;
         let dot =
             |z: &Basis, a: usize, b: usize| (0..4).map(|r| d[r] * d[r] * z[r][a] * z[r][b]).sum::<f64>();
@@ -224,7 +224,6 @@ impl Metric {
         for row in z.iter_mut() {
             row[1] /= n1;
         }
-        factor.mul(n0);
-        factor.mul(n1);
+        n0 * n1
     }
 }

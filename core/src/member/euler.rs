@@ -70,8 +70,21 @@ impl Euler {
 
 /// Krylov–Duncan functions scaled to stay finite as β → 0:
 /// [K₁(βx), K₂(βx)/β, K₃(βx)/β², K₄(βx)/β³] with Kᵢ(z) = Σ z^(4k+i−1)/(4k+i−1)!.
+///
+/// Each is xⁱ⁻¹ times a power series in u = β⁴x⁴ with coefficients 1/(4k+i−1)!. For u up to
+/// [`HORNER_LIMIT`] (λ = βx ≤ 1.5, all the sweep and the shapes use) seven terms are summed by
+/// Horner's rule, the seventh below 1e-19 of the first; beyond it the terms are summed until they
+/// stop changing the sums.
 pub(super) fn krylov(beta4: f64, x: f64) -> [f64; 4] {
     let u = beta4 * x.powi(4);
+    let powers = [1.0, x, x * x, x * x * x];
+    if u <= HORNER_LIMIT {
+        return std::array::from_fn(|i| {
+            let c = &HORNER[i];
+            let sum = c[0] + u * (c[1] + u * (c[2] + u * (c[3] + u * (c[4] + u * (c[5] + u * c[6])))));
+            powers[i] * sum
+        });
+    }
     let mut out = [0.0; 4];
     let mut term = [1.0, x, x * x / 2.0, x * x * x / 6.0];
     for k in 0..SERIES_TERMS {
@@ -88,9 +101,67 @@ pub(super) fn krylov(beta4: f64, x: f64) -> [f64; 4] {
     out
 }
 
+/// Largest u = (βx)⁴ summed by [`HORNER`]: λ = 1.5 and a little over.
+const HORNER_LIMIT: f64 = 5.2;
+
+/// 1/(4k + i)! for i = 0..3 and k = 0..6, computed at compile time.
+const HORNER: [[f64; 7]; 4] = {
+    let mut out = [[0.0; 7]; 4];
+    let mut i = 0;
+    while i < 4 {
+        let mut k = 0;
+        while k < 7 {
+            let n = 4 * k + i;
+            let mut f = 1.0;
+            let mut j = 2;
+            while j <= n {
+                f *= j as f64;
+                j += 1;
+            }
+            out[i][k] = 1.0 / f;
+            k += 1;
+        }
+        i += 1;
+    }
+    out
+};
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn both_ways_of_summing_the_krylov_functions_agree() {
+        // Horner's seven terms and the open-ended sum, on either side of the switch, against the
+        // closed forms (cosh z ± cos z)/2 and (sinh z ± sin z)/2 (their definitions).
+        for lambda in [0.0, 0.3, 1.0, 1.5, 1.51, 2.0] {
+            let x = 0.7;
+            let beta: f64 = lambda / x;
+            let k = krylov(beta.powi(4), x);
+            let z: f64 = lambda;
+            if z == 0.0 {
+                assert_eq!(k, [1.0, x, x * x / 2.0, x * x * x / 6.0]);
+                continue;
+            }
+            let want = [
+                0.5 * (z.cosh() + z.cos()),
+                0.5 * (z.sinh() + z.sin()) / beta,
+                0.5 * (z.cosh() - z.cos()) / (beta * beta),
+                0.5 * (z.sinh() - z.sin()) / beta.powi(3),
+            ];
+            // The closed forms of K₃ and K₄ cancel like z², so they are only good to about ε/z².
+            let tolerance = 1e-15 + 4.0 * f64::EPSILON / (z * z);
+            for i in 0..4 {
+                assert!(
+                    (k[i] - want[i]).abs() <= tolerance * want[i].abs(),
+                    "λ = {lambda}, K{}: {} vs {}",
+                    i + 1,
+                    k[i],
+                    want[i]
+                );
+            }
+        }
+    }
 
     #[test]
     fn interior_deflection_reproduces_the_transfer_matrix() {
