@@ -123,6 +123,10 @@ pub struct ModeReport {
     pub fe_frequency_hz: Option<f64>,
     /// (FE − exact)/exact.
     pub fe_difference: Option<f64>,
+    /// The finite-element check's estimate of its own relative error (mesh and round-off).
+    pub fe_error: Option<f64>,
+    /// The exact frequency's estimated relative error (Rayleigh's quotient of its shape).
+    pub accuracy: Option<f64>,
     /// The other theory's exact frequency, Hz, when `Report::comparison` is set.
     pub other_theory_hz: Option<f64>,
     /// Interior points where the deflection changes sign, m.
@@ -222,6 +226,8 @@ impl Report {
                 && ok(m.rpm)
                 && opt(m.fe_frequency_hz)
                 && opt(m.fe_difference)
+                && opt(m.fe_error)
+                && opt(m.accuracy)
                 && opt(m.other_theory_hz)
                 && ok(m.generalized_mass)
                 && m.nodes.iter().chain(&m.shape.x).chain(&m.shape.w).all(|v| v.is_finite())
@@ -324,6 +330,8 @@ fn build(scenario: &Scenario, inputs: Inputs, analysis: Analysis) -> Result<Repo
                 rpm: f * 60.0,
                 fe_frequency_hz: m.fe_omega.map(hz),
                 fe_difference: m.fe_difference(),
+                fe_error: m.fe_error,
+                accuracy: m.accuracy,
                 other_theory_hz: other.as_ref().and_then(|o| o.get(i).copied()).map(hz),
                 nodes: m.shape.nodes.clone(),
                 generalized_mass: m.shape.generalized_mass,

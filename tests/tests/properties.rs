@@ -189,6 +189,47 @@ fn fine_fe_agrees_with_exact_and_default_mesh_reaches_its_target() {
 }
 
 #[test]
+fn the_finite_element_check_stays_within_its_own_error_estimate() {
+    // What the check says of itself (mesh error from the element's error formula, round-off from
+    // the pencil's conditioning) must cover its actual difference from the exact value, on random
+    // models and on attachments that crowd; otherwise the report's warning about a disagreeing
+    // check would cry wolf, or stay silent when it should not.
+    let mut rng = Rng::new(23);
+    for i in 0..40 {
+        let mut model = random::model(&mut rng, ANY);
+        if i % 4 == 0 {
+            // Crowd a second mass next to the first attachment.
+            let x = model.attachments().first().map_or(0.5 * model.length(), |a| a.position());
+            let d = 10f64.powf(-rng.range(3.0, 11.0)) * model.length();
+            let y = if x + d < model.length() { x + d } else { x - d };
+            model = rebuild(&model, |p| {
+                p.attachments.push(Attachment::Mass { position: y, mass: 0.3, rotary_inertia: 0.0 })
+            });
+        }
+        let a = analyse(&model, &Options::with_modes(6)).expect("solves");
+        assert!(
+            a.warnings.iter().all(|w| w.code != "fe-disagrees"),
+            "model {i}: {:?}",
+            a.warnings.iter().map(|w| &w.message).collect::<Vec<_>>()
+        );
+        for m in a.modes.iter().filter(|m| !m.rigid_body) {
+            assert!(
+                m.accuracy.is_some_and(|x| x < 1e-11),
+                "model {i} mode {}: accuracy {:?}",
+                m.number,
+                m.accuracy
+            );
+            let (d, e) = (m.fe_difference().unwrap_or(0.0), m.fe_error.unwrap_or(0.0));
+            assert!(
+                d.abs() <= 10.0 * e + 1e-9,
+                "model {i} mode {}: FE off by {d:e}, estimated {e:e}",
+                m.number
+            );
+        }
+    }
+}
+
+#[test]
 fn banded_fe_solver_equals_the_dense_reference() {
     // nalgebra's dense symmetric eigensolver on the same matrices is the slow obvious reference.
     // Both carry round-off of about ε·κ(K) on the lowest modes, hence 1e-7 rather than 1e-12.

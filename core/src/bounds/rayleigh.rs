@@ -24,7 +24,8 @@ pub fn rayleigh(model: &Model, mode1: &ModeShape, omega1: f64) -> Option<f64> {
     if model.rigid_body_modes() > 0 {
         return None;
     }
-    let d = Discrete::new(model, Mesh::UpTo(4.0 * omega1), &mode1.nodes).ok()?;
+    let d =
+        Discrete::new(model, Mesh::Between { lowest: omega1, highest: 4.0 * omega1 }, &mode1.nodes).ok()?;
     let mesh = &d.mesh;
     let sign = |x: f64| if mode1.at(x).0 < 0.0 { -1.0 } else { 1.0 };
     let mut load = vec![0.0; mesh.dofs];
@@ -92,36 +93,4 @@ fn energies(d: &Discrete, y: &[f64]) -> (f64, f64) {
         }
     }
     (strain, kinetic)
-}
-#[cfg(test)]
-mod scratch {
-    use crate::model::*;
-    #[test]
-    fn scratch_r() {
-        let m = Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 1.0,
-                flexural_rigidity: 1.0,
-                mass_per_length: 1.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
-            left: End::Pinned,
-            right: End::Pinned,
-            attachments: vec![
-                Attachment::Mass { position: 0.3, mass: 0.4, rotary_inertia: 0.0 },
-                Attachment::Mass { position: 0.300001, mass: 0.4, rotary_inertia: 0.0 },
-            ],
-            theory: Theory::EulerBernoulli,
-        })
-        .unwrap();
-        let modes = crate::exact::modes(&m, 1).unwrap();
-        let d =
-            crate::fe::Discrete::new(&m, crate::fe::Mesh::UpTo(4.0 * modes[0].omega), &modes[0].shape.nodes)
-                .unwrap();
-        println!("nodes {:?}", d.mesh.nodes.iter().map(|n| n.x).collect::<Vec<_>>());
-        println!("points {:?}", d.mesh.points);
-        println!("shape nodes {:?} omega {}", modes[0].shape.nodes, modes[0].omega);
-        println!("R {:?}", super::rayleigh(&m, &modes[0].shape, modes[0].omega));
-    }
 }

@@ -88,20 +88,31 @@ impl FeMesh {
         let length = model.length();
         let tolerance = SAME_POINT * length;
         let theory = model.theory();
-        // The element length aimed for at x (zero: no attachment is ever moved off a node).
+        // The element length aimed for at x for modes up to ω.
+        let wave = |x: f64, omega: f64| -> f64 {
+            let s = &model.segments()[model.segment_at(x)];
+            let h = per_element(s, theory, omega) / wavenumber(s, theory, omega);
+            if h.is_finite() {
+                h.min(length)
+            } else {
+                length
+            }
+        };
         let design = |x: f64| -> f64 {
             match mesh {
                 Mesh::Total(n) => length / n.max(1) as f64,
-                Mesh::UpTo(omega) => {
-                    let s = &model.segments()[model.segment_at(x)];
-                    let h = per_element(s, theory, omega) / wavenumber(s, theory, omega);
-                    if h.is_finite() {
-                        h.min(length)
-                    } else {
-                        length
-                    }
-                }
+                Mesh::UpTo(omega) | Mesh::Between { highest: omega, .. } => wave(x, omega),
                 Mesh::PerSpan(_) => 0.0,
+            }
+        };
+        // How close an attachment may come to a node before it is put inside an element instead.
+        let separation = |x: f64| -> f64 {
+            match mesh {
+                // An element of length h carries eigenvalues up to about 130·EI/(m·h⁴), so at
+                // the lowest mode the round-off is about 8ε·130/(βh)⁴ (see `ROUND_OFF`): a tenth
+                // of a wavelength's radian, βh = 0.05, keeps it near 4e-8. `wave` gives 0.5/β.
+                Mesh::Between { lowest, .. } => 0.1 * wave(x, lowest),
+                _ => SEPARATION * design(x),
             }
         };
 
@@ -117,7 +128,7 @@ impl FeMesh {
         let mut optional: Vec<f64> =
             model.attachments().iter().filter(|a| restraint(a).is_none()).map(Attachment::position).collect();
         crate::sort::floats(&mut optional);
-        let corners = choose(&fixed, &optional, tolerance, &|x| SEPARATION * design(x));
+        let corners = choose(&fixed, &optional, tolerance, &separation);
 
         // Elements per span between chosen nodes.
         let mut counts: Vec<f64> = corners
@@ -126,7 +137,7 @@ impl FeMesh {
                 let span = w[1] - w[0];
                 let n = match mesh {
                     Mesh::Total(n) => (n as f64 * span / length).round(),
-                    Mesh::UpTo(_) => (span / design(0.5 * (w[0] + w[1]))).ceil(),
+                    Mesh::UpTo(_) | Mesh::Between { .. } => (span / design(0.5 * (w[0] + w[1]))).ceil(),
                     Mesh::PerSpan(n) => n as f64,
                 };
                 if n.is_finite() {
@@ -138,7 +149,7 @@ impl FeMesh {
             .collect();
         let total: f64 = counts.iter().sum();
         if total > MAX_DEFAULT_ELEMENTS as f64 {
-            if !matches!(mesh, Mesh::UpTo(_)) {
+            if !matches!(mesh, Mesh::UpTo(_) | Mesh::Between { .. }) {
                 return Err(Error::new(
                     ErrorKind::OutOfRange,
                     format!("the mesh would need {total:.0} elements; at most {MAX_DEFAULT_ELEMENTS}"),

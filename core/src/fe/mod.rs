@@ -31,6 +31,15 @@ pub enum Mesh {
     /// Enough elements that modes up to this angular frequency (rad/s) converge to about 4e-5:
     /// at most 0.5 rad of bending wavenumber per element, in every span and segment.
     UpTo(f64),
+    /// As [`Mesh::UpTo`] for `highest`, with every attachment on a node of its own unless that
+    /// would make an element so short that round-off at `lowest` (the lowest frequency of
+    /// interest) would exceed about 1e-7; such an attachment acts inside its element.
+    Between {
+        /// The lowest frequency of interest, rad/s.
+        lowest: f64,
+        /// The highest frequency of interest, rad/s.
+        highest: f64,
+    },
     /// Every span between natural stations (ends, segment boundaries, attachments) cut into this
     /// many equal elements, every attachment on a node of its own; doubling it halves every
     /// element, as convergence studies need.
@@ -67,6 +76,45 @@ pub struct FeSolution {
     pub mesh_error: Vec<f64>,
     /// Estimated relative error of each frequency from round-off in the matrices.
     pub round_off: Vec<f64>,
+    /// The attachments placed inside elements rather than on nodes, whose own discretisation
+    /// error depends on the mode's deflection there (see [`Interior::error`]).
+    pub interior: Vec<Interior>,
+}
+
+/// An attachment that acts inside an element, at distances `a` and `b` from its ends.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Interior {
+    /// Index of the attachment in the model.
+    pub attachment: usize,
+    /// Position, m.
+    pub position: f64,
+    /// Distances to the element's ends, m.
+    pub a: f64,
+    /// See `a`.
+    pub b: f64,
+    /// The element's bending stiffness EI, N·m².
+    pub flexural_rigidity: f64,
+}
+
+impl Interior {
+    /// The relative error that a force F and a moment C acting here (the mode's inertia or
+    /// spring forces at this point) add to a mode's ω. A cubic element bends between its nodes
+    /// only as its end values dictate, so it misses the compliance of its span clamped at both
+    /// ends under a load at this point: the inverse of the two clamped pieces' end stiffnesses
+    /// added, EI·[12/a³ + 12/b³, 6/b² − 6/a²; 6/b² − 6/a², 4/a + 4/b] (the standard slender
+    /// element's stiffness). Against the mode's energy ω²·T (T its generalised mass in the same
+    /// normalisation as F and C) that is δω/ω ≈ (F, C)·compliance·(F, C)/(2ω²T).
+    pub fn error(&self, force: f64, moment: f64, omega: f64, generalized_mass: f64) -> f64 {
+        let (a, b, ei) = (self.a, self.b, self.flexural_rigidity);
+        let k = [
+            [ei * (12.0 / a.powi(3) + 12.0 / b.powi(3)), ei * (6.0 / (b * b) - 6.0 / (a * a))],
+            [ei * (6.0 / (b * b) - 6.0 / (a * a)), ei * (4.0 / a + 4.0 / b)],
+        ];
+        let det = k[0][0] * k[1][1] - k[0][1] * k[1][0];
+        let work =
+            (k[1][1] * force * force - 2.0 * k[0][1] * force * moment + k[0][0] * moment * moment) / det;
+        work / (2.0 * omega * omega * generalized_mass)
+    }
 }
 
 /// The first `elastic` elastic natural frequencies by finite elements.
@@ -94,7 +142,27 @@ pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]
     let (roots, _) = roots::find(rigid, elastic, guess, &hints, &discrete)?;
     let omegas: Vec<f64> = roots.iter().map(|r| r.omega).collect();
     let largest = discrete.largest_eigenvalue();
+    let interior = discrete
+        .mesh
+        .points
+        .iter()
+        .filter(|p| p.xi > 0.0 && p.xi < 1.0)
+        .filter_map(|p| {
+            let e = &discrete.mesh.elements[p.element];
+            let attachment = model.attachments().iter().position(|a| {
+                a.position() == p.x && !matches!(a, crate::model::Attachment::Support { .. })
+            })?;
+            Some(Interior {
+                attachment,
+                position: p.x,
+                a: p.xi * e.element.length,
+                b: (1.0 - p.xi) * e.element.length,
+                flexural_rigidity: e.element.ei,
+            })
+        })
+        .collect();
     Ok(FeSolution {
+        interior,
         mesh_error: omegas.iter().map(|w| discrete.mesh_error(model.theory(), *w)).collect(),
         round_off: omegas.iter().map(|w| ROUND_OFF * f64::EPSILON * largest / (w * w)).collect(),
         omegas,

@@ -66,6 +66,14 @@ impl Euler {
         let slope = w0 * b4 * s[3] + t0 * s[0] - moment * s[1] + shear * s[2];
         (w, slope)
     }
+
+    /// The bending moment EI·w″ at distance `x` from the left end, from the left-end state.
+    pub(crate) fn moment(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
+        let [w0, t0, moment, shear] = state;
+        let b4 = self.m * omega * omega / self.ei;
+        let [k1, k2, k3, k4] = krylov(b4, x);
+        self.ei * (w0 * b4 * k3 + t0 * b4 * k4 - moment * k1 + shear * k2)
+    }
 }
 
 /// Krylov–Duncan functions scaled to stay finite as β → 0:

@@ -75,6 +75,21 @@ impl Member {
         }
     }
 
+    /// Bending strain energy density and shear strain energy density (both per unit length,
+    /// times two: M²/EI and Q²/κGA) at `x` from the left end, given the left-end state.
+    pub(crate) fn strain_density(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
+        match self {
+            Member::Euler(e) => {
+                let m = e.moment(omega, state, x);
+                m * m / e.ei
+            }
+            Member::Timoshenko(t) => {
+                let (m, q) = t.forces(omega, state, x);
+                m * m / t.ei + q * q / t.kga
+            }
+        }
+    }
+
     /// Pieces the station sweep cuts this member into for frequencies up to `omega_max`: short
     /// enough that each piece's transfer matrix is close to the identity and accurately summed
     /// (λ ≤ [`SWEEP_LAMBDA`] for a slender piece), and so far below the piece's own first

@@ -99,6 +99,15 @@ impl Timoshenko {
         Transfer::from_full(&full)
     }
 
+    /// The bending moment and shear force at `x` from the left-end state (w, ψ, M, Q).
+    pub(crate) fn forces(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
+        let h = self.length;
+        let y0 =
+            Vector4::new(state[0], h * state[1], state[2] * h * h / self.ei, state[3] * h * h * h / self.ei);
+        let y = propagate(&self.system(h, omega), y0, x / h);
+        (y[2] * self.ei / (h * h), y[3] * self.ei / (h * h * h))
+    }
+
     /// Deflection and section rotation at `x` from the left-end state, carried by the transfer
     /// matrix. Accurate for a member no longer than one piece at ω.
     pub(crate) fn propagate(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
