@@ -92,12 +92,48 @@ pub struct Fundamental {
 }
 
 /// A note for the user about the results.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Warning {
     /// A stable identifier (`rigid-body`, `fe-unconverged`, …).
-    pub code: &'static str,
+    pub code: WarningCode,
     /// What it means, in plain words.
     pub message: String,
+}
+
+/// The stable identifier of a [`Warning`], serialised in kebab case (`fe-round-off`).
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+#[non_exhaustive]
+pub enum WarningCode {
+    /// Round-off limits the finite-element result.
+    FeRoundOff,
+    /// The beam has rigid-body modes.
+    RigidBody,
+    /// The finite-element result has not converged.
+    FeUnconverged,
+    /// Some frequencies are repeated.
+    Repeated,
+    /// Mode 1 barely moves at the report point.
+    ReportPointAtNode,
+    /// A mode lies within the separation margin of an excitation.
+    ResonanceMargin,
+    /// Shear deformation and rotary inertia matter.
+    ShearMatters,
+}
+
+impl WarningCode {
+    /// The identifier as serialised.
+    pub fn id(self) -> &'static str {
+        match self {
+            WarningCode::FeRoundOff => "fe-round-off",
+            WarningCode::RigidBody => "rigid-body",
+            WarningCode::FeUnconverged => "fe-unconverged",
+            WarningCode::Repeated => "repeated",
+            WarningCode::ReportPointAtNode => "report-point-at-node",
+            WarningCode::ResonanceMargin => "resonance-margin",
+            WarningCode::ShearMatters => "shear-matters",
+        }
+    }
 }
 
 /// Everything the three methods found.
@@ -182,7 +218,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if fe.elements > fe::NOISY_ELEMENTS {
         warnings.push(Warning {
-            code: "fe-round-off",
+            code: WarningCode::FeRoundOff,
             message: format!(
                 "With {} elements, round-off in the finite-element matrices (it grows with the fourth power of \
                  the element count) limits that result to about 1e-6; fewer elements are as accurate.",
@@ -192,7 +228,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if rigid > 0 {
         warnings.push(Warning {
-            code: "rigid-body",
+            code: WarningCode::RigidBody,
             message: format!(
                 "The beam is not held against {}: {rigid} rigid-body mode{} at 0 Hz. Rayleigh and Dunkerley \
                  estimates need a restrained beam and are not shown.",
@@ -205,7 +241,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         modes.iter().filter(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)).map(|m| m.number).next()
     {
         warnings.push(Warning {
-            code: "fe-unconverged",
+            code: WarningCode::FeUnconverged,
             message: format!(
                 "The finite-element result differs from the exact one by more than 0.1 % from mode {worst} on; \
                  use more elements if you rely on it."
@@ -214,7 +250,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if modes.iter().any(|m| m.multiplicity > 1 && !m.rigid_body) {
         warnings.push(Warning {
-            code: "repeated",
+            code: WarningCode::Repeated,
             message:
                 "Some frequencies are repeated; their mode shapes are one mass-orthogonal choice among many."
                     .to_string(),
@@ -231,7 +267,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
             let equivalent = bounds::equivalent(&first.shape, first.omega, position);
             if equivalent.is_none() {
                 warnings.push(Warning {
-                    code: "report-point-at-node",
+                    code: WarningCode::ReportPointAtNode,
                     message: "Mode 1 barely moves at the chosen report point, so no equivalent mass is given there."
                         .to_string(),
                 });

@@ -178,7 +178,11 @@ fn warnings(report: &Report) -> String {
         .warnings
         .iter()
         .map(|w| {
-            format!("<li class=\"mb-warning\" data-code=\"{}\">{}</li>", escape(w.code), escape(&w.message))
+            format!(
+                "<li class=\"mb-warning\" data-code=\"{}\">{}</li>",
+                escape(w.code.id()),
+                escape(&w.message)
+            )
         })
         .collect();
     format!("<ul class=\"mb-warnings\">{items}</ul>")
