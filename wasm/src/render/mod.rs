@@ -25,7 +25,7 @@ pub use escape::escape;
 pub use form::Editing;
 pub use offer::offer_html;
 pub use plot::plot_svg;
-pub use results::{results_html, results_inner, View};
+pub use results::{results_html, results_inner, stale_note, View};
 
 use crate::doc;
 use modebench::{Error, Report};

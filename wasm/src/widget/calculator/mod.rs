@@ -34,6 +34,9 @@ pub(super) struct Calculator {
     /// The reader's stored case and the mode they looked at, not on show yet: it is tried once
     /// the page shows its example, and shown if it is solved within the budget.
     saved: Option<(Value, usize)>,
+    /// Whether the results on show are still those the page was built with: no report has
+    /// come yet to draw in their place (the worker may not have answered, or not in time).
+    built_results: bool,
 }
 
 impl Calculator {
@@ -52,6 +55,7 @@ impl Calculator {
             solver: Solver::new(worker_url, budget_ms),
             edited_at: None,
             saved,
+            built_results: true,
         };
         c.load_example();
         c
@@ -106,7 +110,8 @@ impl Calculator {
             })
     }
 
-    /// Draws the whole calculator.
+    /// Draws the whole calculator; before any report has come, around the results the page was
+    /// built with.
     fn draw_all(&mut self) {
         self.keep_open_sections();
         let html = render::calculator_inner(
@@ -116,8 +121,37 @@ impl Calculator {
             &self.view,
             Editing::Live,
         );
+        let kept =
+            dom::first(&self.root, ".mb-results").filter(|_| self.built_results && self.last.is_none());
+        let kept = kept.map(|results| results.outer_html());
         self.root.set_inner_html(&html);
+        match (kept, dom::first(&self.root, ".mb-results")) {
+            (Some(built), Some(results)) => {
+                results.set_outer_html(&built);
+                self.show_built_results();
+            }
+            _ => self.built_results = false,
+        }
         self.show_offer();
+    }
+
+    /// Keeps the results the page was built with on show: greyed, with the note that they
+    /// belong to an earlier input, while there is an error.
+    fn show_built_results(&self) {
+        let Some(results) = dom::first(&self.root, ".mb-results") else { return };
+        let _ = results.remove_attribute("aria-busy");
+        let note = dom::first(&results, ".mb-stale-note");
+        if self.error.is_some() {
+            let _ = results.class_list().add_1("mb-stale");
+            if note.is_none() {
+                let _ = results.insert_adjacent_html("afterbegin", render::stale_note());
+            }
+        } else {
+            let _ = results.class_list().remove_1("mb-stale");
+            if let Some(note) = note {
+                note.remove();
+            }
+        }
     }
 
     /// Draws the editor's controls, leaving the results as they are; with `marks`, the error
@@ -130,9 +164,16 @@ impl Calculator {
         }
     }
 
-    /// Draws the results and moves the error mark, leaving the editor's inputs in place.
+    /// Draws the results and moves the error mark, leaving the editor's inputs in place. Before
+    /// any report has come, the results the page was built with stay (greyed under an error).
     fn draw_results(&mut self) {
         self.keep_open_sections();
+        if self.last.is_none() && self.built_results {
+            self.show_built_results();
+            self.mark_error();
+            return;
+        }
+        self.built_results = false;
         if let Some(results) = dom::first(&self.root, ".mb-results") {
             let class = if self.error.is_some() { "mb-results mb-stale" } else { "mb-results" };
             results.set_class_name(class);
