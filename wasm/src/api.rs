@@ -4,7 +4,7 @@
 //! import init, { solve, parseQuantity, listSections, listMaterials, listUnits, mountAll, version }
 //!   from "./modebench_web.js";
 //! await init();
-//! mountAll(new URL("solve-worker.js", import.meta.url));  // start every calculator on the page
+//! mountAll(new URL("solve-worker.js", import.meta.url).href);  // start every calculator on the page
 //! const report = solve({ left: "clamped", right: "free",
 //!   segments: [{ length: "1 m", flexural_rigidity: 1, mass_per_length: 1 }] });
 //! report.modes[0].frequency_hz;               // plain objects, SI units, null where no value
