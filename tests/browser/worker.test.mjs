@@ -245,6 +245,23 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
+  test("a worker whose engine cannot load leaves the built results, and an edit says so", async () => {
+    const { context } = await isolatedContext(browser);
+    await context.route("**/modebench_solver_bg.wasm", (route) => route.abort());
+    const page = await context.newPage();
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    await page.locator(TIP_MASS).fill("4.2 kg");
+    const message = page.locator(".mb-general-errors .mb-field-error");
+    await message.waitFor({ state: "visible", timeout: 10_000 });
+    assert.match(await message.textContent(), /The solver stopped without an answer/);
+    const built = readFileSync(join(DIST, BOOM), "utf8").match(/<td[^>]*\sdata-hz="([^"]+)"/)[1];
+    assert.equal(await page.locator(MODE_1).first().getAttribute("data-hz"), built);
+    await page.waitForSelector(".mb-results.mb-stale .mb-stale-note");
+    assert.equal(await page.locator(TIP_MASS).inputValue(), "4.2 kg", "what was typed stays");
+    await context.close();
+  });
+
   test("the page's engine carries none of the solver", () => {
     // Messages only the solvers write; the solver engine must hold them for this to prove anything.
     const solverOnly = [

@@ -83,6 +83,11 @@ impl Solver {
     /// Gives up the solve under way because the worker failed (it could not load, or stopped on
     /// an internal error), as [`Solver::expire`] does.
     pub(super) fn fail(&mut self) -> Option<Expiry> {
+        // A failed worker is not used again, even with nothing under way: the next scenario
+        // starts a fresh one (and, should that fail too, is told so at once, not at its deadline).
+        if let Some(worker) = self.worker.take() {
+            worker.terminate();
+        }
         let expiry = self.latest.fail(dom::now())?;
         self.replace(&expiry);
         Some(expiry)
