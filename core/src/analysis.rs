@@ -97,12 +97,54 @@ pub struct Fundamental {
 }
 
 /// A note for the user about the results.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Warning {
     /// A stable identifier (`rigid-body`, `fe-unconverged`, …).
-    pub code: &'static str,
+    pub code: WarningCode,
     /// What it means, in plain words.
     pub message: String,
+}
+
+/// The stable identifier of a [`Warning`], serialised in kebab case (`fe-unconverged`).
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+#[non_exhaustive]
+pub enum WarningCode {
+    /// An exact frequency's own check (Rayleigh's quotient) disagrees by more than 1e-9.
+    Accuracy,
+    /// The finite-element check differs from the exact value by more than it explains.
+    FeDisagrees,
+    /// Two attachments lie closer than the engine tells apart.
+    SamePoint,
+    /// The beam has rigid-body modes.
+    RigidBody,
+    /// The finite-element result has not converged.
+    FeUnconverged,
+    /// Some frequencies are repeated.
+    Repeated,
+    /// Mode 1 barely moves at the report point.
+    ReportPointAtNode,
+    /// A mode lies within the separation margin of an excitation.
+    ResonanceMargin,
+    /// Shear deformation and rotary inertia matter.
+    ShearMatters,
+}
+
+impl WarningCode {
+    /// The identifier as serialised.
+    pub fn id(self) -> &'static str {
+        match self {
+            WarningCode::Accuracy => "accuracy",
+            WarningCode::FeDisagrees => "fe-disagrees",
+            WarningCode::SamePoint => "same-point",
+            WarningCode::RigidBody => "rigid-body",
+            WarningCode::FeUnconverged => "fe-unconverged",
+            WarningCode::Repeated => "repeated",
+            WarningCode::ReportPointAtNode => "report-point-at-node",
+            WarningCode::ResonanceMargin => "resonance-margin",
+            WarningCode::ShearMatters => "shear-matters",
+        }
+    }
 }
 
 /// Everything the three methods found.
@@ -175,7 +217,7 @@ fn merged_points(model: &Model) -> Option<Warning> {
     let pair = at.windows(2).find(|w| w[1].0 > w[0].0 && w[1].0 - w[0].0 <= tolerance)?;
     let (first, second) = (pair[0].1.min(pair[1].1), pair[0].1.max(pair[1].1));
     Some(Warning {
-        code: "same-point",
+        code: WarningCode::SamePoint,
         message: format!(
             "Attachments {} and {} are {:.1e} m apart, closer than the engine can tell apart (a trillionth of the \
              beam's length); they are treated as one point, which changes no frequency measurably.",
@@ -258,7 +300,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if let Some(m) = modes.iter().find(|m| m.accuracy.is_some_and(|a| a > TRUSTED)) {
         warnings.push(Warning {
-            code: "accuracy",
+            code: WarningCode::Accuracy,
             message: format!(
                 "Mode {} is good to only about {:.0e} (Rayleigh's quotient of its shape disagrees by that much): \
                  the inputs span so many orders of magnitude that rounding shows. Check the units.",
@@ -269,7 +311,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if rigid > 0 {
         warnings.push(Warning {
-            code: "rigid-body",
+            code: WarningCode::RigidBody,
             message: format!(
                 "The beam is not held against {}: {rigid} rigid-body mode{} at 0 Hz. Rayleigh and Dunkerley \
                  estimates need a restrained beam and are not shown.",
@@ -287,7 +329,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     if let Some(m) = disagreeing {
         let (d, e) = (m.fe_difference().unwrap_or(0.0), m.fe_error.unwrap_or(0.0));
         warnings.push(Warning {
-            code: "fe-disagrees",
+            code: WarningCode::FeDisagrees,
             message: format!(
                 "The finite-element check of mode {} differs from the exact value by {:.1e}, more than its mesh and \
                  rounding explain ({:.0e}). Trust the exact value, whose own check (Rayleigh's quotient of the mode \
@@ -302,7 +344,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         modes.iter().filter(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)).map(|m| m.number).next()
     {
         warnings.push(Warning {
-            code: "fe-unconverged",
+            code: WarningCode::FeUnconverged,
             message: format!(
                 "The finite-element check differs from the exact result by more than 0.1 % from mode {worst} on, as \
                  its mesh predicts; use more elements if you rely on it. The exact results are not affected."
@@ -311,7 +353,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     }
     if modes.iter().any(|m| m.multiplicity > 1 && !m.rigid_body) {
         warnings.push(Warning {
-            code: "repeated",
+            code: WarningCode::Repeated,
             message:
                 "Some frequencies are repeated; their mode shapes are one mass-orthogonal choice among many."
                     .to_string(),
@@ -328,7 +370,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
             let equivalent = bounds::equivalent(&first.shape, first.omega, position);
             if equivalent.is_none() {
                 warnings.push(Warning {
-                    code: "report-point-at-node",
+                    code: WarningCode::ReportPointAtNode,
                     message: "Mode 1 barely moves at the chosen report point, so no equivalent mass is given there."
                         .to_string(),
                 });

@@ -4,7 +4,7 @@ use std::fmt;
 
 /// What kind of problem an [`Error`] reports.
 #[non_exhaustive]
-#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum ErrorKind {
     /// The scenario text is not valid JSON, or a field has the wrong JSON type.
@@ -111,7 +111,7 @@ pub fn as_typed(value: f64) -> String {
 
 /// An error with the field path it concerns (`attachments[2].position`), the offending value
 /// as the user wrote it, and a message that says what is allowed.
-#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+#[derive(Debug, Clone, PartialEq, serde::Serialize, serde::Deserialize)]
 #[non_exhaustive]
 pub struct Error {
     /// The kind of problem.
@@ -228,6 +228,17 @@ mod tests {
         assert_eq!(e.path, "segments[0].section.wall");
         let e = Error::new(ErrorKind::OutOfRange, "x").at("[2]").at("attachments");
         assert_eq!(e.path, "attachments[2]");
+    }
+
+    /// An error crosses to another thread as JSON text with its kind, path, value and message.
+    #[test]
+    fn an_error_reads_back_from_its_json_as_itself() {
+        let e = Error::new(ErrorKind::UnknownUnit, "unknown unit")
+            .at("attachments[0].mass")
+            .with_value("2.8 kgs");
+        let json = serde_json::to_string(&e).unwrap_or_default();
+        assert!(json.contains("\"kind\":\"unknown-unit\""), "{json}");
+        assert_eq!(serde_json::from_str::<Error>(&json).ok(), Some(e));
     }
 
     #[test]

@@ -43,7 +43,7 @@ pub struct Submerged {
 }
 
 /// Mass per length of each part, kg/m.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct MassBreakdown {
     /// The beam's own material: ρ·A.
     pub structural: f64,

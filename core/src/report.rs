@@ -4,7 +4,7 @@
 //! Every number in a report is finite; a method that cannot give a value gives `None` (JSON
 //! `null`), never NaN.
 
-use crate::analysis::{self, Analysis, Warning};
+use crate::analysis::{self, Analysis, Warning, WarningCode};
 use crate::bounds::Equivalent;
 use crate::error::{Error, ErrorKind, Result};
 use crate::exact;
@@ -13,7 +13,7 @@ use crate::scenario::{Inputs, Scenario, SegmentEcho};
 use crate::units::UnitSystem;
 
 /// Everything shown for one scenario.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Report {
     /// The scenario's title.
     pub title: String,
@@ -44,7 +44,7 @@ pub struct Report {
 }
 
 /// The beam as modelled.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct BeamEcho {
     /// Total length, m.
     pub length: f64,
@@ -59,7 +59,7 @@ pub struct BeamEcho {
 }
 
 /// One segment as modelled.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct SegmentReport {
     /// Start, m from the left end.
     pub start: f64,
@@ -77,10 +77,10 @@ pub struct SegmentReport {
 }
 
 /// An end as modelled. A stiffness of `None` in an elastic end means rigid.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct EndEcho {
-    /// "free", "pinned", "clamped", "guided" or "elastic".
-    pub kind: &'static str,
+    /// How the end is held.
+    pub kind: EndKind,
     /// Translational spring, N/m (`None`: rigid); elastic ends only.
     pub translational: Option<f64>,
     /// Rotational spring, N·m/rad (`None`: rigid); elastic ends only.
@@ -88,10 +88,10 @@ pub struct EndEcho {
 }
 
 /// An attachment as modelled. A stiffness of `None` on a spring means rigid.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct AttachmentEcho {
-    /// "mass", "spring", "rotational-spring", "support" or "sprung-mass".
-    pub kind: &'static str,
+    /// What is attached.
+    pub kind: AttachmentKind,
     /// Position, m from the left end.
     pub position: f64,
     /// The user's label, possibly empty.
@@ -106,8 +106,69 @@ pub struct AttachmentEcho {
     pub rigid: bool,
 }
 
+/// How an end is held, as a report names it: "free", "pinned", "clamped", "guided" or "elastic".
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+#[non_exhaustive]
+pub enum EndKind {
+    /// No restraint.
+    Free,
+    /// Deflection held.
+    Pinned,
+    /// Deflection and rotation held.
+    Clamped,
+    /// Rotation held, free to slide.
+    Guided,
+    /// Grounded springs.
+    Elastic,
+}
+
+impl EndKind {
+    /// The name as serialised, the scenario format's own.
+    pub fn id(self) -> &'static str {
+        match self {
+            EndKind::Free => "free",
+            EndKind::Pinned => "pinned",
+            EndKind::Clamped => "clamped",
+            EndKind::Guided => "guided",
+            EndKind::Elastic => "elastic",
+        }
+    }
+}
+
+/// What is attached, as a report names it: "mass", "spring", "rotational-spring", "support" or
+/// "sprung-mass".
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+#[non_exhaustive]
+pub enum AttachmentKind {
+    /// A rigid body fixed to the beam.
+    Mass,
+    /// A grounded translational spring.
+    Spring,
+    /// A grounded rotational spring.
+    RotationalSpring,
+    /// A rigid intermediate support.
+    Support,
+    /// A mass on a spring attached to the beam.
+    SprungMass,
+}
+
+impl AttachmentKind {
+    /// The name as serialised, the scenario format's own.
+    pub fn id(self) -> &'static str {
+        match self {
+            AttachmentKind::Mass => "mass",
+            AttachmentKind::Spring => "spring",
+            AttachmentKind::RotationalSpring => "rotational-spring",
+            AttachmentKind::Support => "support",
+            AttachmentKind::SprungMass => "sprung-mass",
+        }
+    }
+}
+
 /// One mode.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct ModeReport {
     /// 1-based, rigid-body modes first.
     pub number: usize,
@@ -142,7 +203,7 @@ pub struct ModeReport {
 }
 
 /// A sampled mode shape.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct ShapeSamples {
     /// Positions, m.
     pub x: Vec<f64>,
@@ -151,7 +212,7 @@ pub struct ShapeSamples {
 }
 
 /// A sprung mass's translation in a mode.
-#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct SprungAmplitude {
     /// Index of the attachment.
     pub attachment: usize,
@@ -160,7 +221,7 @@ pub struct SprungAmplitude {
 }
 
 /// The separation of a natural frequency from an excitation.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Separation {
     /// Index of the excitation.
     pub excitation: usize,
@@ -175,7 +236,7 @@ pub struct Separation {
 }
 
 /// An excitation as read.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct ExcitationEcho {
     /// Its label.
     pub label: String,
@@ -186,7 +247,7 @@ pub struct ExcitationEcho {
 }
 
 /// Mode 1 by the approximate methods.
-#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct FundamentalReport {
     /// Exact, Hz.
     pub exact_hz: f64,
@@ -199,7 +260,7 @@ pub struct FundamentalReport {
 }
 
 /// The finite-element mesh used.
-#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct FeReport {
     /// Elements.
     pub elements: usize,
@@ -208,7 +269,7 @@ pub struct FeReport {
 }
 
 /// One unit conversion applied to an input.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct ConversionEcho {
     /// Field path.
     pub path: String,
@@ -354,7 +415,7 @@ fn build(scenario: &Scenario, inputs: Inputs, analysis: Analysis) -> Result<Repo
             close.nearest_excitation.as_ref().map(|s| (s.margin, s.excitation, s.order)).unwrap_or_default();
         let label = &excitations[s.1].label;
         warnings.push(Warning {
-            code: "resonance-margin",
+            code: WarningCode::ResonanceMargin,
             message: format!(
                 "Mode {} lies within {:.1} % of {}{} — less than the {:.0} % margin asked for. Resonance there can \
                  crack welds and fail parts in fatigue: stiffen, lighten or move the part, and confirm by test.",
@@ -450,7 +511,7 @@ fn comparison(
                 .find(|(_, r)| *r > 0.01)
             {
                 warnings.push(Warning {
-                    code: "shear-matters",
+                    code: WarningCode::ShearMatters,
                     message: format!(
                         "Shear deformation and rotary inertia matter here: the slender-beam (Euler–Bernoulli) \
                          result is {:.1} % higher for mode {m}. Both are shown.",
@@ -468,7 +529,7 @@ fn comparison(
             let timoshenko = exact::frequencies(&model.with_theory(Theory::Timoshenko)?, elastic)?;
             let other: Vec<f64> = rigid.into_iter().chain(timoshenko.iter().copied()).collect();
             warnings.push(Warning {
-                code: "shear-matters",
+                code: WarningCode::ShearMatters,
                 message: format!(
                     "From mode {number} on, the wavelength is short for the section depth: the slender-beam result \
                      is estimated to be {:.1} % too high (first-order shear and rotary-inertia correction). The \
@@ -502,13 +563,15 @@ fn beam_echo(model: &Model, inputs: &Inputs) -> BeamEcho {
         .collect();
     let finite = |v: f64| v.is_finite().then_some(v);
     let end = |e: End| match e {
-        End::Free => EndEcho { kind: "free", translational: None, rotational: None },
-        End::Pinned => EndEcho { kind: "pinned", translational: None, rotational: None },
-        End::Clamped => EndEcho { kind: "clamped", translational: None, rotational: None },
-        End::Guided => EndEcho { kind: "guided", translational: None, rotational: None },
-        End::Elastic { translational, rotational } => {
-            EndEcho { kind: "elastic", translational: finite(translational), rotational: finite(rotational) }
-        }
+        End::Free => EndEcho { kind: EndKind::Free, translational: None, rotational: None },
+        End::Pinned => EndEcho { kind: EndKind::Pinned, translational: None, rotational: None },
+        End::Clamped => EndEcho { kind: EndKind::Clamped, translational: None, rotational: None },
+        End::Guided => EndEcho { kind: EndKind::Guided, translational: None, rotational: None },
+        End::Elastic { translational, rotational } => EndEcho {
+            kind: EndKind::Elastic,
+            translational: finite(translational),
+            rotational: finite(rotational),
+        },
     };
     let attachments = model
         .attachments()
@@ -516,7 +579,7 @@ fn beam_echo(model: &Model, inputs: &Inputs) -> BeamEcho {
         .zip(&inputs.labels)
         .map(|(a, label)| {
             let base = AttachmentEcho {
-                kind: "",
+                kind: AttachmentKind::Mass,
                 position: a.position(),
                 label: label.clone(),
                 mass: None,
@@ -526,26 +589,28 @@ fn beam_echo(model: &Model, inputs: &Inputs) -> BeamEcho {
             };
             match *a {
                 Attachment::Mass { mass, rotary_inertia, .. } => AttachmentEcho {
-                    kind: "mass",
+                    kind: AttachmentKind::Mass,
                     mass: Some(mass),
                     rotary_inertia: Some(rotary_inertia),
                     ..base
                 },
                 Attachment::Spring { stiffness, .. } => AttachmentEcho {
-                    kind: "spring",
+                    kind: AttachmentKind::Spring,
                     stiffness: finite(stiffness),
                     rigid: stiffness.is_infinite(),
                     ..base
                 },
                 Attachment::RotationalSpring { stiffness, .. } => AttachmentEcho {
-                    kind: "rotational-spring",
+                    kind: AttachmentKind::RotationalSpring,
                     stiffness: finite(stiffness),
                     rigid: stiffness.is_infinite(),
                     ..base
                 },
-                Attachment::Support { .. } => AttachmentEcho { kind: "support", rigid: true, ..base },
+                Attachment::Support { .. } => {
+                    AttachmentEcho { kind: AttachmentKind::Support, rigid: true, ..base }
+                }
                 Attachment::SprungMass { mass, stiffness, .. } => AttachmentEcho {
-                    kind: "sprung-mass",
+                    kind: AttachmentKind::SprungMass,
                     mass: Some(mass),
                     stiffness: Some(stiffness),
                     ..base
@@ -607,6 +672,55 @@ mod tests {
                     && quick.iter().zip(&full).all(|(a, b)| a.to_bits() == b.to_bits());
                 assert!(same, "{case}: {quick:?} quick, {full:?} in the report");
             }
+        }
+    }
+
+    /// A report crosses to another thread as JSON text (the browser solves in a worker): read
+    /// back, it equals the one written, bit for bit (`PartialEq` on every `f64`).
+    #[test]
+    fn a_report_reads_back_from_its_json_as_itself() {
+        for text in SCENARIOS {
+            let Ok(report) = solve_json(text) else { panic!("{text}") };
+            let Ok(json) = serde_json::to_string(&report) else { panic!("{text}") };
+            let back: Report = match serde_json::from_str(&json) {
+                Ok(back) => back,
+                Err(e) => panic!("{e}: {json}"),
+            };
+            assert_eq!(back, report, "{json}");
+        }
+    }
+
+    /// The kinds' `id` is the name they serialise to, so that a page writes what a report says.
+    #[test]
+    fn kinds_name_themselves_as_they_serialise() {
+        let ends = [EndKind::Free, EndKind::Pinned, EndKind::Clamped, EndKind::Guided, EndKind::Elastic];
+        for kind in ends {
+            assert_eq!(serde_json::to_value(kind).ok(), Some(serde_json::json!(kind.id())));
+        }
+        let attachments = [
+            AttachmentKind::Mass,
+            AttachmentKind::Spring,
+            AttachmentKind::RotationalSpring,
+            AttachmentKind::Support,
+            AttachmentKind::SprungMass,
+        ];
+        for kind in attachments {
+            assert_eq!(serde_json::to_value(kind).ok(), Some(serde_json::json!(kind.id())));
+        }
+        use crate::analysis::WarningCode as W;
+        let codes = [
+            W::Accuracy,
+            W::FeDisagrees,
+            W::SamePoint,
+            W::RigidBody,
+            W::FeUnconverged,
+            W::Repeated,
+            W::ReportPointAtNode,
+            W::ResonanceMargin,
+            W::ShearMatters,
+        ];
+        for code in codes {
+            assert_eq!(serde_json::to_value(code).ok(), Some(serde_json::json!(code.id())));
         }
     }
 

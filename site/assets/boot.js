@@ -3,6 +3,12 @@
 // The script is a deferred module, so it runs once the page is parsed; waiting for that
 // explicitly keeps it correct should it ever be loaded `async`.
 //
+// The page's engine (`modebench_page`) edits, stores and draws; it never solves. Each
+// calculator solves in a Web Worker running `solve-worker.js` beside this script, which loads
+// the solver engine (`modebench_solver`), so that no model, however slow, can freeze the page.
+// `globalThis.modebenchSolveBudgetMs`, when set before this script runs, replaces the time a
+// solve may take before the worker is stopped (3000 ms); the browser tests use it.
+//
 // The engine is imported dynamically so that a page whose engine cannot load (an old browser,
 // a host that will not serve it, a copy of the site without the engine) keeps
 // its prerendered results exactly as they are. Marking the calculators unavailable shows their
@@ -15,12 +21,13 @@ const parsed =
     : Promise.resolve();
 
 async function boot() {
-  const engine = await import("./modebench_web.js");
+  const engine = await import("./modebench_page.js");
   // The glue fetches and compiles the engine (the page has it preloaded), compiling from the
   // downloaded bytes when a host sends .wasm with a type other than application/wasm.
   await engine.default();
   await parsed;
-  engine.mountAll();
+  // Resolved against this script, so the site works under any sub-path of a host.
+  engine.mountAll(new URL("solve-worker.js", import.meta.url).href);
 }
 
 try {

@@ -15,8 +15,10 @@ use crate::verify;
 /// Marks a folder as written by this builder, so that a rebuild may empty it.
 const MARKER: &str = ".modebench-site";
 
-/// The engine files made by wasm-bindgen, copied into `assets/`.
-pub(crate) const ENGINE_FILES: [&str; 2] = ["modebench_web.js", "modebench_web_bg.wasm"];
+/// The engine files made by wasm-bindgen, copied into `assets/`: the page's own engine, and the
+/// solver that `assets/solve-worker.js` runs in each calculator's Web Worker.
+pub(crate) const ENGINE_FILES: [&str; 4] =
+    ["modebench_page.js", "modebench_page_bg.wasm", "modebench_solver.js", "modebench_solver_bg.wasm"];
 
 /// What a build wrote.
 pub(crate) struct Summary {

@@ -31,9 +31,11 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
     // Only pages that carry a calculator load the engine.
     // The engine's files are announced up front so the browser fetches them while it is
     // still reading the page, instead of one after the other as each import is discovered.
+    // The solver's are not: the calculator's worker fetches them once the page is live, and a
+    // page's preloads do not serve a worker's requests.
     let boot = if frame.engine && body.contains("class=\"mb-calc\"") {
-        "<link rel=\"modulepreload\" href=\"assets/modebench_web.js\">\n\
-         <link rel=\"preload\" href=\"assets/modebench_web_bg.wasm\" as=\"fetch\" type=\"application/wasm\" crossorigin>\n\
+        "<link rel=\"modulepreload\" href=\"assets/modebench_page.js\">\n\
+         <link rel=\"preload\" href=\"assets/modebench_page_bg.wasm\" as=\"fetch\" type=\"application/wasm\" crossorigin>\n\
          <script type=\"module\" src=\"assets/boot.js\"></script>\n"
     } else {
         ""

@@ -208,7 +208,7 @@ fn the_finite_element_check_stays_within_its_own_error_estimate() {
         }
         let a = analyse(&model, &Options::with_modes(6)).expect("solves");
         assert!(
-            a.warnings.iter().all(|w| w.code != "fe-disagrees"),
+            a.warnings.iter().all(|w| w.code.id() != "fe-disagrees"),
             "model {i}: {:?}",
             a.warnings.iter().map(|w| &w.message).collect::<Vec<_>>()
         );

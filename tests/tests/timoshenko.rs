@@ -133,7 +133,7 @@ fn the_slender_beam_theory_warns_when_shear_matters_and_shows_both() {
                        "material": "steel" }]
     }"#;
     let report = solve_json(stocky).expect("solves");
-    assert!(report.warnings.iter().any(|w| w.code == "shear-matters"), "a 6:1 beam must warn");
+    assert!(report.warnings.iter().any(|w| w.code.id() == "shear-matters"), "a 6:1 beam must warn");
     assert_eq!(report.comparison, Some(Theory::Timoshenko));
     for m in &report.modes {
         let other = m.other_theory_hz.expect("both theories shown");
@@ -141,6 +141,6 @@ fn the_slender_beam_theory_warns_when_shear_matters_and_shows_both() {
     }
     let slender = stocky.replace("600 mm", "6000 mm");
     let report = solve_json(&slender).expect("solves");
-    assert!(report.warnings.iter().all(|w| w.code != "shear-matters"), "a 60:1 beam needs no warning");
+    assert!(report.warnings.iter().all(|w| w.code.id() != "shear-matters"), "a 60:1 beam needs no warning");
     assert_eq!(report.comparison, None);
 }

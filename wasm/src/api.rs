@@ -1,16 +1,20 @@
-//! The JavaScript API of the WebAssembly module, for pages and tests.
+//! The JavaScript API of the WebAssembly module, for pages, their solving worker and tests.
 //!
 //! ```js
 //! import init, { solve, parseQuantity, listSections, listMaterials, listUnits, mountAll, version }
 //!   from "./modebench_web.js";
 //! await init();
-//! mountAll();                                 // start every calculator on the page; returns how many
+//! mountAll(new URL("solve-worker.js", import.meta.url).href);  // start every calculator on the page
 //! const report = solve({ left: "clamped", right: "free",
 //!   segments: [{ length: "1 m", flexural_rigidity: 1, mass_per_length: 1 }] });
 //! report.modes[0].frequency_hz;               // plain objects, SI units, null where no value
 //! parseQuantity("30e6 psi", "pressure");      // { si: 206842718795.3, si_unit: "Pa", conversion: "30e6 psi = …" }
 //! try { solve({}) } catch (e) { e.path; e.kind; e.value; e.message }
 //! ```
+//!
+//! Which of these a build exports depends on its features: `mountAll` with `page`,
+//! `solveScenario` (the worker's entry point) with `solver`, the rest with `api`; `version`
+//! always. Pages load a `page` build and their worker a `solver` build.
 //!
 //! Every failure is thrown as a JS `Error` carrying `path` (the scenario field, `""` for the
 //! whole input), `kind` (as `"unknown-unit"`) and `value` (what was written, or `null`), made by
@@ -133,10 +137,21 @@ pub fn list_units() -> Result<JsValue, JsValue> {
 }
 
 /// Starts every calculator on the page (`.mb-calc[data-modebench]`) that is not live yet and
-/// returns how many were started.
+/// returns how many were started. `worker` is the URL of the solving worker's script
+/// (`solve-worker.js`, which loads the `solver` build beside it); without it, the script is
+/// looked for at `assets/solve-worker.js` from the page.
+#[cfg(feature = "page")]
 #[wasm_bindgen(js_name = mountAll)]
-pub fn mount_all() -> usize {
-    crate::widget::mount_all()
+pub fn mount_all(worker: Option<String>) -> usize {
+    crate::widget::mount_all(worker.as_deref().unwrap_or("assets/solve-worker.js"))
+}
+
+/// Solves a scenario given as JSON text and returns the answer as JSON text: `{"report": …}`
+/// or `{"error": {kind, path, value, message}}`. The solving worker's whole job; it never throws.
+#[cfg(feature = "solver")]
+#[wasm_bindgen(js_name = solveScenario)]
+pub fn solve_scenario(scenario: &str) -> String {
+    crate::worker::message::solve(scenario)
 }
 
 /// The version of this module.

@@ -82,6 +82,25 @@ fn errors_are_js_errors_with_path_kind_and_value() {
     assert_eq!(get(&error, "path").as_string().as_deref(), Some(""));
 }
 
+/// The worker's entry point answers in JSON text, through JavaScript's own JSON reader: the
+/// report with every frequency exactly as core computes it, or the error with its path.
+#[wasm_bindgen_test]
+fn solve_scenario_answers_in_json_text() {
+    let text = include_str!("../../docs/scenarios/sensor-boom.json");
+    let direct = modebench::solve_json(text).map(|r| r.modes).unwrap_or_default();
+    let answer = js(&api::solve_scenario(text));
+    let through_js = modes(&get(&answer, "report"));
+    assert_eq!(through_js.length() as usize, direct.len());
+    for (i, m) in direct.iter().enumerate() {
+        assert_eq!(number(&through_js.get(i as u32), "frequency_hz"), m.frequency_hz, "mode {}", m.number);
+    }
+    let wrong = js(&api::solve_scenario(&text.replace("\"2.8 kg\"", "\"2.8 kgs\"")));
+    let error = get(&wrong, "error");
+    assert_eq!(get(&error, "path").as_string().as_deref(), Some("attachments[0].mass"));
+    assert_eq!(get(&error, "kind").as_string().as_deref(), Some("unknown-unit"));
+    assert!(get(&wrong, "report").is_undefined());
+}
+
 /// 1 psi = 1 lbf/in² = 0.45359237 kg × 9.80665 m/s² / (0.0254 m)² = 6894.757293168361 Pa (NIST SP
 /// 811, appendix B, exact definitions).
 #[wasm_bindgen_test]
@@ -119,5 +138,5 @@ fn lists_describe_sections_materials_and_units() {
     assert!(units.iter().any(|u| get(&u, "symbol").as_string().as_deref() == Some("lbf")));
     assert!(!api::version().is_empty());
     // Outside a browser there is no document, and mounting finds nothing rather than failing.
-    assert_eq!(api::mount_all(), 0);
+    assert_eq!(api::mount_all(None), 0);
 }

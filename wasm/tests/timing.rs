@@ -1,5 +1,6 @@
-//! How long an edit takes in WebAssembly: solving an example scenario and writing its results,
-//! which is the work the widget does on every keystroke besides setting `innerHTML`. The times
+//! How long an edit takes in WebAssembly: solving an example scenario (the calculator's worker
+//! does it on every keystroke) and writing its results (the page does it when the answer comes,
+//! besides reading the answer and setting `innerHTML`). The times
 //! are printed; `MODEBENCH_CHECK_TIMING=1` with `--release` also checks them against the budget.
 #![cfg(target_arch = "wasm32")]
 

@@ -16,9 +16,10 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 
     run::step("Lints");
     run::status(&mut project.cargo(["clippy", "--workspace", "--all-targets", "--", "-D", "warnings"]))?;
-    // The widget and the JS API compile only for WebAssembly; lint them there, with and without
-    // the API feature the pages leave out.
-    for features in [&[][..], &["--no-default-features"][..]] {
+    // The widget and the JS API compile only for WebAssembly; lint them there, as the
+    // integrators' build and as each of the two engines a page loads.
+    let engines = engine::ENGINES.map(|e| ["--no-default-features", "--features", e.feature]);
+    for features in [&[][..], &engines[0][..], &engines[1][..]] {
         let mut args = vec!["clippy", "-p", "modebench-web", "--target", TARGET, "--all-targets"];
         args.extend_from_slice(features);
         args.extend_from_slice(&["--", "-D", "warnings"]);

@@ -1,10 +1,13 @@
-//! The browser engine: `modebench-web` compiled to WebAssembly with the size-first `wasm`
-//! profile, bound with wasm-bindgen for `--target web`, and shrunk by `wasm-opt -Oz` when
-//! Debian's binaryen is installed.
+//! The browser engines: `modebench-web` compiled to WebAssembly twice with the size-first
+//! `wasm` profile, bound with wasm-bindgen for `--target web`, and shrunk by `wasm-opt -Oz`
+//! when Debian's binaryen is installed.
 //!
-//! Pages get the widget alone (`--no-default-features`): the JS API for integrators (`solve`,
-//! `parseQuantity`, the lists) is the crate's default `api` feature, tested by the
-//! wasm-bindgen tests, and left out of what every page downloads.
+//! A page loads two engines. `modebench_page` (feature `page`) runs on the page's main thread:
+//! the widget, the editor and the drawing of results. It never calls the solver, so the linker
+//! leaves the solver out and the page downloads less before it is live. `modebench_solver`
+//! (feature `solver`) runs in the calculator's Web Worker (`assets/solve-worker.js`) and solves.
+//! The JS API for integrators (`solve`, `parseQuantity`, the lists) is the crate's default
+//! `api` feature, tested by the wasm-bindgen tests, and in neither.
 
 use anyhow::{Context, Result};
 
@@ -14,14 +17,50 @@ use crate::run;
 /// The WebAssembly target.
 pub(crate) const TARGET: &str = "wasm32-unknown-unknown";
 
-/// Builds the engine into [`Project::engine_dir`].
+/// One engine: the crate feature it is built with and the name of its files.
+pub(crate) struct Engine {
+    /// The `modebench-web` feature that decides what it exports.
+    pub(crate) feature: &'static str,
+    /// wasm-bindgen's `--out-name`: `NAME.js` and `NAME_bg.wasm`.
+    pub(crate) name: &'static str,
+}
+
+/// The engines a page loads: its own, then its worker's.
+pub(crate) const ENGINES: [Engine; 2] = [
+    Engine { feature: "page", name: "modebench_page" },
+    Engine { feature: "solver", name: "modebench_solver" },
+];
+
+/// Builds both engines into [`Project::engine_dir`].
+pub(crate) fn build(project: &Project) -> Result<()> {
+    let out = project.engine_dir();
+    let scratch = project.root.join("build").join("wasm-opt");
+    for dir in [&out, &scratch] {
+        if dir.exists() {
+            std::fs::remove_dir_all(dir).with_context(|| format!("emptying {}", dir.display()))?;
+        }
+    }
+    std::fs::create_dir_all(&scratch)?;
+    for engine in &ENGINES {
+        build_one(project, engine, &scratch)?;
+    }
+    for engine in &ENGINES {
+        println!("{}: {} bytes", engine.name, size(&out.join(format!("{}_bg.wasm", engine.name)))?);
+    }
+    Ok(())
+}
+
+/// Builds one engine.
 ///
 /// wasm-opt runs on the compiler's output, before wasm-bindgen: the wasm-opt in Debian 12
 /// (binaryen 108) rewrites the table of JavaScript references that wasm-bindgen adds, and the
 /// engine then fails to start. Optimising first and binding second avoids that, and the binding
 /// step adds only a little glue.
-pub(crate) fn build(project: &Project) -> Result<()> {
-    run::step("Build the browser engine (WebAssembly)");
+fn build_one(project: &Project, engine: &Engine, scratch: &std::path::Path) -> Result<()> {
+    run::step(&format!(
+        "Build the browser engine {} (WebAssembly, feature `{}`)",
+        engine.name, engine.feature
+    ));
     run::status(&mut project.cargo([
         "build",
         "-p",
@@ -31,35 +70,37 @@ pub(crate) fn build(project: &Project) -> Result<()> {
         "--profile",
         "wasm",
         "--no-default-features",
+        "--features",
+        engine.feature,
     ]))?;
     let raw = project.target.join(TARGET).join("wasm").join("modebench_web.wasm");
-    let out = project.engine_dir();
-    let scratch = project.root.join("build").join("wasm-opt");
-    for dir in [&out, &scratch] {
-        if dir.exists() {
-            std::fs::remove_dir_all(dir).with_context(|| format!("emptying {}", dir.display()))?;
-        }
-    }
-    let input = match run::version("wasm-opt") {
+    // The next engine's build writes the same file, so each is taken out of cargo's folder first.
+    let input = scratch.join(format!("{}.wasm", engine.name));
+    match run::version("wasm-opt") {
         Some(_) => {
-            std::fs::create_dir_all(&scratch)?;
-            // wasm-bindgen names its output after its input, so the file keeps its name.
-            let optimised = scratch.join("modebench_web.wasm");
-            run::status(run::cmd("wasm-opt", ["-Oz", "--converge"]).arg(&raw).arg("-o").arg(&optimised))?;
-            println!("wasm-opt -Oz: {} → {} bytes", size(&raw)?, size(&optimised)?);
-            optimised
+            run::status(run::cmd("wasm-opt", ["-Oz", "--converge"]).arg(&raw).arg("-o").arg(&input))?;
+            println!("wasm-opt -Oz: {} → {} bytes", size(&raw)?, size(&input)?);
         }
         None => {
             println!("skipped: wasm-opt not found, so the engine is not shrunk; `apt-get install binaryen` provides it");
-            raw
+            std::fs::copy(&raw, &input).with_context(|| format!("copying {}", raw.display()))?;
         }
-    };
+    }
     run::status(
-        run::cmd("wasm-bindgen", ["--target", "web", "--no-typescript", "--out-dir", path_str(&out)?])
-            .arg(&input),
-    )?;
-    println!("engine: {} bytes", size(&out.join("modebench_web_bg.wasm"))?);
-    Ok(())
+        run::cmd(
+            "wasm-bindgen",
+            [
+                "--target",
+                "web",
+                "--no-typescript",
+                "--out-name",
+                engine.name,
+                "--out-dir",
+                path_str(&project.engine_dir())?,
+            ],
+        )
+        .arg(&input),
+    )
 }
 
 fn size(path: &std::path::Path) -> Result<u64> {

@@ -38,7 +38,8 @@ impl Project {
         Ok(Project { root: path("workspace_root")?, target: path("target_directory")? })
     }
 
-    /// Where wasm-bindgen writes the engine (`modebench_web.js` and its `.wasm`).
+    /// Where wasm-bindgen writes the engines (`modebench_page.js`, `modebench_solver.js` and their
+    /// `.wasm`).
     pub(crate) fn engine_dir(&self) -> PathBuf {
         self.root.join("build").join("wasm")
     }

@@ -13,7 +13,7 @@ use crate::exact::ModeShape;
 /// Mass and stiffness of a single-degree-of-freedom system that has mode 1's frequency and the
 /// mode's deflection at one point: the modal mass and stiffness with the shape scaled to unit
 /// deflection there.
-#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Equivalent {
     /// Point from the left end, m.
     pub position: f64,

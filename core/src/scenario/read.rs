@@ -35,7 +35,7 @@ pub struct Inputs {
 }
 
 /// How a segment's properties came about.
-#[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, Default, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct SegmentEcho {
     /// The section's shape name, when given by section.
     pub section: Option<String>,

@@ -109,14 +109,14 @@ pub struct Converted {
 }
 
 /// A record of one conversion applied, for display: "0.283 lb/in³ = 7833.4 kg/m³".
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Conversion {
     /// The value as written, tidied: "0.283 lb/in³".
     pub written: String,
     /// The SI value.
     pub si: f64,
     /// The SI unit of `si`, for example "kg/m³".
-    pub si_unit: &'static str,
+    pub si_unit: String,
     /// The whole conversion in words, "0.283 lb/in³ = 7833.4 kg/m³".
     pub text: String,
 }
@@ -182,7 +182,7 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
         let written = format!("{} {}", parsed.number_text, pretty_unit(&parsed.factors));
         let si_unit = kind.si_unit();
         let text = format!("{written} = {} {si_unit}", display::significant(si, 5)).trim_end().to_string();
-        Conversion { written, si, si_unit, text }
+        Conversion { written, si, si_unit: si_unit.to_string(), text }
     });
     Ok(Converted { si, conversion })
 }

@@ -35,13 +35,6 @@ pub fn solve(doc: &Value) -> Result<Report, Error> {
     modebench::solve_value(doc)
 }
 
-/// The natural frequencies (Hz) the scenario's report would list, bit for bit, from the exact
-/// method alone (see [`modebench::frequencies_value`]).
-pub fn frequencies(doc: &Value) -> Result<Vec<f64>, Error> {
-    check_whole_numbers(doc)?;
-    modebench::frequencies_value(doc)
-}
-
 /// Whole-number fields hold text only when what was typed is not a whole number; say so with
 /// the field's path and range (core would only say a number was expected).
 fn check_whole_numbers(doc: &Value) -> Result<(), Error> {

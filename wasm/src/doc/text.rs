@@ -4,13 +4,25 @@
 //! A short reader and writer of our own instead of the general ones: the browser build only
 //! handles these small documents, and the general machinery (deserialiser visitors, a second
 //! float printer and parser) weighs more than the whole editor. Numbers are read with the same
-//! decimal reader the unit parser uses.
+//! decimal reader the unit parser uses, except by [`read_exact`]: the page reads the solving
+//! worker's answers with it, whose numbers are the engine's results written in full.
 
 use serde_json::{Map, Number, Value};
 
 /// Parses JSON text; the error says where (a byte offset) and what was expected.
 pub fn read(text: &str) -> Result<Value, String> {
-    let mut r = Reader { b: text.as_bytes(), i: 0, depth: 0 };
+    parse(text, modebench::units::decimal)
+}
+
+/// Parses JSON text as [`read()`] does, reading every number to the nearest `f64` (the general
+/// decimal parser of Rust's standard library): a number written in its shortest form comes back
+/// bit for bit.
+pub fn read_exact(text: &str) -> Result<Value, String> {
+    parse(text, |number| number.parse().ok())
+}
+
+fn parse(text: &str, decimal: fn(&str) -> Option<f64>) -> Result<Value, String> {
+    let mut r = Reader { b: text.as_bytes(), i: 0, depth: 0, decimal };
     let value = r.value()?;
     r.blank();
     if r.i != r.b.len() {
@@ -23,6 +35,9 @@ struct Reader<'a> {
     b: &'a [u8],
     i: usize,
     depth: usize,
+    /// Reads a number's text; passed in, so that a build that never calls [`read_exact`] leaves
+    /// the standard library's parser out.
+    decimal: fn(&str) -> Option<f64>,
 }
 
 /// Deeper nesting than this is not a scenario; refusing it keeps the reader's stack bounded.
@@ -185,7 +200,7 @@ impl Reader<'_> {
             self.i += 1;
         }
         let text = std::str::from_utf8(&self.b[start..self.i]).map_err(|_| self.fail("a number"))?;
-        let value = modebench::units::decimal(text).ok_or_else(|| self.fail("a number"))?;
+        let value = (self.decimal)(text).ok_or_else(|| self.fail("a number"))?;
         // Whole numbers written without a point or exponent stay integers, as JSON readers keep them.
         if value.fract() == 0.0 && value.abs() < 9e15 && !text.contains(['.', 'e', 'E']) {
             return Ok(Value::Number((value as i64).into()));

@@ -3,7 +3,7 @@
 
 use super::escape::escape;
 use super::number::{hz, percent, quantity, rpm, MISSING};
-use modebench::report::{EndEcho, SegmentReport};
+use modebench::report::{AttachmentKind, EndEcho, EndKind, SegmentReport};
 use modebench::units::{Kind, UnitSystem};
 use modebench::Report;
 
@@ -38,7 +38,7 @@ pub(crate) fn echo(report: &Report, open: &[String]) -> String {
 
 fn end_text(end: &EndEcho, system: UnitSystem) -> String {
     match end.kind {
-        "elastic" => {
+        EndKind::Elastic => {
             let spring = |v: Option<f64>, kind| v.map_or("rigid".to_string(), |v| quantity(v, kind, system));
             format!(
                 "on springs: {} and {}",
@@ -46,7 +46,7 @@ fn end_text(end: &EndEcho, system: UnitSystem) -> String {
                 spring(end.rotational, Kind::RotationalStiffness)
             )
         }
-        other => other.to_string(),
+        other => other.id().to_string(),
     }
 }
 
@@ -78,12 +78,15 @@ fn model(report: &Report) -> String {
         );
         for (i, a) in beam.attachments.iter().enumerate() {
             let name = if a.label.trim().is_empty() {
-                format!("{} {}", i + 1, a.kind)
+                format!("{} {}", i + 1, a.kind.id())
             } else {
-                format!("{} {} ({})", i + 1, a.kind, a.label.trim())
+                format!("{} {} ({})", i + 1, a.kind.id(), a.label.trim())
             };
-            let stiffness_kind =
-                if a.kind == "rotational-spring" { Kind::RotationalStiffness } else { Kind::Stiffness };
+            let stiffness_kind = if a.kind == AttachmentKind::RotationalSpring {
+                Kind::RotationalStiffness
+            } else {
+                Kind::Stiffness
+            };
             let stiffness = match (a.stiffness, a.rigid) {
                 (_, true) => "rigid".to_string(),
                 (Some(k), false) => quantity(k, stiffness_kind, s),

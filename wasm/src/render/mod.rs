@@ -13,6 +13,7 @@ mod errors;
 mod escape;
 mod form;
 mod number;
+mod offer;
 mod plot;
 mod results;
 mod rows;
@@ -22,8 +23,9 @@ pub use editor::{editor_html, field_paths};
 pub use errors::{field_error_html, message, placement};
 pub use escape::escape;
 pub use form::Editing;
+pub use offer::offer_html;
 pub use plot::plot_svg;
-pub use results::{results_html, results_inner, View};
+pub use results::{results_html, results_inner, stale_note, View};
 
 use crate::doc;
 use modebench::{Error, Report};

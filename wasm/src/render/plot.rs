@@ -4,7 +4,7 @@
 use super::escape::escape;
 use super::number::{hz, quantity, rpm};
 use super::symbols::{self, INK};
-use modebench::report::ModeReport;
+use modebench::report::{AttachmentKind, ModeReport};
 use modebench::units::Kind;
 use modebench::Report;
 
@@ -54,7 +54,7 @@ pub fn plot_svg(report: &Report, number: usize) -> String {
     let beam = &report.beam;
     for (end, x, at, direction) in [(&beam.left, LEFT, 0.0, 1.0), (&beam.right, RIGHT, length, -1.0)] {
         let y = AXIS - AMPLITUDE * deflection(mode, at);
-        out.push_str(&symbols::end(end.kind, x, y, direction, end.rotational != Some(0.0)));
+        out.push_str(&symbols::end(end.kind.id(), x, y, direction, end.rotational != Some(0.0)));
     }
     out.push_str(&attachments(report, mode, &px));
     if let Some(m) = mode {
@@ -141,8 +141,8 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
         let x = px(a.position);
         let y = AXIS - AMPLITUDE * deflection(mode, a.position);
         match a.kind {
-            "mass" => out.push_str(&symbols::mass(x, y)),
-            "sprung-mass" => {
+            AttachmentKind::Mass => out.push_str(&symbols::mass(x, y)),
+            AttachmentKind::SprungMass => {
                 let amplitude =
                     mode.and_then(|m| m.sprung.iter().find(|s| s.attachment == i)).map_or(0.0, |s| {
                         if s.amplitude.is_finite() {
@@ -157,12 +157,12 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
                 out.push_str(&symbols::zigzag(x, top + 8.0, y));
                 out.push_str(&symbols::mass(x, top));
             }
-            "spring" => {
+            AttachmentKind::Spring => {
                 out.push_str(&symbols::zigzag(x, y, ground));
                 out.push_str(&symbols::ground(x, ground, 24.0));
             }
-            "rotational-spring" => out.push_str(&symbols::coil(x, y)),
-            "support" => out.push_str(&symbols::pin(x, AXIS)),
+            AttachmentKind::RotationalSpring => out.push_str(&symbols::coil(x, y)),
+            AttachmentKind::Support => out.push_str(&symbols::pin(x, AXIS)),
             _ => {}
         }
         if !a.label.trim().is_empty() {

@@ -35,10 +35,7 @@ pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> Strin
             );
             return out;
         }
-        (Some(_), true) => out.push_str(
-            "<p class=\"mb-stale-note\">These results belong to the last input that could be solved. Correct \
-             the field marked in the editor to bring them up to date.</p>",
-        ),
+        (Some(_), true) => out.push_str(stale_note()),
         _ => {}
     }
     let Some(report) = report else { return out };
@@ -49,6 +46,12 @@ pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> Strin
     out.push_str(&plot_area(report, mode));
     out.push_str(&echo::echo(report, &view.open));
     out
+}
+
+/// The note above results that belong to an earlier input than the one in the editor.
+pub fn stale_note() -> &'static str {
+    "<p class=\"mb-stale-note\">These results belong to the last input that could be solved. Correct the field \
+     marked in the editor to bring them up to date.</p>"
 }
 
 /// The mode to draw: the one asked for if it exists, else the first elastic mode.
@@ -178,7 +181,11 @@ fn warnings(report: &Report) -> String {
         .warnings
         .iter()
         .map(|w| {
-            format!("<li class=\"mb-warning\" data-code=\"{}\">{}</li>", escape(w.code), escape(&w.message))
+            format!(
+                "<li class=\"mb-warning\" data-code=\"{}\">{}</li>",
+                escape(w.code.id()),
+                escape(&w.message)
+            )
         })
         .collect();
     format!("<ul class=\"mb-warnings\">{items}</ul>")

@@ -1,87 +1,73 @@
-//! The live calculator: finds the prerendered calculators on a page, restores the reader's
-//! edits, and redraws the results on every edit through one delegated listener per calculator.
+//! The live calculator: finds the prerendered calculators on a page, gives each a solving
+//! worker, restores the reader's edits once the page shows its example, and redraws the results
+//! as the worker answers each edit, through one delegated listener per calculator.
 
 mod calculator;
 mod dom;
+mod solver;
 mod storage;
 
 use calculator::Calculator;
 use std::cell::RefCell;
 use std::rc::Rc;
+use wasm_bindgen::convert::FromWasmAbi;
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
-use web_sys::Event;
+use web_sys::{Event, MessageEvent};
 
-/// Starts every calculator that is not live yet; returns how many were started.
-pub(crate) fn mount_all() -> usize {
+/// Starts every calculator that is not live yet, each with a worker running the script at
+/// `worker_url`; returns how many were started.
+pub(crate) fn mount_all(worker_url: &str) -> usize {
     let Some(document) = web_sys::window().and_then(|w| w.document()) else { return 0 };
     let Ok(roots) = document.query_selector_all(".mb-calc[data-modebench]") else { return 0 };
+    let budget = solver::budget_ms();
     let mut started = 0;
     for (index, root) in dom::elements(&roots).into_iter().enumerate() {
         if root.get_attribute("data-live").as_deref() == Some("true") {
             continue;
         }
-        if mount(root, index) {
+        if mount(root, index, worker_url, budget) {
             started += 1;
         }
     }
     started
 }
 
-/// How long after going live a calculator whose report waits computes it, ms: after the page's
-/// first frames, and most likely before the reader's first touch (which computes it anyway).
-const COMPLETE_AFTER_MS: i32 = 200;
+type Shared = Rc<RefCell<Calculator>>;
 
-/// Computes a waiting report once the page has settled.
-fn complete_later(calculator: &Rc<RefCell<Calculator>>) {
-    let Some(window) = web_sys::window() else { return };
+/// A callback that runs `act` on the calculator, kept for the page's life. A plain `Fn`
+/// closure, because the browser may call it again while it runs: replacing a focused input
+/// during a redraw makes it fire `change` at once. That nested event finds the calculator busy
+/// and is ignored (the redraw already shows the latest state). The one-shot kind of closure is
+/// not used: wasm-bindgen would look for its glue in a function table that wasm-opt has already
+/// rewritten.
+fn callback<A: FromWasmAbi + 'static>(calculator: &Shared, act: fn(&mut Calculator, A)) -> js_sys::Function {
     let calculator = Rc::clone(calculator);
-    // A plain closure kept for the page's life, like the others: the one-shot kind would need
-    // wasm-bindgen to find its glue in a function table that wasm-opt has already rewritten.
-    let later = Closure::<dyn Fn()>::new(move || {
+    let closure = Closure::<dyn Fn(A)>::new(move |argument: A| {
         if let Ok(mut c) = calculator.try_borrow_mut() {
-            c.complete();
+            act(&mut c, argument);
         }
     });
-    let _ = window.set_timeout_with_callback_and_timeout_and_arguments_0(
-        later.as_ref().unchecked_ref(),
-        COMPLETE_AFTER_MS,
-    );
-    later.forget();
+    let function = closure.as_ref().unchecked_ref::<js_sys::Function>().clone();
+    closure.forget();
+    function
 }
 
-/// Takes over one calculator: draws it from the stored or the page's scenario and listens.
-fn mount(root: web_sys::Element, index: usize) -> bool {
-    let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index)));
-    let for_frame = Rc::clone(&calculator);
-    let frame = Closure::<dyn Fn()>::new(move || {
-        if let Ok(mut c) = for_frame.try_borrow_mut() {
-            c.flush();
-        }
-    });
-    let mut deferred = false;
+/// Takes over one calculator: draws its controls, starts its worker and listens.
+fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64) -> bool {
+    let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index, worker_url, budget_ms)));
+    let callbacks = solver::Callbacks {
+        message: callback(&calculator, |c, event: MessageEvent| c.on_answer(&event)),
+        error: callback(&calculator, |c, _: JsValue| c.on_worker_error()),
+        deadline: callback(&calculator, |c, _: JsValue| c.on_deadline()),
+        slow: callback(&calculator, |c, _: JsValue| c.on_slow()),
+    };
     if let Ok(mut c) = calculator.try_borrow_mut() {
-        c.set_frame(frame.as_ref().unchecked_ref::<js_sys::Function>().clone());
-        deferred = c.go_live();
+        c.go_live(callbacks);
     }
-    // Both callbacks live as long as the page.
-    frame.forget();
-    if deferred {
-        complete_later(&calculator);
-    }
-    let state = Rc::clone(&calculator);
-    // A plain `Fn` closure, because the browser may call it again while it runs: replacing a
-    // focused input during a redraw makes it fire `change` at once. That nested event finds the
-    // calculator busy and is ignored (the redraw already shows the latest state).
-    let listener = Closure::<dyn Fn(Event)>::new(move |event: Event| {
-        if let Ok(mut c) = state.try_borrow_mut() {
-            c.handle(&event);
-        }
-    });
-    let callback = listener.as_ref().unchecked_ref();
+    let listener = callback(&calculator, |c, event: Event| c.handle(&event));
     let attached = ["input", "change", "click"]
         .iter()
-        .all(|kind| root.add_event_listener_with_callback(kind, callback).is_ok());
-    listener.forget();
+        .all(|kind| root.add_event_listener_with_callback(kind, &listener).is_ok());
     attached && root.set_attribute("data-live", "true").is_ok()
 }

@@ -1,8 +1,11 @@
 //! Keeping the reader's edits in `localStorage`, so that nothing typed is lost on reload.
 //!
 //! The scenario is stored as JSON with every field's text exactly as typed, invalid input
-//! included. Storage that is missing, full or refused (private browsing) is silently skipped:
-//! the calculator works, it just forgets on reload.
+//! included. A stored case that could not be solved within the budget when the page opened is
+//! also copied aside (under the key with `:set-aside` added), so that editing the page's example
+//! meanwhile does not overwrite it; the calculator offers it back. Storage that is missing, full
+//! or refused (private browsing) is silently skipped: the calculator works, it just forgets on
+//! reload.
 
 use serde_json::Value;
 
@@ -18,6 +21,29 @@ fn storage() -> Option<web_sys::Storage> {
 
 /// The stored scenario and the mode shown, if any.
 pub(super) fn load(key: &str) -> Option<(Value, usize)> {
+    read(key)
+}
+
+/// The case set aside, if any.
+pub(super) fn load_set_aside(key: &str) -> Option<(Value, usize)> {
+    read(&set_aside_key(key))
+}
+
+/// Copies a case aside: it stays in storage, whatever is saved under `key` later.
+pub(super) fn set_aside(key: &str, doc: &Value, mode: usize) {
+    save(&set_aside_key(key), doc, mode);
+}
+
+/// Forgets the copy set aside, once it has been opened again (and so saved under `key`).
+pub(super) fn clear_set_aside(key: &str) {
+    clear(&set_aside_key(key));
+}
+
+fn set_aside_key(key: &str) -> String {
+    format!("{key}:set-aside")
+}
+
+fn read(key: &str) -> Option<(Value, usize)> {
     let text = storage()?.get_item(key).ok().flatten()?;
     let stored = crate::doc::text::read(&text).ok()?;
     let doc = stored.get("scenario")?.clone();

@@ -1,0 +1,23 @@
+// Solves the scenarios of one calculator, off the page's main thread. The page sends
+// { id, scenario } with the scenario as JSON text and receives { id, answer } with the answer
+// as JSON text ({"report": …} or {"error": …}), or { id, failed } when the solver engine could
+// not load. A solve that takes too long is not interrupted here: the page stops this worker and
+// starts a fresh one.
+//
+// A module worker from the site's own folder, so the pages' policy (scripts from 'self' only,
+// WebAssembly compilation allowed, nothing inline) admits it and the files it imports.
+
+import init, { solveScenario } from "./modebench_solver.js";
+
+const ready = init();
+
+self.addEventListener("message", async (event) => {
+  const { id, scenario } = event.data;
+  try {
+    await ready;
+  } catch (error) {
+    self.postMessage({ id, failed: String(error) });
+    return;
+  }
+  self.postMessage({ id, answer: solveScenario(scenario) });
+});

@@ -1,0 +1,279 @@
+// The calculator solves in a Web Worker, so that no model can freeze its page: typing into a
+// model that is slow to solve leaves the main thread free, the newest edit's results are the
+// ones drawn, a stored case too slow to solve leaves the page live on its example with the case
+// offered back, and the worker runs under the pages' content security policy.
+
+import assert from "node:assert/strict";
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { after, before, describe, test } from "node:test";
+import { DIST, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+
+const BOOM = "sensor-boom.html";
+const TIP_MASS = '[data-field="attachments[0].mass"]';
+const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
+const OFFER = '.mb-calc [data-action="reopen"]';
+// The Long Tasks API reports every task of the main thread that runs longer than this, ms; a
+// frame that long is a visible stall (the RAIL model's 50 ms, common practice).
+const LONG_TASK_MS = 50;
+
+let site;
+let browser;
+
+before(async () => {
+  site = await startSite();
+  browser = await launch();
+});
+
+after(async () => {
+  await browser?.close();
+  site?.stop();
+});
+
+// The page's example with `changes` applied to it.
+function boomWith(changes) {
+  const raw = readFileSync(join(DIST, BOOM), "utf8");
+  const attribute = raw.match(/data-modebench="([^"]*)"/)[1];
+  const text = attribute.replaceAll("&quot;", '"').replaceAll("&lt;", "<").replaceAll("&gt;", ">").replaceAll("&amp;", "&");
+  return changes(JSON.parse(text));
+}
+
+// A camera boom made slow to solve without making its results large: a spring added at mid
+// span, the most modes the calculator finds (20) and the finite-element check with the most
+// elements it allows (2000), whose eigen-solve takes most of the time.
+function slowBoom() {
+  return boomWith((scenario) => {
+    scenario.modes = 20;
+    scenario.elements = 2000;
+    scenario.attachments.push({ type: "spring", position: "700 mm", stiffness: "2e5 N/m" });
+    return scenario;
+  });
+}
+
+// What the calculator stores for a case, as the widget writes it.
+const stored = (scenario) => JSON.stringify({ version: 1, scenario, mode: 0 });
+
+// Solves scenarios with the solver engine itself, here on the page's main thread: the reference
+// the calculator's results are checked against, and the proof that a case is slow to solve.
+async function solveHere(page, scenarios) {
+  return page.evaluate(async (texts) => {
+    const engine = await import(new URL("assets/modebench_solver.js", document.baseURI).href);
+    await engine.default();
+    return texts.map((text) => {
+      engine.solveScenario(text); // the first run compiles the engine's functions
+      const start = performance.now();
+      const answer = JSON.parse(engine.solveScenario(text));
+      return { ms: performance.now() - start, hz: answer.report?.modes[0].frequency_hz ?? null };
+    });
+  }, scenarios.map((s) => JSON.stringify(s)));
+}
+
+describe("solving off the main thread", () => {
+  test("typing into a model slow to solve leaves the page responsive", async () => {
+    const slow = slowBoom();
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    // The reader's stored case is the slow model; a generous budget lets every solve finish.
+    await page.addInitScript(
+      ([key, value]) => {
+        globalThis.modebenchSolveBudgetMs = 60_000;
+        if (!sessionStorage.getItem("seeded")) {
+          localStorage.setItem(key, value);
+          sessionStorage.setItem("seeded", "yes");
+        }
+      },
+      ["modebench:/" + BOOM + "#0", stored(slow)],
+    );
+    await page.goto(site.url + BOOM);
+    const stiffness = page.locator('[data-field="attachments[1].stiffness"]');
+    await stiffness.waitFor({ timeout: 60_000 });
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, {
+      timeout: 60_000,
+    });
+
+    // The premise: on the main thread, one solve of this model would be a long task by itself.
+    const typed = "350000";
+    const final = JSON.parse(JSON.stringify(slow));
+    final.attachments[1].stiffness = typed;
+    const [reference] = await solveHere(page, [final]);
+    assert.ok(reference.ms > 2 * LONG_TASK_MS, `the model solves in ${reference.ms.toFixed(0)} ms: not slow enough to prove anything`);
+
+    await page.evaluate(() => {
+      window.__longTasks = [];
+      new PerformanceObserver((list) => window.__longTasks.push(...list.getEntries().map((e) => e.duration))).observe({
+        type: "longtask",
+      });
+    });
+    await stiffness.click();
+    await stiffness.press("Control+A");
+    await stiffness.pressSequentially(typed, { delay: 80 });
+    // The newest keystroke's answer is the last drawn: the reference frequency, to the bit.
+    await page.waitForFunction(
+      ([selector, hz]) => Number(document.querySelector(selector)?.dataset.hz) === hz,
+      [MODE_1, reference.hz],
+      { timeout: 60_000 },
+    );
+    const longTasks = await page.evaluate(() => window.__longTasks);
+    assert.deepEqual(longTasks, [], `main-thread tasks over ${LONG_TASK_MS} ms while typing`);
+    // The control: the same observer does see one solve of this model on the main thread.
+    await solveHere(page, [final]);
+    await page.waitForFunction(() => window.__longTasks.length > 0, null, { timeout: 5000 });
+    assert.equal(await stiffness.inputValue(), typed);
+    await context.close();
+  });
+
+  test("an answer overtaken by a newer edit is never drawn over it", async () => {
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await watchedPage(context);
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    // The worker has confirmed the page's results and is idle.
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
+    const [heavier, lighter] = await solveHere(page, [
+      boomWith((s) => ((s.attachments[0].mass = "4.2 kg"), s)),
+      boomWith((s) => ((s.attachments[0].mass = "1.4 kg"), s)),
+    ]);
+    assert.ok(heavier.hz < lighter.hz, `${heavier.hz} Hz with 4.2 kg, ${lighter.hz} Hz with 1.4 kg`);
+    // Two edits in one go: the first reaches the worker, the second waits; the first answer is
+    // then out of date and must not be drawn, even for a moment.
+    const drawn = await page.evaluate(
+      ([selector, field, done]) =>
+        new Promise((resolve) => {
+          const seen = [];
+          const root = document.querySelector(".mb-calc");
+          const watcher = new MutationObserver(() => {
+            const hz = Number(root.querySelector(selector)?.dataset.hz);
+            if (seen.at(-1) !== hz) {
+              seen.push(hz);
+            }
+            if (hz === done) {
+              // Wait a little longer in case anything else is drawn after it.
+              setTimeout(() => resolve(seen), 500);
+            }
+          });
+          watcher.observe(root, { subtree: true, childList: true, attributes: true });
+          const input = root.querySelector(field);
+          for (const value of ["4.2 kg", "1.4 kg"]) {
+            input.value = value;
+            input.dispatchEvent(new Event("input", { bubbles: true }));
+          }
+          setTimeout(() => resolve(seen), 10_000);
+        }),
+      [MODE_1, TIP_MASS, lighter.hz],
+    );
+    assert.deepEqual(drawn.filter((hz) => hz === heavier.hz), [], `the overtaken result was drawn: ${drawn}`);
+    assert.equal(drawn.at(-1), lighter.hz, `drawn in turn: ${drawn}`);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
+  test("a stored case too slow to solve leaves the page live on its example, and is offered back", async () => {
+    const key = "modebench:/" + BOOM + "#0";
+    const mine = boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s));
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await watchedPage(context);
+    // A budget no solve can meet: the stored case is given up as a slow model would be.
+    await page.addInitScript(
+      ([key, value]) => {
+        globalThis.modebenchSolveBudgetMs = 1;
+        localStorage.setItem(key, value);
+      },
+      [key, stored(mine)],
+    );
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    const offer = page.locator(OFFER);
+    await offer.waitFor({ state: "visible", timeout: 10_000 });
+    assert.equal(await offer.textContent(), "Open my last edits again");
+    assert.equal(await page.locator(TIP_MASS).inputValue(), "2.8 kg", "the page shows its example");
+    assert.equal(await page.locator(".mb-results.mb-stale").count(), 0, "the example's results are not greyed");
+    const kept = await page.evaluate((key) => [localStorage.getItem(key), localStorage.getItem(key + ":set-aside")], key);
+    for (const text of kept) {
+      assert.equal(JSON.parse(text).scenario.attachments[0].mass, "3.1 kg", "the stored case is kept");
+    }
+    // The page is live: an edit is handled (and, within this budget, said to be too slow).
+    await page.locator(TIP_MASS).fill("4.2 kg");
+    const message = page.locator(".mb-general-errors .mb-field-error");
+    await message.waitFor({ state: "visible", timeout: 10_000 });
+    assert.match(await message.textContent(), /took longer than 1 ms, so it was stopped/);
+    // No answer ever came in this budget: the results the page was built with stay, greyed.
+    await page.waitForSelector(".mb-results.mb-stale .mb-stale-note");
+    const built = readFileSync(join(DIST, BOOM), "utf8").match(/<td[^>]*\sdata-hz="([^"]+)"/)[1];
+    assert.equal(await page.locator(MODE_1).first().getAttribute("data-hz"), built);
+    assert.deepEqual(problems, []);
+    await page.close();
+
+    // Opened again with the usual budget, the case set aside comes back at a touch.
+    const { page: again, problems: later } = await watchedPage(context);
+    await again.goto(site.url + BOOM);
+    await again.locator(OFFER).click({ timeout: 10_000 });
+    await again.waitForFunction((selector) => document.querySelector(selector)?.value === "3.1 kg", TIP_MASS);
+    await again.waitForSelector(".mb-results:not(.mb-stale)", { timeout: 10_000 });
+    assert.equal(await again.locator(OFFER).count(), 0, "the offer is gone once taken");
+    assert.deepEqual(later, []);
+    await context.close();
+  });
+
+  test("the worker starts under the pages' content security policy", async () => {
+    const { context, external } = await isolatedContext(browser);
+    await context.addInitScript(() => {
+      window.__violations = [];
+      document.addEventListener("securitypolicyviolation", (e) => window.__violations.push(e.violatedDirective));
+    });
+    const { page, problems } = await watchedPage(context);
+    const workerProblems = [];
+    page.on("worker", (worker) =>
+      worker.on("console", (message) => {
+        if (message.type() === "error" || message.type() === "warning") {
+          workerProblems.push(message.text());
+        }
+      }),
+    );
+    const response = await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    const before = await page.locator(MODE_1).first().getAttribute("data-hz");
+    await page.locator(TIP_MASS).fill("4.2 kg");
+    await page.waitForFunction(([s, old]) => document.querySelector(s)?.dataset.hz !== old, [MODE_1, before]);
+    const workers = page.workers().map((w) => new URL(w.url()).pathname);
+    assert.deepEqual(workers, ["/assets/solve-worker.js"]);
+    const script = await fetch(site.url + "assets/solve-worker.js");
+    assert.equal(script.headers.get("content-security-policy"), response.headers()["content-security-policy"]);
+    assert.deepEqual(await page.evaluate(() => window.__violations), []);
+    assert.deepEqual(problems, []);
+    assert.deepEqual(workerProblems, []);
+    assert.deepEqual(external, []);
+    await context.close();
+  });
+
+  test("a worker whose engine cannot load leaves the built results, and an edit says so", async () => {
+    const { context } = await isolatedContext(browser);
+    await context.route("**/modebench_solver_bg.wasm", (route) => route.abort());
+    const page = await context.newPage();
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    await page.locator(TIP_MASS).fill("4.2 kg");
+    const message = page.locator(".mb-general-errors .mb-field-error");
+    await message.waitFor({ state: "visible", timeout: 10_000 });
+    assert.match(await message.textContent(), /The solver stopped without an answer/);
+    const built = readFileSync(join(DIST, BOOM), "utf8").match(/<td[^>]*\sdata-hz="([^"]+)"/)[1];
+    assert.equal(await page.locator(MODE_1).first().getAttribute("data-hz"), built);
+    await page.waitForSelector(".mb-results.mb-stale .mb-stale-note");
+    assert.equal(await page.locator(TIP_MASS).inputValue(), "4.2 kg", "what was typed stays");
+    await context.close();
+  });
+
+  test("the page's engine carries none of the solver", () => {
+    // Messages only the solvers write; the solver engine must hold them for this to prove anything.
+    const solverOnly = [
+      "Rayleigh and Dunkerley estimates need a restrained beam",
+      "round-off in the finite-element matrices",
+      "a result overflowed the range of numbers",
+    ];
+    const page = readFileSync(join(DIST, "assets", "modebench_page_bg.wasm"));
+    const solver = readFileSync(join(DIST, "assets", "modebench_solver_bg.wasm"));
+    for (const text of solverOnly) {
+      assert.ok(solver.includes(text), `the solver engine lacks "${text}"`);
+      assert.ok(!page.includes(text), `the page's engine carries "${text}"`);
+    }
+  });
+});

@@ -1,0 +1,134 @@
+//! What the calculator does with the worker's answers, and when none comes in time: the
+//! newest scenario's answer is drawn, an overtaken one is not, and a solve past its budget is
+//! given up with a message beside the fields.
+
+use super::Calculator;
+use crate::widget::solver::GREY_AFTER_MS;
+use crate::widget::storage;
+use crate::worker::latest::{Expiry, Purpose, Verdict};
+use crate::worker::message;
+use modebench::{Error, Report};
+use web_sys::MessageEvent;
+
+impl Calculator {
+    /// Takes a message from the worker.
+    pub(in crate::widget) fn on_answer(&mut self, event: &MessageEvent) {
+        let Some((verdict, answer)) = self.solver.answered(event) else {
+            // The worker could not solve at all: its engine did not load.
+            self.on_worker_error();
+            return;
+        };
+        self.show_solving();
+        match verdict {
+            // The example's report is what the page shows: keep it even if an edit overtook it,
+            // so that an invalid edit still has results to show greyed.
+            Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
+                self.confirmed(message::read(&answer));
+            }
+            Verdict::Current(Purpose::Restore) => self.restored(message::read(&answer)),
+            Verdict::Current(Purpose::Edit) => self.solved(message::read(&answer)),
+            // Something newer is with the worker: this answer must not be drawn over it.
+            Verdict::Overtaken(_) | Verdict::Unknown => {}
+        }
+    }
+
+    /// The page's example, solved in this browser: if the results on show are exactly these,
+    /// nothing is redrawn; otherwise (or if a mode was chosen meanwhile) they are replaced.
+    fn confirmed(&mut self, outcome: Result<Report, Error>) {
+        // An edit made since then is the reader's newest input; its answer decides what shows.
+        let edited = self.edited_at.is_some();
+        match outcome {
+            Ok(report) => {
+                let redraw = !self.shows(&report) || self.view.mode != 0;
+                self.last = Some(report);
+                if redraw && !edited {
+                    self.draw_results();
+                }
+            }
+            Err(error) if !edited => {
+                self.error = Some(error);
+                self.draw_results();
+            }
+            Err(_) => {}
+        }
+    }
+
+    /// The reader's stored case, solved within the budget: it replaces the example on show
+    /// (greyed under its error if it has one).
+    fn restored(&mut self, outcome: Result<Report, Error>) {
+        let Some((doc, mode)) = self.saved.take() else { return };
+        self.doc = doc;
+        self.view.mode = mode;
+        match outcome {
+            Ok(report) => {
+                self.last = Some(report);
+                self.error = None;
+            }
+            Err(error) => self.error = Some(error),
+        }
+        self.draw_all();
+    }
+
+    /// The newest edit, solved: its results, or its error beside its field.
+    fn solved(&mut self, outcome: Result<Report, Error>) {
+        match outcome {
+            Ok(report) => {
+                self.last = Some(report);
+                self.error = None;
+            }
+            Err(error) => self.error = Some(error),
+        }
+        self.draw_results();
+        self.stamp();
+    }
+
+    /// Called by the solve's timer: gives up the solve if it has run past the budget.
+    pub(in crate::widget) fn on_deadline(&mut self) {
+        if let Some(expiry) = self.solver.expire() {
+            let error = message::too_slow(self.solver.budget_ms());
+            self.gave_up(expiry, error);
+            self.show_solving();
+        }
+    }
+
+    /// Called when the worker fails: the solve under way is given up.
+    pub(in crate::widget) fn on_worker_error(&mut self) {
+        if let Some(expiry) = self.solver.fail() {
+            self.gave_up(expiry, message::failed());
+            self.show_solving();
+        }
+    }
+
+    /// Called a moment after an edit was handed to the worker: if it is still being solved,
+    /// the results on show are greyed, as they belong to an earlier input.
+    pub(in crate::widget) fn on_slow(&mut self) {
+        if let Some((Purpose::Edit, ms)) = self.solver.running() {
+            if ms >= f64::from(GREY_AFTER_MS) - 1.0 {
+                self.mark_waiting();
+            }
+        }
+    }
+
+    /// A solve given up. If a newer scenario overtook it, that one is already with the fresh
+    /// worker and nothing is said. The page's example keeps its prerendered results; the
+    /// reader's stored case is set aside and offered back; an edit gets the message beside the
+    /// fields, its results greyed.
+    fn gave_up(&mut self, expiry: Expiry, error: Error) {
+        if expiry.overtaken {
+            return;
+        }
+        match expiry.purpose {
+            Purpose::Confirm => {}
+            Purpose::Restore => {
+                if let Some((doc, mode)) = self.saved.take() {
+                    storage::set_aside(&self.key, &doc, mode);
+                }
+                self.show_offer();
+            }
+            Purpose::Edit => {
+                self.error = Some(error);
+                self.draw_results();
+            }
+        }
+    }
+}

@@ -1,0 +1,160 @@
+//! What the reader does to a calculator: typing, choosing, ticking, adding and removing rows,
+//! choosing a mode, restoring the page's example and opening set-aside edits again. Each edit
+//! is stored at once and handed to the worker; nothing here solves.
+
+use super::Calculator;
+use crate::doc::{self, text, Edit, List};
+use crate::render::View;
+use crate::widget::{dom, storage};
+use crate::worker::latest::Purpose;
+use wasm_bindgen::JsCast;
+use web_sys::{Element, Event, HtmlInputElement, HtmlSelectElement};
+
+impl Calculator {
+    pub(in crate::widget) fn handle(&mut self, event: &Event) {
+        let Some(target) = event.target().and_then(|t| t.dyn_into::<Element>().ok()) else { return };
+        match event.type_().as_str() {
+            "input" => self.on_input(&target),
+            "change" => self.on_change(&target),
+            "click" => self.on_click(&target),
+            _ => {}
+        }
+    }
+
+    /// Applies an edit, stores it and hands it to the worker. A structural edit redraws the
+    /// editor at once; the results follow with the answer.
+    fn edit(&mut self, edit: Edit, focus: Option<(&'static str, String)>) {
+        self.edited_at = Some(dom::now());
+        self.keep_saved_case();
+        // Edits build on the report on show: a new row takes sensible values from it.
+        doc::apply(&mut self.doc, &edit, self.last.as_ref());
+        storage::save(&self.key, &self.doc, self.view.mode);
+        if edit.is_structural() {
+            self.draw_editor(false);
+            self.refocus(focus);
+        }
+        self.solver.submit(Purpose::Edit, text::write(&self.doc));
+        self.show_solving();
+    }
+
+    /// Before the page's example is edited while the reader's stored case has not been shown
+    /// yet (it is still being solved, or was too slow), the case is set aside: storing the
+    /// edited example must not overwrite it. The calculator offers it back.
+    fn keep_saved_case(&mut self) {
+        if let Some((doc, mode)) = self.saved.take() {
+            storage::set_aside(&self.key, &doc, mode);
+            self.show_offer();
+        }
+    }
+
+    fn on_input(&mut self, target: &Element) {
+        let Some(input) = target.dyn_ref::<HtmlInputElement>() else { return };
+        if input.type_() != "text" {
+            return;
+        }
+        if let Some(path) = input.get_attribute("data-field") {
+            self.edit(Edit::Text { path, text: input.value() }, None);
+        }
+    }
+
+    fn on_change(&mut self, target: &Element) {
+        if let Some(select) = target.dyn_ref::<HtmlSelectElement>() {
+            let value = select.value();
+            if let Some(path) = select.get_attribute("data-field") {
+                let focus = Some(("data-field", path.clone()));
+                self.edit(Edit::Choose { path, value }, focus);
+            } else if select.get_attribute("data-control").as_deref() == Some("segment-by") {
+                if let Some(index) = dom::number(select, "data-index") {
+                    self.edit(Edit::SegmentBy { index, by: value }, None);
+                }
+            }
+        } else if let Some(input) = target.dyn_ref::<HtmlInputElement>() {
+            if input.type_() == "checkbox" {
+                if let Some(path) = input.get_attribute("data-field") {
+                    let focus = Some(("data-field", path.clone()));
+                    self.edit(Edit::Tick { path, on: input.checked() }, focus);
+                }
+            }
+        }
+    }
+
+    fn on_click(&mut self, target: &Element) {
+        if let Some(button) = target.closest("[data-show-mode]").ok().flatten() {
+            if let Some(mode) = dom::number(&button, "data-show-mode") {
+                self.show_mode(mode);
+            }
+            return;
+        }
+        let Some(button) = target.closest("[data-action]").ok().flatten() else { return };
+        let list = button.get_attribute("data-list").as_deref().and_then(List::from_key);
+        match (button.get_attribute("data-action").as_deref(), list) {
+            (Some("add"), Some(list)) => {
+                self.edit(Edit::Add(list), Some(("data-list", list.key().to_string())));
+            }
+            (Some("remove"), Some(list)) => {
+                if let Some(index) = dom::number(&button, "data-index") {
+                    self.edit(Edit::Remove(list, index), None);
+                }
+            }
+            (Some("restore"), _) => self.restore(),
+            (Some("reopen"), _) => self.reopen(),
+            _ => {}
+        }
+    }
+
+    /// Draws the chosen mode from the report on show. Before the first report has come, the
+    /// choice waits for it (see `confirmed`).
+    fn show_mode(&mut self, mode: usize) {
+        self.view.mode = mode;
+        // While the stored case waits to be shown, the example on show is not stored over it.
+        if self.saved.is_none() {
+            storage::save(&self.key, &self.doc, mode);
+        }
+        if self.last.is_some() || self.error.is_some() {
+            self.draw_results();
+            self.refocus(Some(("data-show-mode", mode.to_string())));
+        }
+    }
+
+    /// Forgets the reader's edits and shows the page's example again.
+    fn restore(&mut self) {
+        self.edited_at = Some(dom::now());
+        self.keep_saved_case();
+        storage::clear(&self.key);
+        self.error = None;
+        self.view = View::default();
+        self.load_example();
+        self.draw_all();
+        self.refocus(Some(("data-action", "restore".to_string())));
+        self.start_over();
+    }
+
+    /// Opens the set-aside case again: it becomes the stored case and is solved like an edit
+    /// (and, should it still be too slow, the calculator says so beside its fields).
+    fn reopen(&mut self) {
+        let Some((doc, mode)) = storage::load_set_aside(&self.key) else {
+            self.show_offer();
+            return;
+        };
+        self.edited_at = Some(dom::now());
+        self.saved = None;
+        storage::save(&self.key, &doc, mode);
+        storage::clear_set_aside(&self.key);
+        self.doc = doc;
+        self.view.mode = mode;
+        self.error = None;
+        self.draw_all();
+        self.refocus(Some(("data-action", "restore".to_string())));
+        self.start_over();
+    }
+
+    /// Hands a scenario that replaced the one on show to the worker; the results on show are
+    /// greyed until its answer comes, as they belong to the other one.
+    fn start_over(&mut self) {
+        if self.error.is_none() {
+            self.mark_waiting();
+            self.solver.submit(Purpose::Edit, text::write(&self.doc));
+            self.show_solving();
+        }
+    }
+}

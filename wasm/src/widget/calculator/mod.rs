@@ -1,0 +1,272 @@
+//! One live calculator: the scenario as typed, the last good report, and what is on show.
+//! The scenario is solved in a Web Worker (see [`super::solver`]); this thread only edits,
+//! stores, draws and marks errors, so the page stays responsive whatever the model. Typing
+//! redraws only the results, the plot and the error marks, so the input keeps its focus and
+//! caret; structural edits redraw the editor too. What happens on each event is in [`events`],
+//! what happens on each answer from the worker in [`answers`].
+
+mod answers;
+mod events;
+
+use super::solver::{Callbacks, Solver};
+use super::{dom, storage};
+use crate::doc::{self, text};
+use crate::render::{self, Editing, View};
+use crate::worker::latest::Purpose;
+use modebench::{Error, Report};
+use serde_json::Value;
+use web_sys::Element;
+
+pub(super) struct Calculator {
+    root: Element,
+    /// The page's scenario text, for "Restore the page's example".
+    original: String,
+    key: String,
+    doc: Value,
+    /// The report of the last scenario solved that is on show (or, greyed, under an error).
+    last: Option<Report>,
+    error: Option<Error>,
+    view: View,
+    solver: Solver,
+    /// When the newest edit was made (`performance.now()`, ms), for `data-update-ms`; `None`
+    /// before the reader's first.
+    edited_at: Option<f64>,
+    /// The reader's stored case and the mode they looked at, not on show yet: it is tried once
+    /// the page shows its example, and shown if it is solved within the budget.
+    saved: Option<(Value, usize)>,
+    /// Whether the results on show are still those the page was built with: no report has
+    /// come yet to draw in their place (the worker may not have answered, or not in time).
+    built_results: bool,
+}
+
+impl Calculator {
+    pub(super) fn new(root: Element, index: usize, worker_url: &str, budget_ms: f64) -> Self {
+        let original = root.get_attribute("data-modebench").unwrap_or_default();
+        let key = storage::key(index);
+        let saved = storage::load(&key);
+        let mut c = Calculator {
+            root,
+            original,
+            key,
+            doc: Value::Null,
+            last: None,
+            error: None,
+            view: View::default(),
+            solver: Solver::new(worker_url, budget_ms),
+            edited_at: None,
+            saved,
+            built_results: true,
+        };
+        c.load_example();
+        c
+    }
+
+    /// Takes over the calculator: draws the editor's controls at once in place of the fixed
+    /// values the page was built with, and starts the worker on the page's example (to confirm
+    /// the results on show) and then on the reader's stored case, if any.
+    pub(super) fn go_live(&mut self, callbacks: Callbacks) {
+        self.solver.connect(callbacks);
+        if self.error.is_some() {
+            // The page's own scenario cannot be read; say so at once.
+            self.draw_all();
+        } else {
+            self.draw_editor(false);
+            self.solver.submit(Purpose::Confirm, text::write(&self.doc));
+        }
+        if let Some((doc, _)) = &self.saved {
+            self.solver.submit(Purpose::Restore, text::write(doc));
+        }
+        self.show_offer();
+        self.show_solving();
+    }
+
+    fn load_example(&mut self) {
+        match doc::read(&self.original) {
+            Ok(doc) => self.doc = doc,
+            Err(e) => {
+                self.doc = Value::Object(serde_json::Map::new());
+                self.error = Some(e);
+            }
+        }
+    }
+
+    /// Remembers which fold-out sections the reader opened, before they are redrawn.
+    fn keep_open_sections(&mut self) {
+        self.view.open = dom::all(&self.root, "details.mb-fold[open]")
+            .iter()
+            .filter_map(|d| d.get_attribute("data-part"))
+            .collect();
+    }
+
+    /// Whether the results on show list exactly these frequencies, digit for digit: the page's
+    /// prerendered ones against the worker's, computed in this browser.
+    fn shows(&self, report: &Report) -> bool {
+        let rows = dom::all(&self.root, "tr[data-mode]");
+        rows.len() == report.modes.len()
+            && report.modes.iter().enumerate().all(|(i, m)| {
+                let selector = format!("tr[data-mode=\"{}\"] td[data-hz]", i + 1);
+                dom::first(&self.root, &selector).and_then(|td| td.get_attribute("data-hz"))
+                    == Some(format!("{}", m.frequency_hz))
+            })
+    }
+
+    /// Draws the whole calculator; before any report has come, around the results the page was
+    /// built with.
+    fn draw_all(&mut self) {
+        self.keep_open_sections();
+        let html = render::calculator_inner(
+            &self.doc,
+            self.error.as_ref(),
+            self.last.as_ref(),
+            &self.view,
+            Editing::Live,
+        );
+        let kept =
+            dom::first(&self.root, ".mb-results").filter(|_| self.built_results && self.last.is_none());
+        let kept = kept.map(|results| results.outer_html());
+        self.root.set_inner_html(&html);
+        match (kept, dom::first(&self.root, ".mb-results")) {
+            (Some(built), Some(results)) => {
+                results.set_outer_html(&built);
+                self.show_built_results();
+            }
+            _ => self.built_results = false,
+        }
+        self.show_offer();
+    }
+
+    /// Keeps the results the page was built with on show: greyed, with the note that they
+    /// belong to an earlier input, while there is an error.
+    fn show_built_results(&self) {
+        let Some(results) = dom::first(&self.root, ".mb-results") else { return };
+        let _ = results.remove_attribute("aria-busy");
+        let note = dom::first(&results, ".mb-stale-note");
+        if self.error.is_some() {
+            let _ = results.class_list().add_1("mb-stale");
+            if note.is_none() {
+                let _ = results.insert_adjacent_html("afterbegin", render::stale_note());
+            }
+        } else {
+            let _ = results.class_list().remove_1("mb-stale");
+            if let Some(note) = note {
+                note.remove();
+            }
+        }
+    }
+
+    /// Draws the editor's controls, leaving the results as they are; with `marks`, the error
+    /// beside its field (after a structural edit the error's field may have moved, so the marks
+    /// wait for the answer).
+    fn draw_editor(&mut self, marks: bool) {
+        if let Some(editor) = dom::first(&self.root, ".mb-editor") {
+            let error = if marks { self.error.as_ref() } else { None };
+            editor.set_inner_html(&render::editor_html(&self.doc, error, Editing::Live));
+        }
+    }
+
+    /// Draws the results and moves the error mark, leaving the editor's inputs in place. Before
+    /// any report has come, the results the page was built with stay (greyed under an error).
+    fn draw_results(&mut self) {
+        self.keep_open_sections();
+        if self.last.is_none() && self.built_results {
+            self.show_built_results();
+            self.mark_error();
+            return;
+        }
+        self.built_results = false;
+        if let Some(results) = dom::first(&self.root, ".mb-results") {
+            let class = if self.error.is_some() { "mb-results mb-stale" } else { "mb-results" };
+            results.set_class_name(class);
+            let _ = results.remove_attribute("aria-busy");
+            results.set_inner_html(&render::results_inner(
+                self.last.as_ref(),
+                self.error.is_some(),
+                &self.view,
+            ));
+        }
+        self.mark_error();
+    }
+
+    /// Greys the results on show while the scenario being edited is still with the worker.
+    fn mark_waiting(&self) {
+        if let Some(results) = dom::first(&self.root, ".mb-results") {
+            let _ = results.class_list().add_1("mb-stale");
+            let _ = results.set_attribute("aria-busy", "true");
+        }
+    }
+
+    fn mark_error(&self) {
+        for old in dom::all(&self.root, ".mb-editor .mb-field-error") {
+            old.remove();
+        }
+        for field in dom::all(&self.root, ".mb-editor .mb-invalid") {
+            let _ = field.class_list().remove_1("mb-invalid");
+        }
+        for input in dom::all(&self.root, ".mb-editor [aria-invalid]") {
+            let _ = input.remove_attribute("aria-invalid");
+        }
+        let general = dom::first(&self.root, ".mb-general-errors");
+        let Some(error) = &self.error else { return };
+        let inputs = dom::all(&self.root, ".mb-editor [data-field]");
+        let paths: Vec<String> =
+            inputs.iter().map(|i| i.get_attribute("data-field").unwrap_or_default()).collect();
+        let refs: Vec<&str> = paths.iter().map(String::as_str).collect();
+        let place = render::placement(&error.path, &refs).and_then(|p| paths.iter().position(|q| q == p));
+        match place.and_then(|i| inputs.get(i)) {
+            Some(input) => {
+                let _ = input.set_attribute("aria-invalid", "true");
+                if let Some(field) = input.closest(".mb-field").ok().flatten() {
+                    let _ = field.class_list().add_1("mb-invalid");
+                    let _ = field.insert_adjacent_html("beforeend", &render::field_error_html(error, false));
+                }
+            }
+            None => {
+                if let Some(g) = general {
+                    g.set_inner_html(&render::field_error_html(error, true));
+                }
+            }
+        }
+    }
+
+    /// Shows the offer to open the reader's set-aside case again under the calculator's head,
+    /// if there is such a case, and removes it otherwise.
+    fn show_offer(&self) {
+        let shown = dom::first(&self.root, ".mb-offer");
+        match (storage::load_set_aside(&self.key).is_some(), shown) {
+            (true, None) => {
+                if let Some(head) = dom::first(&self.root, ".mb-head") {
+                    let _ = head.insert_adjacent_html("afterend", render::offer_html());
+                }
+            }
+            (false, Some(offer)) => offer.remove(),
+            _ => {}
+        }
+    }
+
+    /// Marks the root with `data-solving` while a scenario is with the worker or waits for it,
+    /// for tests and style alike.
+    fn show_solving(&self) {
+        let _ = self.root.toggle_attribute_with_force("data-solving", self.solver.busy());
+    }
+
+    /// Records how long the last update took, from the edit to its results drawn (the worker's
+    /// round trip included), on the root's `data-update-ms`, so that the page can be checked
+    /// for responsiveness.
+    fn stamp(&self) {
+        if let Some(edited_at) = self.edited_at {
+            let ms = dom::now() - edited_at;
+            let _ = self.root.set_attribute("data-update-ms", &format!("{ms:.1}"));
+        }
+    }
+
+    /// After the editor was redrawn, gives the focus back to the control that had it.
+    fn refocus(&self, focus: Option<(&'static str, String)>) {
+        let Some((attribute, value)) = focus else { return };
+        let found = dom::all(&self.root, &format!("[{attribute}]"))
+            .into_iter()
+            .find(|e| e.get_attribute(attribute).as_deref() == Some(value.as_str()));
+        if let Some(element) = found {
+            dom::focus(&element);
+        }
+    }
+}

@@ -1,0 +1,120 @@
+//! The messages between a page and its solving worker, as JSON text: the scenario goes out as
+//! the editor holds it, and the report or the error comes back; and what the page says when no
+//! answer comes.
+
+use crate::doc::{self, text};
+use modebench::{Error, ErrorKind, Report};
+use serde::{Deserialize, Serialize};
+
+/// The worker's answer, as JSON text: `{"report": {…}}` or `{"error": {…}}`.
+#[derive(Debug, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+enum Answer {
+    Report(Box<Report>),
+    Error(Error),
+}
+
+/// Solves a scenario given as JSON text and writes the answer as JSON text. This is the
+/// worker's whole job; the page never calls it.
+pub fn solve(scenario: &str) -> String {
+    let answer = match doc::read(scenario).and_then(|d| doc::solve(&d)) {
+        Ok(report) => Answer::Report(Box::new(report)),
+        Err(error) => Answer::Error(error),
+    };
+    serde_json::to_string(&answer).unwrap_or_else(|e| {
+        // A report holds only finite numbers and strings, so this is a defect; say so as an answer.
+        let error = unreadable(&e.to_string());
+        serde_json::to_string(&Answer::Error(error)).unwrap_or_default()
+    })
+}
+
+/// Reads the worker's answer: the report, or the error that the scenario drew.
+///
+/// The text is read into a `serde_json::Value` by the editor's own reader, numbers to the
+/// nearest `f64`, and the answer taken from that value: reading the text directly with
+/// `serde_json::from_str` would add its parser, about 40 KB, to the page's engine.
+pub fn read(answer: &str) -> Result<Report, Error> {
+    let value = text::read_exact(answer).map_err(|e| unreadable(&e))?;
+    match Answer::deserialize(value) {
+        Ok(Answer::Report(report)) => Ok(*report),
+        Ok(Answer::Error(error)) => Err(error),
+        Err(e) => Err(unreadable(&e.to_string())),
+    }
+}
+
+fn unreadable(detail: &str) -> Error {
+    Error::new(
+        ErrorKind::NoConvergence,
+        format!("the solver's answer could not be read ({detail}); please report this with the scenario"),
+    )
+}
+
+/// What the calculator says when a solve ran past its budget and was stopped.
+pub fn too_slow(budget_ms: f64) -> Error {
+    Error::new(
+        ErrorKind::Model,
+        format!(
+            "Solving this model took longer than {}, so it was stopped; the page stays ready for your next \
+             edit. Check the orders of magnitude of what you typed (units and exponents: 2.5e6 N/m, not \
+             2.5e16), springs or masses far out of scale with the beam, and how many modes, segments, \
+             attachments and finite elements the model asks for.",
+            duration(budget_ms)
+        ),
+    )
+}
+
+/// What the calculator says when the solver could not run at all (it failed to load or stopped
+/// on an internal error).
+pub fn failed() -> Error {
+    Error::new(
+        ErrorKind::NoConvergence,
+        "The solver stopped without an answer: it could not load in this browser, or it met an internal \
+         error. Reload the page to try again; if this persists, please report it with the scenario.",
+    )
+}
+
+/// A budget in words: "3 s", "1.5 s", "200 ms".
+fn duration(ms: f64) -> String {
+    if ms >= 1000.0 {
+        format!("{} s", (ms / 100.0).round() / 10.0)
+    } else {
+        format!("{} ms", ms.round())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    const BOOM: &str = include_str!("../../../docs/scenarios/sensor-boom.json");
+
+    /// What the page reads back is what the engine computed, bit for bit.
+    #[test]
+    fn a_report_crosses_unchanged() {
+        let Ok(direct) = modebench::solve_json(BOOM) else { panic!("the example solves") };
+        assert_eq!(read(&solve(BOOM)), Ok(direct));
+    }
+
+    #[test]
+    fn an_input_error_crosses_with_its_path_and_value() {
+        let text = BOOM.replace("\"2.8 kg\"", "\"2.8 kgs\"");
+        let Err(error) = read(&solve(&text)) else { panic!("a misspelt unit is refused") };
+        assert_eq!((error.kind, error.path.as_str()), (ErrorKind::UnknownUnit, "attachments[0].mass"));
+        assert_eq!(error.value.as_deref(), Some("2.8 kgs"));
+        let Err(error) = read(&solve("{\"left\": ")) else { panic!("broken JSON is refused") };
+        assert_eq!(error.kind, ErrorKind::Syntax);
+    }
+
+    #[test]
+    fn an_unreadable_answer_is_an_error_not_a_panic() {
+        let Err(error) = read("{\"report\": 3}") else { panic!("not a report") };
+        assert!(error.message.contains("could not be read"), "{}", error.message);
+    }
+
+    #[test]
+    fn budgets_are_written_plainly() {
+        assert!(too_slow(3000.0).message.contains("longer than 3 s,"));
+        assert!(too_slow(1500.0).message.contains("longer than 1.5 s,"));
+        assert!(too_slow(200.0).message.contains("longer than 200 ms,"));
+    }
+}
