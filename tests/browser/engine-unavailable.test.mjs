@@ -33,7 +33,7 @@ async function notes(page) {
 describe("a calculator without its engine", () => {
   for (const [what, pattern] of [
     ["the engine's WebAssembly", "**/*.wasm"],
-    ["the engine's script", "**/modebench_web.js"],
+    ["the engine's script", "**/modebench_page.js"],
   ]) {
     test(`when ${what} fails to load, it says the live calculator could not start`, async () => {
       const { context } = await isolatedContext(browser);

@@ -2,7 +2,7 @@
 // sizes, asks nothing of any other host, fits the screen, and leaves a screenshot for review.
 
 import assert from "node:assert/strict";
-import { mkdirSync, mkdtempSync, rmSync, statSync, symlinkSync, writeFileSync } from "node:fs";
+import { cpSync, mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
@@ -185,7 +185,8 @@ describe("the site as files", () => {
     const host = mkdtempSync(join(tmpdir(), "modebench-host-"));
     mkdirSync(join(host, "docs"));
     writeFileSync(join(host, "index.html"), "<p>Internal documents</p>");
-    symlinkSync(DIST, join(host, "docs", "modebench"));
+    // A copy, not a link: the server refuses links that lead out of the folder it serves.
+    cpSync(DIST, join(host, "docs", "modebench"), { recursive: true });
     const elsewhere = await startSite(host);
     try {
       const { context, external } = await isolatedContext(browser);
