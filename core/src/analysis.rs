@@ -112,6 +112,8 @@ pub struct Warning {
 pub enum WarningCode {
     /// An exact frequency's own check (Rayleigh's quotient) disagrees by more than 1e-9.
     Accuracy,
+    /// The axial compression is close to the load that buckles the beam.
+    NearBuckling,
     /// The finite-element check differs from the exact value by more than it explains.
     FeDisagrees,
     /// Two attachments lie closer than the engine tells apart.
@@ -135,6 +137,7 @@ impl WarningCode {
     pub fn id(self) -> &'static str {
         match self {
             WarningCode::Accuracy => "accuracy",
+            WarningCode::NearBuckling => "near-buckling",
             WarningCode::FeDisagrees => "fe-disagrees",
             WarningCode::SamePoint => "same-point",
             WarningCode::RigidBody => "rigid-body",
@@ -160,6 +163,9 @@ pub struct Analysis {
     pub fe_elements: usize,
     /// Finite-element unknowns.
     pub fe_dofs: usize,
+    /// The lowest multiple of the axial forces at which the beam buckles (`None` without
+    /// compression).
+    pub critical_load_factor: Option<f64>,
     /// Notes for the user.
     pub warnings: Vec<Warning>,
 }
@@ -205,6 +211,41 @@ fn point_loads(model: &Model, index: usize, shape: &ModeShape, omega: f64) -> (f
     }
 }
 
+/// Compression within this fraction of the critical load gets a warning.
+const NEAR_BUCKLING: f64 = 0.5;
+
+/// The critical load factor of the axial forces: an error when the beam has buckled, and a
+/// warning when the compression is more than half of what buckles it.
+fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
+    let factor = crate::axial::critical_load_factor(model)?;
+    if let Some(mu) = factor {
+        if mu <= 1.0 {
+            return Err(Error::new(
+                ErrorKind::Model,
+                format!(
+                    "the beam has buckled under these loads: the axial forces are {:.3} times the load that buckles \
+                     it, and a buckled beam has no natural frequencies about its straight shape. Reduce the \
+                     compression or add supports",
+                    1.0 / mu
+                ),
+            ));
+        }
+        if 1.0 / mu > NEAR_BUCKLING {
+            warnings.push(Warning {
+                code: WarningCode::NearBuckling,
+                message: format!(
+                    "The axial compression is {:.0} % of the load that buckles the beam (critical load factor \
+                     {mu:.3}). Frequencies fall steeply as it approaches 100 %, and small changes in the load, a \
+                     temperature or an imperfection move them a lot; the applicable code sets the margin against \
+                     buckling.",
+                    100.0 / mu
+                ),
+            });
+        }
+    }
+    Ok(factor)
+}
+
 /// An exact frequency whose estimated relative error exceeds this is flagged.
 pub const TRUSTED: f64 = 1e-9;
 
@@ -232,6 +273,7 @@ fn merged_points(model: &Model) -> Option<Warning> {
 pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     check_modes(options)?;
     let mut warnings = Vec::new();
+    let critical_load_factor = buckling(model, &mut warnings)?;
     let exact_modes = exact::modes(model, options.modes)?;
     let rigid = model.rigid_body_modes();
     let last = exact_modes.last().map_or(1.0, |m| m.omega);
@@ -390,6 +432,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         fundamental,
         fe_elements: fe.elements,
         fe_dofs: fe.dofs,
+        critical_load_factor,
         warnings,
     })
 }

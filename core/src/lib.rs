@@ -27,6 +27,7 @@ mod roots;
 
 pub use model::{Attachment, End, Model, ModelParts, Segment, Theory};
 pub mod analysis;
+pub mod axial;
 pub mod bounds;
 pub mod exact;
 pub mod fe;

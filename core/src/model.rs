@@ -155,6 +155,9 @@ pub struct ModelParts {
 pub struct Model {
     parts: ModelParts,
     length: f64,
+    /// Axial force in each segment, N, tension positive; empty when there is none (see
+    /// `crate::axial`).
+    pub(crate) axial: Vec<f64>,
 }
 
 /// Positions closer than this fraction of the beam length are one point: below what the
@@ -219,7 +222,7 @@ impl Model {
             check_attachment(a, length).map_err(|e| e.at(format!("attachments[{i}]")))?;
         }
         check_rigid_supports(&parts, length)?;
-        Ok(Model { parts, length })
+        Ok(Model { parts, length, axial: Vec::new() })
     }
 
     /// The segments, left to right.
@@ -259,12 +262,12 @@ impl Model {
 
     /// The same model with different attachments (re-validated).
     pub fn with_attachments(&self, attachments: Vec<Attachment>) -> Result<Model> {
-        Model::new(ModelParts { attachments, ..self.parts.clone() })
+        Model::new(ModelParts { attachments, ..self.parts.clone() })?.with_axial_forces(self.axial.clone())
     }
 
     /// The same model under another theory (re-validated).
     pub fn with_theory(&self, theory: Theory) -> Result<Model> {
-        Model::new(ModelParts { theory, ..self.parts.clone() })
+        Model::new(ModelParts { theory, ..self.parts.clone() })?.with_axial_forces(self.axial.clone())
     }
 
     /// The segment index and local coordinate of a position (the left segment at a boundary).

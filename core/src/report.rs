@@ -710,6 +710,7 @@ mod tests {
         use crate::analysis::WarningCode as W;
         let codes = [
             W::Accuracy,
+            W::NearBuckling,
             W::FeDisagrees,
             W::SamePoint,
             W::RigidBody,

@@ -49,7 +49,14 @@ impl System {
         let members = layout
             .spans
             .iter()
-            .map(|s| Member::new(&model.segments()[s.segment], s.length, model.theory()))
+            .map(|s| {
+                Member::new(
+                    &model.segments()[s.segment],
+                    s.length,
+                    model.theory(),
+                    model.axial_force(s.segment),
+                )
+            })
             .collect();
         System { layout, members }
     }
@@ -121,6 +128,17 @@ fn explain(model: &Model, e: crate::error::Error) -> crate::error::Error {
     };
     let message = format!("{}; {hint}", e.message);
     crate::error::Error { message, ..e }
+}
+
+/// How many pieces the sweep cuts each member of `system` into up to `reference` (for the
+/// buckling search, which sweeps at ω = 0 with its own members).
+pub(crate) fn sweep_pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
+    sweep::pieces(system, reference)
+}
+
+/// The station sweep's count and determinant at ω.
+pub(crate) fn sweep_evaluate(system: &System, pieces: &[usize], omega: f64) -> roots::Evaluation {
+    sweep::evaluate(system, pieces, omega)
 }
 
 /// The exact method's spectrum: the station sweep on the natural stations (ends, segment

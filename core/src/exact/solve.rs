@@ -101,7 +101,7 @@ pub(crate) fn respond(system: &System, pieces: &[usize], omega: f64, loads: &[St
         let member = &system.members[i];
         let n = pieces[i];
         let t = member.piece_transfer(n, omega);
-        let piece = piece_of(member, n);
+        let piece = member.piece(n);
         let x0 = s.x;
         let h = (stations[i + 1].x - x0) / n as f64;
         for k in 0..n {
@@ -154,17 +154,6 @@ pub(crate) fn respond(system: &System, pieces: &[usize], omega: f64, loads: &[St
     // One state per cut in order; the last is the right end, which starts no piece.
     let pieces = placed.into_iter().zip(states).map(|((x, m), s)| (x, m, s)).collect();
     Response { pieces, sprung: sprung_out }
-}
-
-/// A member cut into `n` equal pieces, as a member of one piece's length.
-fn piece_of(member: &Member, n: usize) -> Member {
-    let share = 1.0 / n.max(1) as f64;
-    match *member {
-        Member::Euler(e) => Member::Euler(crate::member::Euler { length: e.length * share, ..e }),
-        Member::Timoshenko(t) => {
-            Member::Timoshenko(crate::member::Timoshenko { length: t.length * share, ..t })
-        }
-    }
 }
 
 /// Applies held unknowns to Z·c + z₀ (see [`Restraint`]).

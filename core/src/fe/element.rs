@@ -23,6 +23,8 @@ pub(crate) struct Element {
     pub(crate) mass_per_length: f64,
     /// ρI, kg·m; zero for Euler–Bernoulli.
     pub(crate) rotary_inertia_per_length: f64,
+    /// Axial force, N, tension positive (slender elements only).
+    pub(crate) axial: f64,
 }
 
 /// Gauss–Legendre 4-point rule on [0, 1] (Abramowitz & Stegun, table 25.4), exact to degree 7.
@@ -82,7 +84,8 @@ impl Element {
         Shapes { w, dw, psi, dpsi }
     }
 
-    /// Stiffness: ∫ EI·ψ′ψ′ + κGA·(w′ − ψ)(w′ − ψ) dx.
+    /// Stiffness: ∫ EI·ψ′ψ′ + κGA·(w′ − ψ)(w′ − ψ) dx, plus the consistent geometric stiffness
+    /// of the axial force, ∫ P·w′w′ dx ((P/30L)·[36, 3L, −36, 3L; …] for the cubic element).
     pub(crate) fn stiffness(&self) -> [[f64; 4]; 4] {
         let mut k = [[0.0; 4]; 4];
         let shear = self.kga.is_finite();
@@ -91,7 +94,7 @@ impl Element {
             let gamma: [f64; 4] = std::array::from_fn(|i| n.dw[i] - n.psi[i]);
             for i in 0..4 {
                 for j in 0..4 {
-                    let mut v = self.ei * n.dpsi[i] * n.dpsi[j];
+                    let mut v = self.ei * n.dpsi[i] * n.dpsi[j] + self.axial * n.dw[i] * n.dw[j];
                     if shear {
                         v += self.kga * gamma[i] * gamma[j];
                     }
@@ -141,7 +144,8 @@ impl Element {
                 let g = dot(&gamma);
                 u += self.kga * g * g;
             }
-            let (w, psi) = (dot(&n.w), dot(&n.psi));
+            let (w, psi, slope) = (dot(&n.w), dot(&n.psi), dot(&n.dw));
+            u += self.axial * slope * slope;
             strain += weight * self.length * u;
             kinetic += weight
                 * self.length
@@ -168,7 +172,14 @@ mod tests {
     use super::*;
 
     fn element(kga: f64, rho_i: f64) -> Element {
-        Element { length: 0.8, ei: 2.0e3, kga, mass_per_length: 3.0, rotary_inertia_per_length: rho_i }
+        Element {
+            length: 0.8,
+            ei: 2.0e3,
+            kga,
+            mass_per_length: 3.0,
+            rotary_inertia_per_length: rho_i,
+            axial: 0.0,
+        }
     }
 
     #[test]
@@ -203,6 +214,28 @@ mod tests {
         let expect = [5.0 * l / 2.0, 5.0 * l * l / 12.0, 5.0 * l / 2.0, -5.0 * l * l / 12.0];
         for i in 0..4 {
             assert!((f[i] - expect[i]).abs() < 1e-13);
+        }
+    }
+
+    #[test]
+    fn geometric_stiffness_matches_the_textbook_form() {
+        // (P/30L)·[36, 3L, −36, 3L; 3L, 4L², −3L, −L²; …] (Przemieniecki, Theory of Matrix
+        // Structural Analysis, 1968 — from memory), as the difference the axial force makes.
+        let bare = element(f64::INFINITY, 0.0);
+        let loaded = Element { axial: -150.0, ..bare };
+        let (l, p) = (bare.length, loaded.axial);
+        let g = [
+            [36.0, 3.0 * l, -36.0, 3.0 * l],
+            [3.0 * l, 4.0 * l * l, -3.0 * l, -l * l],
+            [-36.0, -3.0 * l, 36.0, -3.0 * l],
+            [3.0 * l, -l * l, -3.0 * l, 4.0 * l * l],
+        ];
+        let (k0, k1) = (bare.stiffness(), loaded.stiffness());
+        for i in 0..4 {
+            for j in 0..4 {
+                let want = p / (30.0 * l) * g[i][j];
+                assert!((k1[i][j] - k0[i][j] - want).abs() < 1e-9 * want.abs().max(1.0), "{i}{j}");
+            }
         }
     }
 

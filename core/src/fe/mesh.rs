@@ -11,7 +11,7 @@
 //! power of that ratio, and round-off then swamps the check the method is there to give.
 
 use super::element::Element;
-use super::{per_element, wavenumber, Mesh};
+use super::{per_element, wavenumber, Mesh, WAVE_PER_ELEMENT as WAVE};
 use crate::error::{Error, ErrorKind, Result};
 use crate::model::{Attachment, End, Model, Theory, SAME_POINT};
 
@@ -90,8 +90,12 @@ impl FeMesh {
         let theory = model.theory();
         // The element length aimed for at x for modes up to ω.
         let wave = |x: f64, omega: f64| -> f64 {
-            let s = &model.segments()[model.segment_at(x)];
-            let h = per_element(s, theory, omega) / wavenumber(s, theory, omega);
+            let index = model.segment_at(x);
+            let s = &model.segments()[index];
+            // An axial force adds the wavenumber √(|P|/EI): tension's boundary layers at the
+            // supports are that short, and compression's buckling waves that long.
+            let load = (model.axial_force(index).abs() / s.flexural_rigidity).sqrt();
+            let h = (per_element(s, theory, omega) / wavenumber(s, theory, omega)).min(WAVE / load);
             if h.is_finite() {
                 h.min(length)
             } else {
@@ -304,7 +308,8 @@ fn build(model: &Model, xs: Vec<f64>, tolerance: f64) -> Result<FeMesh> {
             if let (Some(lo), Some(hi)) = (present.iter().min(), present.iter().max()) {
                 bandwidth = bandwidth.max(hi - lo);
             }
-            let s = &model.segments()[model.segment_at(0.5 * (a.x + b.x))];
+            let index = model.segment_at(0.5 * (a.x + b.x));
+            let s = &model.segments()[index];
             Placed {
                 element: Element {
                     length: b.x - a.x,
@@ -312,6 +317,7 @@ fn build(model: &Model, xs: Vec<f64>, tolerance: f64) -> Result<FeMesh> {
                     kga: if timoshenko { s.shear_rigidity.unwrap_or(f64::INFINITY) } else { f64::INFINITY },
                     mass_per_length: s.mass_per_length,
                     rotary_inertia_per_length: if timoshenko { s.rotary_inertia_per_length } else { 0.0 },
+                    axial: model.axial_force(index),
                 },
                 x0: a.x,
                 dofs,

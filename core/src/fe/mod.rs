@@ -53,7 +53,7 @@ pub const MAX_ELEMENTS: usize = 2000;
 
 /// Bending wavenumber × element length allowed by [`Mesh::UpTo`]. The Hermite element's
 /// frequency error is about (βh)⁴/1440, so 0.5 gives about 4e-5.
-const WAVE_PER_ELEMENT: f64 = 0.5;
+pub(crate) const WAVE_PER_ELEMENT: f64 = 0.5;
 
 /// Assembled stiffness and mass on a mesh.
 #[derive(Clone, Debug)]

@@ -1,11 +1,13 @@
 //! Uniform beam members: their exact dynamic stiffness, clamped–clamped count and interior shape.
 
+mod column;
 mod euler;
 #[cfg(test)]
 pub(crate) mod reference;
 mod timoshenko;
 pub(crate) mod transfer;
 
+pub(crate) use column::Column;
 pub(crate) use euler::Euler;
 pub(crate) use timoshenko::Timoshenko;
 
@@ -16,11 +18,21 @@ use crate::model::{Segment, Theory};
 pub(crate) enum Member {
     Euler(Euler),
     Timoshenko(Timoshenko),
+    Column(Column),
 }
 
 impl Member {
-    /// The member of `length` cut from `segment` under `theory`.
-    pub(crate) fn new(segment: &Segment, length: f64, theory: Theory) -> Member {
+    /// The member of `length` cut from `segment` under `theory`, carrying the axial force `p`
+    /// (N, tension positive; only with the slender theory, which the model checks).
+    pub(crate) fn new(segment: &Segment, length: f64, theory: Theory, p: f64) -> Member {
+        if p != 0.0 {
+            return Member::Column(Column {
+                length,
+                ei: segment.flexural_rigidity,
+                m: segment.mass_per_length,
+                p,
+            });
+        }
         match theory {
             Theory::Timoshenko => match segment.shear_rigidity {
                 Some(kga) => Member::Timoshenko(Timoshenko {
@@ -45,6 +57,7 @@ impl Member {
         match self {
             Member::Euler(e) => e.length,
             Member::Timoshenko(t) => t.length,
+            Member::Column(c) => c.length,
         }
     }
 
@@ -53,6 +66,7 @@ impl Member {
         match self {
             Member::Euler(e) => e.ei,
             Member::Timoshenko(t) => t.ei,
+            Member::Column(c) => c.ei,
         }
     }
 
@@ -63,7 +77,7 @@ impl Member {
             // The slender member carries (w, θ, F_θ/EI, F_w/EI) with F the nodal force the
             // member takes at its left end, which is −(Q, M) there.
             Member::Euler(e) => [s[0], s[1], -s[3] / e.ei, -s[2] / e.ei],
-            Member::Timoshenko(_) => [s[0], s[1], s[3], s[2]],
+            Member::Timoshenko(_) | Member::Column(_) => [s[0], s[1], s[3], s[2]],
         }
     }
 
@@ -72,11 +86,12 @@ impl Member {
         match self {
             Member::Euler(e) => e.propagate(omega, state, x),
             Member::Timoshenko(t) => t.propagate(omega, state, x),
+            Member::Column(c) => c.propagate(omega, state, x),
         }
     }
 
-    /// Bending strain energy density and shear strain energy density (both per unit length,
-    /// times two: M²/EI and Q²/κGA) at `x` from the left end, given the left-end state.
+    /// Twice the strain energy per unit length at `x` from the left end, given the left-end
+    /// state: M²/EI in bending, Q²/κGA in shear, P·θ² from an axial force.
     pub(crate) fn strain_density(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
         match self {
             Member::Euler(e) => {
@@ -87,6 +102,7 @@ impl Member {
                 let (m, q) = t.forces(omega, state, x);
                 m * m / t.ei + q * q / t.kga
             }
+            Member::Column(c) => c.strain_density(omega, state, x),
         }
     }
 
@@ -98,6 +114,10 @@ impl Member {
     pub(crate) fn sweep_pieces(&self, omega_max: f64) -> Option<usize> {
         match self {
             Member::Euler(e) => Some(count((e.lambda(omega_max) / SWEEP_LAMBDA).ceil())),
+            // Also |P|·h²/EI ≤ 1 per piece (see `column`).
+            Member::Column(c) => {
+                Some(count((c.lambda(omega_max) / SWEEP_LAMBDA).max(c.load_parameter()).ceil()))
+            }
             Member::Timoshenko(t) => {
                 let n = t.pieces(omega_max);
                 (n <= timoshenko::MAX_PIECES).then_some(n)
@@ -105,13 +125,28 @@ impl Member {
         }
     }
 
-    /// The transfer matrix at ω of one of `pieces` equal pieces of this member.
-    pub(crate) fn piece_transfer(&self, pieces: usize, omega: f64) -> transfer::Transfer {
+    /// One of `pieces` equal pieces of this member, as a member of its own.
+    pub(crate) fn piece(&self, pieces: usize) -> Member {
         let share = 1.0 / pieces.max(1) as f64;
         match *self {
-            Member::Euler(e) => Euler { length: e.length * share, ..e }.transfer(omega),
-            Member::Timoshenko(t) => Timoshenko { length: t.length * share, ..t }.transfer(omega),
+            Member::Euler(e) => Member::Euler(Euler { length: e.length * share, ..e }),
+            Member::Timoshenko(t) => Member::Timoshenko(Timoshenko { length: t.length * share, ..t }),
+            Member::Column(c) => Member::Column(Column { length: c.length * share, ..c }),
         }
+    }
+
+    /// The transfer matrix of the member at ω.
+    pub(crate) fn transfer(&self, omega: f64) -> transfer::Transfer {
+        match self {
+            Member::Euler(e) => e.transfer(omega),
+            Member::Timoshenko(t) => t.transfer(omega),
+            Member::Column(c) => c.transfer(omega),
+        }
+    }
+
+    /// The transfer matrix at ω of one of `pieces` equal pieces of this member.
+    pub(crate) fn piece_transfer(&self, pieces: usize, omega: f64) -> transfer::Transfer {
+        self.piece(pieces).transfer(omega)
     }
 }
 

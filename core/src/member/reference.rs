@@ -247,11 +247,14 @@ impl Timoshenko {
 impl Member {
     /// Dynamic stiffness of [w₁, θ₁, w₂, θ₂] at angular frequency ω, and the number of the
     /// member's clamped–clamped natural frequencies strictly below ω (its share of J₀); `None`
-    /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`).
+    /// when a shear-flexible member is beyond what can be computed (see `MAX_PIECES`), and for
+    /// a beam-column, which has no closed form kept here (its checks are against the classical
+    /// beam-column results instead).
     pub(crate) fn stiffness_and_count(&self, omega: f64) -> Option<Evaluated> {
         match self {
             Member::Euler(e) => Some((e.stiffness(omega), e.clamped_count(omega))),
             Member::Timoshenko(t) => t.stiffness_and_count(omega),
+            Member::Column(_) => None,
         }
     }
 }

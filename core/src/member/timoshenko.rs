@@ -86,17 +86,7 @@ impl Timoshenko {
     /// Accurate for a member no longer than one piece at ω (see [`Timoshenko::pieces`]).
     pub(crate) fn transfer(&self, omega: f64) -> Transfer {
         let h = self.length;
-        let t = exp_scaled(&self.system(h, omega));
-        // The scaled state is y = (w, h·ψ, h²·M/EI, h³·Q/EI); the physical one s = (w, ψ, Q, M),
-        // so y = P·s with y₀ = s₀, y₁ = h·s₁, y₂ = (h²/EI)·s₃, y₃ = (h³/EI)·s₂, and T = P⁻¹·T̂·P.
-        let p = [(0, 1.0), (1, h), (3, h * h / self.ei), (2, h * h * h / self.ei)];
-        let mut full = [[0.0; 4]; 4];
-        for (yi, &(si, scale_i)) in p.iter().enumerate() {
-            for (yj, &(sj, scale_j)) in p.iter().enumerate() {
-                full[si][sj] = t[(yi, yj)] * scale_j / scale_i;
-            }
-        }
-        Transfer::from_full(&full)
+        physical(&exp_scaled(&self.system(h, omega)), h, self.ei)
     }
 
     /// The bending moment and shear force at `x` from the left-end state (w, ψ, M, Q).
@@ -119,6 +109,20 @@ impl Timoshenko {
     }
 }
 
+/// A transfer matrix over a piece of length h in the scaled state y = (w, h·ψ, h²·M/EI,
+/// h³·Q/EI) written for the physical state s = (w, ψ, Q, M): y = P·s with y₀ = s₀, y₁ = h·s₁,
+/// y₂ = (h²/EI)·s₃, y₃ = (h³/EI)·s₂, so T = P⁻¹·T̂·P.
+pub(super) fn physical(t: &Matrix4<f64>, h: f64, ei: f64) -> Transfer {
+    let p = [(0, 1.0), (1, h), (3, h * h / ei), (2, h * h * h / ei)];
+    let mut full = [[0.0; 4]; 4];
+    for (yi, &(si, scale_i)) in p.iter().enumerate() {
+        for (yj, &(sj, scale_j)) in p.iter().enumerate() {
+            full[si][sj] = t[(yi, yj)] * scale_j / scale_i;
+        }
+    }
+    Transfer::from_full(&full)
+}
+
 /// exp(A) by scaling and squaring: exp(A/2^s) from its Taylor series, squared s times, with
 /// ‖A/2^s‖ ≤ ½ so that 18 terms reach rounding. Cheaper than carrying four columns through
 /// the series, and its cost grows only with log ‖A‖.
@@ -139,7 +143,7 @@ pub(super) fn exp_scaled(a: &Matrix4<f64>) -> Matrix4<f64> {
 }
 
 /// exp(A·t)·y.
-fn propagate(a: &Matrix4<f64>, y: Vector4<f64>, t: f64) -> Vector4<f64> {
+pub(super) fn propagate(a: &Matrix4<f64>, y: Vector4<f64>, t: f64) -> Vector4<f64> {
     exp_scaled(&(a * t)) * y
 }
 
