@@ -35,10 +35,10 @@ pub(crate) trait Spectrum {
     /// An evaluator valid for every trial ω in [0, `reference`]: the count is exact there, and
     /// the determinant is one continuous function of ω (one discretisation for all trials).
     fn evaluator(&self, reference: f64) -> Result<Evaluator<'_>>;
-    /// Relative tolerance to polish roots to. The default is near machine precision; a system
-    /// whose determinant is noisier than that (a fine finite-element mesh) sets a looser one, as
-    /// polishing inside the noise only costs evaluations.
-    fn tolerance(&self) -> f64 {
+    /// Relative tolerance to polish a root near ω to. The default is near machine precision; a
+    /// system whose determinant is noisier than that (a fine finite-element mesh) sets a looser
+    /// one, as polishing inside the noise only costs evaluations.
+    fn tolerance(&self, _omega: f64) -> f64 {
         POLISH
     }
 }
@@ -129,7 +129,7 @@ pub(crate) fn find(
             let (lo, hi) = search.bracket(k);
             let (a, b) = (search.samples[lo], search.samples[hi]);
             if a.below + 1 == k && b.below == k && (a.omega > 0.0 || skip == 0) {
-                let omega = search.polish(&evaluator, lo, hi, system.tolerance())?;
+                let omega = search.polish(&evaluator, lo, hi, system.tolerance(b.omega))?;
                 roots.push(Root { omega, multiplicity: 1 });
                 k += 1;
                 break;

@@ -61,6 +61,8 @@ pub(crate) struct Discrete {
     pub(crate) mesh: FeMesh,
     pub(crate) stiffness: SymBand,
     pub(crate) mass: SymBand,
+    /// An estimate of the largest eigenvalue of K·x = λ·M·x (see `largest_eigenvalue`).
+    largest: f64,
 }
 
 /// Frequencies from the finite-element method.
@@ -141,7 +143,7 @@ pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]
     let hints: Vec<f64> = exact.iter().filter(|w| **w > 0.0).flat_map(|w| [*w, w * 1.002]).collect();
     let (roots, _) = roots::find(rigid, elastic, guess, &hints, &discrete)?;
     let omegas: Vec<f64> = roots.iter().map(|r| r.omega).collect();
-    let largest = discrete.largest_eigenvalue();
+    let largest = discrete.largest;
     let interior = discrete
         .mesh
         .points
@@ -260,7 +262,9 @@ impl Discrete {
                 }
             }
         }
-        Ok(Discrete { mesh, stiffness, mass })
+        let mut d = Discrete { mesh, stiffness, mass, largest: 0.0 };
+        d.largest = d.largest_eigenvalue();
+        Ok(d)
     }
 
     /// An estimate of the largest eigenvalue of K·x = λ·M·x: four times the largest ratio of
@@ -334,9 +338,11 @@ impl Spectrum for Discrete {
         Ok(Box::new(move |omega| self.stiffness.minus_scaled(omega * omega, &self.mass).into_evaluation()))
     }
 
-    /// The finite-element frequencies carry round-off of 1e-10 and more on any but the smallest
-    /// meshes (the stiffness matrix's condition grows like n⁴); polishing further only costs time.
-    fn tolerance(&self) -> f64 {
-        1e-11
+    /// The frequencies carry round-off of up to ε times the ratio of the largest eigenvalue the
+    /// mesh can carry to the mode's (see [`FeSolution::round_off`]); polishing much further
+    /// than that bisects noise and only costs evaluations. The estimate is a bound, often a
+    /// hundred times the round-off that shows, so the polish goes that much further.
+    fn tolerance(&self, omega: f64) -> f64 {
+        (0.01 * ROUND_OFF * f64::EPSILON * self.largest / (omega * omega)).clamp(1e-12, 1e-9)
     }
 }

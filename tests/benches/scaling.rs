@@ -1,0 +1,126 @@
+//! The engine at scale, printed as figures for docs/performance.md (a bench binary, not a timed
+//! test): the exact solve of the budget beam, how the exact solve grows with the number of
+//! attachments, and the banded finite-element solver against scipy's sparse eigensolver (eigsh,
+//! shift-invert) on the same matrices in the same run.
+//!
+//! `cargo bench -p modebench-tests --bench scaling`
+
+use modebench::fe::{self, Mesh};
+use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use serde_json::json;
+use std::hint::black_box;
+use std::time::Instant;
+
+/// Median seconds of `runs` calls.
+fn time(runs: usize, mut f: impl FnMut()) -> f64 {
+    f();
+    let mut t: Vec<f64> = (0..runs)
+        .map(|_| {
+            let start = Instant::now();
+            f();
+            start.elapsed().as_secs_f64()
+        })
+        .collect();
+    t.sort_by(f64::total_cmp);
+    t[runs / 2]
+}
+
+fn beam(n: usize) -> Model {
+    let masses = (0..n)
+        .map(|i| Attachment::Mass {
+            position: (i as f64 + 0.5) / n as f64,
+            mass: 1.0 / n as f64,
+            rotary_inertia: 0.0,
+        })
+        .collect();
+    Model::new(ModelParts {
+        segments: vec![Segment {
+            length: 1.0,
+            flexural_rigidity: 1.0,
+            mass_per_length: 1.0,
+            shear_rigidity: None,
+            rotary_inertia_per_length: 0.0,
+        }],
+        left: End::Pinned,
+        right: End::Pinned,
+        attachments: masses,
+        theory: Theory::EulerBernoulli,
+    })
+    .expect("valid")
+}
+
+fn main() {
+    // The same budget beam as the engine bench and the core's work test.
+    let seg = |length, ei, m| Segment {
+        length,
+        flexural_rigidity: ei,
+        mass_per_length: m,
+        shear_rigidity: None,
+        rotary_inertia_per_length: 0.0,
+    };
+    let budget = Model::new(ModelParts {
+        segments: vec![seg(1.5, 4.0e6, 40.0), seg(2.0, 2.5e6, 32.0), seg(1.5, 4.0e6, 40.0)],
+        left: End::Pinned,
+        right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
+        attachments: vec![
+            Attachment::Mass { position: 0.4, mass: 12.0, rotary_inertia: 0.3 },
+            Attachment::Spring { position: 0.9, stiffness: 2.0e6 },
+            Attachment::Mass { position: 1.3, mass: 30.0, rotary_inertia: 0.0 },
+            Attachment::SprungMass { position: 1.8, mass: 45.0, stiffness: 8.0e5 },
+            Attachment::RotationalSpring { position: 2.2, stiffness: 5.0e4 },
+            Attachment::Support { position: 2.6 },
+            Attachment::Mass { position: 3.1, mass: 8.0, rotary_inertia: 0.1 },
+            Attachment::Spring { position: 3.5, stiffness: 1.0e6 },
+            Attachment::Mass { position: 4.0, mass: 20.0, rotary_inertia: 0.0 },
+            Attachment::SprungMass { position: 4.6, mass: 15.0, stiffness: 3.0e5 },
+        ],
+        theory: Theory::EulerBernoulli,
+    })
+    .expect("valid");
+    let t = time(301, || {
+        black_box(exact::frequencies(black_box(&budget), 10).expect("solves"));
+    });
+    println!("exact, 10 modes, budget beam: {:.1} µs (median of 301)", t * 1e6);
+
+    let mut points = Vec::new();
+    for n in [10, 100, 1000] {
+        let model = beam(n);
+        let t = time(31, || {
+            black_box(exact::frequencies(black_box(&model), 10).expect("solves"));
+        });
+        println!("exact, 10 modes, pinned beam with {n} masses: {:.3} ms", t * 1e3);
+        points.push((n as f64, t));
+    }
+    let exponent = ((points[2].1 / points[1].1).ln()) / ((points[2].0 / points[1].0).ln());
+    println!("growth from 100 to 1000 attachments: exponent {exponent:.2}");
+
+    for elements in [200, 1000] {
+        let t = time(31, || {
+            black_box(fe::frequencies(black_box(&budget), 10, Mesh::Total(elements)).expect("solves"));
+        });
+        let (k, m) = fe::matrices(&budget, Mesh::Total(elements)).expect("assembles");
+        let n = k.nrows();
+        let triplets = |a: &nalgebra::DMatrix<f64>| -> Vec<serde_json::Value> {
+            let mut out = Vec::new();
+            for i in 0..n {
+                for j in 0..n {
+                    if a[(i, j)] != 0.0 {
+                        out.push(json!([i, j, a[(i, j)]]));
+                    }
+                }
+            }
+            out
+        };
+        let input = json!({ "k": triplets(&k), "m": triplets(&m), "n": n, "count": 10, "runs": 31 });
+        let scipy =
+            modebench_tests::reference::run("eigsh_timing.py", &["numpy", "scipy"], &input.to_string());
+        let line = match scipy.and_then(|s| serde_json::from_str::<serde_json::Value>(&s).ok()) {
+            Some(v) => {
+                let s = v["seconds"].as_f64().unwrap_or(f64::NAN);
+                format!("scipy eigsh {:.3} ms, ratio {:.2}", s * 1e3, t / s)
+            }
+            None => "scipy not available".to_string(),
+        };
+        println!("FE, {elements} elements ({n} unknowns), 10 modes: {:.3} ms; {line}", t * 1e3);
+    }
+}
