@@ -29,6 +29,7 @@ pub use model::{Attachment, End, Model, ModelParts, Segment, Theory};
 pub mod analysis;
 pub mod axial;
 pub mod bounds;
+pub mod design;
 pub mod exact;
 pub mod fe;
 

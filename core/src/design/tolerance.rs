@@ -1,0 +1,112 @@
+//! Tolerance bands: the range each natural frequency may take when inputs lie anywhere within
+//! their tolerances.
+//!
+//! The first-order band adds up each input's effect, |∂ln f/∂ln p|·(Δp/p). Frequencies are not
+//! linear in their inputs, so each mode is also solved at its two worst corners (every input at
+//! the end of its range that moves that mode up, then every one at the end that moves it down),
+//! and the band spans both estimates. An input may carry a relative tolerance (±5 %) or a range of
+//! its own (an end's rotational stiffness between pinned and clamped: 0 to rigid).
+
+use super::sensitivity::sensitivities;
+use super::Frequencies;
+use crate::error::Result;
+use serde::{Deserialize, Serialize};
+
+/// How far an input may stray.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(tag = "kind", rename_all = "kebab-case")]
+pub enum Spread {
+    /// ± this fraction of the value.
+    Relative {
+        /// The fraction, e.g. 0.05 for ±5 %.
+        fraction: f64,
+    },
+    /// Anywhere between two values (either may be infinite, as for a rigid spring).
+    Between {
+        /// One end.
+        low: f64,
+        /// The other end.
+        high: f64,
+    },
+}
+
+/// A mode's band, Hz.
+#[derive(Clone, Copy, Debug, PartialEq, Serialize, Deserialize)]
+pub struct Band {
+    /// The frequency at the nominal inputs.
+    pub nominal: f64,
+    /// Lowest and highest frequency the inputs can give.
+    pub low: f64,
+    /// See `low`.
+    pub high: f64,
+}
+
+/// The band of every mode for inputs `p0` with the spreads given (`None`: exact).
+pub fn bands(frequencies: &Frequencies<'_>, p0: &[f64], spreads: &[Option<Spread>]) -> Result<Vec<Band>> {
+    let f0 = frequencies(p0)?;
+    let s = sensitivities(frequencies, p0)?;
+    // The two ends of each input's range, and for each mode which end raises it.
+    let ends: Vec<Option<(f64, f64)>> = p0
+        .iter()
+        .zip(spreads)
+        .map(|(p, spread)| match *spread {
+            Some(Spread::Relative { fraction }) => Some((p * (1.0 - fraction), p * (1.0 + fraction))),
+            Some(Spread::Between { low, high }) => Some((low.min(high), low.max(high))),
+            None => None,
+        })
+        .collect();
+    // For a range (which may be infinite) the direction comes from solving at its ends.
+    let mut raises_at_high = vec![vec![true; p0.len()]; f0.len()];
+    for (j, end) in ends.iter().enumerate() {
+        let Some((low, high)) = *end else { continue };
+        let (at_low, at_high) = if matches!(spreads[j], Some(Spread::Between { .. })) {
+            let mut p = p0.to_vec();
+            p[j] = low;
+            let fl = frequencies(&p)?;
+            p[j] = high;
+            (fl, frequencies(&p)?)
+        } else {
+            (Vec::new(), Vec::new())
+        };
+        for k in 0..f0.len() {
+            raises_at_high[k][j] = match (at_low.get(k), at_high.get(k)) {
+                (Some(a), Some(b)) => b >= a,
+                _ => s[k][j].is_none_or(|v| v >= 0.0) == (high >= low),
+            };
+        }
+    }
+    let mut out = Vec::with_capacity(f0.len());
+    for (k, &nominal) in f0.iter().enumerate() {
+        // First order: Σ |S|·Δp/p over the relative spreads.
+        let linear: f64 = p0
+            .iter()
+            .zip(spreads)
+            .enumerate()
+            .filter_map(|(j, (_, spread))| match spread {
+                Some(Spread::Relative { fraction }) => s[k][j].map(|v| v.abs() * fraction),
+                _ => None,
+            })
+            .sum();
+        let corner = |up: bool| -> Vec<f64> {
+            p0.iter()
+                .enumerate()
+                .map(|(j, p)| match ends[j] {
+                    Some((low, high)) => {
+                        if raises_at_high[k][j] == up {
+                            high
+                        } else {
+                            low
+                        }
+                    }
+                    None => *p,
+                })
+                .collect()
+        };
+        let top = frequencies(&corner(true))?.get(k).copied().unwrap_or(nominal);
+        let bottom = frequencies(&corner(false))?.get(k).copied().unwrap_or(nominal);
+        let low = nominal.min(top).min(bottom).min(nominal * (1.0 - linear));
+        let high = nominal.max(top).max(bottom).max(nominal * (1.0 + linear));
+        out.push(Band { nominal, low, high });
+    }
+    Ok(out)
+}
