@@ -22,6 +22,37 @@ pub const DEFAULT_WATER_DENSITY: f64 = 1025.0;
 /// Added-mass coefficient C_a assumed for a submerged circular cylinder.
 pub const DEFAULT_ADDED_MASS_COEFFICIENT: f64 = 1.0;
 
+/// A fluid that may fill a pipe's bore, with its density and where that comes from.
+#[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
+pub struct Contents {
+    /// Identifier used in scenarios, as "water".
+    pub id: &'static str,
+    /// Name for display.
+    pub name: &'static str,
+    /// Density, kg/m³.
+    pub density: f64,
+    /// Where the value comes from.
+    pub source: &'static str,
+}
+
+static CONTENTS: [Contents; 5] = [
+    Contents { id: "water", name: "Fresh water, 20 °C", density: 998.2, source: "Density of pure water at 20 °C, 998.2 kg/m³ (CRC Handbook of Chemistry and Physics — from memory)." },
+    Contents { id: "seawater", name: "Seawater", density: 1025.0, source: "Typical seawater, 1025 kg/m³, the common offshore design value (from memory)." },
+    Contents { id: "light-oil", name: "Light oil (diesel-like)", density: 850.0, source: "Diesel and light fuel oils, 820–860 kg/m³ at 15 °C; 850 chosen (common handbook range — from memory)." },
+    Contents { id: "glycol-mix", name: "Water–glycol 50 %", density: 1070.0, source: "50 % ethylene glycol in water at 20 °C, about 1070 kg/m³ (coolant suppliers' tables — from memory)." },
+    Contents { id: "air", name: "Air, 20 °C, 1 atm", density: 1.204, source: "Dry air at 20 °C and 101.325 kPa, 1.204 kg/m³ (ideal gas with M = 28.96 g/mol — from memory)." },
+];
+
+/// Every contents preset.
+pub fn contents_presets() -> &'static [Contents] {
+    &CONTENTS
+}
+
+/// The contents preset with this identifier.
+pub fn contents_preset(id: &str) -> Option<&'static Contents> {
+    CONTENTS.iter().find(|c| c.id == id)
+}
+
 /// Non-structural mass as written in a scenario; every part is optional.
 #[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
 pub struct ExtraMassInput {

@@ -28,6 +28,9 @@ pub struct Material {
     /// Shear modulus G, Pa, where it departs from the isotropic E/(2(1+ν)) (fibre composites,
     /// wood); `None` for isotropic metals.
     pub shear_modulus_override: Option<f64>,
+    /// Coefficient of thermal expansion along the member near room temperature, 1/K: what turns
+    /// a temperature change of a member held at both ends into an axial force, −E·A·α·ΔT.
+    pub thermal_expansion: f64,
     /// Where the values come from.
     pub source: &'static str,
 }
@@ -42,12 +45,19 @@ impl Material {
 const fn metal(
     id: &'static str,
     name: &'static str,
-    youngs_modulus: f64,
-    density: f64,
-    poisson: f64,
+    (youngs_modulus, density, poisson, thermal_expansion): (f64, f64, f64, f64),
     source: &'static str,
 ) -> Material {
-    Material { id, name, youngs_modulus, density, poisson, shear_modulus_override: None, source }
+    Material {
+        id,
+        name,
+        youngs_modulus,
+        density,
+        poisson,
+        shear_modulus_override: None,
+        thermal_expansion,
+        source,
+    }
 }
 
 static PRESETS: [Material; 7] = [
@@ -55,48 +65,41 @@ static PRESETS: [Material; 7] = [
     metal(
         "steel",
         "Carbon / structural steel",
-        200e9,
-        7850.0,
-        0.30,
-        "Common handbook values for carbon and structural steel: E = 200 GPa, 7850 kg/m³, ν = 0.30.",
+        (200e9, 7850.0, 0.30, 12e-6),
+        "Common handbook values for carbon and structural steel: E = 200 GPa, 7850 kg/m³, ν = 0.30, \
+         α = 12e-6 /K (about 11.7e-6 near room temperature; from memory).",
     ),
     // Supplier data sheets for annealed 304 (ν = 0.29 as those sheets commonly give it — from memory).
     metal(
         "stainless-304",
         "Stainless steel 304",
-        193e9,
-        8000.0,
-        0.29,
-        "Supplier data sheets for annealed 304: E = 193 GPa, 8000 kg/m³; ν = 0.29 (from memory).",
+        (193e9, 8000.0, 0.29, 17.3e-6),
+        "Supplier data sheets for annealed 304: E = 193 GPa, 8000 kg/m³; ν = 0.29, α = 17.3e-6 /K \
+         from 0 to 100 °C (from memory).",
     ),
     // Supplier data sheets for 6061-T6 (ν = 0.33 — from memory).
     metal(
         "aluminium-6061-t6",
         "Aluminium 6061-T6",
-        68.9e9,
-        2700.0,
-        0.33,
-        "Supplier data sheets for 6061-T6: E = 68.9 GPa (10.0 Msi), 2700 kg/m³; ν = 0.33 (from memory).",
+        (68.9e9, 2700.0, 0.33, 23.6e-6),
+        "Supplier data sheets for 6061-T6: E = 68.9 GPa (10.0 Msi), 2700 kg/m³; ν = 0.33, α = 23.6e-6 /K \
+         (from memory).",
     ),
     // Data sheets give E = 110–114 GPa; 113.8 GPa is the figure most quote for annealed bar (from
     // memory), and ν = 0.342 likewise.
     metal(
         "titanium-ti6al4v",
         "Titanium Ti-6Al-4V",
-        113.8e9,
-        4430.0,
-        0.342,
+        (113.8e9, 4430.0, 0.342, 8.6e-6),
         "Supplier data sheets give E = 110–114 GPa; 113.8 GPa chosen as the value most quote for \
-         annealed bar (from memory); 4430 kg/m³; ν = 0.342 (from memory).",
+         annealed bar (from memory); 4430 kg/m³; ν = 0.342, α = 8.6e-6 /K (from memory).",
     ),
     // Supplier data sheets for free-cutting brass C36000 (ν = 0.31 — from memory).
     metal(
         "brass-c36000",
         "Free-cutting brass C36000",
-        97e9,
-        8490.0,
-        0.31,
-        "Supplier data sheets for C36000: E = 97 GPa, 8490 kg/m³; ν = 0.31 (from memory).",
+        (97e9, 8490.0, 0.31, 20.5e-6),
+        "Supplier data sheets for C36000: E = 97 GPa, 8490 kg/m³; ν = 0.31, α = 20.5e-6 /K (from memory).",
     ),
     // EN 13706 grades span E = 17–40 GPa and 1600–2100 kg/m³ (from memory). The E23 grade's
     // minimum longitudinal modulus of 23 GPa is chosen as a conservative common profile, with a
@@ -109,9 +112,11 @@ static PRESETS: [Material; 7] = [
         density: 1850.0,
         poisson: 0.23,
         shear_modulus_override: Some(3e9),
+        thermal_expansion: 8e-6,
         source: "EN 13706 grades span E = 17–40 GPa, 1600–2100 kg/m³ (from memory): E = 23 GPa (grade \
                  E23 minimum) and 1850 kg/m³ chosen; ν = 0.23 and in-plane G = 3 GPa from \
-                 manufacturers' design manuals (from memory).",
+                 manufacturers' design manuals; α = 8e-6 /K along the fibres, within the 6–10e-6 \
+                 they quote (from memory).",
     },
     // USDA Forest Products Laboratory, Wood Handbook: Douglas-fir at 12 % moisture content,
     // E ≈ 12 GPa measured in static bending (so it includes shear deflection; about 10 % higher in
@@ -125,10 +130,12 @@ static PRESETS: [Material; 7] = [
         density: 500.0,
         poisson: 0.29,
         shear_modulus_override: Some(0.064 * 12e9),
+        thermal_expansion: 4e-6,
         source: "USDA Wood Handbook, Douglas-fir at 12 % moisture: E = 12 GPa from static bending \
                  (includes shear deflection; about 10 % higher in pure bending; varieties span roughly \
                  10–13 GPa), 500 kg/m³; \
-                 ν_LR = 0.29 and G_LR = 0.064·E (from memory).",
+                 ν_LR = 0.29 and G_LR = 0.064·E; α = 4e-6 /K along the grain, within the \
+                 handbook's 3–5e-6 (from memory).",
     },
 ];
 

@@ -4,6 +4,7 @@
 //! resulting [`SectionProps`] in SI. Bending is about the axis perpendicular to `depth`, that is,
 //! `depth` is measured in the plane of vibration.
 
+pub mod pipe;
 mod shear;
 #[cfg(test)]
 mod tests;

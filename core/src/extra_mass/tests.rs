@@ -99,3 +99,15 @@ fn impossible_extra_mass_is_rejected_with_the_field_named() {
         "unknown fields are rejected"
     );
 }
+
+#[test]
+fn contents_presets_agree_with_the_gas_law_and_each_other() {
+    // Air from the ideal gas law: ρ = p·M/(R·T) = 101325 × 0.028964/(8.314462 × 293.15) = 1.2041
+    // kg/m³ (CODATA R, standard atmosphere — from memory); liquids ordered as a fact of chemistry:
+    // oil < fresh water < seawater < the glycol mix.
+    let air = contents_preset("air").unwrap().density;
+    assert!((air - 101_325.0 * 0.028_964 / (8.314_462 * 293.15)).abs() < 1e-3);
+    let d = |id| contents_preset(id).unwrap().density;
+    assert!(d("light-oil") < d("water") && d("water") < d("seawater") && d("seawater") < d("glycol-mix"));
+    assert!(contents_presets().iter().all(|c| !c.source.is_empty() && c.density > 0.0));
+}
