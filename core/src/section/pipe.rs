@@ -27,7 +27,9 @@ const fn size(nominal: &'static str, outside: f64, walls: [Option<f64>; 7]) -> S
 
 const N: Option<f64> = None;
 
-/// ASME B36.10M (from memory): schedules 10, 40, 80, 160, STD, XS, XXS.
+/// ASME B36.10M (from memory): schedules 10, 40, 80, 160, STD, XS, XXS. (0.318 in is a wall,
+/// not an approximation of 1/π.)
+#[allow(clippy::approx_constant)]
 static SIZES: [Size; 20] = [
     size(
         "1/2",
