@@ -17,15 +17,12 @@ pub(crate) struct SymBand {
 
 /// Calls `$kernel::<B>()` with the half-bandwidth as a constant for the narrow bands of beams
 /// (1 to 6), so that the kernels' short inner loops unroll; any other width runs the same kernel
-/// with `B = 0`, which reads the width at run time. The WebAssembly build keeps the general
-/// kernel alone: there the size of what every page downloads is budgeted, and the operations
-/// (so the results, to the last bit) are the same either way.
+/// with `B = 0`, which reads the width at run time. The operations (so the results, to the last
+/// bit) are the same either way. Only the solver's engine carries the kernels in the browser:
+/// the page's engine never factors a matrix, and the linker leaves them out of it.
 macro_rules! by_width {
     ($band:expr, $kernel:ident) => {{
-        #[cfg(target_arch = "wasm32")]
-        let result = $band.$kernel::<0>();
-        #[cfg(not(target_arch = "wasm32"))]
-        let result = match $band.b {
+        match $band.b {
             1 => $band.$kernel::<1>(),
             2 => $band.$kernel::<2>(),
             3 => $band.$kernel::<3>(),
@@ -33,8 +30,7 @@ macro_rules! by_width {
             5 => $band.$kernel::<5>(),
             6 => $band.$kernel::<6>(),
             _ => $band.$kernel::<0>(),
-        };
-        result
+        }
     }};
 }
 

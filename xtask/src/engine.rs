@@ -17,18 +17,25 @@ use crate::run;
 /// The WebAssembly target.
 pub(crate) const TARGET: &str = "wasm32-unknown-unknown";
 
-/// One engine: the crate feature it is built with and the name of its files.
+/// One engine: the crate feature it is built with, the name of its files, and what it is
+/// optimised for.
 pub(crate) struct Engine {
     /// The `modebench-web` feature that decides what it exports.
     pub(crate) feature: &'static str,
     /// wasm-bindgen's `--out-name`: `NAME.js` and `NAME_bg.wasm`.
     pub(crate) name: &'static str,
+    /// The cargo profile (see the workspace's Cargo.toml).
+    pub(crate) profile: &'static str,
+    /// wasm-opt's level: `-Oz` for size, `-O3` for speed.
+    pub(crate) level: &'static str,
 }
 
 /// The engines a page loads: its own, then its worker's.
 pub(crate) const ENGINES: [Engine; 2] = [
-    Engine { feature: "page", name: "modebench_page" },
-    Engine { feature: "solver", name: "modebench_solver" },
+    Engine { feature: "page", name: "modebench_page", profile: "wasm", level: "-Oz" },
+    // The solver runs in a worker loaded after the page is live: its speed is what an edit
+    // waits for, its size nothing the first view does.
+    Engine { feature: "solver", name: "modebench_solver", profile: "wasm-solver", level: "-O3" },
 ];
 
 /// Builds both engines into [`Project::engine_dir`].
@@ -68,18 +75,18 @@ fn build_one(project: &Project, engine: &Engine, scratch: &std::path::Path) -> R
         "--target",
         TARGET,
         "--profile",
-        "wasm",
+        engine.profile,
         "--no-default-features",
         "--features",
         engine.feature,
     ]))?;
-    let raw = project.target.join(TARGET).join("wasm").join("modebench_web.wasm");
+    let raw = project.target.join(TARGET).join(engine.profile).join("modebench_web.wasm");
     // The next engine's build writes the same file, so each is taken out of cargo's folder first.
     let input = scratch.join(format!("{}.wasm", engine.name));
     match run::version("wasm-opt") {
         Some(_) => {
-            run::status(run::cmd("wasm-opt", ["-Oz", "--converge"]).arg(&raw).arg("-o").arg(&input))?;
-            println!("wasm-opt -Oz: {} → {} bytes", size(&raw)?, size(&input)?);
+            run::status(run::cmd("wasm-opt", [engine.level, "--converge"]).arg(&raw).arg("-o").arg(&input))?;
+            println!("wasm-opt {}: {} → {} bytes", engine.level, size(&raw)?, size(&input)?);
         }
         None => {
             println!("skipped: wasm-opt not found, so the engine is not shrunk; `apt-get install binaryen` provides it");
