@@ -163,7 +163,6 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
             }
             AttachmentKind::RotationalSpring => out.push_str(&symbols::coil(x, y)),
             AttachmentKind::Support => out.push_str(&symbols::pin(x, AXIS)),
-            _ => {}
         }
         if !a.label.trim().is_empty() {
             let short: String = a.label.trim().chars().take(28).collect();

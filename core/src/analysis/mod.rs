@@ -1,4 +1,16 @@
-//! The three methods run side by side on one validated model.
+//! The three methods run side by side on one validated model, and the engineering judgements
+//! made on their results: the other theory's frequencies where shear matters
+//! ([`comparison`]), and the separation of each mode from the excitations ([`margins`]).
+
+pub mod comparison;
+pub mod margins;
+mod warnings;
+
+pub use comparison::{other_theory, Comparison};
+pub use margins::{Excitation, Separation};
+pub use warnings::{Warning, WarningCode};
+
+use warnings::merged_points;
 
 use crate::bounds::{self, Equivalent};
 use crate::error::{Error, ErrorKind, Result};
@@ -96,57 +108,6 @@ pub struct Fundamental {
     pub equivalent: Option<Equivalent>,
 }
 
-/// A note for the user about the results.
-#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
-pub struct Warning {
-    /// A stable identifier (`rigid-body`, `fe-unconverged`, …).
-    pub code: WarningCode,
-    /// What it means, in plain words.
-    pub message: String,
-}
-
-/// The stable identifier of a [`Warning`], serialised in kebab case (`fe-unconverged`).
-#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
-#[serde(rename_all = "kebab-case")]
-#[non_exhaustive]
-pub enum WarningCode {
-    /// An exact frequency's own check (Rayleigh's quotient) disagrees by more than 1e-9.
-    Accuracy,
-    /// The finite-element check differs from the exact value by more than it explains.
-    FeDisagrees,
-    /// Two attachments lie closer than the engine tells apart.
-    SamePoint,
-    /// The beam has rigid-body modes.
-    RigidBody,
-    /// The finite-element result has not converged.
-    FeUnconverged,
-    /// Some frequencies are repeated.
-    Repeated,
-    /// Mode 1 barely moves at the report point.
-    ReportPointAtNode,
-    /// A mode lies within the separation margin of an excitation.
-    ResonanceMargin,
-    /// Shear deformation and rotary inertia matter.
-    ShearMatters,
-}
-
-impl WarningCode {
-    /// The identifier as serialised.
-    pub fn id(self) -> &'static str {
-        match self {
-            WarningCode::Accuracy => "accuracy",
-            WarningCode::FeDisagrees => "fe-disagrees",
-            WarningCode::SamePoint => "same-point",
-            WarningCode::RigidBody => "rigid-body",
-            WarningCode::FeUnconverged => "fe-unconverged",
-            WarningCode::Repeated => "repeated",
-            WarningCode::ReportPointAtNode => "report-point-at-node",
-            WarningCode::ResonanceMargin => "resonance-margin",
-            WarningCode::ShearMatters => "shear-matters",
-        }
-    }
-}
-
 /// Everything the three methods found.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Analysis {
@@ -207,26 +168,6 @@ fn point_loads(model: &Model, index: usize, shape: &ModeShape, omega: f64) -> (f
 
 /// An exact frequency whose estimated relative error exceeds this is flagged.
 pub const TRUSTED: f64 = 1e-9;
-
-/// A note when two attachments lie closer than the engine tells apart and count as one point.
-fn merged_points(model: &Model) -> Option<Warning> {
-    let tolerance = crate::model::SAME_POINT * model.length();
-    let mut at: Vec<(f64, usize)> =
-        model.attachments().iter().enumerate().map(|(i, a)| (a.position(), i)).collect();
-    at.sort_by(|a, b| a.0.total_cmp(&b.0));
-    let pair = at.windows(2).find(|w| w[1].0 > w[0].0 && w[1].0 - w[0].0 <= tolerance)?;
-    let (first, second) = (pair[0].1.min(pair[1].1), pair[0].1.max(pair[1].1));
-    Some(Warning {
-        code: WarningCode::SamePoint,
-        message: format!(
-            "Attachments {} and {} are {:.1e} m apart, closer than the engine can tell apart (a trillionth of the \
-             beam's length); they are treated as one point, which changes no frequency measurably.",
-            first + 1,
-            second + 1,
-            pair[1].0 - pair[0].0
-        ),
-    })
-}
 
 /// Runs the exact method, finite elements and the bounds.
 pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
