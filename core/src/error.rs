@@ -3,7 +3,6 @@
 use std::fmt;
 
 /// What kind of problem an [`Error`] reports.
-#[non_exhaustive]
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum ErrorKind {
@@ -112,7 +111,6 @@ pub fn as_typed(value: f64) -> String {
 /// An error with the field path it concerns (`attachments[2].position`), the offending value
 /// as the user wrote it, and a message that says what is allowed.
 #[derive(Debug, Clone, PartialEq, serde::Serialize, serde::Deserialize)]
-#[non_exhaustive]
 pub struct Error {
     /// The kind of problem.
     pub kind: ErrorKind,
@@ -191,16 +189,31 @@ impl fmt::Display for Error {
             write!(f, "{}: ", self.path)?;
         }
         f.write_str(&self.message)?;
-        let shown = |text: &str| !text.is_empty() && self.message.contains(text);
+        let shown = |text: &str| mentions(&self.message, text);
         let typed = self.value.as_deref().filter(|v| !shown(v));
         let si = self.si.as_deref().filter(|si| !shown(si) && Some(*si) != self.value.as_deref());
         match (typed, si) {
+            // A plain number typed is already SI: its unit is all the SI value adds.
+            (Some(typed), Some(si)) if si.strip_prefix(typed).is_some_and(|unit| unit.starts_with(' ')) => {
+                write!(f, "; got {si}")
+            }
             (Some(typed), Some(si)) => write!(f, "; got {} ({si})", quoted(typed)),
             (Some(typed), None) => write!(f, "; got {}", quoted(typed)),
             (None, Some(si)) if self.value.is_none() => write!(f, "; got {si}"),
             _ => Ok(()),
         }
     }
+}
+
+/// Whether `message` already shows `text` as a word of its own: "1e20" does not show "0", and
+/// "the wall (40 mm)" shows "40 mm".
+pub fn mentions(message: &str, text: &str) -> bool {
+    let part_of_number = |c: Option<char>| c.is_some_and(|c| c.is_alphanumeric() || c == '.' || c == '-');
+    !text.is_empty()
+        && message.match_indices(text).any(|(i, _)| {
+            !part_of_number(message[..i].chars().next_back())
+                && !part_of_number(message[i + text.len()..].chars().next())
+        })
 }
 
 /// A value as typed, in quotes unless it is a plain number.
@@ -256,7 +269,10 @@ mod tests {
             .with_value("300 in")
             .with_si(7.62, "m");
         assert_eq!(e.to_string(), "report_point: must lie on the beam (0 to 7.6 m); got \"300 in\" (7.62 m)");
-        // A value the message already quotes is not repeated.
+        // A value the message already quotes is not repeated; a number inside another is not
+        // the value.
+        let e = Error::new(ErrorKind::OutOfRange, "must be from 1 to 20").with_value(0);
+        assert_eq!(e.to_string(), "must be from 1 to 20; got 0");
         let e = Error::new(ErrorKind::Conflict, "the wall (40 mm) must be thinner").with_value("40 mm");
         assert_eq!(e.to_string(), "the wall (40 mm) must be thinner");
         // Without what was typed, the SI value is the echo.

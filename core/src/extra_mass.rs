@@ -177,7 +177,7 @@ pub fn breakdown(
             format!(
                 "the mass per length this gives is too large to compute with (a beam carries at most {} kg/m); \
                  check the unit",
-                crate::error::number(crate::model::MASS_PER_LENGTH.1)
+                crate::error::number(crate::schema::MASS_PER_LENGTH.range.high())
             ),
         )
         .at(field);

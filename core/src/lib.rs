@@ -8,6 +8,7 @@
 pub mod error;
 pub mod extra_mass;
 pub mod material;
+pub mod schema;
 pub mod section;
 pub mod units;
 

@@ -13,53 +13,13 @@ pub use warnings::{Warning, WarningCode};
 use warnings::merged_points;
 
 use crate::bounds::{self, Equivalent};
-use crate::error::{Error, ErrorKind, Result};
+use crate::error::Result;
 use crate::exact::{self, ModeShape};
 use crate::fe::{self, Mesh};
 use crate::model::Model;
 
-/// Most modes one analysis reports (besides rigid-body modes).
-pub const MAX_MODES: usize = 20;
-
-/// What to compute.
-#[derive(Clone, Debug, PartialEq)]
-#[non_exhaustive]
-pub struct Options {
-    /// Elastic modes to report, 1 to [`MAX_MODES`].
-    pub modes: usize,
-    /// Finite elements in all; `None` picks enough for about 1e-4 on the last mode.
-    pub elements: Option<usize>,
-    /// Point for the equivalent single-degree-of-freedom system of mode 1, m from the left end;
-    /// `None` uses the point of largest deflection.
-    pub report_point: Option<f64>,
-}
-
-impl Options {
-    /// Options for `modes` elastic modes, other settings at their defaults.
-    pub fn with_modes(modes: usize) -> Options {
-        Options { modes, ..Options::default() }
-    }
-
-    /// Sets the total number of finite elements.
-    #[must_use]
-    pub fn elements(mut self, elements: usize) -> Options {
-        self.elements = Some(elements);
-        self
-    }
-
-    /// Sets the point for the equivalent single-degree-of-freedom system, m from the left end.
-    #[must_use]
-    pub fn report_point(mut self, position: f64) -> Options {
-        self.report_point = Some(position);
-        self
-    }
-}
-
-impl Default for Options {
-    fn default() -> Self {
-        Options { modes: 6, elements: None, report_point: None }
-    }
-}
+pub use crate::model::Options;
+pub use crate::schema::MAX_MODES;
 
 /// One mode from all methods.
 #[derive(Clone, Debug, PartialEq)]
@@ -129,22 +89,10 @@ pub struct Analysis {
 /// from the exact method alone: no mode shapes, finite elements or bounds. They are the same
 /// numbers, bit for bit, as the same root finder gives both.
 pub fn exact_omegas(model: &Model, options: &Options) -> Result<Vec<f64>> {
-    check_modes(options)?;
+    let options = options.checked(model)?;
     let mut omegas = vec![0.0; model.rigid_body_modes()];
     omegas.extend(exact::frequencies(model, options.modes)?);
     Ok(omegas)
-}
-
-fn check_modes(options: &Options) -> Result<()> {
-    if options.modes == 0 || options.modes > MAX_MODES {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("the number of modes must be from 1 to {MAX_MODES}"),
-        )
-        .at("modes")
-        .with_value(options.modes));
-    }
-    Ok(())
 }
 
 /// The force and the moment an attachment exerts on the beam in a mode (its inertia, or its
@@ -171,29 +119,13 @@ pub const TRUSTED: f64 = 1e-9;
 
 /// Runs the exact method, finite elements and the bounds.
 pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
-    check_modes(options)?;
+    let options = &options.checked(model)?;
     let mut warnings = Vec::new();
     let exact_modes = exact::modes(model, options.modes)?;
     let rigid = model.rigid_body_modes();
     let last = exact_modes.last().map_or(1.0, |m| m.omega);
     let first = exact_modes.iter().find(|m| !m.rigid_body).map_or(last, |m| m.omega);
     let mesh = match options.elements {
-        Some(0) => {
-            return Err(Error::new(ErrorKind::OutOfRange, "the number of finite elements must be at least 1")
-                .at("elements")
-                .with_value(0))
-        }
-        Some(n) if n > fe::MAX_ELEMENTS => {
-            return Err(Error::new(
-                ErrorKind::OutOfRange,
-                format!(
-                    "at most {} finite elements; round-off grows faster than accuracy beyond that",
-                    fe::MAX_ELEMENTS
-                ),
-            )
-            .at("elements")
-            .with_value(n))
-        }
         Some(n) => Mesh::Total(n),
         None => Mesh::Between { lowest: first, highest: last },
     };
@@ -303,11 +235,6 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
     let fundamental = match modes.get(rigid) {
         Some(first) if rigid == 0 => {
             let position = options.report_point.unwrap_or_else(|| bounds::largest_deflection(&first.shape));
-            if !(0.0..=model.length()).contains(&position) {
-                return Err(Error::new(ErrorKind::OutOfRange, "the report point must lie on the beam")
-                    .at("report_point")
-                    .with_value(position));
-            }
             let equivalent = bounds::equivalent(&first.shape, first.omega, position);
             if equivalent.is_none() {
                 warnings.push(Warning {

@@ -1,10 +1,8 @@
 //! The inputs echoed in a report: the beam as modelled, the excitations as read, and every unit
 //! conversion applied.
 
-use super::{
-    AttachmentEcho, AttachmentKind, BeamEcho, ConversionEcho, EndEcho, EndKind, ExcitationEcho, SegmentReport,
-};
-use crate::model::{Attachment, End, Model};
+use super::{AttachmentEcho, BeamEcho, ConversionEcho, EndEcho, ExcitationEcho, SegmentReport};
+use crate::model::{Attachment, AttachmentKind, End, EndKind, Model};
 use crate::scenario::Inputs;
 
 /// The beam as modelled, from the validated model and how its segments were described.

@@ -12,5 +12,6 @@ mod tests;
 pub mod types;
 
 pub use crate::analysis::Separation;
+pub use crate::model::{AttachmentKind, EndKind};
 pub use pipeline::{frequencies_value, solve, solve_json, solve_value};
 pub use types::*;

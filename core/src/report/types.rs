@@ -4,7 +4,7 @@
 
 use crate::analysis::{Separation, Warning};
 use crate::bounds::Equivalent;
-use crate::model::Theory;
+use crate::model::{AttachmentKind, EndKind, Theory};
 use crate::scenario::SegmentEcho;
 use crate::units::UnitSystem;
 
@@ -100,65 +100,6 @@ pub struct AttachmentEcho {
     pub stiffness: Option<f64>,
     /// Whether a spring is rigid.
     pub rigid: bool,
-}
-
-/// How an end is held, as a report names it: "free", "pinned", "clamped", "guided" or "elastic".
-#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum EndKind {
-    /// No restraint.
-    Free,
-    /// Deflection held.
-    Pinned,
-    /// Deflection and rotation held.
-    Clamped,
-    /// Rotation held, free to slide.
-    Guided,
-    /// Grounded springs.
-    Elastic,
-}
-
-impl EndKind {
-    /// The name as serialised, the scenario format's own.
-    pub fn id(self) -> &'static str {
-        match self {
-            EndKind::Free => "free",
-            EndKind::Pinned => "pinned",
-            EndKind::Clamped => "clamped",
-            EndKind::Guided => "guided",
-            EndKind::Elastic => "elastic",
-        }
-    }
-}
-
-/// What is attached, as a report names it: "mass", "spring", "rotational-spring", "support" or
-/// "sprung-mass".
-#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum AttachmentKind {
-    /// A rigid body fixed to the beam.
-    Mass,
-    /// A grounded translational spring.
-    Spring,
-    /// A grounded rotational spring.
-    RotationalSpring,
-    /// A rigid intermediate support.
-    Support,
-    /// A mass on a spring attached to the beam.
-    SprungMass,
-}
-
-impl AttachmentKind {
-    /// The name as serialised, the scenario format's own.
-    pub fn id(self) -> &'static str {
-        match self {
-            AttachmentKind::Mass => "mass",
-            AttachmentKind::Spring => "spring",
-            AttachmentKind::RotationalSpring => "rotational-spring",
-            AttachmentKind::Support => "support",
-            AttachmentKind::SprungMass => "sprung-mass",
-        }
-    }
 }
 
 /// One mode.

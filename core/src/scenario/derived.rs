@@ -5,7 +5,8 @@
 use crate::error::{number, roughly, Error};
 use crate::extra_mass::MassBreakdown;
 use crate::material::{MaterialInput, ResolvedMaterial};
-use crate::model::{range, FLEXURAL, MASS_PER_LENGTH, SHEAR, SHEAR_RATIO};
+use crate::model::SHEAR_RATIO;
+use crate::schema::{FLEXURAL_RIGIDITY, MASS_PER_LENGTH, SHEAR_RIGIDITY};
 use crate::section::SectionProps;
 
 /// What a segment given by section and material was made of, kept to explain a model error.
@@ -32,7 +33,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the bending stiffness EI = E·I of this section in this material must lie {}; check \
                      the section's dimensions and the material's Young's modulus",
-                    range(FLEXURAL, "N·m²")
+                    FLEXURAL_RIGIDITY.allowed()
                 ),
                 (ei, "N·m²"),
             )
@@ -45,7 +46,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the mass per length of this section in this material, with its extra mass, must lie \
                      {}; check the units of the density, the dimensions and the extra mass",
-                    range(MASS_PER_LENGTH, "kg/m")
+                    MASS_PER_LENGTH.allowed()
                 ),
                 (total, "kg/m"),
             )
@@ -60,7 +61,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the shear rigidity κGA of this section in this material must lie {}; check the \
                      section's dimensions and the material's shear modulus",
-                    range(SHEAR, "N")
+                    SHEAR_RIGIDITY.allowed()
                 ),
                 (kga, "N"),
             )

@@ -155,15 +155,23 @@ impl<'a> Node<'a> {
         self.get(name).map(|n| n.text("a text").map(str::to_string)).transpose()
     }
 
-    /// A whole number in `range`.
-    pub(crate) fn count(&self, range: std::ops::RangeInclusive<usize>) -> Result<usize> {
-        let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok()).filter(|n| range.contains(n));
+    /// A whole number for `field`; its range is checked with the model, in one place.
+    pub(crate) fn whole(&self, field: &crate::schema::Field) -> Result<usize> {
+        let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok());
         n.ok_or_else(|| {
-            self.with_shown_value(self.error(
-                ErrorKind::OutOfRange,
-                format!("expected a whole number from {} to {}", range.start(), range.end()),
-            ))
+            let allowed = field.range.words("", false);
+            self.with_shown_value(self.error(ErrorKind::OutOfRange, format!("expected {allowed}")))
         })
+    }
+
+    /// One of the `choices` the schema lists, by its id.
+    pub(crate) fn one_of(
+        &self,
+        what: &str,
+        choices: &'static [crate::schema::Choice],
+    ) -> Result<&'static crate::schema::Choice> {
+        let names: Vec<(&str, &'static crate::schema::Choice)> = choices.iter().map(|c| (c.id, c)).collect();
+        self.choice(what, &names)
     }
 
     /// One of the `names`, mapped to its value.

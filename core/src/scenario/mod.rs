@@ -12,7 +12,8 @@ mod read;
 mod tests;
 pub(crate) mod text;
 
-pub use read::{Inputs, SegmentEcho, DEFAULT_MARGIN};
+pub use crate::schema::DEFAULT_MARGIN;
+pub use read::{Inputs, SegmentEcho};
 
 use crate::error::Result;
 use crate::extra_mass::ExtraMassInput;
@@ -55,7 +56,6 @@ pub struct Scenario {
 /// How an end is held, as written: `"clamped"` or `{"type": "elastic", …}`.
 #[derive(Clone, Debug, PartialEq, serde::Serialize)]
 #[serde(tag = "type", rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum EndInput {
     /// No restraint.
     Free,
@@ -105,7 +105,6 @@ pub struct SegmentInput {
 /// Something attached to the beam, as written.
 #[derive(Clone, Debug, PartialEq, serde::Serialize)]
 #[serde(tag = "type", rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum AttachmentInput {
     /// A rigid body fixed to the beam.
     Mass {

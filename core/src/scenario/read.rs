@@ -3,17 +3,13 @@
 
 use super::derived::{self, SectionOrigin};
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
-use crate::analysis::Options;
-use crate::error::{number, Error, ErrorKind, Result};
+use crate::error::{Error, ErrorKind, Result};
 use crate::extra_mass::{self, MassBreakdown};
 use crate::material;
-use crate::model::{Attachment, End, Model, ModelParts, Segment, SAME_POINT};
+use crate::model::{self, Attachment, End, Model, ModelParts, Options, Segment};
+use crate::schema;
 use crate::section;
 use crate::units::{self, Conversion, Kind, Quantity};
-
-/// The default separation margin between natural and excitation frequencies (common practice
-/// keeps 10–20 %; the larger figure is the default — common practice, no single source).
-pub const DEFAULT_MARGIN: f64 = 0.2;
 
 /// A scenario read and checked: the model, the options, and what the inputs were in SI.
 #[derive(Clone, Debug, PartialEq)]
@@ -74,6 +70,14 @@ impl Reader {
         self.read(q, kind, path)
     }
 
+    /// Adds what the user typed to an error about a value read here, found by its path.
+    fn typed(&self, e: Error) -> Error {
+        match self.written.iter().find(|(path, _)| *path == e.path) {
+            Some((_, typed)) => e.with_value(typed),
+            None => e,
+        }
+    }
+
     fn keep(&mut self, path: &str, conversions: &[(String, Conversion)]) {
         self.conversions.extend(conversions.iter().map(|(field, c)| (format!("{path}.{field}"), c.clone())));
     }
@@ -107,23 +111,21 @@ impl Scenario {
                     Some((i, origin)) => derived::explain(e, &format!("segments[{i}]"), origin),
                     None => e,
                 };
-                match r.written.iter().find(|(path, _)| *path == e.path) {
-                    Some((_, typed)) => e.with_value(typed),
-                    None => e,
-                }
+                r.typed(e)
             })?;
         let report_point = match &self.report_point {
-            Some(q) => Some(read_report_point(&mut r, q, model.length())?),
+            Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, schema::REPORT_POINT.name)?),
             None => None,
         };
         let options = Options { modes: self.modes, elements: self.elements, report_point };
+        let options = options.checked(&model).map_err(|e| r.typed(e))?;
         let mut excitations = Vec::with_capacity(self.excitations.len());
         for (i, e) in self.excitations.iter().enumerate() {
             excitations.push(read_excitation(&mut r, e, &format!("excitations[{i}]"))?);
         }
         let margin = match &self.margin {
-            None => DEFAULT_MARGIN,
-            Some(q) => read_ratio(q).map_err(|e| e.at("margin"))?,
+            None => schema::DEFAULT_MARGIN,
+            Some(q) => read_ratio(q)?,
         };
         Ok(Inputs {
             model,
@@ -140,24 +142,6 @@ impl Scenario {
 /// The index of the segment a path lies in: 2 for `segments[2].length`.
 fn segment_of(path: &str) -> Option<usize> {
     path.strip_prefix("segments[")?.split_once(']')?.0.parse().ok()
-}
-
-/// The point for mode 1's equivalent mass and stiffness, on the beam; like an attachment's
-/// position, a point within a billionth of the length of an end is that end, so that "300 in"
-/// on a beam of "25 ft" is the end whichever way the conversions round.
-fn read_report_point(r: &mut Reader, q: &Quantity, length: f64) -> Result<f64> {
-    let x = r.read(q, Kind::Length, "report_point")?;
-    let tolerance = SAME_POINT * length;
-    if !(-tolerance..=length + tolerance).contains(&x) {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("the report point must lie on the beam (0 to {} m)", number(length)),
-        )
-        .at("report_point")
-        .with_value(q)
-        .with_si(x, "m"));
-    }
-    Ok(x.clamp(0.0, length))
 }
 
 /// A segment, how it was described, and what its section and material were made of.
@@ -324,43 +308,35 @@ fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &str) -> Result<(A
 }
 
 fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &str) -> Result<(String, f64, usize)> {
-    let f = r.read(&e.frequency, Kind::Frequency, &format!("{path}.frequency"))?;
-    if f <= 0.0 {
-        return Err(Error::new(ErrorKind::OutOfRange, "an excitation frequency must be greater than zero")
-            .at(format!("{path}.frequency"))
-            .with_value(&e.frequency)
-            .with_si(f, "Hz"));
-    }
-    if e.harmonics == 0 || e.harmonics > 50 {
-        return Err(Error::new(ErrorKind::OutOfRange, "harmonics must be from 1 to 50")
-            .at(format!("{path}.harmonics"))
-            .with_value(e.harmonics));
-    }
+    let at = |field: &str| format!("{path}.{field}");
+    let f = r.read(&e.frequency, schema::FREQUENCY.kind, &at(schema::FREQUENCY.name))?;
+    model::value(&schema::FREQUENCY, f).map_err(|err| err.at(path).with_value(&e.frequency))?;
+    model::whole(&schema::HARMONICS, e.harmonics).map_err(|err| err.at(path))?;
     Ok((e.label.clone(), f, e.harmonics))
 }
 
-/// A ratio written as a number (0.2) or a percentage ("20 %").
+/// The margin, a ratio written as a number (0.2) or a percentage ("20 %").
 fn read_ratio(q: &Quantity) -> Result<f64> {
+    let at_margin = |e: Error| e.at(schema::MARGIN.name);
     let value = match q {
         Quantity::Number(v) => *v,
         Quantity::Text(t) => {
             let t = t.trim();
             match t.strip_suffix('%') {
-                Some(number) => units::decimal(number.trim()).map(|v| v / 100.0).ok_or_else(|| {
-                    Error::new(
-                        ErrorKind::Syntax,
-                        "write the margin as a ratio (0.2) or a percentage (\"20 %\")",
-                    )
-                    .with_value(t)
-                })?,
-                None => units::parse(t, Kind::Ratio)?.si,
+                Some(number) => units::decimal(number.trim())
+                    .map(|v| v / 100.0)
+                    .ok_or_else(|| {
+                        Error::new(
+                            ErrorKind::Syntax,
+                            "write the margin as a ratio (0.2) or a percentage (\"20 %\")",
+                        )
+                        .with_value(t)
+                    })
+                    .map_err(at_margin)?,
+                None => units::parse(t, Kind::Ratio).map_err(at_margin)?.si,
             }
         }
     };
-    if !(value.is_finite() && value > 0.0 && value < 1.0) {
-        return Err(
-            Error::new(ErrorKind::OutOfRange, "the margin must lie between 0 and 100 %").with_value(q)
-        );
-    }
+    model::value(&schema::MARGIN, value).map_err(|e| e.with_value(q))?;
     Ok(value)
 }

@@ -238,7 +238,7 @@ fn reshape(doc: &mut Value, path: &str, id: &str) {
     let old = path::get(doc, path).cloned().unwrap_or_default();
     let mut object = Map::new();
     object.insert("shape".into(), Value::String(id.to_string()));
-    for f in new.fields {
+    for f in new.fields.iter().filter(|f| f.form == catalog::Form::Quantity) {
         let alias = match f.name {
             "diameter" => "outer_diameter",
             "outer_diameter" => "diameter",

@@ -60,7 +60,7 @@ pub(crate) fn group(class: &str, heading: &str, body: &str) -> String {
 }
 
 fn setup(form: &mut Form<'_>) -> String {
-    let systems: Vec<(&str, &str)> = catalog::SYSTEMS.iter().map(|(_, id, name)| (*id, *name)).collect();
+    let systems: Vec<(&str, &str)> = catalog::UNIT_SYSTEMS.iter().map(|(s, name)| (s.id(), *name)).collect();
     let units = text_or(form.doc, "units", "si");
     let theory = text_or(form.doc, "theory", "euler-bernoulli");
     let mut body = String::from("<div class=\"mb-grid\">");

@@ -122,7 +122,12 @@ impl<'a> Form<'a> {
     }
 
     /// A text field described by the catalogue, under the object at `base`.
+    /// Only quantities are drawn so: other fields (names, nested objects) have controls of
+    /// their own.
     pub(crate) fn spec(&mut self, base: &str, spec: &FieldSpec) -> String {
+        if spec.form != crate::catalog::Form::Quantity {
+            return String::new();
+        }
         let options = TextOptions {
             kind: Some(spec.kind),
             optional: spec.optional,

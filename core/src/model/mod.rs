@@ -5,12 +5,20 @@
 //! the scenario's field names (`segments[1].length`, `attachments[2].position`) so that a message
 //! points at what the user typed.
 
-use crate::error::{number, roughly, Error, ErrorKind, Result};
+mod check;
+mod kinds;
+mod options;
+
+pub use kinds::{AttachmentKind, EndKind};
+pub use options::Options;
+
+pub(crate) use check::{value, whole, SHEAR_RATIO};
+
+use crate::error::Result;
 
 /// Which beam theory the exact and finite-element solvers use.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize)]
 #[serde(rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum Theory {
     /// Bending only: plane sections stay normal to the axis; no rotary inertia.
     #[default]
@@ -36,7 +44,6 @@ pub struct Segment {
 
 /// How an end of the beam is held.
 #[derive(Clone, Copy, Debug, PartialEq)]
-#[non_exhaustive]
 pub enum End {
     /// No restraint.
     Free,
@@ -70,7 +77,6 @@ impl End {
 
 /// Something attached to the beam at a position measured from the left end.
 #[derive(Clone, Copy, Debug, PartialEq)]
-#[non_exhaustive]
 pub enum Attachment {
     /// A rigid body fixed to the beam: mass (kg) and rotary inertia about the beam's bending
     /// axis (kg·m²).
@@ -168,57 +174,7 @@ impl Model {
     /// Positions within a trillionth of the length of an end are moved onto it, so that values
     /// converted from other units land exactly on the end they were meant for.
     pub fn new(mut parts: ModelParts) -> Result<Model> {
-        if parts.segments.is_empty() {
-            return Err(Error::new(ErrorKind::Missing, "the beam needs at least one segment").at("segments"));
-        }
-        let mut length = 0.0;
-        for (i, s) in parts.segments.iter().enumerate() {
-            let at = |field: &str| format!("segments[{i}].{field}");
-            within(s.length, "a length", "m", LENGTH, &at("length"))?;
-            within(
-                s.flexural_rigidity,
-                "a bending stiffness EI",
-                "N·m²",
-                FLEXURAL,
-                &at("flexural_rigidity"),
-            )?;
-            within(s.mass_per_length, "a mass per length", "kg/m", MASS_PER_LENGTH, &at("mass_per_length"))?;
-            if let Some(kga) = s.shear_rigidity {
-                within(kga, "a shear rigidity κGA", "N", SHEAR, &at("shear_rigidity"))?;
-            }
-            non_negative(
-                s.rotary_inertia_per_length,
-                "a rotary inertia per length",
-                "kg·m",
-                &at("rotary_inertia_per_length"),
-            )?;
-            length += s.length;
-        }
-        if !length.is_finite() {
-            return Err(Error::new(
-                ErrorKind::OutOfRange,
-                "the total length of the segments is too large to compute with",
-            )
-            .at("segments"));
-        }
-        for (i, s) in parts.segments.iter().enumerate() {
-            plausible_shear(s).map_err(|e| e.at(format!("segments[{i}].shear_rigidity")))?;
-        }
-        if parts.theory == Theory::Timoshenko {
-            if let Some(i) = parts.segments.iter().position(|s| s.shear_rigidity.is_none()) {
-                return Err(Error::new(
-                    ErrorKind::Missing,
-                    "the Timoshenko theory needs a shear rigidity κGA (give a section and material, or the value)",
-                )
-                .at(format!("segments[{i}].shear_rigidity")));
-            }
-        }
-        end_springs(parts.left, "left")?;
-        end_springs(parts.right, "right")?;
-        for (i, a) in parts.attachments.iter_mut().enumerate() {
-            check_attachment(a, length).map_err(|e| e.at(format!("attachments[{i}]")))?;
-        }
-        check_rigid_supports(&parts, length)?;
+        let length = check::parts(&mut parts)?;
         Ok(Model { parts, length })
     }
 
@@ -321,223 +277,10 @@ impl Model {
     }
 }
 
-/// The ratio EI/κGA ÷ ρI/m that [`plausible_shear`] accepts.
-pub(crate) const SHEAR_RATIO: (f64, f64) = (1.0, 1000.0);
-
-/// For any solid or hollow section of a real material, EI/κGA = (E/κG)·I/A, and E/κG lies between
-/// about 2.4 (isotropic metals) and a few dozen (wood, pultruded composites across the grain);
-/// I/A = ρI/ρA. A ratio far outside that says a value was typed in the wrong unit, and it would
-/// also make the shear-flexible member needlessly expensive to compute.
-fn plausible_shear(s: &Segment) -> Result<()> {
-    let (Some(kga), true) = (s.shear_rigidity, s.rotary_inertia_per_length > 0.0) else { return Ok(()) };
-    let ratio = (s.flexural_rigidity / kga) / (s.rotary_inertia_per_length / s.mass_per_length);
-    if !(SHEAR_RATIO.0..=SHEAR_RATIO.1).contains(&ratio) {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!(
-                "implausible with the other properties: EI/κGA is {} times ρI/m, where real sections \
-                 give about 2.5 (metals) to 50 (wood, composites) and {} to {} is accepted; check the units \
-                 of κGA, EI, ρI and m",
-                roughly(ratio),
-                number(SHEAR_RATIO.0),
-                number(SHEAR_RATIO.1)
-            ),
-        )
-        .with_si(kga, "N"));
-    }
-    Ok(())
-}
-
-/// Ranges that hold every beam from a micro-machined cantilever to a bridge girder, and keep
-/// every intermediate quantity (ω², EI/L³, …) far inside the range of `f64`. A value outside is
-/// almost always a unit slip.
-const LENGTH: (f64, f64) = (1e-9, 1e6);
-pub(crate) const FLEXURAL: (f64, f64) = (1e-30, 1e20);
-pub(crate) const MASS_PER_LENGTH: (f64, f64) = (1e-20, 1e9);
-pub(crate) const SHEAR: (f64, f64) = (1e-20, 1e20);
-const MASS: (f64, f64) = (0.0, 1e12);
-const STIFFNESS: (f64, f64) = (0.0, 1e20);
-
-/// The range `lo` to `hi` in words, for messages: "between 1e-9 and 1e6 m".
-pub(crate) fn range((lo, hi): (f64, f64), unit: &str) -> String {
-    format!("between {} and {} {unit}", number(lo), number(hi)).trim_end().to_string()
-}
-
-fn within(v: f64, what: &str, unit: &str, (lo, hi): (f64, f64), path: &str) -> Result<()> {
-    let allowed = range((lo, hi), unit);
-    let (kind, message) = if !v.is_finite() {
-        (ErrorKind::NotFinite, format!("{what} must be a finite number {allowed}"))
-    } else if v <= 0.0 {
-        (ErrorKind::OutOfRange, format!("{what} must be greater than zero ({allowed})"))
-    } else if v < lo || v > hi {
-        (ErrorKind::OutOfRange, format!("{what} must lie {allowed}; check the unit"))
-    } else {
-        return Ok(());
-    };
-    Err(Error::new(kind, message).at(path).with_si(v, unit))
-}
-
-fn non_negative(v: f64, what: &str, unit: &str, path: &str) -> Result<()> {
-    if !v.is_finite() {
-        return Err(Error::new(
-            ErrorKind::NotFinite,
-            format!("{what} must be a finite number, zero or more"),
-        )
-        .at(path)
-        .with_si(v, unit));
-    }
-    if v < 0.0 {
-        return Err(Error::new(ErrorKind::OutOfRange, format!("{what} must be zero or more"))
-            .at(path)
-            .with_si(v, unit));
-    }
-    Ok(())
-}
-
-/// A spring stiffness may be anything from 0 to +∞ (rigid), but not negative or NaN.
-fn spring(v: f64, what: &str, unit: &str, path: &str) -> Result<()> {
-    if v.is_nan() || v < 0.0 || (v.is_finite() && v > STIFFNESS.1) {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("{what} must lie {}, or be \"rigid\"", range((0.0, STIFFNESS.1), unit)),
-        )
-        .at(path)
-        .with_si(v, unit));
-    }
-    Ok(())
-}
-
-fn end_springs(end: End, side: &str) -> Result<()> {
-    if let End::Elastic { translational, rotational } = end {
-        spring(translational, "a translational end spring", "N/m", &format!("{side}.translational"))?;
-        spring(rotational, "a rotational end spring", "N·m/rad", &format!("{side}.rotational"))?;
-    }
-    Ok(())
-}
-
-fn check_attachment(a: &mut Attachment, length: f64) -> Result<()> {
-    let position = a.position();
-    let on_the_beam = format!("must lie on the beam (0 to {} m)", number(length));
-    if !position.is_finite() {
-        return Err(Error::new(ErrorKind::NotFinite, format!("the position {on_the_beam}"))
-            .at("position")
-            .with_si(position, "m"));
-    }
-    let tolerance = SAME_POINT * length;
-    if position < -tolerance || position > length + tolerance {
-        return Err(Error::new(ErrorKind::OutOfRange, format!("the position {on_the_beam}"))
-            .at("position")
-            .with_si(position, "m"));
-    }
-    let snapped = if position.abs() <= tolerance {
-        0.0
-    } else if (position - length).abs() <= tolerance {
-        length
-    } else {
-        position
-    };
-    match a {
-        Attachment::Mass { position, mass, rotary_inertia } => {
-            *position = snapped;
-            non_negative(*mass, "a mass", "kg", "mass")?;
-            non_negative(*rotary_inertia, "a rotary inertia", "kg·m²", "rotary_inertia")?;
-            if *mass > MASS.1 || *rotary_inertia > MASS.1 {
-                let (field, what, unit, v) = if *mass > MASS.1 {
-                    ("mass", "a mass", "kg", *mass)
-                } else {
-                    ("rotary_inertia", "a rotary inertia", "kg·m²", *rotary_inertia)
-                };
-                return Err(Error::new(
-                    ErrorKind::OutOfRange,
-                    format!("{what} must lie {}; check the unit", range(MASS, unit)),
-                )
-                .at(field)
-                .with_si(v, unit));
-            }
-            if *mass == 0.0 && *rotary_inertia == 0.0 {
-                return Err(Error::new(
-                    ErrorKind::OutOfRange,
-                    "a point mass needs a mass or a rotary inertia above zero",
-                )
-                .at("mass")
-                .with_value(0));
-            }
-        }
-        Attachment::Spring { position, stiffness } => {
-            *position = snapped;
-            positive_or_rigid(*stiffness, "a spring stiffness", "N/m")?;
-        }
-        Attachment::RotationalSpring { position, stiffness } => {
-            *position = snapped;
-            positive_or_rigid(*stiffness, "a rotational spring stiffness", "N·m/rad")?;
-        }
-        Attachment::Support { position } => *position = snapped,
-        Attachment::SprungMass { position, mass, stiffness } => {
-            *position = snapped;
-            within(*mass, "a sprung mass", "kg", (1e-20, MASS.1), "mass")?;
-            if *stiffness == f64::INFINITY {
-                return Err(Error::new(
-                    ErrorKind::OutOfRange,
-                    "a sprung mass needs a finite spring; for a rigid mounting use a point mass",
-                )
-                .at("stiffness")
-                .with_value("rigid"));
-            }
-            within(*stiffness, "a spring stiffness", "N/m", (1e-20, STIFFNESS.1), "stiffness")?;
-        }
-    }
-    Ok(())
-}
-
-fn positive_or_rigid(v: f64, what: &str, unit: &str) -> Result<()> {
-    if v.is_nan() || v <= 0.0 || (v.is_finite() && v > STIFFNESS.1) {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!(
-                "{what} must be greater than zero, at most {} {unit} (or \"rigid\")",
-                number(STIFFNESS.1)
-            ),
-        )
-        .at("stiffness")
-        .with_si(v, unit));
-    }
-    Ok(())
-}
-
-/// Two rigid deflection restraints at one point make the model singular and mean nothing more
-/// than one; say so rather than silently dropping one.
-fn check_rigid_supports(parts: &ModelParts, length: f64) -> Result<()> {
-    let tolerance = SAME_POINT * length;
-    let mut held: Vec<(f64, String)> = Vec::new();
-    if parts.left.springs().0 == f64::INFINITY {
-        held.push((0.0, "left".to_string()));
-    }
-    if parts.right.springs().0 == f64::INFINITY {
-        held.push((length, "right".to_string()));
-    }
-    for (i, a) in parts.attachments.iter().enumerate() {
-        if !a.holds_deflection() {
-            continue;
-        }
-        let x = a.position();
-        if let Some((_, other)) = held.iter().find(|(y, _)| (x - y).abs() <= tolerance) {
-            return Err(Error::new(
-                ErrorKind::Conflict,
-                format!(
-                    "two rigid supports at one point: {other} already holds the deflection here; remove one"
-                ),
-            )
-            .at(format!("attachments[{i}].position"))
-            .with_si(x, "m"));
-        }
-        held.push((x, format!("attachments[{i}]")));
-    }
-    Ok(())
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::error::ErrorKind;
 
     pub(crate) fn uniform(left: End, right: End) -> ModelParts {
         ModelParts {

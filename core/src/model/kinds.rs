@@ -1,0 +1,87 @@
+//! The kinds of end and attachment, named as the scenario format and the report name them.
+
+/// How an end is held, as the scenario and the report name it: "free", "pinned", "clamped", "guided" or "elastic".
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum EndKind {
+    /// No restraint.
+    Free,
+    /// Deflection held.
+    Pinned,
+    /// Deflection and rotation held.
+    Clamped,
+    /// Rotation held, free to slide.
+    Guided,
+    /// Grounded springs.
+    Elastic,
+}
+
+impl EndKind {
+    /// Every kind of end.
+    pub const ALL: [EndKind; 5] =
+        [EndKind::Free, EndKind::Pinned, EndKind::Clamped, EndKind::Guided, EndKind::Elastic];
+
+    /// The name as serialised, the scenario format's own.
+    pub fn id(self) -> &'static str {
+        match self {
+            EndKind::Free => "free",
+            EndKind::Pinned => "pinned",
+            EndKind::Clamped => "clamped",
+            EndKind::Guided => "guided",
+            EndKind::Elastic => "elastic",
+        }
+    }
+}
+
+/// What is attached, as the scenario and the report name it: "mass", "spring", "rotational-spring", "support" or
+/// "sprung-mass".
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum AttachmentKind {
+    /// A rigid body fixed to the beam.
+    Mass,
+    /// A grounded translational spring.
+    Spring,
+    /// A grounded rotational spring.
+    RotationalSpring,
+    /// A rigid intermediate support.
+    Support,
+    /// A mass on a spring attached to the beam.
+    SprungMass,
+}
+
+impl AttachmentKind {
+    /// Every kind of attachment.
+    pub const ALL: [AttachmentKind; 5] = [
+        AttachmentKind::Mass,
+        AttachmentKind::Spring,
+        AttachmentKind::RotationalSpring,
+        AttachmentKind::Support,
+        AttachmentKind::SprungMass,
+    ];
+
+    /// The name as serialised, the scenario format's own.
+    pub fn id(self) -> &'static str {
+        match self {
+            AttachmentKind::Mass => "mass",
+            AttachmentKind::Spring => "spring",
+            AttachmentKind::RotationalSpring => "rotational-spring",
+            AttachmentKind::Support => "support",
+            AttachmentKind::SprungMass => "sprung-mass",
+        }
+    }
+}
+
+impl EndKind {
+    /// The kind with this name.
+    pub fn from_id(id: &str) -> Option<EndKind> {
+        EndKind::ALL.into_iter().find(|k| k.id() == id)
+    }
+}
+
+impl AttachmentKind {
+    /// The kind with this name.
+    pub fn from_id(id: &str) -> Option<AttachmentKind> {
+        AttachmentKind::ALL.into_iter().find(|k| k.id() == id)
+    }
+}
