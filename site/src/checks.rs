@@ -5,7 +5,7 @@
 
 use anyhow::{bail, Result};
 use modebench_tests::published::{self, Case};
-use modebench_web::render::escape;
+use modebench_ui::render::escape;
 
 /// The HTML table. The block's body must be empty, so that a page cannot quietly carry
 /// hand-typed rows.

@@ -2,8 +2,8 @@
 //! right field, user text escaped, and the contract's data attributes exact.
 #![cfg(not(target_arch = "wasm32"))]
 
-use modebench_web::render::{self, Editing, View};
-use modebench_web::{doc, render::widget_html};
+use modebench_ui::render::{self, Editing, View};
+use modebench_ui::{doc, render::widget_html};
 
 const SCENARIOS: [(&str, &str); 4] = [
     ("sensor-boom", include_str!("../../docs/scenarios/sensor-boom.json")),
