@@ -2,6 +2,8 @@
 
 use std::fmt;
 
+use crate::path::FieldPath;
+
 /// What kind of problem an [`Error`] reports.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
 #[serde(rename_all = "kebab-case")]
@@ -114,8 +116,9 @@ pub fn as_typed(value: f64) -> String {
 pub struct Error {
     /// The kind of problem.
     pub kind: ErrorKind,
-    /// Dotted path of the offending field, empty for whole-input problems.
-    pub path: String,
+    /// Where the offending field is (`segments[0].length`), empty for whole-input problems;
+    /// serialised as that text.
+    pub path: FieldPath,
     /// The offending value as written (cut to [`ECHO_LIMIT`] characters), when there is one.
     pub value: Option<String>,
     /// The offending value in SI with its unit ("7.62 m"), when the check was made in SI.
@@ -131,25 +134,13 @@ impl Error {
         let message = message.into();
         let message =
             if message.chars().count() > MESSAGE_LIMIT { cut(&message, MESSAGE_LIMIT) } else { message };
-        Error { kind, path: String::new(), value: None, si: None, message }
+        Error { kind, path: FieldPath::root(), value: None, si: None, message }
     }
 
     /// Sets the field path, prefixing any path already present (`segments[0]` + `section.wall`).
-    /// A field name the user typed is cut like any other echo.
     #[must_use]
-    pub fn at(mut self, path: impl AsRef<str>) -> Self {
-        let outer = path.as_ref();
-        let outer = if outer.chars().count() > ECHO_LIMIT {
-            outer.split('.').map(echo).collect::<Vec<_>>().join(".")
-        } else {
-            outer.to_string()
-        };
-        self.path = match (outer.is_empty(), self.path.is_empty()) {
-            (true, _) => self.path,
-            (false, true) => outer,
-            (false, false) if self.path.starts_with('[') => format!("{outer}{}", self.path),
-            (false, false) => format!("{outer}.{}", self.path),
-        };
+    pub fn at(mut self, outer: impl Into<FieldPath>) -> Self {
+        self.path = outer.into().join(&self.path);
         self
     }
 
@@ -236,10 +227,12 @@ mod tests {
 
     #[test]
     fn paths_nest_outer_first() {
-        let e =
-            Error::new(ErrorKind::OutOfRange, "must be positive").at("wall").at("section").at("segments[0]");
+        let e = Error::new(ErrorKind::OutOfRange, "must be positive")
+            .at("wall")
+            .at("section")
+            .at(FieldPath::item("segments", 0));
         assert_eq!(e.path, "segments[0].section.wall");
-        let e = Error::new(ErrorKind::OutOfRange, "x").at("[2]").at("attachments");
+        let e = Error::new(ErrorKind::OutOfRange, "x").at(FieldPath::root().index(2)).at("attachments");
         assert_eq!(e.path, "attachments[2]");
     }
 
@@ -286,10 +279,11 @@ mod tests {
         // the path and the message.
         let paragraph = "é".repeat(100_000);
         let e = Error::new(ErrorKind::UnknownOption, format!("unknown material \"{}\"", echo(&paragraph)))
-            .at(format!("segments[0].{paragraph}"))
+            .at(FieldPath::item("segments", 0).key(&paragraph))
             .with_value(&paragraph);
         assert_eq!(e.value.as_deref().map(|v| v.chars().count()), Some(ECHO_LIMIT + 1));
-        assert!(e.path.starts_with("segments[0].ééé") && e.path.ends_with('…'), "{}", e.path);
+        let path = e.path.to_string();
+        assert!(path.starts_with("segments[0].ééé") && path.ends_with('…'), "{path}");
         assert!(e.to_string().chars().count() < 300, "{e}");
         // The backstop: a message that quotes user text without `echo` is still cut.
         let e = Error::new(ErrorKind::Syntax, paragraph);

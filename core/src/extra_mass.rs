@@ -11,6 +11,7 @@
 mod tests;
 
 use crate::error::{Error, ErrorKind};
+use crate::path::FieldPath;
 use crate::section::SectionProps;
 use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
@@ -54,7 +55,7 @@ pub struct MassBreakdown {
     /// Added mass of the surrounding water.
     pub added_water: f64,
     /// Unit conversions applied to the written values, by field ("lining").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 impl MassBreakdown {
@@ -83,10 +84,10 @@ pub fn breakdown(
             .with_number(section.area));
     }
     let mut conversions = Vec::new();
-    let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
+    let mut read = |quantity: &Quantity, kind: Kind, field: &FieldPath| {
         units::convert_field(quantity, kind, field, &mut conversions)
     };
-    let not_negative = |value: f64, quantity: &Quantity, field: &str, what: &str| {
+    let not_negative = |value: f64, quantity: &Quantity, field: &FieldPath, what: &str| {
         if value >= 0.0 {
             Ok(value)
         } else {
@@ -108,17 +109,18 @@ pub fn breakdown(
                 .at("contents_density")
                 .with_value(quantity));
             }
-            let rho = read(quantity, Kind::Density, "contents_density")?;
-            not_negative(rho, quantity, "contents_density", "the contents density")? * section.bore_area
+            let rho = read(quantity, Kind::Density, &"contents_density".into())?;
+            not_negative(rho, quantity, &"contents_density".into(), "the contents density")?
+                * section.bore_area
         }
     };
 
     let lining = match &extra.lining {
         None => 0.0,
         Some(quantity) => not_negative(
-            read(quantity, Kind::MassPerLength, "lining")?,
+            read(quantity, Kind::MassPerLength, &"lining".into())?,
             quantity,
-            "lining",
+            &"lining".into(),
             "the lining mass",
         )?,
     };
@@ -136,7 +138,7 @@ pub fn breakdown(
             let rho_w = match &submerged.water_density {
                 None => DEFAULT_WATER_DENSITY,
                 Some(quantity) => {
-                    let field = "submerged.water_density";
+                    let field = &FieldPath::from("submerged").key("water_density");
                     let rho_w = read(quantity, Kind::Density, field)?;
                     if rho_w <= 0.0 {
                         return Err(Error::new(ErrorKind::OutOfRange, "the water density must be positive")
@@ -149,7 +151,7 @@ pub fn breakdown(
             let c_a = match &submerged.added_mass_coefficient {
                 None => DEFAULT_ADDED_MASS_COEFFICIENT,
                 Some(quantity) => {
-                    let field = "submerged.added_mass_coefficient";
+                    let field = &FieldPath::from("submerged").key("added_mass_coefficient");
                     not_negative(
                         read(quantity, Kind::Ratio, field)?,
                         quantity,

@@ -8,6 +8,7 @@
 pub mod error;
 pub mod extra_mass;
 pub mod material;
+pub mod path;
 pub mod schema;
 pub mod section;
 pub mod units;
@@ -18,6 +19,7 @@ mod robustness;
 mod test_support;
 
 pub use error::{Error, ErrorKind, Result};
+pub use path::FieldPath;
 pub mod model;
 
 mod band;

@@ -177,7 +177,7 @@ pub struct ResolvedMaterial {
     /// Poisson's ratio ν.
     pub poisson: f64,
     /// Unit conversions applied to the written properties, by field ("youngs_modulus").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(crate::path::FieldPath, Conversion)>,
 }
 
 /// Resolves a preset id or custom properties to SI values.
@@ -229,7 +229,7 @@ fn resolve_custom(
 ) -> Result<ResolvedMaterial, Error> {
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        units::convert_field(quantity, kind, field, &mut conversions)
+        units::convert_field(quantity, kind, &field.into(), &mut conversions)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;
     let e = plausible(e, youngs_modulus, "youngs_modulus", "Young's modulus", MODULUS_RANGE, Kind::Pressure)?;

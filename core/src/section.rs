@@ -11,6 +11,7 @@ mod tests;
 mod tests_grid;
 
 use crate::error::{number, Error, ErrorKind};
+use crate::path::FieldPath;
 use crate::schema;
 use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
@@ -105,7 +106,7 @@ pub struct SectionProps {
     /// Open internal area that can hold contents, m²; 0 for solid shapes.
     pub bore_area: f64,
     /// Unit conversions applied to the written dimensions, by field ("depth").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 /// Computes the properties of a section for a material with Poisson's ratio `poisson`.
@@ -297,7 +298,7 @@ fn cube_difference(h: f64, gap: f64) -> f64 {
 /// Reads dimensions with their units, checks their range and keeps the conversions applied.
 #[derive(Default)]
 struct Reader {
-    conversions: Vec<(String, Conversion)>,
+    conversions: Vec<(FieldPath, Conversion)>,
 }
 
 impl Reader {
@@ -339,6 +340,6 @@ impl Reader {
     }
 
     fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
-        units::convert_field(quantity, kind, field, &mut self.conversions)
+        units::convert_field(quantity, kind, &FieldPath::from(field), &mut self.conversions)
     }
 }

@@ -4,6 +4,7 @@
 
 use super::{Attachment, End, ModelParts, Segment, Theory, SAME_POINT};
 use crate::error::{number, roughly, Error, ErrorKind, Result};
+use crate::path::FieldPath;
 use crate::schema::{self, Field};
 
 /// Refuses a value (SI) outside its field's range, at the field's name.
@@ -50,7 +51,7 @@ pub(super) fn parts(parts: &mut ModelParts) -> Result<f64> {
     }
     let mut length = 0.0;
     for (i, s) in parts.segments.iter().enumerate() {
-        segment(s).map_err(|e| e.at(format!("segments[{i}]")))?;
+        segment(s).map_err(|e| e.at(FieldPath::item("segments", i)))?;
         length += s.length;
     }
     if !length.is_finite() {
@@ -61,7 +62,7 @@ pub(super) fn parts(parts: &mut ModelParts) -> Result<f64> {
         .at("segments"));
     }
     for (i, s) in parts.segments.iter().enumerate() {
-        plausible_shear(s).map_err(|e| e.at(format!("segments[{i}].shear_rigidity")))?;
+        plausible_shear(s).map_err(|e| e.at(FieldPath::item("segments", i).key("shear_rigidity")))?;
     }
     if parts.theory == Theory::Timoshenko {
         if let Some(i) = parts.segments.iter().position(|s| s.shear_rigidity.is_none()) {
@@ -69,13 +70,13 @@ pub(super) fn parts(parts: &mut ModelParts) -> Result<f64> {
                 ErrorKind::Missing,
                 "the Timoshenko theory needs a shear rigidity κGA (give a section and material, or the value)",
             )
-            .at(format!("segments[{i}].shear_rigidity")));
+            .at(FieldPath::item("segments", i).key("shear_rigidity")));
         }
     }
     end(parts.left).map_err(|e| e.at("left"))?;
     end(parts.right).map_err(|e| e.at("right"))?;
     for (i, a) in parts.attachments.iter_mut().enumerate() {
-        attachment(a, length).map_err(|e| e.at(format!("attachments[{i}]")))?;
+        attachment(a, length).map_err(|e| e.at(FieldPath::item("attachments", i)))?;
     }
     rigid_supports(parts, length)?;
     Ok(length)
@@ -191,7 +192,7 @@ fn rigid_supports(parts: &ModelParts, length: f64) -> Result<()> {
                     "two rigid supports at one point: {other} already holds the deflection here; remove one"
                 ),
             )
-            .at(format!("attachments[{i}].position"))
+            .at(FieldPath::item("attachments", i).key("position"))
             .with_si(x, "m"));
         }
         held.push((x, format!("attachments[{i}]")));

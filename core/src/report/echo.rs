@@ -109,6 +109,6 @@ pub(super) fn conversions(inputs: &Inputs) -> Vec<ConversionEcho> {
     inputs
         .conversions
         .iter()
-        .map(|(path, c)| ConversionEcho { path: path.clone(), text: c.text.clone() })
+        .map(|(path, c)| ConversionEcho { path: path.to_string(), text: c.text.clone() })
         .collect()
 }

@@ -5,6 +5,7 @@
 //! the browser build stays small (generic deserialiser code for tagged enums is large).
 
 use crate::error::{Error, ErrorKind, Result};
+use crate::path::FieldPath;
 use crate::units::Quantity;
 use serde_json::{Map, Value};
 
@@ -12,7 +13,7 @@ use serde_json::{Map, Value};
 #[derive(Clone, Debug)]
 pub(crate) struct Node<'a> {
     value: &'a Value,
-    path: String,
+    path: FieldPath,
 }
 
 /// What kind of JSON a value is, for messages.
@@ -30,11 +31,11 @@ fn describe(v: &Value) -> &'static str {
 impl<'a> Node<'a> {
     /// The whole document.
     pub(crate) fn root(value: &'a Value) -> Node<'a> {
-        Node { value, path: String::new() }
+        Node { value, path: FieldPath::root() }
     }
 
     /// Where this value stands in the scenario (`segments[0].section`; empty for the whole).
-    pub(crate) fn path(&self) -> &str {
+    pub(crate) fn path(&self) -> &FieldPath {
         &self.path
     }
 
@@ -58,12 +59,8 @@ impl<'a> Node<'a> {
         }
     }
 
-    fn child_path(&self, name: &str) -> String {
-        if self.path.is_empty() {
-            name.to_string()
-        } else {
-            format!("{}.{name}", self.path)
-        }
+    fn child_path(&self, name: &str) -> FieldPath {
+        self.path.key(name)
     }
 
     /// Checks that the node is an object, before reading a field that says what else it holds.
@@ -114,11 +111,7 @@ impl<'a> Node<'a> {
     /// The items of a list.
     pub(crate) fn items(&self, what: &str) -> Result<Vec<Node<'a>>> {
         let list = self.value.as_array().ok_or_else(|| self.expected(what))?;
-        Ok(list
-            .iter()
-            .enumerate()
-            .map(|(i, value)| Node { value, path: format!("{}[{i}]", self.path) })
-            .collect())
+        Ok(list.iter().enumerate().map(|(i, value)| Node { value, path: self.path.index(i) }).collect())
     }
 
     /// The text of a string.
@@ -197,7 +190,7 @@ macro_rules! deserialize_via_value {
                 let repeated = std::cell::RefCell::new(None);
                 let value =
                     $crate::scenario::text::value(deserializer, &repeated).map_err(|e| {
-                        match repeated.borrow().as_deref() {
+                        match repeated.borrow().as_ref() {
                             Some(path) => <D::Error as serde::de::Error>::custom(
                                 $crate::scenario::text::given_twice(path),
                             ),

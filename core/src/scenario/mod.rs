@@ -185,6 +185,15 @@ impl Scenario {
     }
 }
 
+/// The unit system a scenario held as JSON asks for, as [`Scenario::from_value`] reads it: the
+/// default when absent, an error naming the field when it is not one of the systems.
+pub fn unit_system_of(value: &serde_json::Value) -> Result<UnitSystem> {
+    match json::Node::root(value).get("units") {
+        Some(units) => parse::unit_system(&units),
+        None => Ok(UnitSystem::default()),
+    }
+}
+
 json::deserialize_via_value!(Scenario, parse::scenario);
 json::deserialize_via_value!(EndInput, parse::end);
 json::deserialize_via_value!(SegmentInput, parse::segment);

@@ -78,7 +78,7 @@ pub(crate) fn end(n: &Node<'_>) -> Result<EndInput> {
     };
     if kind != EndKind::Elastic {
         if let Some(extra) = fields.and_then(|m| m.keys().find(|k| *k != "type")) {
-            let place = if n.path().is_empty() { extra.clone() } else { format!("{}.{extra}", n.path()) };
+            let place = n.path().key(extra);
             return Err(Error::new(
                 ErrorKind::Conflict,
                 "only an \"elastic\" end takes springs; remove this field or make the end elastic",

@@ -7,6 +7,7 @@ use crate::error::{Error, ErrorKind, Result};
 use crate::extra_mass::{self, MassBreakdown};
 use crate::material;
 use crate::model::{self, Attachment, End, Model, ModelParts, Options, Segment};
+use crate::path::{FieldPath, Step};
 use crate::schema;
 use crate::section;
 use crate::units::{self, Conversion, Kind, Quantity};
@@ -27,7 +28,7 @@ pub struct Inputs {
     /// Separation margin as a ratio.
     pub margin: f64,
     /// Every unit conversion applied: (field path, record).
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 /// How a segment's properties came about.
@@ -47,23 +48,23 @@ pub struct SegmentEcho {
 
 #[derive(Default)]
 struct Reader {
-    conversions: Vec<(String, Conversion)>,
+    conversions: Vec<(FieldPath, Conversion)>,
     /// Every value read, as written, by path: model checks see SI numbers, but an error should
     /// show what the user typed ("-3 kg", not "-3").
-    written: Vec<(String, String)>,
+    written: Vec<(FieldPath, String)>,
 }
 
 impl Reader {
-    fn read(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
-        self.written.push((path.to_string(), q.to_string()));
+    fn read(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+        self.written.push((path.clone(), q.to_string()));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
 
     /// A stiffness that may also be written "rigid".
-    fn spring(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
+    fn spring(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
-                self.written.push((path.to_string(), q.to_string()));
+                self.written.push((path.clone(), q.to_string()));
                 return Ok(f64::INFINITY);
             }
         }
@@ -78,8 +79,8 @@ impl Reader {
         }
     }
 
-    fn keep(&mut self, path: &str, conversions: &[(String, Conversion)]) {
-        self.conversions.extend(conversions.iter().map(|(field, c)| (format!("{path}.{field}"), c.clone())));
+    fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
+        self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
 }
 
@@ -91,37 +92,37 @@ impl Scenario {
         let mut echoes = Vec::with_capacity(self.segments.len());
         let mut origins = Vec::with_capacity(self.segments.len());
         for (i, s) in self.segments.iter().enumerate() {
-            let (segment, echo, origin) = read_segment(&mut r, s, &format!("segments[{i}]"))?;
+            let (segment, echo, origin) = read_segment(&mut r, s, &FieldPath::item("segments", i))?;
             segments.push(segment);
             echoes.push(echo);
             origins.push(origin);
         }
-        let left = read_end(&mut r, &self.left, "left")?;
-        let right = read_end(&mut r, &self.right, "right")?;
+        let left = read_end(&mut r, &self.left, &"left".into())?;
+        let right = read_end(&mut r, &self.right, &"right".into())?;
         let mut attachments = Vec::with_capacity(self.attachments.len());
         let mut labels = Vec::with_capacity(self.attachments.len());
         for (i, a) in self.attachments.iter().enumerate() {
-            let (attachment, label) = read_attachment(&mut r, a, &format!("attachments[{i}]"))?;
+            let (attachment, label) = read_attachment(&mut r, a, &FieldPath::item("attachments", i))?;
             attachments.push(attachment);
             labels.push(label);
         }
         let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })
             .map_err(|e| {
                 let e = match segment_of(&e.path).and_then(|i| Some((i, origins.get(i)?.as_ref()?))) {
-                    Some((i, origin)) => derived::explain(e, &format!("segments[{i}]"), origin),
+                    Some((i, origin)) => derived::explain(e, &FieldPath::item("segments", i), origin),
                     None => e,
                 };
                 r.typed(e)
             })?;
         let report_point = match &self.report_point {
-            Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, schema::REPORT_POINT.name)?),
+            Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, &schema::REPORT_POINT.name.into())?),
             None => None,
         };
         let options = Options { modes: self.modes, elements: self.elements, report_point };
         let options = options.checked(&model).map_err(|e| r.typed(e))?;
         let mut excitations = Vec::with_capacity(self.excitations.len());
         for (i, e) in self.excitations.iter().enumerate() {
-            excitations.push(read_excitation(&mut r, e, &format!("excitations[{i}]"))?);
+            excitations.push(read_excitation(&mut r, e, &FieldPath::item("excitations", i))?);
         }
         let margin = match &self.margin {
             None => schema::DEFAULT_MARGIN,
@@ -140,15 +141,18 @@ impl Scenario {
 }
 
 /// The index of the segment a path lies in: 2 for `segments[2].length`.
-fn segment_of(path: &str) -> Option<usize> {
-    path.strip_prefix("segments[")?.split_once(']')?.0.parse().ok()
+fn segment_of(path: &FieldPath) -> Option<usize> {
+    match path.steps() {
+        [Step::Key(list), Step::Index(i), ..] if list == "segments" => Some(*i),
+        _ => None,
+    }
 }
 
 /// A segment, how it was described, and what its section and material were made of.
 type ReadSegment = (Segment, SegmentEcho, Option<SectionOrigin>);
 
-fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<ReadSegment> {
-    let at = |field: &str| format!("{path}.{field}");
+fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<ReadSegment> {
+    let at = |field: &str| path.key(field);
     let length = match &s.length {
         Some(q) => r.read(q, Kind::Length, &at("length"))?,
         None => return Err(Error::new(ErrorKind::Missing, "a segment needs a length").at(at("length"))),
@@ -252,7 +256,7 @@ fn section_name(s: &section::SectionInput) -> &'static str {
     }
 }
 
-fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
+fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
     Ok(match end {
         EndInput::Free => End::Free,
         EndInput::Pinned => End::Pinned,
@@ -260,7 +264,7 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
         EndInput::Guided => End::Guided,
         EndInput::Elastic { translational, rotational } => {
             let mut spring = |q: &Option<Quantity>, kind, field: &str| match q {
-                Some(q) => r.spring(q, kind, &format!("{path}.{field}")),
+                Some(q) => r.spring(q, kind, &path.key(field)),
                 None => Ok(0.0),
             };
             End::Elastic {
@@ -271,8 +275,8 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
     })
 }
 
-fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &str) -> Result<(Attachment, String)> {
-    let at = |field: &str| format!("{path}.{field}");
+fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Result<(Attachment, String)> {
+    let at = |field: &str| path.key(field);
     let label = |l: &Option<String>| l.clone().unwrap_or_default();
     Ok(match a {
         AttachmentInput::Mass { position, mass, rotary_inertia, label: l } => {
@@ -307,8 +311,8 @@ fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &str) -> Result<(A
     })
 }
 
-fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &str) -> Result<(String, f64, usize)> {
-    let at = |field: &str| format!("{path}.{field}");
+fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<(String, f64, usize)> {
+    let at = |field: &str| path.key(field);
     let f = r.read(&e.frequency, schema::FREQUENCY.kind, &at(schema::FREQUENCY.name))?;
     model::value(&schema::FREQUENCY, f).map_err(|err| err.at(path).with_value(&e.frequency))?;
     model::whole(&schema::HARMONICS, e.harmonics).map_err(|err| err.at(path))?;

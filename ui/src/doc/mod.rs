@@ -13,9 +13,9 @@ mod tests;
 
 pub use edit::{apply, Edit, List};
 
-use crate::catalog;
+use modebench::schema;
 use modebench::units::UnitSystem;
-use modebench::{Error, ErrorKind, Report};
+use modebench::{Error, ErrorKind, FieldPath, Report};
 use serde_json::Value;
 
 /// Reads scenario text into the editable form; an error names what is wrong with the JSON.
@@ -24,9 +24,11 @@ pub fn read(text: &str) -> Result<Value, Error> {
         .map_err(|e| Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}")))
 }
 
-/// The unit system the scenario asks for, SI when it is absent or not one we know.
+/// The unit system the scenario asks for, read as the core reads it. An absent or unknown one is
+/// drawn in SI; an unknown one is also refused by the solve, and the refusal is shown beside the
+/// units field.
 pub fn unit_system(doc: &Value) -> UnitSystem {
-    doc.get("units").and_then(serde_json::Value::as_str).and_then(UnitSystem::from_id).unwrap_or_default()
+    modebench::scenario::unit_system_of(doc).unwrap_or_default()
 }
 
 /// Solves the scenario as it stands.
@@ -38,20 +40,16 @@ pub fn solve(doc: &Value) -> Result<Report, Error> {
 /// Whole-number fields hold text only when what was typed is not a whole number; say so with
 /// the field's path and range (core would only say a number was expected).
 fn check_whole_numbers(doc: &Value) -> Result<(), Error> {
-    let mut paths = vec!["modes".to_string()];
+    let mut fields = vec![(FieldPath::from(schema::MODES.name), &schema::MODES)];
     let count = doc.get("excitations").and_then(Value::as_array).map_or(0, Vec::len);
-    paths.extend((0..count).map(|i| format!("excitations[{i}].harmonics")));
-    for p in paths {
-        let key = p.rsplit('.').next().unwrap_or(&p);
-        if let (Some(Value::String(text)), Some((low, high))) =
-            (path::get(doc, &p), catalog::whole_number(key))
-        {
-            let what = if key == "modes" { "the number of modes" } else { "the number of harmonics" };
-            let error = Error::new(
-                ErrorKind::OutOfRange,
-                format!("{what} must be a whole number from {low} to {high}"),
-            )
-            .at(p.as_str());
+    fields.extend(
+        (0..count)
+            .map(|i| (FieldPath::item("excitations", i).key(schema::HARMONICS.name), &schema::HARMONICS)),
+    );
+    for (place, field) in fields {
+        if let Some(Value::String(text)) = path::get(doc, &place.to_string()) {
+            let message = format!("{} must be {}", field.what, field.allowed());
+            let error = Error::new(ErrorKind::OutOfRange, message).at(place);
             return Err(if text.trim().is_empty() { error } else { error.with_value(text) });
         }
     }

@@ -1,44 +1,16 @@
 //! Field paths such as `segments[0].section.wall`: reading, writing and removing the value they
 //! name in a scenario held as JSON.
 //!
-//! The same paths appear in core's error messages and in the editor's `data-field` attributes,
-//! which is what lets an error land beside the field that caused it.
+//! The same paths appear in core's errors (as a [`FieldPath`]) and in the editor's `data-field`
+//! attributes (as its text), which is what lets an error land beside the field that caused it.
 
+pub use modebench::path::{FieldPath, Step};
 use serde_json::{Map, Value};
 
-/// One step of a path: an object key or an array index.
-#[derive(Clone, Debug, PartialEq, Eq)]
-pub enum Step {
-    /// A key of an object.
-    Key(String),
-    /// An index into an array.
-    Index(usize),
-}
-
-/// Splits a path into steps; `None` when it is malformed (an index that is not a number).
+/// Splits a path into steps; `None` when it is malformed (an index that is not a number). The
+/// core's [`FieldPath`] reads it, as it reads the paths of its errors.
 pub fn parse(path: &str) -> Option<Vec<Step>> {
-    let mut steps = Vec::new();
-    if path.is_empty() {
-        return Some(steps);
-    }
-    for part in path.split('.') {
-        let (name, mut rest) = match part.find('[') {
-            Some(i) => (&part[..i], &part[i..]),
-            None => (part, ""),
-        };
-        if !name.is_empty() {
-            steps.push(Step::Key(name.to_string()));
-        }
-        while let Some(inner) = rest.strip_prefix('[') {
-            let close = inner.find(']')?;
-            steps.push(Step::Index(inner[..close].parse().ok()?));
-            rest = &inner[close + 1..];
-        }
-        if !rest.is_empty() {
-            return None;
-        }
-    }
-    Some(steps)
+    FieldPath::parse(path).map(|p| p.steps().to_vec())
 }
 
 /// The value at `path`, if there is one.

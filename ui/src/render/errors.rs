@@ -1,42 +1,32 @@
 //! Placing an input error beside the field it concerns, and wording it for that place.
 
 use super::escape::escape;
-use modebench::Error;
+use modebench::error::mentions;
+use modebench::{Error, FieldPath};
 
 /// The field an error belongs beside, given the paths of the fields on show: the field it names;
 /// else the first field inside the part it names (`attachments[1]` → that row's first field);
 /// else the field that contains it; else the same for the enclosing part. `None` when nothing
 /// fits (a problem with the whole scenario), and the message then goes above the editor.
-pub fn placement<'a>(error_path: &str, fields: &[&'a str]) -> Option<&'a str> {
-    let mut path = error_path;
+pub fn placement<'a>(error_path: &FieldPath, fields: &[&'a str]) -> Option<&'a str> {
+    let parsed: Vec<(FieldPath, &'a str)> =
+        fields.iter().filter_map(|f| Some((FieldPath::parse(f)?, *f))).collect();
+    let mut path = error_path.clone();
     while !path.is_empty() {
-        if let Some(f) = fields.iter().find(|f| **f == path) {
+        if let Some((_, f)) = parsed.iter().find(|(p, _)| *p == path) {
             return Some(f);
         }
-        if let Some(f) = fields.iter().find(|f| is_inside(f, path)) {
+        if let Some((_, f)) = parsed.iter().find(|(p, _)| p.is_inside(&path)) {
             return Some(f);
         }
-        if let Some(f) = fields.iter().filter(|f| is_inside(path, f)).max_by_key(|f| f.len()) {
+        if let Some((_, f)) =
+            parsed.iter().filter(|(p, _)| path.is_inside(p)).max_by_key(|(p, _)| p.steps().len())
+        {
             return Some(f);
         }
-        path = parent(path);
+        path = path.parent().unwrap_or_default();
     }
     None
-}
-
-/// Whether `inner` names a part of `outer` (`segments[0].length` is inside `segments[0]`).
-fn is_inside(inner: &str, outer: &str) -> bool {
-    inner.len() > outer.len()
-        && inner.starts_with(outer)
-        && matches!(inner.as_bytes().get(outer.len()), Some(b'.' | b'['))
-}
-
-/// The path one step up: `segments[0].section` → `segments[0]` → `segments` → ``.
-fn parent(path: &str) -> &str {
-    match path.rfind(['.', '[']) {
-        Some(i) => &path[..i],
-        None => "",
-    }
 }
 
 /// The message shown beside the field: what is wrong and what was typed (with its value in SI
@@ -44,8 +34,8 @@ fn parent(path: &str) -> &str {
 /// JSON line numbers (the user typed into a field).
 pub fn message(error: &Error) -> String {
     let mut text = strip_location(&error.message).to_string();
-    let typed = error.value.as_deref().filter(|v| !v.is_empty() && !text.contains(v));
-    let si = error.si.as_deref().filter(|si| !text.contains(si) && Some(*si) != error.value.as_deref());
+    let typed = error.value.as_deref().filter(|v| !mentions(&text, v));
+    let si = error.si.as_deref().filter(|si| !mentions(&text, si) && Some(*si) != error.value.as_deref());
     match (typed, si) {
         (Some(typed), Some(si)) => text.push_str(&format!(" (you typed “{typed}”, which is {si})")),
         (Some(typed), None) => text.push_str(&format!(" (you typed “{typed}”)")),
@@ -73,7 +63,7 @@ pub fn field_error_html(error: &Error, general: bool) -> String {
     };
     format!(
         "<span class=\"mb-field-error\" data-for=\"{}\" role=\"alert\">{}</span>",
-        escape(&error.path),
+        escape(&error.path.to_string()),
         escape(&text)
     )
 }
@@ -92,12 +82,13 @@ mod tests {
 
     #[test]
     fn errors_go_to_the_named_or_nearest_field() {
-        assert_eq!(placement("segments[0].section.wall", &FIELDS), Some("segments[0].section.wall"));
-        assert_eq!(placement("attachments[1]", &FIELDS), Some("attachments[1].type"));
-        assert_eq!(placement("segments[0].flexural_rigidity", &FIELDS), Some("segments[0].length"));
-        assert_eq!(placement("modes.x", &FIELDS), Some("modes"));
-        assert_eq!(placement("fe.elements", &FIELDS), None);
-        assert_eq!(placement("", &FIELDS), None);
+        let at = |text: &str| placement(&FieldPath::from(text), &FIELDS);
+        assert_eq!(at("segments[0].section.wall"), Some("segments[0].section.wall"));
+        assert_eq!(at("attachments[1]"), Some("attachments[1].type"));
+        assert_eq!(at("segments[0].flexural_rigidity"), Some("segments[0].length"));
+        assert_eq!(at("modes.x"), Some("modes"));
+        assert_eq!(at("fe.elements"), None);
+        assert_eq!(at(""), None);
     }
 
     #[test]

@@ -99,7 +99,10 @@ mod tests {
     fn an_input_error_crosses_with_its_path_and_value() {
         let text = BOOM.replace("\"2.8 kg\"", "\"2.8 kgs\"");
         let Err(error) = read(&solve(&text)) else { panic!("a misspelt unit is refused") };
-        assert_eq!((error.kind, error.path.as_str()), (ErrorKind::UnknownUnit, "attachments[0].mass"));
+        assert_eq!(
+            (error.kind, error.path.to_string().as_str()),
+            (ErrorKind::UnknownUnit, "attachments[0].mass")
+        );
         assert_eq!(error.value.as_deref(), Some("2.8 kgs"));
         let Err(error) = read(&solve("{\"left\": ")) else { panic!("broken JSON is refused") };
         assert_eq!(error.kind, ErrorKind::Syntax);
