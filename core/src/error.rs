@@ -32,6 +32,20 @@ pub enum ErrorKind {
 }
 
 impl ErrorKind {
+    /// Every kind, in the order they are declared.
+    pub const ALL: [ErrorKind; 10] = [
+        ErrorKind::Syntax,
+        ErrorKind::Missing,
+        ErrorKind::UnknownOption,
+        ErrorKind::NotFinite,
+        ErrorKind::OutOfRange,
+        ErrorKind::UnknownUnit,
+        ErrorKind::WrongDimension,
+        ErrorKind::Conflict,
+        ErrorKind::Model,
+        ErrorKind::NoConvergence,
+    ];
+
     /// The kind's name as serialised: "unknown-unit", "out-of-range", …
     pub fn id(self) -> &'static str {
         match self {

@@ -14,10 +14,12 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // What the site is held to, kilobytes being 1000 bytes. `budgets.mjs` prints every figure against
 // these; the engines' sizes, which do not drift with the machine, are also a test. The page's
 // engine is what a calculator waits for before it is live; the solver's is fetched by the
-// calculator's worker once the page is live.
+// calculator's worker once the page is live. The solver's budget rose from 300 to 320 KB when the
+// scenario's schema, typed field paths and range messages came into the engine that validates
+// (docs/performance.md says why and what the page's engine gave back).
 export const BUDGET = {
   pageEngineBytes: 320_000,
-  solverEngineBytes: 300_000,
+  solverEngineBytes: 320_000,
   pageGzipBytes: 200_000,
   coldLoadMs: 300,
   editMs: 16,

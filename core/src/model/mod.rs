@@ -27,6 +27,19 @@ pub enum Theory {
     Timoshenko,
 }
 
+impl Theory {
+    /// Both theories.
+    pub const ALL: [Theory; 2] = [Theory::EulerBernoulli, Theory::Timoshenko];
+
+    /// The name used in scenarios: "euler-bernoulli" or "timoshenko".
+    pub fn id(self) -> &'static str {
+        match self {
+            Theory::EulerBernoulli => "euler-bernoulli",
+            Theory::Timoshenko => "timoshenko",
+        }
+    }
+}
+
 /// One uniform stretch of the beam.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Segment {

@@ -7,6 +7,7 @@
 
 mod echo;
 mod pipeline;
+pub mod read;
 #[cfg(test)]
 mod tests;
 pub mod types;
@@ -14,4 +15,5 @@ pub mod types;
 pub use crate::analysis::Separation;
 pub use crate::model::{AttachmentKind, EndKind};
 pub use pipeline::{frequencies_value, solve, solve_json, solve_value};
+pub use read::{report_from_json, FromJson};
 pub use types::*;

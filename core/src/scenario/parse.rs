@@ -53,10 +53,7 @@ pub(crate) fn unit_system(n: &Node<'_>) -> Result<UnitSystem> {
 }
 
 pub(crate) fn theory(n: &Node<'_>) -> Result<Theory> {
-    n.choice(
-        "the beam theory",
-        &[("euler-bernoulli", Theory::EulerBernoulli), ("timoshenko", Theory::Timoshenko)],
-    )
+    n.choice("the beam theory", &Theory::ALL.map(|t| (t.id(), t)))
 }
 
 /// The fields a choice's object holds: its tag, what every such object has, and its own.

@@ -54,10 +54,11 @@ pub struct Field {
     /// The field in words with its article, for messages: "a wall thickness".
     #[serde(skip)]
     pub what: &'static str,
-    /// What the field means, for the format's documentation.
+    /// What the field means, for the format's documentation (empty in WebAssembly builds).
     #[serde(skip)]
     pub help: &'static str,
-    /// What an optional field's absence means, in words ("0", "the point of largest deflection").
+    /// What an optional field's absence means, in words ("0", "the point of largest deflection");
+    /// empty in WebAssembly builds.
     #[serde(skip)]
     pub default: &'static str,
     /// The values allowed, in SI.
@@ -96,12 +97,12 @@ impl Field {
     }
 
     pub(crate) const fn help(self, help: &'static str) -> Field {
-        Field { help, ..self }
+        Field { help: doc(help), ..self }
     }
 
     /// Optional, with what its absence means.
     pub(crate) const fn or(self, default: &'static str) -> Field {
-        Field { optional: true, default, ..self }
+        Field { optional: true, default: doc(default), ..self }
     }
 
     /// Also accepts `"rigid"`.
@@ -120,6 +121,17 @@ impl Field {
     }
 }
 
+/// Words for the format's documentation only. They are written natively, where the tables of
+/// `docs/scenario-format.md` are generated; the browser's engines never show them, so a
+/// WebAssembly build leaves them out (they would add about 3 KB to each engine).
+pub(crate) const fn doc(text: &'static str) -> &'static str {
+    if cfg!(target_arch = "wasm32") {
+        ""
+    } else {
+        text
+    }
+}
+
 /// A named choice (a section shape, an attachment type, an end) with the fields it brings.
 #[derive(Clone, Copy, Debug, PartialEq, serde::Serialize)]
 pub struct Choice {
@@ -131,7 +143,7 @@ pub struct Choice {
     /// offers as text fields).
     #[serde(serialize_with = "quantities")]
     pub fields: &'static [Field],
-    /// What it is, for the format's documentation.
+    /// What it is, for the format's documentation (empty in WebAssembly builds).
     #[serde(skip)]
     pub help: &'static str,
 }

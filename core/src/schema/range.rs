@@ -77,11 +77,9 @@ impl Range {
         }
         let allowed = self.words(unit, rigid);
         Some(match self {
-            // A stiffness that may be rigid, and a range that starts at zero, say it plainly.
-            Range::UpTo(_) | Range::AboveZero(_) if rigid => (
-                ErrorKind::OutOfRange,
-                format!("{what} must be {allowed}").replace("be between", "lie between"),
-            ),
+            // A stiffness that may be rigid says so beside its range.
+            Range::UpTo(_) if rigid => (ErrorKind::OutOfRange, format!("{what} must lie {allowed}")),
+            Range::AboveZero(_) if rigid => (ErrorKind::OutOfRange, format!("{what} must be {allowed}")),
             Range::UpTo(hi) if !v.is_finite() => {
                 let comma = if hi.is_infinite() { "," } else { "" };
                 (ErrorKind::NotFinite, format!("{what} must be a finite number{comma} {allowed}"))

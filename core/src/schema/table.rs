@@ -1,7 +1,7 @@
 //! The table: every field of the scenario format, object by object. The editor's catalogue and
 //! the format's documentation read the same entries, so the words here are shown to users.
 
-use super::{Choice, Field, Form, Range};
+use super::{doc, Choice, Field, Form, Range};
 use crate::units::{Kind, UnitSystem};
 
 /// Most elastic modes one analysis reports (besides rigid-body modes).
@@ -125,20 +125,20 @@ pub const END_ROTATIONAL: Field =
 
 /// The end supports.
 pub static ENDS: [Choice; 5] = [
-    Choice { id: "clamped", name: "Clamped", fields: &[], help: "deflection and rotation held" },
-    Choice { id: "pinned", name: "Pinned", fields: &[], help: "deflection held, free to rotate" },
-    Choice { id: "free", name: "Free", fields: &[], help: "no restraint" },
+    Choice { id: "clamped", name: "Clamped", fields: &[], help: doc("deflection and rotation held") },
+    Choice { id: "pinned", name: "Pinned", fields: &[], help: doc("deflection held, free to rotate") },
+    Choice { id: "free", name: "Free", fields: &[], help: doc("no restraint") },
     Choice {
         id: "guided",
         name: "Guided (slides, no turn)",
         fields: &[],
-        help: "rotation held, free to slide",
+        help: doc("rotation held, free to slide"),
     },
     Choice {
         id: "elastic",
         name: "On springs",
         fields: &[END_TRANSLATIONAL, END_ROTATIONAL],
-        help: "grounded springs, each from 0 (absent) to `\"rigid\"`",
+        help: doc("grounded springs, each from 0 (absent) to `\"rigid\"`"),
     },
 ];
 
@@ -200,25 +200,25 @@ pub static SHAPES: [Choice; 6] = [
         id: "tube",
         name: "Round tube or pipe",
         fields: &[length("outer_diameter", "Outside diameter", "an outer diameter"), WALL],
-        help: "a round tube or pipe",
+        help: doc("a round tube or pipe"),
     },
     Choice {
         id: "round",
         name: "Round bar",
         fields: &[length("diameter", "Diameter", "a diameter")],
-        help: "a solid round bar",
+        help: doc("a solid round bar"),
     },
     Choice {
         id: "rectangle",
         name: "Flat or square bar",
         fields: &[WIDTH, DEPTH],
-        help: "a solid rectangle",
+        help: doc("a solid rectangle"),
     },
     Choice {
         id: "rectangular-tube",
         name: "Box section",
         fields: &[WIDTH, DEPTH, WALL],
-        help: "a rectangular tube of one wall thickness",
+        help: doc("a rectangular tube of one wall thickness"),
     },
     Choice {
         id: "i-beam",
@@ -234,7 +234,7 @@ pub static SHAPES: [Choice; 6] = [
                 .help("`\"strong\"` or `\"weak\"`")
                 .or("`\"strong\"`"),
         ],
-        help: "an I-section bending about its strong or weak axis",
+        help: doc("an I-section bending about its strong or weak axis"),
     },
     Choice {
         id: "custom",
@@ -252,7 +252,7 @@ pub static SHAPES: [Choice; 6] = [
                 .help("Timoshenko's shear coefficient")
                 .or("a rectangle's"),
         ],
-        help: "any other section, by its properties",
+        help: doc("any other section, by its properties"),
     },
 ];
 
@@ -359,31 +359,31 @@ pub static ATTACHMENTS: [Choice; 5] = [
         id: "mass",
         name: "Mass",
         fields: &[MASS, ROTARY_INERTIA],
-        help: "a rigid body fixed to the beam",
+        help: doc("a rigid body fixed to the beam"),
     },
     Choice {
         id: "sprung-mass",
         name: "Mass on a spring",
         fields: &[SPRUNG_MASS, SPRUNG_STIFFNESS],
-        help: "equipment on isolators, a tuned absorber; it adds a mode of its own",
+        help: doc("equipment on isolators, a tuned absorber; it adds a mode of its own"),
     },
     Choice {
         id: "spring",
         name: "Spring to ground",
         fields: &[SPRING_STIFFNESS],
-        help: "a grounded translational spring",
+        help: doc("a grounded translational spring"),
     },
     Choice {
         id: "rotational-spring",
         name: "Rotational spring to ground",
         fields: &[ROTATIONAL_STIFFNESS],
-        help: "a grounded rotational spring",
+        help: doc("a grounded rotational spring"),
     },
     Choice {
         id: "support",
         name: "Intermediate support",
         fields: &[],
-        help: "a rigid intermediate support that lets the beam rotate",
+        help: doc("a rigid intermediate support that lets the beam rotate"),
     },
 ];
 
