@@ -13,10 +13,6 @@ pub mod schema;
 pub mod section;
 pub mod units;
 
-#[cfg(test)]
-mod robustness;
-#[cfg(test)]
-mod test_support;
 
 pub use error::{Error, ErrorKind, Result};
 pub use path::FieldPath;

@@ -2,7 +2,7 @@
 
 use super::*;
 use crate::section::{properties, SectionInput};
-use crate::test_support::check;
+use modebench_tests::check;
 
 const STEEL: f64 = 7850.0;
 

@@ -1,7 +1,7 @@
 //! Tests of materials: preset values against their stated sources, custom input and its checks.
 
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 #[test]
 fn presets_hold_the_values_their_sources_state() {

@@ -3,7 +3,7 @@
 
 use super::shear;
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 const NU: f64 = 0.3;
 const ROARK: &str = "Roark's Formulas for Stress and Strain, table of section properties (from memory)";

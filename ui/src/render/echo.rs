@@ -118,7 +118,7 @@ fn model(report: &Report) -> String {
                     "<li>{}: {} ({}){multiples}</li>",
                     escape(label),
                     hz(e.frequency_hz),
-                    rpm(e.frequency_hz)
+                    rpm(e.frequency_hz * 60.0)
                 )
             })
             .collect();

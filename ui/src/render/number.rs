@@ -17,9 +17,10 @@ pub(crate) fn hz(value: f64) -> String {
     format!("{} Hz", sig(value, 4))
 }
 
-/// Revolutions (cycles) per minute from hertz: "691.5 rpm".
-pub(crate) fn rpm(value_hz: f64) -> String {
-    format!("{} rpm", sig(value_hz * 60.0, 4))
+/// Revolutions (cycles) per minute: "691.5 rpm". A mode's comes with the report (`rpm`); an
+/// excitation's is its frequency in hertz times 60.
+pub(crate) fn rpm(value_rpm: f64) -> String {
+    format!("{} rpm", sig(value_rpm, 4))
 }
 
 /// A ratio as a percentage: "12.5 %".

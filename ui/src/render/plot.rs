@@ -37,7 +37,7 @@ pub fn plot_svg(report: &Report, number: usize) -> String {
     let px = |x: f64| LEFT + x * scale;
     let caption = match mode {
         Some(m) if m.rigid_body => format!("Mode {}: rigid-body motion, 0 Hz", m.number),
-        Some(m) => format!("Mode {}: {} ({})", m.number, hz(m.frequency_hz), rpm(m.frequency_hz)),
+        Some(m) => format!("Mode {}: {} ({})", m.number, hz(m.frequency_hz), rpm(m.rpm)),
         None => "No mode to draw".to_string(),
     };
     let mut out = format!(

@@ -113,7 +113,7 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
     out.push_str(&format!(
         "<td class=\"mb-hz\"{data_hz}><span class=\"mb-main\">{}</span>{tags}<span class=\"mb-sub\">{}</span></td>",
         hz(m.frequency_hz),
-        rpm(m.frequency_hz)
+        rpm(m.rpm)
     ));
     // Differences far below the digits shown say only that the two methods agree.
     let difference = m.fe_difference.map(|d| match d {
