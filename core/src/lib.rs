@@ -13,7 +13,6 @@ pub mod schema;
 pub mod section;
 pub mod units;
 
-
 pub use error::{Error, ErrorKind, Result};
 pub use path::FieldPath;
 pub mod model;

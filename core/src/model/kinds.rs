@@ -1,4 +1,9 @@
-//! The kinds of end and attachment, named as the scenario format and the report name them.
+//! The kinds of end and attachment, named as the scenario format and the report name them, and
+//! how each kind of attachment becomes the model's.
+
+use super::Attachment;
+use crate::error::Result;
+use crate::schema;
 
 /// How an end is held, as the scenario and the report name it: "free", "pinned", "clamped", "guided" or "elastic".
 #[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
@@ -80,6 +85,31 @@ impl EndKind {
 }
 
 impl AttachmentKind {
+    /// The model's attachment of this kind at `position` (m), given the values of the fields
+    /// the schema lists for the kind, in SI (`value(key)`; 0 for an optional field left out).
+    /// The model checks the result; a value the model does not carry as written is checked here.
+    pub(crate) fn model(self, position: f64, value: &dyn Fn(&str) -> f64) -> Result<Attachment> {
+        Ok(match self {
+            AttachmentKind::Mass => Attachment::Mass {
+                position,
+                mass: value(schema::MASS.name),
+                rotary_inertia: value(schema::ROTARY_INERTIA.name),
+            },
+            AttachmentKind::Spring => {
+                Attachment::Spring { position, stiffness: value(schema::SPRING_STIFFNESS.name) }
+            }
+            AttachmentKind::RotationalSpring => {
+                Attachment::RotationalSpring { position, stiffness: value(schema::ROTATIONAL_STIFFNESS.name) }
+            }
+            AttachmentKind::Support => Attachment::Support { position },
+            AttachmentKind::SprungMass => Attachment::SprungMass {
+                position,
+                mass: value(schema::SPRUNG_MASS.name),
+                stiffness: value(schema::SPRUNG_STIFFNESS.name),
+            },
+        })
+    }
+
     /// The kind with this name.
     pub fn from_id(id: &str) -> Option<AttachmentKind> {
         AttachmentKind::ALL.into_iter().find(|k| k.id() == id)

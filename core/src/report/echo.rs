@@ -2,7 +2,7 @@
 //! conversion applied.
 
 use super::{AttachmentEcho, BeamEcho, ConversionEcho, EndEcho, ExcitationEcho, SegmentReport};
-use crate::model::{Attachment, AttachmentKind, End, EndKind, Model};
+use crate::model::{Attachment, End, EndKind, Model};
 use crate::scenario::Inputs;
 
 /// The beam as modelled, from the validated model and how its segments were described.
@@ -37,13 +37,15 @@ pub(super) fn beam(model: &Model, inputs: &Inputs) -> BeamEcho {
             rotational: finite(rotational),
         },
     };
+    // The kind is the scenario's; what the model carries comes from the model's attachment, so
+    // a kind of the scenario that the model carries as another is echoed under its own name.
     let attachments = model
         .attachments()
         .iter()
-        .zip(&inputs.labels)
-        .map(|(a, label)| {
+        .zip(inputs.labels.iter().zip(&inputs.kinds))
+        .map(|(a, (label, &kind))| {
             let base = AttachmentEcho {
-                kind: AttachmentKind::Mass,
+                kind,
                 position: a.position(),
                 label: label.clone(),
                 mass: None,
@@ -52,33 +54,16 @@ pub(super) fn beam(model: &Model, inputs: &Inputs) -> BeamEcho {
                 rigid: false,
             };
             match *a {
-                Attachment::Mass { mass, rotary_inertia, .. } => AttachmentEcho {
-                    kind: AttachmentKind::Mass,
-                    mass: Some(mass),
-                    rotary_inertia: Some(rotary_inertia),
-                    ..base
-                },
-                Attachment::Spring { stiffness, .. } => AttachmentEcho {
-                    kind: AttachmentKind::Spring,
-                    stiffness: finite(stiffness),
-                    rigid: stiffness.is_infinite(),
-                    ..base
-                },
-                Attachment::RotationalSpring { stiffness, .. } => AttachmentEcho {
-                    kind: AttachmentKind::RotationalSpring,
-                    stiffness: finite(stiffness),
-                    rigid: stiffness.is_infinite(),
-                    ..base
-                },
-                Attachment::Support { .. } => {
-                    AttachmentEcho { kind: AttachmentKind::Support, rigid: true, ..base }
+                Attachment::Mass { mass, rotary_inertia, .. } => {
+                    AttachmentEcho { mass: Some(mass), rotary_inertia: Some(rotary_inertia), ..base }
                 }
-                Attachment::SprungMass { mass, stiffness, .. } => AttachmentEcho {
-                    kind: AttachmentKind::SprungMass,
-                    mass: Some(mass),
-                    stiffness: Some(stiffness),
-                    ..base
-                },
+                Attachment::Spring { stiffness, .. } | Attachment::RotationalSpring { stiffness, .. } => {
+                    AttachmentEcho { stiffness: finite(stiffness), rigid: stiffness.is_infinite(), ..base }
+                }
+                Attachment::Support { .. } => AttachmentEcho { rigid: true, ..base },
+                Attachment::SprungMass { mass, stiffness, .. } => {
+                    AttachmentEcho { mass: Some(mass), stiffness: Some(stiffness), ..base }
+                }
             }
         })
         .collect();

@@ -192,39 +192,26 @@ pub(crate) fn attachment(n: &Node<'_>) -> Result<AttachmentInput> {
     let names = AttachmentKind::ALL.map(|k| (k.id(), k));
     n.object("an attachment object, with its \"type\"")?;
     let kind = n.require("type", "the kind of attachment")?.choice("an attachment", &names)?;
-    let choice = schema::find(&schema::ATTACHMENTS, kind.id());
-    let what = match kind {
-        AttachmentKind::Spring | AttachmentKind::RotationalSpring => "a spring".to_string(),
-        _ => format!("a {}", kind.id().replace('-', " ")),
-    };
-    n.fields(&what, &allowed("type", &schema::ATTACHMENT_FIELDS, choice))?;
-    let position = || n.require_quantity(schema::POSITION.name, schema::POSITION.what);
-    let label = || n.text_at(schema::LABEL.name);
-    let required = |f: &Field| n.require_quantity(f.name, f.what);
-    Ok(match kind {
-        AttachmentKind::Mass => AttachmentInput::Mass {
-            position: position()?,
-            mass: required(&schema::MASS)?,
-            rotary_inertia: n.quantity_at(schema::ROTARY_INERTIA.name)?,
-            label: label()?,
-        },
-        AttachmentKind::Spring => AttachmentInput::Spring {
-            position: position()?,
-            stiffness: required(&schema::SPRING_STIFFNESS)?,
-            label: label()?,
-        },
-        AttachmentKind::RotationalSpring => AttachmentInput::RotationalSpring {
-            position: position()?,
-            stiffness: required(&schema::ROTATIONAL_STIFFNESS)?,
-            label: label()?,
-        },
-        AttachmentKind::Support => AttachmentInput::Support { position: position()?, label: label()? },
-        AttachmentKind::SprungMass => AttachmentInput::SprungMass {
-            position: position()?,
-            mass: n.require_quantity(schema::SPRUNG_MASS.name, "a mass")?,
-            stiffness: required(&schema::SPRUNG_STIFFNESS)?,
-            label: label()?,
-        },
+    let own = schema::find(&schema::ATTACHMENTS, kind.id()).map_or(&[][..], |c| c.fields);
+    let what = format!("a {}", kind.id().replace('-', " "));
+    n.fields(
+        &what,
+        &allowed("type", &schema::ATTACHMENT_FIELDS, schema::find(&schema::ATTACHMENTS, kind.id())),
+    )?;
+    let mut values = Vec::with_capacity(own.len());
+    for field in own {
+        let value = if field.optional {
+            n.quantity_at(field.name)?
+        } else {
+            Some(n.require_quantity(field.name, field.what)?)
+        };
+        values.extend(value.map(|q| (field.name, q)));
+    }
+    Ok(AttachmentInput {
+        kind,
+        position: n.require_quantity(schema::POSITION.name, schema::POSITION.what)?,
+        values,
+        label: n.text_at(schema::LABEL.name)?,
     })
 }
 

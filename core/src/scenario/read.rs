@@ -23,6 +23,8 @@ pub struct Inputs {
     pub segments: Vec<SegmentEcho>,
     /// Per attachment: its label (empty when none was given).
     pub labels: Vec<String>,
+    /// Per attachment: its kind, as the scenario names it.
+    pub kinds: Vec<crate::model::AttachmentKind>,
     /// Excitations: (label, frequency in Hz, harmonics to check).
     pub excitations: Vec<(String, f64, usize)>,
     /// Separation margin as a ratio.
@@ -100,12 +102,11 @@ impl Scenario {
         let left = read_end(&mut r, &self.left, &"left".into())?;
         let right = read_end(&mut r, &self.right, &"right".into())?;
         let mut attachments = Vec::with_capacity(self.attachments.len());
-        let mut labels = Vec::with_capacity(self.attachments.len());
         for (i, a) in self.attachments.iter().enumerate() {
-            let (attachment, label) = read_attachment(&mut r, a, &FieldPath::item("attachments", i))?;
-            attachments.push(attachment);
-            labels.push(label);
+            attachments.push(read_attachment(&mut r, a, &FieldPath::item("attachments", i))?);
         }
+        let labels = self.attachments.iter().map(|a| a.label.clone().unwrap_or_default()).collect();
+        let kinds = self.attachments.iter().map(|a| a.kind).collect();
         let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })
             .map_err(|e| {
                 let e = match segment_of(&e.path).and_then(|i| Some((i, origins.get(i)?.as_ref()?))) {
@@ -133,6 +134,7 @@ impl Scenario {
             options,
             segments: echoes,
             labels,
+            kinds,
             excitations,
             margin,
             conversions: r.conversions,
@@ -275,40 +277,26 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
     })
 }
 
-fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Result<(Attachment, String)> {
-    let at = |field: &str| path.key(field);
-    let label = |l: &Option<String>| l.clone().unwrap_or_default();
-    Ok(match a {
-        AttachmentInput::Mass { position, mass, rotary_inertia, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
-            let rotary_inertia = match rotary_inertia {
-                Some(q) => r.read(q, Kind::RotaryInertia, &at("rotary_inertia"))?,
-                None => 0.0,
-            };
-            (Attachment::Mass { position, mass, rotary_inertia }, label(l))
-        }
-        AttachmentInput::Spring { position, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
-            (Attachment::Spring { position, stiffness }, label(l))
-        }
-        AttachmentInput::RotationalSpring { position, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let stiffness = r.spring(stiffness, Kind::RotationalStiffness, &at("stiffness"))?;
-            (Attachment::RotationalSpring { position, stiffness }, label(l))
-        }
-        AttachmentInput::Support { position, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            (Attachment::Support { position }, label(l))
-        }
-        AttachmentInput::SprungMass { position, mass, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
-            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
-            (Attachment::SprungMass { position, mass, stiffness }, label(l))
-        }
-    })
+/// An attachment: its position, then each field the schema gives its type, in its kind
+/// (stiffnesses may be written "rigid"; an optional field left out is 0), made into the model's
+/// attachment by its kind.
+fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Result<Attachment> {
+    let position = r.read(&a.position, schema::POSITION.kind, &path.key(schema::POSITION.name))?;
+    let own = schema::find(&schema::ATTACHMENTS, a.kind.id()).map_or(&[][..], |c| c.fields);
+    let mut values = Vec::with_capacity(own.len());
+    for field in own {
+        let at = path.key(field.name);
+        let value = match a.value(field.name) {
+            Some(q) if matches!(field.kind, Kind::Stiffness | Kind::RotationalStiffness) => {
+                r.spring(q, field.kind, &at)?
+            }
+            Some(q) => r.read(q, field.kind, &at)?,
+            None => 0.0,
+        };
+        values.push((field.name, value));
+    }
+    let value = |key: &str| values.iter().find(|(k, _)| *k == key).map_or(0.0, |(_, v)| *v);
+    a.kind.model(position, &value).map_err(|e| r.typed(e.at(path)))
 }
 
 fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<(String, f64, usize)> {

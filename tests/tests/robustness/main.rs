@@ -11,7 +11,6 @@ mod scenarios;
 
 use modebench::Error;
 
-
 /// Common practice, no source: a message an engineer reads beside a field fits in a few lines.
 const LONGEST_MESSAGE: usize = 300;
 
