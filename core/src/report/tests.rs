@@ -65,33 +65,13 @@ fn a_report_reads_back_from_its_json_as_itself() {
 /// The kinds' `id` is the name they serialise to, so that a page writes what a report says.
 #[test]
 fn kinds_name_themselves_as_they_serialise() {
-    let ends = [EndKind::Free, EndKind::Pinned, EndKind::Clamped, EndKind::Guided, EndKind::Elastic];
-    for kind in ends {
+    for kind in EndKind::ALL {
         assert_eq!(serde_json::to_value(kind).ok(), Some(serde_json::json!(kind.id())));
     }
-    let attachments = [
-        AttachmentKind::Mass,
-        AttachmentKind::Spring,
-        AttachmentKind::RotationalSpring,
-        AttachmentKind::Support,
-        AttachmentKind::SprungMass,
-    ];
-    for kind in attachments {
+    for kind in AttachmentKind::ALL {
         assert_eq!(serde_json::to_value(kind).ok(), Some(serde_json::json!(kind.id())));
     }
-    use crate::analysis::WarningCode as W;
-    let codes = [
-        W::Accuracy,
-        W::FeDisagrees,
-        W::SamePoint,
-        W::RigidBody,
-        W::FeUnconverged,
-        W::Repeated,
-        W::ReportPointAtNode,
-        W::ResonanceMargin,
-        W::ShearMatters,
-    ];
-    for code in codes {
+    for code in crate::analysis::WarningCode::ALL {
         assert_eq!(serde_json::to_value(code).ok(), Some(serde_json::json!(code.id())));
     }
 }
