@@ -12,6 +12,8 @@ pub enum Range {
     Between(f64, f64),
     /// Zero to `.0`.
     UpTo(f64),
+    /// From `-.0` to `.0`: a value with a sign (a force, tension positive).
+    Magnitude(f64),
     /// Above zero, at most `.0` (which may be infinite).
     AboveZero(f64),
     /// At least `.0` and below `.1`.
@@ -33,6 +35,7 @@ impl Range {
             Range::Between(lo, hi) => format!("between {} and {} {unit}", number(lo), number(hi)),
             Range::UpTo(hi) if hi.is_infinite() => "zero or more".to_string(),
             Range::UpTo(hi) => format!("between 0 and {} {unit}", number(hi)),
+            Range::Magnitude(hi) => format!("between {} and {} {unit}", number(-hi), number(hi)),
             Range::AboveZero(hi) if hi.is_infinite() => "greater than zero".to_string(),
             Range::AboveZero(hi) => format!("greater than zero, at most {} {unit}", number(hi)),
             Range::Below(lo, hi) => format!("at least {} and below {}", number(lo), number(hi)),
@@ -46,7 +49,11 @@ impl Range {
     /// The largest value allowed (infinite when there is none).
     pub fn high(self) -> f64 {
         match self {
-            Range::Between(_, hi) | Range::UpTo(hi) | Range::AboveZero(hi) | Range::Below(_, hi) => hi,
+            Range::Between(_, hi)
+            | Range::UpTo(hi)
+            | Range::Magnitude(hi)
+            | Range::AboveZero(hi)
+            | Range::Below(_, hi) => hi,
             Range::Fraction => 1.0,
             Range::Whole(_, hi) => hi as f64,
             Range::Any | Range::OnTheBeam => f64::INFINITY,
@@ -62,6 +69,7 @@ impl Range {
             Range::Any | Range::OnTheBeam => !v.is_nan(),
             Range::Between(lo, hi) => v > 0.0 && (lo..=hi).contains(&v),
             Range::UpTo(hi) => (0.0..=hi).contains(&v),
+            Range::Magnitude(hi) => v.abs() <= hi,
             Range::AboveZero(hi) => v > 0.0 && v <= hi,
             Range::Below(lo, hi) => v >= lo && v < hi,
             Range::Fraction => v > 0.0 && v < 1.0,
@@ -98,6 +106,12 @@ impl Range {
                 (ErrorKind::OutOfRange, format!("{what} must lie {allowed}; check the unit"))
             }
             Range::Fraction => (ErrorKind::OutOfRange, format!("{what} must lie {allowed}")),
+            Range::Magnitude(_) if !v.is_finite() => {
+                (ErrorKind::NotFinite, format!("{what} must be a finite number {allowed}"))
+            }
+            Range::Magnitude(_) => {
+                (ErrorKind::OutOfRange, format!("{what} must lie {allowed}; check the unit"))
+            }
             _ => (ErrorKind::OutOfRange, format!("{what} must be {allowed}")),
         })
     }
@@ -126,6 +140,11 @@ mod tests {
             Some("a spring must lie between 0 and 1e20 N/m, or \"rigid\"".into())
         );
         assert_eq!(Range::Whole(1, 20).words("", false), "a whole number from 1 to 20");
+        let force = Range::Magnitude(1e12);
+        assert!(
+            force.contains(-5.0, false) && !force.contains(2e12, false) && !force.contains(f64::NAN, false)
+        );
+        assert_eq!(force.words("N", false), "between -1e12 and 1e12 N");
         assert!(!Range::Whole(1, 20).contains(2.5, false));
     }
 }

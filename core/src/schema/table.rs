@@ -1,5 +1,7 @@
 //! The table: every field of the scenario format, object by object. The editor's catalogue and
 //! the format's documentation read the same entries, so the words here are shown to users.
+//! Longer than 400 lines on purpose: it is one table, read top to bottom in the order of the
+//! format's documentation, and a field is easier to find, and to add, where its neighbours are.
 
 use super::{doc, Choice, Field, Form, Range};
 use crate::units::{Kind, UnitSystem};

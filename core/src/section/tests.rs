@@ -1,5 +1,7 @@
 //! Tests of section properties: handbook closed forms, a published pipe size, an independent
 //! numerical integration over the shape, Cowper's shear coefficients and their limits, validation.
+//! Longer than 400 lines because each shape's checks sit together with their sources; the grid
+//! integration has a file of its own (`tests_grid.rs`).
 
 use super::shear;
 use super::*;
