@@ -1,7 +1,7 @@
 //! A report, or an error, read back from JSON held as a `serde_json::Value`, field by field by
 //! hand. The browser's page reads the answer of its solving worker this way: serde's derived
 //! deserialisers for these types would cost the page's engine about 75 KB, this reader a
-//! fraction of that. Each type lists its fields once, in [`fields!`], and a field left out does
+//! fraction of that. Each type lists its fields once, in `fields!`, and a field left out does
 //! not compile; a test reads every documented scenario's report back equal, bit for bit, to
 //! what serde reads.
 
