@@ -210,14 +210,21 @@ impl fmt::Display for Error {
     }
 }
 
-/// Whether `message` already shows `text` as a word of its own: "1e20" does not show "0", and
-/// "the wall (40 mm)" shows "40 mm".
+/// Whether `message` already shows the value `text`: "the wall (40 mm)" shows "40 mm" and
+/// "the web (51)" shows "51", but "1e20" does not show "0", nor does "between 0 and 100 %" show
+/// a typed 0: a bare number counts as shown only in brackets or quotes, as messages quote values.
 pub fn mentions(message: &str, text: &str) -> bool {
-    let part_of_number = |c: Option<char>| c.is_some_and(|c| c.is_alphanumeric() || c == '.' || c == '-');
+    let part_of_word = |c: Option<char>| c.is_some_and(|c| c.is_alphanumeric() || c == '.' || c == '-');
+    let bare_number = crate::units::decimal(text).is_some();
     !text.is_empty()
         && message.match_indices(text).any(|(i, _)| {
-            !part_of_number(message[..i].chars().next_back())
-                && !part_of_number(message[i + text.len()..].chars().next())
+            let before = message[..i].chars().next_back();
+            let after = message[i + text.len()..].chars().next();
+            if bare_number {
+                matches!((before, after), (Some('('), Some(')')) | (Some('"'), Some('"')))
+            } else {
+                !part_of_word(before) && !part_of_word(after)
+            }
         })
 }
 
@@ -280,6 +287,10 @@ mod tests {
         // the value.
         let e = Error::new(ErrorKind::OutOfRange, "must be from 1 to 20").with_value(0);
         assert_eq!(e.to_string(), "must be from 1 to 20; got 0");
+        let e = Error::new(ErrorKind::OutOfRange, "must lie between 0 and 100 %").with_value(0);
+        assert_eq!(e.to_string(), "must lie between 0 and 100 %; got 0");
+        let e = Error::new(ErrorKind::Conflict, "the web (51) must be thinner").with_value(51);
+        assert_eq!(e.to_string(), "the web (51) must be thinner");
         let e = Error::new(ErrorKind::Conflict, "the wall (40 mm) must be thinner").with_value("40 mm");
         assert_eq!(e.to_string(), "the wall (40 mm) must be thinner");
         // Without what was typed, the SI value is the echo.

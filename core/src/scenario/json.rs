@@ -150,9 +150,12 @@ impl<'a> Node<'a> {
 
     /// A whole number for `field`; its range is checked with the model, in one place.
     pub(crate) fn whole(&self, field: &crate::schema::Field) -> Result<usize> {
+        let allowed = field.range.words("", false);
+        if !self.value.is_number() {
+            return Err(self.expected(&allowed));
+        }
         let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok());
         n.ok_or_else(|| {
-            let allowed = field.range.words("", false);
             self.with_shown_value(self.error(ErrorKind::OutOfRange, format!("expected {allowed}")))
         })
     }
