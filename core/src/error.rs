@@ -2,8 +2,9 @@
 
 use std::fmt;
 
+use crate::path::FieldPath;
+
 /// What kind of problem an [`Error`] reports.
-#[non_exhaustive]
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum ErrorKind {
@@ -31,6 +32,20 @@ pub enum ErrorKind {
 }
 
 impl ErrorKind {
+    /// Every kind, in the order they are declared.
+    pub const ALL: [ErrorKind; 10] = [
+        ErrorKind::Syntax,
+        ErrorKind::Missing,
+        ErrorKind::UnknownOption,
+        ErrorKind::NotFinite,
+        ErrorKind::OutOfRange,
+        ErrorKind::UnknownUnit,
+        ErrorKind::WrongDimension,
+        ErrorKind::Conflict,
+        ErrorKind::Model,
+        ErrorKind::NoConvergence,
+    ];
+
     /// The kind's name as serialised: "unknown-unit", "out-of-range", …
     pub fn id(self) -> &'static str {
         match self {
@@ -112,12 +127,12 @@ pub fn as_typed(value: f64) -> String {
 /// An error with the field path it concerns (`attachments[2].position`), the offending value
 /// as the user wrote it, and a message that says what is allowed.
 #[derive(Debug, Clone, PartialEq, serde::Serialize, serde::Deserialize)]
-#[non_exhaustive]
 pub struct Error {
     /// The kind of problem.
     pub kind: ErrorKind,
-    /// Dotted path of the offending field, empty for whole-input problems.
-    pub path: String,
+    /// Where the offending field is (`segments[0].length`), empty for whole-input problems;
+    /// serialised as that text.
+    pub path: FieldPath,
     /// The offending value as written (cut to [`ECHO_LIMIT`] characters), when there is one.
     pub value: Option<String>,
     /// The offending value in SI with its unit ("7.62 m"), when the check was made in SI.
@@ -133,25 +148,13 @@ impl Error {
         let message = message.into();
         let message =
             if message.chars().count() > MESSAGE_LIMIT { cut(&message, MESSAGE_LIMIT) } else { message };
-        Error { kind, path: String::new(), value: None, si: None, message }
+        Error { kind, path: FieldPath::root(), value: None, si: None, message }
     }
 
     /// Sets the field path, prefixing any path already present (`segments[0]` + `section.wall`).
-    /// A field name the user typed is cut like any other echo.
     #[must_use]
-    pub fn at(mut self, path: impl AsRef<str>) -> Self {
-        let outer = path.as_ref();
-        let outer = if outer.chars().count() > ECHO_LIMIT {
-            outer.split('.').map(echo).collect::<Vec<_>>().join(".")
-        } else {
-            outer.to_string()
-        };
-        self.path = match (outer.is_empty(), self.path.is_empty()) {
-            (true, _) => self.path,
-            (false, true) => outer,
-            (false, false) if self.path.starts_with('[') => format!("{outer}{}", self.path),
-            (false, false) => format!("{outer}.{}", self.path),
-        };
+    pub fn at(mut self, outer: impl Into<FieldPath>) -> Self {
+        self.path = outer.into().join(&self.path);
         self
     }
 
@@ -191,16 +194,38 @@ impl fmt::Display for Error {
             write!(f, "{}: ", self.path)?;
         }
         f.write_str(&self.message)?;
-        let shown = |text: &str| !text.is_empty() && self.message.contains(text);
+        let shown = |text: &str| mentions(&self.message, text);
         let typed = self.value.as_deref().filter(|v| !shown(v));
         let si = self.si.as_deref().filter(|si| !shown(si) && Some(*si) != self.value.as_deref());
         match (typed, si) {
+            // A plain number typed is already SI: its unit is all the SI value adds.
+            (Some(typed), Some(si)) if si.strip_prefix(typed).is_some_and(|unit| unit.starts_with(' ')) => {
+                write!(f, "; got {si}")
+            }
             (Some(typed), Some(si)) => write!(f, "; got {} ({si})", quoted(typed)),
             (Some(typed), None) => write!(f, "; got {}", quoted(typed)),
             (None, Some(si)) if self.value.is_none() => write!(f, "; got {si}"),
             _ => Ok(()),
         }
     }
+}
+
+/// Whether `message` already shows the value `text`: "the wall (40 mm)" shows "40 mm" and
+/// "the web (51)" shows "51", but "1e20" does not show "0", nor does "between 0 and 100 %" show
+/// a typed 0: a bare number counts as shown only in brackets or quotes, as messages quote values.
+pub fn mentions(message: &str, text: &str) -> bool {
+    let part_of_word = |c: Option<char>| c.is_some_and(|c| c.is_alphanumeric() || c == '.' || c == '-');
+    let bare_number = crate::units::decimal(text).is_some();
+    !text.is_empty()
+        && message.match_indices(text).any(|(i, _)| {
+            let before = message[..i].chars().next_back();
+            let after = message[i + text.len()..].chars().next();
+            if bare_number {
+                matches!((before, after), (Some('('), Some(')')) | (Some('"'), Some('"')))
+            } else {
+                !part_of_word(before) && !part_of_word(after)
+            }
+        })
 }
 
 /// A value as typed, in quotes unless it is a plain number.
@@ -223,10 +248,12 @@ mod tests {
 
     #[test]
     fn paths_nest_outer_first() {
-        let e =
-            Error::new(ErrorKind::OutOfRange, "must be positive").at("wall").at("section").at("segments[0]");
+        let e = Error::new(ErrorKind::OutOfRange, "must be positive")
+            .at("wall")
+            .at("section")
+            .at(FieldPath::item("segments", 0));
         assert_eq!(e.path, "segments[0].section.wall");
-        let e = Error::new(ErrorKind::OutOfRange, "x").at("[2]").at("attachments");
+        let e = Error::new(ErrorKind::OutOfRange, "x").at(FieldPath::root().index(2)).at("attachments");
         assert_eq!(e.path, "attachments[2]");
     }
 
@@ -256,7 +283,14 @@ mod tests {
             .with_value("300 in")
             .with_si(7.62, "m");
         assert_eq!(e.to_string(), "report_point: must lie on the beam (0 to 7.6 m); got \"300 in\" (7.62 m)");
-        // A value the message already quotes is not repeated.
+        // A value the message already quotes is not repeated; a number inside another is not
+        // the value.
+        let e = Error::new(ErrorKind::OutOfRange, "must be from 1 to 20").with_value(0);
+        assert_eq!(e.to_string(), "must be from 1 to 20; got 0");
+        let e = Error::new(ErrorKind::OutOfRange, "must lie between 0 and 100 %").with_value(0);
+        assert_eq!(e.to_string(), "must lie between 0 and 100 %; got 0");
+        let e = Error::new(ErrorKind::Conflict, "the web (51) must be thinner").with_value(51);
+        assert_eq!(e.to_string(), "the web (51) must be thinner");
         let e = Error::new(ErrorKind::Conflict, "the wall (40 mm) must be thinner").with_value("40 mm");
         assert_eq!(e.to_string(), "the wall (40 mm) must be thinner");
         // Without what was typed, the SI value is the echo.
@@ -270,10 +304,11 @@ mod tests {
         // the path and the message.
         let paragraph = "é".repeat(100_000);
         let e = Error::new(ErrorKind::UnknownOption, format!("unknown material \"{}\"", echo(&paragraph)))
-            .at(format!("segments[0].{paragraph}"))
+            .at(FieldPath::item("segments", 0).key(&paragraph))
             .with_value(&paragraph);
         assert_eq!(e.value.as_deref().map(|v| v.chars().count()), Some(ECHO_LIMIT + 1));
-        assert!(e.path.starts_with("segments[0].ééé") && e.path.ends_with('…'), "{}", e.path);
+        let path = e.path.to_string();
+        assert!(path.starts_with("segments[0].ééé") && path.ends_with('…'), "{path}");
         assert!(e.to_string().chars().count() < 300, "{e}");
         // The backstop: a message that quotes user text without `echo` is still cut.
         let e = Error::new(ErrorKind::Syntax, paragraph);

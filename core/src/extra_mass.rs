@@ -11,6 +11,7 @@
 mod tests;
 
 use crate::error::{Error, ErrorKind};
+use crate::path::FieldPath;
 use crate::section::SectionProps;
 use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
@@ -85,7 +86,7 @@ pub struct MassBreakdown {
     /// Added mass of the surrounding water.
     pub added_water: f64,
     /// Unit conversions applied to the written values, by field ("lining").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 impl MassBreakdown {
@@ -114,10 +115,10 @@ pub fn breakdown(
             .with_number(section.area));
     }
     let mut conversions = Vec::new();
-    let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
+    let mut read = |quantity: &Quantity, kind: Kind, field: &FieldPath| {
         units::convert_field(quantity, kind, field, &mut conversions)
     };
-    let not_negative = |value: f64, quantity: &Quantity, field: &str, what: &str| {
+    let not_negative = |value: f64, quantity: &Quantity, field: &FieldPath, what: &str| {
         if value >= 0.0 {
             Ok(value)
         } else {
@@ -139,17 +140,18 @@ pub fn breakdown(
                 .at("contents_density")
                 .with_value(quantity));
             }
-            let rho = read(quantity, Kind::Density, "contents_density")?;
-            not_negative(rho, quantity, "contents_density", "the contents density")? * section.bore_area
+            let rho = read(quantity, Kind::Density, &"contents_density".into())?;
+            not_negative(rho, quantity, &"contents_density".into(), "the contents density")?
+                * section.bore_area
         }
     };
 
     let lining = match &extra.lining {
         None => 0.0,
         Some(quantity) => not_negative(
-            read(quantity, Kind::MassPerLength, "lining")?,
+            read(quantity, Kind::MassPerLength, &"lining".into())?,
             quantity,
-            "lining",
+            &"lining".into(),
             "the lining mass",
         )?,
     };
@@ -167,7 +169,7 @@ pub fn breakdown(
             let rho_w = match &submerged.water_density {
                 None => DEFAULT_WATER_DENSITY,
                 Some(quantity) => {
-                    let field = "submerged.water_density";
+                    let field = &FieldPath::from("submerged").key("water_density");
                     let rho_w = read(quantity, Kind::Density, field)?;
                     if rho_w <= 0.0 {
                         return Err(Error::new(ErrorKind::OutOfRange, "the water density must be positive")
@@ -180,7 +182,7 @@ pub fn breakdown(
             let c_a = match &submerged.added_mass_coefficient {
                 None => DEFAULT_ADDED_MASS_COEFFICIENT,
                 Some(quantity) => {
-                    let field = "submerged.added_mass_coefficient";
+                    let field = &FieldPath::from("submerged").key("added_mass_coefficient");
                     not_negative(
                         read(quantity, Kind::Ratio, field)?,
                         quantity,
@@ -208,7 +210,7 @@ pub fn breakdown(
             format!(
                 "the mass per length this gives is too large to compute with (a beam carries at most {} kg/m); \
                  check the unit",
-                crate::error::number(crate::model::MASS_PER_LENGTH.1)
+                crate::error::number(crate::schema::MASS_PER_LENGTH.range.high())
             ),
         )
         .at(field);

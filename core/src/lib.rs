@@ -8,15 +8,13 @@
 pub mod error;
 pub mod extra_mass;
 pub mod material;
+pub mod path;
+pub mod schema;
 pub mod section;
 pub mod units;
 
-#[cfg(test)]
-mod robustness;
-#[cfg(test)]
-mod test_support;
-
 pub use error::{Error, ErrorKind, Result};
+pub use path::FieldPath;
 pub mod model;
 
 mod band;

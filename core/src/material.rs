@@ -184,7 +184,7 @@ pub struct ResolvedMaterial {
     /// Poisson's ratio ν.
     pub poisson: f64,
     /// Unit conversions applied to the written properties, by field ("youngs_modulus").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(crate::path::FieldPath, Conversion)>,
 }
 
 /// Resolves a preset id or custom properties to SI values.
@@ -217,12 +217,16 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
     }
 }
 
-/// Plausible moduli, Pa: wide enough for soft foams and for diamond, narrow enough to catch a
-/// modulus typed without its unit ("200" is read as 200 Pa, not 200 GPa).
-const MODULUS_RANGE: (f64, f64) = (1e3, 1e13);
-/// Plausible densities, kg/m³: from light foams to beyond the densest metals; it catches a density
-/// typed without its unit ("0.283" is read as 0.283 kg/m³, not 0.283 lb/in³).
-const DENSITY_RANGE: (f64, f64) = (1.0, 1e5);
+/// Plausible moduli and densities, from the schema.
+const MODULUS_RANGE: (f64, f64) = bounds(crate::schema::MODULUS);
+const DENSITY_RANGE: (f64, f64) = bounds(crate::schema::DENSITY);
+
+const fn bounds(range: crate::schema::Range) -> (f64, f64) {
+    match range {
+        crate::schema::Range::Between(low, high) => (low, high),
+        _ => (0.0, f64::INFINITY),
+    }
+}
 
 fn resolve_custom(
     youngs_modulus: &Quantity,
@@ -232,7 +236,7 @@ fn resolve_custom(
 ) -> Result<ResolvedMaterial, Error> {
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        units::convert_field(quantity, kind, field, &mut conversions)
+        units::convert_field(quantity, kind, &field.into(), &mut conversions)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;
     let e = plausible(e, youngs_modulus, "youngs_modulus", "Young's modulus", MODULUS_RANGE, Kind::Pressure)?;

@@ -12,13 +12,14 @@ mod tests;
 mod tests_grid;
 
 use crate::error::{number, Error, ErrorKind};
+use crate::path::FieldPath;
+use crate::schema;
 use crate::units::{self, Conversion, Kind, Quantity};
 use std::f64::consts::PI;
 
 /// Which principal axis an I-section bends about.
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, serde::Serialize)]
 #[serde(rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum BendingAxis {
     /// Bending about the axis parallel to the flanges: the web lies in the plane of vibration.
     #[default]
@@ -33,7 +34,6 @@ pub enum BendingAxis {
 /// because every variant is a struct variant (the tests check it).
 #[derive(Clone, Debug, PartialEq, serde::Serialize)]
 #[serde(tag = "shape", rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum SectionInput {
     /// Solid rectangle; `depth` is measured in the plane of vibration.
     Rectangle {
@@ -107,7 +107,7 @@ pub struct SectionProps {
     /// Open internal area that can hold contents, m²; 0 for solid shapes.
     pub bore_area: f64,
     /// Unit conversions applied to the written dimensions, by field ("depth").
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 /// Computes the properties of a section for a material with Poisson's ratio `poisson`.
@@ -296,14 +296,10 @@ fn cube_difference(h: f64, gap: f64) -> f64 {
     gap * (h * h + h * h_i + h_i * h_i)
 }
 
-/// The range of a section's dimensions, m: a nanometre to a thousand kilometres, as for the
-/// length of a segment.
-const DIMENSION: (f64, f64) = (1e-9, 1e6);
-
 /// Reads dimensions with their units, checks their range and keeps the conversions applied.
 #[derive(Default)]
 struct Reader {
-    conversions: Vec<(String, Conversion)>,
+    conversions: Vec<(FieldPath, Conversion)>,
 }
 
 impl Reader {
@@ -317,21 +313,18 @@ impl Reader {
     /// one overflow or underflow is named here, with what was typed.
     fn positive_of(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
         let value = self.read(quantity, kind, field)?;
-        let (low, high) = match kind {
-            Kind::Area => (DIMENSION.0.powi(2), DIMENSION.1.powi(2)),
-            Kind::SecondMoment => (DIMENSION.0.powi(4), DIMENSION.1.powi(4)),
-            _ => DIMENSION,
+        let range = match kind {
+            Kind::Area => schema::AREA,
+            Kind::SecondMoment => schema::SECOND_MOMENT,
+            _ => schema::DIMENSION,
         };
-        if (low..=high).contains(&value) {
-            return Ok(value);
+        let (what, unit) = (format!("the {}", field.replace('_', " ")), kind.si_unit());
+        match range.refuse(value, &what, unit, false) {
+            None => Ok(value),
+            Some((error, message)) => {
+                Err(Error::new(error, message).at(field).with_value(quantity).with_si(value, unit))
+            }
         }
-        let (what, unit) = (field.replace('_', " "), kind.si_unit());
-        let message = if value > 0.0 {
-            format!("the {what} must lie between {} and {} {unit}; check the unit", number(low), number(high))
-        } else {
-            format!("the {what} must be greater than zero (at most {} {unit})", number(high))
-        };
-        Err(Error::new(ErrorKind::OutOfRange, message).at(field).with_value(quantity).with_si(value, unit))
     }
 
     fn shear_coefficient(&mut self, quantity: &Quantity) -> Result<f64, Error> {
@@ -348,6 +341,6 @@ impl Reader {
     }
 
     fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
-        units::convert_field(quantity, kind, field, &mut self.conversions)
+        units::convert_field(quantity, kind, &FieldPath::from(field), &mut self.conversions)
     }
 }

@@ -21,7 +21,7 @@ pub(crate) fn floats(v: &mut [f64]) {
 mod tests {
     #[test]
     fn sorts_like_the_standard_library() {
-        let mut rng = crate::test_support::SplitMix64::new(3);
+        let mut rng = modebench_tests::random::Rng::new(3);
         for n in 0..60 {
             let mut v: Vec<f64> = (0..n).map(|_| rng.unit() - 0.5).collect();
             let mut reference = v.clone();

@@ -15,7 +15,7 @@ pub(crate) fn render(block: &str, root: &Path) -> Result<String> {
     if let Err(error) = modebench::solve_json(&json) {
         bail!("the scenario does not solve: {error}");
     }
-    Ok(modebench_web::render::widget_html(&json))
+    Ok(modebench_ui::render::widget_html(&json))
 }
 
 /// The scenario JSON of a block, read from a file when the block names one.

@@ -5,7 +5,7 @@
 
 use anyhow::{bail, Result};
 use modebench_tests::published::{self, Case};
-use modebench_web::render::escape;
+use modebench_ui::render::escape;
 
 /// The HTML table. The block's body must be empty, so that a page cannot quietly carry
 /// hand-typed rows.
@@ -36,7 +36,7 @@ pub(crate) fn render(block: &str) -> Result<String> {
 
 /// One row; a difference beyond the case's tolerance is marked, not hidden.
 fn row(case: &Case, got: f64) -> String {
-    let difference = (got - case.expected) / case.expected;
+    let difference = modebench_tests::relative_difference(case.expected, got);
     let digits = significant_digits(&format!("{}", case.expected));
     let outside = difference.abs() > case.tolerance;
     format!(

@@ -2,7 +2,7 @@
 //! so the home page never falls behind the pages that exist.
 
 use anyhow::{bail, Result};
-use modebench_web::render::escape;
+use modebench_ui::render::escape;
 
 use crate::page::Page;
 

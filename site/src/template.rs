@@ -1,7 +1,7 @@
 //! The HTML around every page: head with the content security policy, the site header and
 //! navigation, the page itself, and the footer. Every URL it writes is relative.
 
-use modebench_web::render::escape;
+use modebench_ui::render::escape;
 
 use crate::page::Page;
 

@@ -19,9 +19,15 @@ pub fn check(case: &str, source: &str, expected: f64, got: f64, relative_toleran
 
 /// |got − expected| / |expected| (absolute when expected is zero).
 pub fn relative_error(expected: f64, got: f64) -> f64 {
+    relative_difference(expected, got).abs()
+}
+
+/// (got − expected) / expected, with its sign (got itself when expected is zero): the difference
+/// the site's table of published checks shows.
+pub fn relative_difference(expected: f64, got: f64) -> f64 {
     if expected == 0.0 {
-        got.abs()
+        got
     } else {
-        ((got - expected) / expected).abs()
+        (got - expected) / expected
     }
 }

@@ -1,4 +1,5 @@
-//! Seeded random models for property checks: stepped beams with every kind of end and attachment.
+//! The one seeded generator of the workspace's tests, and random models for property checks:
+//! stepped beams with every kind of end and attachment.
 
 use modebench::{Attachment, End, Model, ModelParts, Segment, Theory};
 
@@ -36,9 +37,14 @@ impl Rng {
         (lo.ln() + (hi.ln() - lo.ln()) * self.unit()).exp()
     }
 
-    /// Uniform index below n.
+    /// Uniform index below n (n > 0); the small modulo bias does not matter for tests.
     pub fn below(&mut self, n: usize) -> usize {
         (self.next_u64() % n as u64) as usize
+    }
+
+    /// One element of a non-empty slice.
+    pub fn pick<'a, T>(&mut self, items: &'a [T]) -> &'a T {
+        &items[self.below(items.len())]
     }
 }
 

@@ -56,7 +56,6 @@ pub fn model_json(id: &str, model: &modebench::Model, count: usize) -> serde_jso
         End::Clamped => json!("clamped"),
         End::Guided => json!("guided"),
         End::Elastic { translational, rotational } => json!({ "kt": translational, "kr": rotational }),
-        _ => unreachable!("every end kind is listed"),
     };
     let attachments: Vec<serde_json::Value> = model
         .attachments()
@@ -75,7 +74,6 @@ pub fn model_json(id: &str, model: &modebench::Model, count: usize) -> serde_jso
             Attachment::SprungMass { position, mass, stiffness } => {
                 json!({ "type": "sprung-mass", "x": position, "m": mass, "k": stiffness })
             }
-            _ => unreachable!("every attachment kind is listed"),
         })
         .collect();
     json!({

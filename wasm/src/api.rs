@@ -47,7 +47,7 @@ pub fn js_error(error: &Error) -> JsValue {
     let kind = error.kind.id();
     let value = error.value.as_deref().map_or(JsValue::NULL, JsValue::from_str);
     // Setting a property on a fresh Error object cannot fail; there is nothing to do if it did.
-    let _ = js_sys::Reflect::set(&js, &"path".into(), &error.path.as_str().into());
+    let _ = js_sys::Reflect::set(&js, &"path".into(), &error.path.to_string().into());
     let _ = js_sys::Reflect::set(&js, &"kind".into(), &kind.into());
     let _ = js_sys::Reflect::set(&js, &"value".into(), &value);
     js.into()

@@ -7,6 +7,7 @@
 mod bench;
 mod ci;
 mod engine;
+mod layers;
 mod project;
 mod run;
 mod server;

@@ -2,7 +2,7 @@
 
 use super::*;
 use crate::section::{properties, SectionInput};
-use crate::test_support::check;
+use modebench_tests::check;
 
 const STEEL: f64 = 7850.0;
 
@@ -82,7 +82,7 @@ fn impossible_extra_mass_is_rejected_with_the_field_named() {
     ];
     for (section, json, kind, path) in cases {
         let e = breakdown(section, STEEL, &extra(json)).expect_err(json);
-        assert_eq!((e.kind, e.path.as_str()), (*kind, *path), "{json}: {e}");
+        assert_eq!((e.kind, e.path.to_string().as_str()), (*kind, *path), "{json}: {e}");
     }
     let e = breakdown(&rectangle(), STEEL, &extra(r#"{"submerged": {}}"#)).unwrap_err();
     assert!(e.message.contains("only modelled for round sections"), "{}", e.message);

@@ -1,7 +1,7 @@
 //! Tests of materials: preset values against their stated sources, custom input and its checks.
 
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 #[test]
 fn presets_hold_the_values_their_sources_state() {
@@ -92,7 +92,7 @@ fn presets_and_custom_materials_resolve() {
 #[test]
 fn bad_materials_are_rejected_with_the_field_named() {
     let e = resolve(&MaterialInput::Preset("unobtainium".into())).unwrap_err();
-    assert_eq!((e.kind, e.path.as_str()), (ErrorKind::UnknownOption, ""));
+    assert_eq!((e.kind, e.path.to_string().as_str()), (ErrorKind::UnknownOption, ""));
     for id in ["steel", "stainless-304", "douglas-fir"] {
         assert!(e.message.contains(id), "the message lists {id}: {}", e.message);
     }
@@ -119,7 +119,7 @@ fn bad_materials_are_rejected_with_the_field_named() {
     ];
     for (input, kind, path) in cases {
         let e = resolve(&input).expect_err(&format!("{input:?}"));
-        assert_eq!((e.kind, e.path.as_str()), (kind, path), "{input:?}: {e}");
+        assert_eq!((e.kind, e.path.to_string().as_str()), (kind, path), "{input:?}: {e}");
     }
     let e = resolve(&custom("200 GPa", "7850", Some("0.7"), None)).unwrap_err();
     assert!(e.message.contains("below 0.5"), "{}", e.message);

@@ -5,7 +5,9 @@
 use crate::error::{number, roughly, Error};
 use crate::extra_mass::MassBreakdown;
 use crate::material::{MaterialInput, ResolvedMaterial};
-use crate::model::{range, FLEXURAL, MASS_PER_LENGTH, SHEAR, SHEAR_RATIO};
+use crate::model::SHEAR_RATIO;
+use crate::path::FieldPath;
+use crate::schema::{FLEXURAL_RIGIDITY, MASS_PER_LENGTH, SHEAR_RIGIDITY};
 use crate::section::SectionProps;
 
 /// What a segment given by section and material was made of, kept to explain a model error.
@@ -20,10 +22,11 @@ pub(super) struct SectionOrigin {
 /// Rewrites a model error at `segment` (`segments[2]`) about a derived property so that it
 /// names the section, the material or the extra mass, whichever decides that property.
 /// Errors about fields the user wrote are returned unchanged.
-pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
-    let Some(field) = e.path.strip_prefix(segment).and_then(|f| f.strip_prefix('.')) else { return e };
+pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> Error {
+    let own_field = e.path.parent().as_ref() == Some(segment);
+    let Some(field) = e.path.last_key().filter(|_| own_field) else { return e };
     let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
-    let at = |place: &str| format!("{segment}.{place}");
+    let at = |place: &str| segment.key(place);
     let (place, message, si) = match field {
         "flexural_rigidity" => {
             let ei = mat.youngs_modulus * props.second_moment;
@@ -32,7 +35,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the bending stiffness EI = E·I of this section in this material must lie {}; check \
                      the section's dimensions and the material's Young's modulus",
-                    range(FLEXURAL, "N·m²")
+                    FLEXURAL_RIGIDITY.allowed()
                 ),
                 (ei, "N·m²"),
             )
@@ -45,7 +48,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the mass per length of this section in this material, with its extra mass, must lie \
                      {}; check the units of the density, the dimensions and the extra mass",
-                    range(MASS_PER_LENGTH, "kg/m")
+                    MASS_PER_LENGTH.allowed()
                 ),
                 (total, "kg/m"),
             )
@@ -60,7 +63,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
                 format!(
                     "the shear rigidity κGA of this section in this material must lie {}; check the \
                      section's dimensions and the material's shear modulus",
-                    range(SHEAR, "N")
+                    SHEAR_RIGIDITY.allowed()
                 ),
                 (kga, "N"),
             )
@@ -80,7 +83,7 @@ pub(super) fn explain(e: Error, segment: &str, origin: &SectionOrigin) -> Error 
 /// The plausibility check of κGA fails for a section segment when E/G, the shear coefficient
 /// κ, or the share of extra mass in m is far from what real beams have: EI/κGA ÷ ρI/m equals
 /// (E/G)·(1/κ)·(m/ρA). Name the factor to blame.
-fn implausible_shear(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
+fn implausible_shear(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> Error {
     let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
     let e_over_g = mat.youngs_modulus / mat.shear_modulus;
     let extra = mass.total() / mass.structural;
@@ -95,13 +98,14 @@ fn implausible_shear(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
     // Real materials have E/G from about 2.5 (metals) to 50 (wood, composites across the grain).
     if !(1.0..=50.0).contains(&e_over_g) {
         let given_g = matches!(&origin.material_input, MaterialInput::Custom { shear_modulus: Some(_), .. });
-        let place = if given_g { "material.shear_modulus" } else { "material" };
+        let material = segment.key("material");
+        let place = if given_g { material.key("shear_modulus") } else { material };
         let message = format!(
             "E/G is {}, but real materials give about 2.5 (metals) to 50 (wood, composites); check the units \
              of the shear modulus and Young's modulus",
             roughly(e_over_g)
         );
-        let mut error = Error::new(e.kind, message).at(format!("{segment}.{place}"));
+        let mut error = Error::new(e.kind, message).at(place);
         if let MaterialInput::Custom { shear_modulus: Some(g), .. } = &origin.material_input {
             error = error.with_value(g).with_si(mat.shear_modulus, "Pa");
         }
@@ -112,11 +116,11 @@ fn implausible_shear(e: Error, segment: &str, origin: &SectionOrigin) -> Error {
             "the extra mass (contents, lining, water) is {} times the section's own, {check}; check its units",
             roughly(extra - 1.0)
         );
-        return Error::new(e.kind, message).at(format!("{segment}.extra_mass"));
+        return Error::new(e.kind, message).at(segment.key("extra_mass"));
     }
     let message = format!(
         "this section's shear coefficient κ is only {}, {check}; check its dimensions",
         roughly(props.shear_coefficient)
     );
-    Error::new(e.kind, message).at(format!("{segment}.section"))
+    Error::new(e.kind, message).at(segment.key("section"))
 }

@@ -5,6 +5,7 @@
 //! the browser build stays small (generic deserialiser code for tagged enums is large).
 
 use crate::error::{Error, ErrorKind, Result};
+use crate::path::FieldPath;
 use crate::units::Quantity;
 use serde_json::{Map, Value};
 
@@ -12,7 +13,7 @@ use serde_json::{Map, Value};
 #[derive(Clone, Debug)]
 pub(crate) struct Node<'a> {
     value: &'a Value,
-    path: String,
+    path: FieldPath,
 }
 
 /// What kind of JSON a value is, for messages.
@@ -30,11 +31,11 @@ fn describe(v: &Value) -> &'static str {
 impl<'a> Node<'a> {
     /// The whole document.
     pub(crate) fn root(value: &'a Value) -> Node<'a> {
-        Node { value, path: String::new() }
+        Node { value, path: FieldPath::root() }
     }
 
     /// Where this value stands in the scenario (`segments[0].section`; empty for the whole).
-    pub(crate) fn path(&self) -> &str {
+    pub(crate) fn path(&self) -> &FieldPath {
         &self.path
     }
 
@@ -58,12 +59,8 @@ impl<'a> Node<'a> {
         }
     }
 
-    fn child_path(&self, name: &str) -> String {
-        if self.path.is_empty() {
-            name.to_string()
-        } else {
-            format!("{}.{name}", self.path)
-        }
+    fn child_path(&self, name: &str) -> FieldPath {
+        self.path.key(name)
     }
 
     /// Checks that the node is an object, before reading a field that says what else it holds.
@@ -114,11 +111,7 @@ impl<'a> Node<'a> {
     /// The items of a list.
     pub(crate) fn items(&self, what: &str) -> Result<Vec<Node<'a>>> {
         let list = self.value.as_array().ok_or_else(|| self.expected(what))?;
-        Ok(list
-            .iter()
-            .enumerate()
-            .map(|(i, value)| Node { value, path: format!("{}[{i}]", self.path) })
-            .collect())
+        Ok(list.iter().enumerate().map(|(i, value)| Node { value, path: self.path.index(i) }).collect())
     }
 
     /// The text of a string.
@@ -155,15 +148,26 @@ impl<'a> Node<'a> {
         self.get(name).map(|n| n.text("a text").map(str::to_string)).transpose()
     }
 
-    /// A whole number in `range`.
-    pub(crate) fn count(&self, range: std::ops::RangeInclusive<usize>) -> Result<usize> {
-        let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok()).filter(|n| range.contains(n));
+    /// A whole number for `field`; its range is checked with the model, in one place.
+    pub(crate) fn whole(&self, field: &crate::schema::Field) -> Result<usize> {
+        let allowed = field.range.words("", false);
+        if !self.value.is_number() {
+            return Err(self.expected(&allowed));
+        }
+        let n = self.value.as_u64().and_then(|n| usize::try_from(n).ok());
         n.ok_or_else(|| {
-            self.with_shown_value(self.error(
-                ErrorKind::OutOfRange,
-                format!("expected a whole number from {} to {}", range.start(), range.end()),
-            ))
+            self.with_shown_value(self.error(ErrorKind::OutOfRange, format!("expected {allowed}")))
         })
+    }
+
+    /// One of the `choices` the schema lists, by its id.
+    pub(crate) fn one_of(
+        &self,
+        what: &str,
+        choices: &'static [crate::schema::Choice],
+    ) -> Result<&'static crate::schema::Choice> {
+        let names: Vec<(&str, &'static crate::schema::Choice)> = choices.iter().map(|c| (c.id, c)).collect();
+        self.choice(what, &names)
     }
 
     /// One of the `names`, mapped to its value.
@@ -189,7 +193,7 @@ macro_rules! deserialize_via_value {
                 let repeated = std::cell::RefCell::new(None);
                 let value =
                     $crate::scenario::text::value(deserializer, &repeated).map_err(|e| {
-                        match repeated.borrow().as_deref() {
+                        match repeated.borrow().as_ref() {
                             Some(path) => <D::Error as serde::de::Error>::custom(
                                 $crate::scenario::text::given_twice(path),
                             ),

@@ -12,12 +12,13 @@ mod read;
 mod tests;
 pub(crate) mod text;
 
-pub use read::{Inputs, SegmentEcho, DEFAULT_MARGIN};
+pub use crate::schema::DEFAULT_MARGIN;
+pub use read::{Inputs, SegmentEcho};
 
 use crate::error::Result;
 use crate::extra_mass::ExtraMassInput;
 use crate::material::MaterialInput;
-use crate::model::Theory;
+use crate::model::{AttachmentKind, Theory};
 use crate::section::SectionInput;
 use crate::units::{Quantity, UnitSystem};
 
@@ -55,7 +56,6 @@ pub struct Scenario {
 /// How an end is held, as written: `"clamped"` or `{"type": "elastic", …}`.
 #[derive(Clone, Debug, PartialEq, serde::Serialize)]
 #[serde(tag = "type", rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum EndInput {
     /// No restraint.
     Free,
@@ -102,64 +102,43 @@ pub struct SegmentInput {
     pub extra_mass: Option<ExtraMassInput>,
 }
 
-/// Something attached to the beam, as written.
-#[derive(Clone, Debug, PartialEq, serde::Serialize)]
-#[serde(tag = "type", rename_all = "kebab-case")]
-#[non_exhaustive]
-pub enum AttachmentInput {
-    /// A rigid body fixed to the beam.
-    Mass {
-        /// Distance from the left end.
-        position: Quantity,
-        /// Mass.
-        mass: Quantity,
-        /// Rotary inertia about the bending axis; 0 when omitted.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        rotary_inertia: Option<Quantity>,
-        /// A name to show.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        label: Option<String>,
-    },
-    /// A grounded translational spring (or `"rigid"`).
-    Spring {
-        /// Distance from the left end.
-        position: Quantity,
-        /// Stiffness.
-        stiffness: Quantity,
-        /// A name to show.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        label: Option<String>,
-    },
-    /// A grounded rotational spring (or `"rigid"`).
-    RotationalSpring {
-        /// Distance from the left end.
-        position: Quantity,
-        /// Stiffness.
-        stiffness: Quantity,
-        /// A name to show.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        label: Option<String>,
-    },
-    /// A rigid intermediate support (a pin).
-    Support {
-        /// Distance from the left end.
-        position: Quantity,
-        /// A name to show.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        label: Option<String>,
-    },
-    /// A mass on a spring attached to the beam.
-    SprungMass {
-        /// Distance from the left end.
-        position: Quantity,
-        /// Mass.
-        mass: Quantity,
-        /// Spring stiffness.
-        stiffness: Quantity,
-        /// A name to show.
-        #[serde(skip_serializing_if = "Option::is_none")]
-        label: Option<String>,
-    },
+/// Something attached to the beam, as written: its type, where it is, the values written for
+/// the fields the schema gives its type (`crate::schema::ATTACHMENTS`), and a label.
+#[derive(Clone, Debug, PartialEq)]
+pub struct AttachmentInput {
+    /// What is attached.
+    pub kind: AttachmentKind,
+    /// Distance from the left end.
+    pub position: Quantity,
+    /// The type's own fields as written, by key, in the schema's order; an optional field left
+    /// out is absent.
+    pub values: Vec<(&'static str, Quantity)>,
+    /// A name to show.
+    pub label: Option<String>,
+}
+
+impl AttachmentInput {
+    /// The value written for the field `key`, if any.
+    pub fn value(&self, key: &str) -> Option<&Quantity> {
+        self.values.iter().find(|(k, _)| *k == key).map(|(_, q)| q)
+    }
+}
+
+/// Written as the scenario format has it: `{"type": …, "position": …, its fields…, "label": …}`.
+impl serde::Serialize for AttachmentInput {
+    fn serialize<S: serde::Serializer>(&self, serializer: S) -> std::result::Result<S::Ok, S::Error> {
+        use serde::ser::SerializeMap;
+        let mut map = serializer.serialize_map(None)?;
+        map.serialize_entry("type", self.kind.id())?;
+        map.serialize_entry("position", &self.position)?;
+        for (key, value) in &self.values {
+            map.serialize_entry(key, value)?;
+        }
+        if let Some(label) = &self.label {
+            map.serialize_entry("label", label)?;
+        }
+        map.end()
+    }
 }
 
 /// A frequency the beam will be driven at.
@@ -183,6 +162,15 @@ impl Scenario {
     /// Reads a scenario from parsed JSON.
     pub fn from_value(value: &serde_json::Value) -> Result<Scenario> {
         parse::scenario(&json::Node::root(value))
+    }
+}
+
+/// The unit system a scenario held as JSON asks for, as [`Scenario::from_value`] reads it: the
+/// default when absent, an error naming the field when it is not one of the systems.
+pub fn unit_system_of(value: &serde_json::Value) -> Result<UnitSystem> {
+    match json::Node::root(value).get("units") {
+        Some(units) => parse::unit_system(&units),
+        None => Ok(UnitSystem::default()),
     }
 }
 

@@ -1,35 +1,19 @@
-//! The scenario file format, read field by field from parsed JSON (see `docs/scenario-format.md`).
+//! The scenario file format, read field by field from parsed JSON. Which keys each object
+//! allows and what a missing field is called come from the schema (`crate::schema`); ranges are
+//! checked later, in SI, by the model layer.
 
 use super::json::Node;
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
 use crate::error::{Error, ErrorKind, Result};
 use crate::extra_mass::{ExtraMassInput, Submerged};
 use crate::material::MaterialInput;
-use crate::model::Theory;
+use crate::model::{AttachmentKind, EndKind, Theory};
+use crate::schema::{self, Choice, Field};
 use crate::section::{BendingAxis, SectionInput};
 use crate::units::UnitSystem;
 
-/// The most elastic modes one scenario may ask for.
-const MODES: std::ops::RangeInclusive<usize> = 1..=crate::analysis::MAX_MODES;
-
 pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
-    n.fields(
-        "a scenario object",
-        &[
-            "title",
-            "units",
-            "theory",
-            "modes",
-            "elements",
-            "report_point",
-            "left",
-            "right",
-            "segments",
-            "attachments",
-            "excitations",
-            "margin",
-        ],
-    )?;
+    n.fields("a scenario object", &schema::keys(&[&schema::SCENARIO]))?;
     let list = |name: &str, what: &str| -> Result<Vec<Node<'_>>> {
         Ok(match n.get(name) {
             Some(node) => node.items(what)?,
@@ -40,8 +24,8 @@ pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
         title: n.text_at("title")?.unwrap_or_default(),
         units: n.get("units").map(|u| unit_system(&u)).transpose()?.unwrap_or_default(),
         theory: n.get("theory").map(|t| theory(&t)).transpose()?.unwrap_or_default(),
-        modes: n.get("modes").map(|m| m.count(MODES)).transpose()?.unwrap_or(6),
-        elements: n.get("elements").map(|e| e.count(1..=crate::fe::MAX_ELEMENTS)).transpose()?,
+        modes: n.get("modes").map(|m| m.whole(&schema::MODES)).transpose()?.unwrap_or(schema::DEFAULT_MODES),
+        elements: n.get("elements").map(|e| e.whole(&schema::ELEMENTS)).transpose()?,
         report_point: n.quantity_at("report_point")?,
         left: end(&n.require("left", "the support at the left end")?)?,
         right: end(&n.require("right", "the support at the right end")?)?,
@@ -64,41 +48,34 @@ pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
 }
 
 pub(crate) fn unit_system(n: &Node<'_>) -> Result<UnitSystem> {
-    n.choice(
-        "the unit system",
-        &[
-            ("si", UnitSystem::Si),
-            ("si-mm", UnitSystem::SiMm),
-            ("us-inch", UnitSystem::UsInch),
-            ("us-foot", UnitSystem::UsFoot),
-        ],
-    )
+    let names = UnitSystem::ALL.map(|s| (s.id(), s));
+    n.choice("the unit system", &names)
 }
 
 pub(crate) fn theory(n: &Node<'_>) -> Result<Theory> {
-    n.choice(
-        "the beam theory",
-        &[("euler-bernoulli", Theory::EulerBernoulli), ("timoshenko", Theory::Timoshenko)],
-    )
+    n.choice("the beam theory", &Theory::ALL.map(|t| (t.id(), t)))
 }
 
-const END_TYPES: [(&str, u8); 5] =
-    [("free", 0), ("pinned", 1), ("clamped", 2), ("guided", 3), ("elastic", 4)];
+/// The fields a choice's object holds: its tag, what every such object has, and its own.
+fn allowed(tag: &'static str, common: &[Field], choice: Option<&Choice>) -> Vec<&'static str> {
+    let mut keys = vec![tag];
+    keys.extend(common.iter().map(|f| f.name));
+    keys.extend(choice.into_iter().flat_map(|c| c.fields.iter().map(|f| f.name)));
+    keys
+}
 
 pub(crate) fn end(n: &Node<'_>) -> Result<EndInput> {
+    let names = EndKind::ALL.map(|k| (k.id(), k));
+    let elastic = schema::find(&schema::ENDS, EndKind::Elastic.id());
     let (kind, fields) = if n.is_text() {
-        (n.choice("an end", &END_TYPES)?, None)
+        (n.choice("an end", &names)?, None)
     } else {
-        let map = n.fields(
-            "an end (a name, or an object with \"type\")",
-            &["type", "translational", "rotational"],
-        )?;
-        let kind = n.require("type", "the kind of end")?.choice("an end", &END_TYPES)?;
-        (kind, Some(map))
+        let map = n.fields("an end (a name, or an object with \"type\")", &allowed("type", &[], elastic))?;
+        (n.require("type", "the kind of end")?.choice("an end", &names)?, Some(map))
     };
-    if kind != 4 {
+    if kind != EndKind::Elastic {
         if let Some(extra) = fields.and_then(|m| m.keys().find(|k| *k != "type")) {
-            let place = if n.path().is_empty() { extra.clone() } else { format!("{}.{extra}", n.path()) };
+            let place = n.path().key(extra);
             return Err(Error::new(
                 ErrorKind::Conflict,
                 "only an \"elastic\" end takes springs; remove this field or make the end elastic",
@@ -107,31 +84,19 @@ pub(crate) fn end(n: &Node<'_>) -> Result<EndInput> {
         }
     }
     Ok(match kind {
-        0 => EndInput::Free,
-        1 => EndInput::Pinned,
-        2 => EndInput::Clamped,
-        3 => EndInput::Guided,
-        _ => EndInput::Elastic {
-            translational: n.quantity_at("translational")?,
-            rotational: n.quantity_at("rotational")?,
+        EndKind::Free => EndInput::Free,
+        EndKind::Pinned => EndInput::Pinned,
+        EndKind::Clamped => EndInput::Clamped,
+        EndKind::Guided => EndInput::Guided,
+        EndKind::Elastic => EndInput::Elastic {
+            translational: n.quantity_at(schema::END_TRANSLATIONAL.name)?,
+            rotational: n.quantity_at(schema::END_ROTATIONAL.name)?,
         },
     })
 }
 
 pub(crate) fn segment(n: &Node<'_>) -> Result<SegmentInput> {
-    n.fields(
-        "a segment object",
-        &[
-            "length",
-            "flexural_rigidity",
-            "mass_per_length",
-            "shear_rigidity",
-            "rotary_inertia_per_length",
-            "section",
-            "material",
-            "extra_mass",
-        ],
-    )?;
+    n.fields("a segment object", &schema::keys(&[&schema::SEGMENT, &schema::PROPERTY_FIELDS]))?;
     Ok(SegmentInput {
         length: n.quantity_at("length")?,
         flexural_rigidity: n.quantity_at("flexural_rigidity")?,
@@ -145,68 +110,47 @@ pub(crate) fn segment(n: &Node<'_>) -> Result<SegmentInput> {
 }
 
 pub(crate) fn section(n: &Node<'_>) -> Result<SectionInput> {
-    let shapes = [
-        ("rectangle", 0u8),
-        ("round", 1),
-        ("tube", 2),
-        ("rectangular-tube", 3),
-        ("i-beam", 4),
-        ("custom", 5),
-    ];
     n.object("a section object, with its \"shape\"")?;
-    let shape = n.require("shape", "the section's shape")?.choice("a section shape", &shapes)?;
-    let q = |name: &str, what: &str| n.require_quantity(name, what);
-    Ok(match shape {
-        0 => {
-            n.fields("a section", &["shape", "width", "depth"])?;
-            SectionInput::Rectangle { width: q("width", "a width")?, depth: q("depth", "a depth")? }
+    let shape = n.require("shape", "the section's shape")?.one_of("a section shape", &schema::SHAPES)?;
+    n.fields("a section", &allowed("shape", &[], Some(shape)))?;
+    // Each shape's fields are required unless the schema says otherwise.
+    let q = |name: &str| {
+        let field = shape.fields.iter().find(|f| f.name == name);
+        n.require_quantity(name, field.map_or(name, |f| f.what))
+    };
+    Ok(match shape.id {
+        "rectangle" => SectionInput::Rectangle { width: q("width")?, depth: q("depth")? },
+        "round" => SectionInput::Round { diameter: q("diameter")? },
+        "tube" => SectionInput::Tube { outer_diameter: q("outer_diameter")?, wall: q("wall")? },
+        "rectangular-tube" => {
+            SectionInput::RectangularTube { width: q("width")?, depth: q("depth")?, wall: q("wall")? }
         }
-        1 => {
-            n.fields("a section", &["shape", "diameter"])?;
-            SectionInput::Round { diameter: q("diameter", "a diameter")? }
-        }
-        2 => {
-            n.fields("a section", &["shape", "outer_diameter", "wall"])?;
-            SectionInput::Tube {
-                outer_diameter: q("outer_diameter", "an outer diameter")?,
-                wall: q("wall", "a wall thickness")?,
-            }
-        }
-        3 => {
-            n.fields("a section", &["shape", "width", "depth", "wall"])?;
-            SectionInput::RectangularTube {
-                width: q("width", "a width")?,
-                depth: q("depth", "a depth")?,
-                wall: q("wall", "a wall thickness")?,
-            }
-        }
-        4 => {
-            n.fields(
-                "a section",
-                &["shape", "depth", "flange_width", "flange_thickness", "web_thickness", "axis"],
-            )?;
-            SectionInput::IBeam {
-                depth: q("depth", "an overall depth")?,
-                flange_width: q("flange_width", "a flange width")?,
-                flange_thickness: q("flange_thickness", "a flange thickness")?,
-                web_thickness: q("web_thickness", "a web thickness")?,
-                axis: match n.get("axis") {
-                    Some(a) => a.choice(
-                        "the bending axis",
-                        &[("strong", BendingAxis::Strong), ("weak", BendingAxis::Weak)],
-                    )?,
-                    None => BendingAxis::Strong,
-                },
-            }
-        }
-        _ => {
-            n.fields("a section", &["shape", "area", "second_moment", "depth", "shear_coefficient"])?;
-            SectionInput::Custom {
-                area: q("area", "an area")?,
-                second_moment: q("second_moment", "a second moment of area")?,
-                depth: n.quantity_at("depth")?,
-                shear_coefficient: n.quantity_at("shear_coefficient")?,
-            }
+        "i-beam" => SectionInput::IBeam {
+            depth: q("depth")?,
+            flange_width: q("flange_width")?,
+            flange_thickness: q("flange_thickness")?,
+            web_thickness: q("web_thickness")?,
+            axis: match n.get("axis") {
+                Some(a) => a.choice(
+                    "the bending axis",
+                    &[("strong", BendingAxis::Strong), ("weak", BendingAxis::Weak)],
+                )?,
+                None => BendingAxis::Strong,
+            },
+        },
+        "custom" => SectionInput::Custom {
+            area: q("area")?,
+            second_moment: q("second_moment")?,
+            depth: n.quantity_at("depth")?,
+            shear_coefficient: n.quantity_at("shear_coefficient")?,
+        },
+        // Every shape the schema lists is read above; a test reads each one.
+        other => {
+            return Err(Error::new(
+                ErrorKind::UnknownOption,
+                format!("the shape \"{other}\" cannot be read yet"),
+            )
+            .at(n.path()))
         }
     })
 }
@@ -215,23 +159,21 @@ pub(crate) fn material(n: &Node<'_>) -> Result<MaterialInput> {
     if n.is_text() {
         return Ok(MaterialInput::Preset(n.text("a material")?.to_string()));
     }
-    n.fields(
-        "a material (a preset name, or an object)",
-        &["youngs_modulus", "density", "poisson", "shear_modulus"],
-    )?;
+    n.fields("a material (a preset name, or an object)", &schema::keys(&[&schema::MATERIAL_FIELDS]))?;
+    let [e, rho, nu, g] = &schema::MATERIAL_FIELDS;
     Ok(MaterialInput::Custom {
-        youngs_modulus: n.require_quantity("youngs_modulus", "Young's modulus")?,
-        density: n.require_quantity("density", "a density")?,
-        poisson: n.quantity_at("poisson")?,
-        shear_modulus: n.quantity_at("shear_modulus")?,
+        youngs_modulus: n.require_quantity(e.name, e.what)?,
+        density: n.require_quantity(rho.name, rho.what)?,
+        poisson: n.quantity_at(nu.name)?,
+        shear_modulus: n.quantity_at(g.name)?,
     })
 }
 
 pub(crate) fn extra_mass(n: &Node<'_>) -> Result<ExtraMassInput> {
-    n.fields("an extra-mass object", &["contents_density", "lining", "submerged"])?;
+    n.fields("an extra-mass object", &schema::keys(&[&schema::EXTRA_MASS_FIELDS]))?;
     let submerged = match n.get("submerged") {
         Some(s) => {
-            s.fields("a submerged object", &["water_density", "added_mass_coefficient"])?;
+            s.fields("a submerged object", &schema::keys(&[&schema::SUBMERGED_FIELDS]))?;
             Some(Submerged {
                 water_density: s.quantity_at("water_density")?,
                 added_mass_coefficient: s.quantity_at("added_mass_coefficient")?,
@@ -247,52 +189,41 @@ pub(crate) fn extra_mass(n: &Node<'_>) -> Result<ExtraMassInput> {
 }
 
 pub(crate) fn attachment(n: &Node<'_>) -> Result<AttachmentInput> {
-    let kinds = [("mass", 0u8), ("spring", 1), ("rotational-spring", 2), ("support", 3), ("sprung-mass", 4)];
+    let names = AttachmentKind::ALL.map(|k| (k.id(), k));
     n.object("an attachment object, with its \"type\"")?;
-    let kind = n.require("type", "the kind of attachment")?.choice("an attachment", &kinds)?;
-    let position = || n.require_quantity("position", "a position from the left end");
-    let label = || n.text_at("label");
-    Ok(match kind {
-        0 => {
-            n.fields("a mass", &["type", "position", "mass", "rotary_inertia", "label"])?;
-            AttachmentInput::Mass {
-                position: position()?,
-                mass: n.require_quantity("mass", "a mass")?,
-                rotary_inertia: n.quantity_at("rotary_inertia")?,
-                label: label()?,
-            }
-        }
-        1 | 2 => {
-            n.fields("a spring", &["type", "position", "stiffness", "label"])?;
-            let (position, stiffness, label) =
-                (position()?, n.require_quantity("stiffness", "a stiffness")?, label()?);
-            if kind == 1 {
-                AttachmentInput::Spring { position, stiffness, label }
-            } else {
-                AttachmentInput::RotationalSpring { position, stiffness, label }
-            }
-        }
-        3 => {
-            n.fields("a support", &["type", "position", "label"])?;
-            AttachmentInput::Support { position: position()?, label: label()? }
-        }
-        _ => {
-            n.fields("a sprung mass", &["type", "position", "mass", "stiffness", "label"])?;
-            AttachmentInput::SprungMass {
-                position: position()?,
-                mass: n.require_quantity("mass", "a mass")?,
-                stiffness: n.require_quantity("stiffness", "a spring stiffness")?,
-                label: label()?,
-            }
-        }
+    let kind = n.require("type", "the kind of attachment")?.choice("an attachment", &names)?;
+    let own = schema::find(&schema::ATTACHMENTS, kind.id()).map_or(&[][..], |c| c.fields);
+    let what = format!("a {}", kind.id().replace('-', " "));
+    n.fields(
+        &what,
+        &allowed("type", &schema::ATTACHMENT_FIELDS, schema::find(&schema::ATTACHMENTS, kind.id())),
+    )?;
+    let mut values = Vec::with_capacity(own.len());
+    for field in own {
+        let value = if field.optional {
+            n.quantity_at(field.name)?
+        } else {
+            Some(n.require_quantity(field.name, field.what)?)
+        };
+        values.extend(value.map(|q| (field.name, q)));
+    }
+    Ok(AttachmentInput {
+        kind,
+        position: n.require_quantity(schema::POSITION.name, schema::POSITION.what)?,
+        values,
+        label: n.text_at(schema::LABEL.name)?,
     })
 }
 
 pub(crate) fn excitation(n: &Node<'_>) -> Result<ExcitationInput> {
-    n.fields("an excitation", &["label", "frequency", "harmonics"])?;
+    n.fields("an excitation", &schema::keys(&[&schema::EXCITATION_FIELDS]))?;
     Ok(ExcitationInput {
         label: n.text_at("label")?.unwrap_or_default(),
-        frequency: n.require_quantity("frequency", "a frequency, like \"1780 rpm\"")?,
-        harmonics: n.get("harmonics").map(|h| h.count(1..=50)).transpose()?.unwrap_or(1),
+        frequency: n.require_quantity(schema::FREQUENCY.name, "a frequency, like \"1780 rpm\"")?,
+        harmonics: n
+            .get(schema::HARMONICS.name)
+            .map(|h| h.whole(&schema::HARMONICS))
+            .transpose()?
+            .unwrap_or(schema::DEFAULT_HARMONICS),
     })
 }

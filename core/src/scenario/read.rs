@@ -3,17 +3,14 @@
 
 use super::derived::{self, SectionOrigin};
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
-use crate::analysis::Options;
-use crate::error::{number, Error, ErrorKind, Result};
+use crate::error::{Error, ErrorKind, Result};
 use crate::extra_mass::{self, MassBreakdown};
 use crate::material;
-use crate::model::{Attachment, End, Model, ModelParts, Segment, SAME_POINT};
+use crate::model::{self, Attachment, End, Model, ModelParts, Options, Segment};
+use crate::path::{FieldPath, Step};
+use crate::schema;
 use crate::section;
 use crate::units::{self, Conversion, Kind, Quantity};
-
-/// The default separation margin between natural and excitation frequencies (common practice
-/// keeps 10–20 %; the larger figure is the default — common practice, no single source).
-pub const DEFAULT_MARGIN: f64 = 0.2;
 
 /// A scenario read and checked: the model, the options, and what the inputs were in SI.
 #[derive(Clone, Debug, PartialEq)]
@@ -26,12 +23,14 @@ pub struct Inputs {
     pub segments: Vec<SegmentEcho>,
     /// Per attachment: its label (empty when none was given).
     pub labels: Vec<String>,
+    /// Per attachment: its kind, as the scenario names it.
+    pub kinds: Vec<crate::model::AttachmentKind>,
     /// Excitations: (label, frequency in Hz, harmonics to check).
     pub excitations: Vec<(String, f64, usize)>,
     /// Separation margin as a ratio.
     pub margin: f64,
     /// Every unit conversion applied: (field path, record).
-    pub conversions: Vec<(String, Conversion)>,
+    pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
 /// How a segment's properties came about.
@@ -51,31 +50,39 @@ pub struct SegmentEcho {
 
 #[derive(Default)]
 struct Reader {
-    conversions: Vec<(String, Conversion)>,
+    conversions: Vec<(FieldPath, Conversion)>,
     /// Every value read, as written, by path: model checks see SI numbers, but an error should
     /// show what the user typed ("-3 kg", not "-3").
-    written: Vec<(String, String)>,
+    written: Vec<(FieldPath, String)>,
 }
 
 impl Reader {
-    fn read(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
-        self.written.push((path.to_string(), q.to_string()));
+    fn read(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+        self.written.push((path.clone(), q.to_string()));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
 
     /// A stiffness that may also be written "rigid".
-    fn spring(&mut self, q: &Quantity, kind: Kind, path: &str) -> Result<f64> {
+    fn spring(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
-                self.written.push((path.to_string(), q.to_string()));
+                self.written.push((path.clone(), q.to_string()));
                 return Ok(f64::INFINITY);
             }
         }
         self.read(q, kind, path)
     }
 
-    fn keep(&mut self, path: &str, conversions: &[(String, Conversion)]) {
-        self.conversions.extend(conversions.iter().map(|(field, c)| (format!("{path}.{field}"), c.clone())));
+    /// Adds what the user typed to an error about a value read here, found by its path.
+    fn typed(&self, e: Error) -> Error {
+        match self.written.iter().find(|(path, _)| *path == e.path) {
+            Some((_, typed)) => e.with_value(typed),
+            None => e,
+        }
+    }
+
+    fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
+        self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
 }
 
@@ -87,49 +94,47 @@ impl Scenario {
         let mut echoes = Vec::with_capacity(self.segments.len());
         let mut origins = Vec::with_capacity(self.segments.len());
         for (i, s) in self.segments.iter().enumerate() {
-            let (segment, echo, origin) = read_segment(&mut r, s, &format!("segments[{i}]"))?;
+            let (segment, echo, origin) = read_segment(&mut r, s, &FieldPath::item("segments", i))?;
             segments.push(segment);
             echoes.push(echo);
             origins.push(origin);
         }
-        let left = read_end(&mut r, &self.left, "left")?;
-        let right = read_end(&mut r, &self.right, "right")?;
+        let left = read_end(&mut r, &self.left, &"left".into())?;
+        let right = read_end(&mut r, &self.right, &"right".into())?;
         let mut attachments = Vec::with_capacity(self.attachments.len());
-        let mut labels = Vec::with_capacity(self.attachments.len());
         for (i, a) in self.attachments.iter().enumerate() {
-            let (attachment, label) = read_attachment(&mut r, a, &format!("attachments[{i}]"))?;
-            attachments.push(attachment);
-            labels.push(label);
+            attachments.push(read_attachment(&mut r, a, &FieldPath::item("attachments", i))?);
         }
+        let labels = self.attachments.iter().map(|a| a.label.clone().unwrap_or_default()).collect();
+        let kinds = self.attachments.iter().map(|a| a.kind).collect();
         let model = Model::new(ModelParts { segments, left, right, attachments, theory: self.theory })
             .map_err(|e| {
                 let e = match segment_of(&e.path).and_then(|i| Some((i, origins.get(i)?.as_ref()?))) {
-                    Some((i, origin)) => derived::explain(e, &format!("segments[{i}]"), origin),
+                    Some((i, origin)) => derived::explain(e, &FieldPath::item("segments", i), origin),
                     None => e,
                 };
-                match r.written.iter().find(|(path, _)| *path == e.path) {
-                    Some((_, typed)) => e.with_value(typed),
-                    None => e,
-                }
+                r.typed(e)
             })?;
         let report_point = match &self.report_point {
-            Some(q) => Some(read_report_point(&mut r, q, model.length())?),
+            Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, &schema::REPORT_POINT.name.into())?),
             None => None,
         };
         let options = Options { modes: self.modes, elements: self.elements, report_point };
+        let options = options.checked(&model).map_err(|e| r.typed(e))?;
         let mut excitations = Vec::with_capacity(self.excitations.len());
         for (i, e) in self.excitations.iter().enumerate() {
-            excitations.push(read_excitation(&mut r, e, &format!("excitations[{i}]"))?);
+            excitations.push(read_excitation(&mut r, e, &FieldPath::item("excitations", i))?);
         }
         let margin = match &self.margin {
-            None => DEFAULT_MARGIN,
-            Some(q) => read_ratio(q).map_err(|e| e.at("margin"))?,
+            None => schema::DEFAULT_MARGIN,
+            Some(q) => read_ratio(q)?,
         };
         Ok(Inputs {
             model,
             options,
             segments: echoes,
             labels,
+            kinds,
             excitations,
             margin,
             conversions: r.conversions,
@@ -138,33 +143,18 @@ impl Scenario {
 }
 
 /// The index of the segment a path lies in: 2 for `segments[2].length`.
-fn segment_of(path: &str) -> Option<usize> {
-    path.strip_prefix("segments[")?.split_once(']')?.0.parse().ok()
-}
-
-/// The point for mode 1's equivalent mass and stiffness, on the beam; like an attachment's
-/// position, a point within a billionth of the length of an end is that end, so that "300 in"
-/// on a beam of "25 ft" is the end whichever way the conversions round.
-fn read_report_point(r: &mut Reader, q: &Quantity, length: f64) -> Result<f64> {
-    let x = r.read(q, Kind::Length, "report_point")?;
-    let tolerance = SAME_POINT * length;
-    if !(-tolerance..=length + tolerance).contains(&x) {
-        return Err(Error::new(
-            ErrorKind::OutOfRange,
-            format!("the report point must lie on the beam (0 to {} m)", number(length)),
-        )
-        .at("report_point")
-        .with_value(q)
-        .with_si(x, "m"));
+fn segment_of(path: &FieldPath) -> Option<usize> {
+    match path.steps() {
+        [Step::Key(list), Step::Index(i), ..] if list == "segments" => Some(*i),
+        _ => None,
     }
-    Ok(x.clamp(0.0, length))
 }
 
 /// A segment, how it was described, and what its section and material were made of.
 type ReadSegment = (Segment, SegmentEcho, Option<SectionOrigin>);
 
-fn read_segment(r: &mut Reader, s: &SegmentInput, path: &str) -> Result<ReadSegment> {
-    let at = |field: &str| format!("{path}.{field}");
+fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<ReadSegment> {
+    let at = |field: &str| path.key(field);
     let length = match &s.length {
         Some(q) => r.read(q, Kind::Length, &at("length"))?,
         None => return Err(Error::new(ErrorKind::Missing, "a segment needs a length").at(at("length"))),
@@ -268,7 +258,7 @@ fn section_name(s: &section::SectionInput) -> &'static str {
     }
 }
 
-fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
+fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
     Ok(match end {
         EndInput::Free => End::Free,
         EndInput::Pinned => End::Pinned,
@@ -276,7 +266,7 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
         EndInput::Guided => End::Guided,
         EndInput::Elastic { translational, rotational } => {
             let mut spring = |q: &Option<Quantity>, kind, field: &str| match q {
-                Some(q) => r.spring(q, kind, &format!("{path}.{field}")),
+                Some(q) => r.spring(q, kind, &path.key(field)),
                 None => Ok(0.0),
             };
             End::Elastic {
@@ -287,80 +277,58 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &str) -> Result<End> {
     })
 }
 
-fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &str) -> Result<(Attachment, String)> {
-    let at = |field: &str| format!("{path}.{field}");
-    let label = |l: &Option<String>| l.clone().unwrap_or_default();
-    Ok(match a {
-        AttachmentInput::Mass { position, mass, rotary_inertia, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
-            let rotary_inertia = match rotary_inertia {
-                Some(q) => r.read(q, Kind::RotaryInertia, &at("rotary_inertia"))?,
-                None => 0.0,
-            };
-            (Attachment::Mass { position, mass, rotary_inertia }, label(l))
-        }
-        AttachmentInput::Spring { position, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
-            (Attachment::Spring { position, stiffness }, label(l))
-        }
-        AttachmentInput::RotationalSpring { position, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let stiffness = r.spring(stiffness, Kind::RotationalStiffness, &at("stiffness"))?;
-            (Attachment::RotationalSpring { position, stiffness }, label(l))
-        }
-        AttachmentInput::Support { position, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            (Attachment::Support { position }, label(l))
-        }
-        AttachmentInput::SprungMass { position, mass, stiffness, label: l } => {
-            let position = r.read(position, Kind::Length, &at("position"))?;
-            let mass = r.read(mass, Kind::Mass, &at("mass"))?;
-            let stiffness = r.spring(stiffness, Kind::Stiffness, &at("stiffness"))?;
-            (Attachment::SprungMass { position, mass, stiffness }, label(l))
-        }
-    })
+/// An attachment: its position, then each field the schema gives its type, in its kind
+/// (stiffnesses may be written "rigid"; an optional field left out is 0), made into the model's
+/// attachment by its kind.
+fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Result<Attachment> {
+    let position = r.read(&a.position, schema::POSITION.kind, &path.key(schema::POSITION.name))?;
+    let own = schema::find(&schema::ATTACHMENTS, a.kind.id()).map_or(&[][..], |c| c.fields);
+    let mut values = Vec::with_capacity(own.len());
+    for field in own {
+        let at = path.key(field.name);
+        let value = match a.value(field.name) {
+            Some(q) if matches!(field.kind, Kind::Stiffness | Kind::RotationalStiffness) => {
+                r.spring(q, field.kind, &at)?
+            }
+            Some(q) => r.read(q, field.kind, &at)?,
+            None => 0.0,
+        };
+        values.push((field.name, value));
+    }
+    let value = |key: &str| values.iter().find(|(k, _)| *k == key).map_or(0.0, |(_, v)| *v);
+    a.kind.model(position, &value).map_err(|e| r.typed(e.at(path)))
 }
 
-fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &str) -> Result<(String, f64, usize)> {
-    let f = r.read(&e.frequency, Kind::Frequency, &format!("{path}.frequency"))?;
-    if f <= 0.0 {
-        return Err(Error::new(ErrorKind::OutOfRange, "an excitation frequency must be greater than zero")
-            .at(format!("{path}.frequency"))
-            .with_value(&e.frequency)
-            .with_si(f, "Hz"));
-    }
-    if e.harmonics == 0 || e.harmonics > 50 {
-        return Err(Error::new(ErrorKind::OutOfRange, "harmonics must be from 1 to 50")
-            .at(format!("{path}.harmonics"))
-            .with_value(e.harmonics));
-    }
+fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<(String, f64, usize)> {
+    let at = |field: &str| path.key(field);
+    let f = r.read(&e.frequency, schema::FREQUENCY.kind, &at(schema::FREQUENCY.name))?;
+    model::value(&schema::FREQUENCY, f).map_err(|err| err.at(path).with_value(&e.frequency))?;
+    model::whole(&schema::HARMONICS, e.harmonics).map_err(|err| err.at(path))?;
     Ok((e.label.clone(), f, e.harmonics))
 }
 
-/// A ratio written as a number (0.2) or a percentage ("20 %").
+/// The margin, a ratio written as a number (0.2) or a percentage ("20 %").
 fn read_ratio(q: &Quantity) -> Result<f64> {
+    let at_margin = |e: Error| e.at(schema::MARGIN.name);
     let value = match q {
         Quantity::Number(v) => *v,
         Quantity::Text(t) => {
             let t = t.trim();
             match t.strip_suffix('%') {
-                Some(number) => units::decimal(number.trim()).map(|v| v / 100.0).ok_or_else(|| {
-                    Error::new(
-                        ErrorKind::Syntax,
-                        "write the margin as a ratio (0.2) or a percentage (\"20 %\")",
-                    )
-                    .with_value(t)
-                })?,
-                None => units::parse(t, Kind::Ratio)?.si,
+                Some(number) => units::decimal(number.trim())
+                    .map(|v| v / 100.0)
+                    .ok_or_else(|| {
+                        Error::new(
+                            ErrorKind::Syntax,
+                            "write the margin as a ratio (0.2) or a percentage (\"20 %\")",
+                        )
+                        .with_value(t)
+                    })
+                    .map_err(at_margin)?,
+                None => units::parse(t, Kind::Ratio).map_err(at_margin)?.si,
             }
         }
     };
-    if !(value.is_finite() && value > 0.0 && value < 1.0) {
-        return Err(
-            Error::new(ErrorKind::OutOfRange, "the margin must lie between 0 and 100 %").with_value(q)
-        );
-    }
+    model::value(&schema::MARGIN, value).map_err(|e| e.with_value(q))?;
     Ok(value)
 }

@@ -2,6 +2,7 @@
 //! one of the two values, and the user could not tell which.
 
 use crate::error::{Error, ErrorKind, Result};
+use crate::path::FieldPath;
 use serde::de::{DeserializeSeed, Deserializer, Error as _, MapAccess, SeqAccess, Visitor};
 use serde_json::{Map, Number, Value};
 use std::cell::RefCell;
@@ -21,7 +22,7 @@ pub(crate) fn read(text: &str) -> Result<Value> {
 }
 
 /// The error for a field given twice at `path`.
-pub(crate) fn given_twice(path: &str) -> Error {
+pub(crate) fn given_twice(path: &FieldPath) -> Error {
     Error::new(ErrorKind::Conflict, "this field is given twice; keep one of the two").at(path)
 }
 
@@ -29,15 +30,15 @@ pub(crate) fn given_twice(path: &str) -> Error {
 /// `repeated` (and the reading stops with an error).
 pub(crate) fn value<'de, D: Deserializer<'de>>(
     deserializer: D,
-    repeated: &RefCell<Option<String>>,
+    repeated: &RefCell<Option<FieldPath>>,
 ) -> std::result::Result<Value, D::Error> {
-    Checked { path: String::new(), repeated }.deserialize(deserializer)
+    Checked { path: FieldPath::root(), repeated }.deserialize(deserializer)
 }
 
 /// A value being read at `path`.
 struct Checked<'r> {
-    path: String,
-    repeated: &'r RefCell<Option<String>>,
+    path: FieldPath,
+    repeated: &'r RefCell<Option<FieldPath>>,
 }
 
 impl<'de> DeserializeSeed<'de> for Checked<'_> {
@@ -90,7 +91,7 @@ impl<'de> Visitor<'de> for Checked<'_> {
     fn visit_seq<A: SeqAccess<'de>>(self, mut seq: A) -> std::result::Result<Value, A::Error> {
         let mut items = Vec::new();
         loop {
-            let path = format!("{}[{}]", self.path, items.len());
+            let path = self.path.index(items.len());
             match seq.next_element_seed(Checked { path, repeated: self.repeated })? {
                 Some(item) => items.push(item),
                 None => return Ok(Value::Array(items)),
@@ -101,7 +102,7 @@ impl<'de> Visitor<'de> for Checked<'_> {
     fn visit_map<A: MapAccess<'de>>(self, mut map: A) -> std::result::Result<Value, A::Error> {
         let mut fields = Map::new();
         while let Some(key) = map.next_key::<String>()? {
-            let path = if self.path.is_empty() { key.clone() } else { format!("{}.{key}", self.path) };
+            let path = self.path.key(&key);
             // No field has an empty name, and the reader refuses one wherever it stands, so
             // a repeated empty name needs no message of its own.
             if !key.is_empty() && fields.contains_key(&key) {
@@ -135,7 +136,7 @@ mod tests {
         ];
         for (text, path) in cases {
             let e = read(text).expect_err(text);
-            assert_eq!((e.kind, e.path.as_str()), (ErrorKind::Conflict, path), "{text}: {e}");
+            assert_eq!((e.kind, e.path.to_string().as_str()), (ErrorKind::Conflict, path), "{text}: {e}");
             assert!(e.to_string().ends_with("this field is given twice; keep one of the two"), "{e}");
         }
     }

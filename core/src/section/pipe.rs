@@ -18,7 +18,7 @@ struct Size {
     walls: [Option<f64>; 7],
 }
 
-/// The schedules, in the order of [`Size::walls`].
+/// The schedules, in the order each size lists its walls.
 pub const SCHEDULES: [&str; 7] = ["10", "40", "80", "160", "STD", "XS", "XXS"];
 
 const fn size(nominal: &'static str, outside: f64, walls: [Option<f64>; 7]) -> Size {

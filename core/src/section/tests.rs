@@ -1,9 +1,11 @@
 //! Tests of section properties: handbook closed forms, a published pipe size, an independent
 //! numerical integration over the shape, Cowper's shear coefficients and their limits, validation.
+//! Longer than 400 lines because each shape's checks sit together with their sources; the grid
+//! integration has a file of its own (`tests_grid.rs`).
 
 use super::shear;
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 const NU: f64 = 0.3;
 const ROARK: &str = "Roark's Formulas for Stress and Strain, table of section properties (from memory)";
@@ -288,7 +290,7 @@ fn impossible_sections_are_rejected_with_the_field_named() {
     ];
     for (input, kind, path, fragment) in cases {
         let e = properties(&input, NU).expect_err(&format!("{input:?} must be rejected"));
-        assert_eq!((e.kind, e.path.as_str()), (kind, path), "{input:?}: {e}");
+        assert_eq!((e.kind, e.path.to_string().as_str()), (kind, path), "{input:?}: {e}");
         assert!(e.message.contains(fragment), "{input:?}: {:?} lacks {fragment:?}", e.message);
     }
     let e = properties(&SectionInput::Tube { outer_diameter: q("50 mm"), wall: q("30 mm") }, NU).unwrap_err();
@@ -378,7 +380,7 @@ fn a_dimension_that_would_overflow_a_property_is_named_with_its_range() {
     for (input, field) in cases {
         let e = properties(&input, NU).expect_err(&format!("{input:?} must be rejected"));
         let shown = e.to_string();
-        assert_eq!((e.kind, e.path.as_str()), (ErrorKind::OutOfRange, field), "{shown}");
+        assert_eq!((e.kind, e.path.to_string().as_str()), (ErrorKind::OutOfRange, field), "{shown}");
         assert!(shown.contains("must lie between 1e-9 and 1e6 m") || shown.contains("m⁴"), "{shown}");
         assert!(!shown.contains("inf") && !shown.contains("NaN"), "{shown}");
         assert!(shown.contains("; got "), "{shown} repeats what was typed");

@@ -2,7 +2,7 @@
 
 use super::tests::{i_beam_input, props, q};
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 /// Area and second moment about the horizontal centroidal axis, by counting the centres of
 /// `cells_x × cells_y` grid cells that fall inside the shape: an independent check that knows only

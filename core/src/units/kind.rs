@@ -5,7 +5,6 @@ use super::table::{self, Dim};
 /// What physical kind of value a field expects.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash, serde::Serialize, serde::Deserialize)]
 #[serde(rename_all = "kebab-case")]
-#[non_exhaustive]
 pub enum Kind {
     /// Length, m.
     Length,

@@ -36,6 +36,7 @@ pub use list::{unit_list, UnitInfo};
 pub use number::decimal;
 
 use crate::error::{Error, ErrorKind};
+use crate::path::FieldPath;
 use parse::Factor;
 use table::{Class, Dim};
 
@@ -141,11 +142,11 @@ pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
 pub fn convert_field(
     quantity: &Quantity,
     kind: Kind,
-    field: &str,
-    conversions: &mut Vec<(String, Conversion)>,
+    field: &FieldPath,
+    conversions: &mut Vec<(FieldPath, Conversion)>,
 ) -> Result<f64, Error> {
     let converted = convert(quantity, kind).map_err(|e| e.at(field))?;
-    conversions.extend(converted.conversion.map(|c| (field.to_string(), c)));
+    conversions.extend(converted.conversion.map(|c| (field.clone(), c)));
     Ok(converted.si)
 }
 

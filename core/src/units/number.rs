@@ -111,7 +111,7 @@ pub fn decimal(text: &str) -> Option<f64> {
 #[cfg(test)]
 mod tests {
     use super::decimal;
-    use crate::test_support::SplitMix64;
+    use modebench_tests::random::Rng;
 
     #[test]
     fn agrees_with_the_standard_library() {
@@ -136,7 +136,7 @@ mod tests {
             let ulps = (ours.to_bits() as i64 - reference.to_bits() as i64).abs();
             assert!(ulps <= 2, "{text}: {ours} vs {reference}");
         }
-        let mut rng = SplitMix64::new(7);
+        let mut rng = Rng::new(7);
         for _ in 0..20000 {
             let digits = 1 + rng.below(15);
             let mut text: String = (0..digits).map(|_| char::from(b'0' + rng.below(10) as u8)).collect();

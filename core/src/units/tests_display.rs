@@ -1,7 +1,7 @@
 //! Tests of showing values: display units agree with the parser and with NIST factors.
 
 use super::*;
-use crate::test_support::check;
+use modebench_tests::check;
 
 const NIST: &str = "NIST SP 811 (2008), appendix B";
 
@@ -76,7 +76,7 @@ fn values_are_formatted_to_four_significant_digits() {
 #[test]
 fn formatted_values_read_back_within_rounding() {
     // Four significant digits round within half a unit in the fourth digit: 5e-4 relative.
-    let mut rng = crate::test_support::SplitMix64::new(0x5eed_0002);
+    let mut rng = modebench_tests::random::Rng::new(0x5eed_0002);
     for _ in 0..2_000 {
         let si = 10f64.powf(rng.unit() * 24.0 - 12.0);
         let kind = *rng.pick(&Kind::ALL);

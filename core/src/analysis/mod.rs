@@ -1,0 +1,303 @@
+//! The three methods run side by side on one validated model, and the engineering judgements
+//! made on their results: the other theory's frequencies where shear matters
+//! ([`comparison`]), and the separation of each mode from the excitations ([`margins`]).
+
+pub mod comparison;
+pub mod margins;
+mod warnings;
+
+pub use comparison::{other_theory, Comparison};
+pub use margins::{Excitation, Separation};
+pub use warnings::{Warning, WarningCode};
+
+use warnings::merged_points;
+
+use crate::bounds::{self, Equivalent};
+use crate::error::{Error, ErrorKind, Result};
+use crate::exact::{self, ModeShape};
+use crate::fe::{self, Mesh};
+use crate::model::Model;
+
+pub use crate::model::Options;
+pub use crate::schema::MAX_MODES;
+
+/// One mode from all methods.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ModeResult {
+    /// 1-based mode number, rigid-body modes first.
+    pub number: usize,
+    /// Exact angular frequency, rad/s.
+    pub omega: f64,
+    /// Number of coincident frequencies at this value.
+    pub multiplicity: usize,
+    /// Whether the mode is a rigid-body mode (0 Hz).
+    pub rigid_body: bool,
+    /// Finite-element angular frequency, rad/s (`None` for rigid-body modes).
+    pub fe_omega: Option<f64>,
+    /// The finite-element check's own estimate of its relative error (mesh and round-off).
+    pub fe_error: Option<f64>,
+    /// The exact frequency's estimated relative error: how far Rayleigh's quotient of its mode
+    /// shape lies from it (`None` for rigid-body modes).
+    pub accuracy: Option<f64>,
+    /// The exact mode shape.
+    pub shape: ModeShape,
+}
+
+impl ModeResult {
+    /// Exact frequency, Hz.
+    pub fn frequency_hz(&self) -> f64 {
+        self.omega / std::f64::consts::TAU
+    }
+
+    /// Relative difference of the finite-element frequency to the exact one.
+    pub fn fe_difference(&self) -> Option<f64> {
+        self.fe_omega.map(|f| (f - self.omega) / self.omega)
+    }
+}
+
+/// The fundamental (first elastic) mode by the approximate methods.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Fundamental {
+    /// Exact, rad/s.
+    pub omega: f64,
+    /// Rayleigh's quotient with the static deflection curve (upper bound), rad/s.
+    pub rayleigh: Option<f64>,
+    /// Dunkerley's sum (lower bound), rad/s.
+    pub dunkerley: Option<f64>,
+    /// Equivalent single-degree-of-freedom system.
+    pub equivalent: Option<Equivalent>,
+}
+
+/// Everything the three methods found.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Analysis {
+    /// Rigid-body modes (at 0 Hz, listed first in `modes`).
+    pub rigid_body_modes: usize,
+    /// Modes, ascending.
+    pub modes: Vec<ModeResult>,
+    /// Mode 1 by the approximate methods (`None` for an unrestrained model).
+    pub fundamental: Option<Fundamental>,
+    /// Finite elements used.
+    pub fe_elements: usize,
+    /// Finite-element unknowns.
+    pub fe_dofs: usize,
+    /// The lowest multiple of the axial forces at which the beam buckles (`None` without
+    /// compression).
+    pub critical_load_factor: Option<f64>,
+    /// Notes for the user.
+    pub warnings: Vec<Warning>,
+}
+
+/// The angular frequencies (rad/s) of the modes [`analyse`] reports, rigid-body modes (0) first,
+/// from the exact method alone: no mode shapes, finite elements or bounds. They are the same
+/// numbers, bit for bit, as the same root finder gives both.
+pub fn exact_omegas(model: &Model, options: &Options) -> Result<Vec<f64>> {
+    let options = options.checked(model)?;
+    let mut omegas = vec![0.0; model.rigid_body_modes()];
+    omegas.extend(exact::frequencies(model, options.modes)?);
+    Ok(omegas)
+}
+
+/// The force and the moment an attachment exerts on the beam in a mode (its inertia, or its
+/// spring's force, from the mode's own deflection, rotation and sprung-mass amplitude).
+fn point_loads(model: &Model, index: usize, shape: &ModeShape, omega: f64) -> (f64, f64) {
+    use crate::model::Attachment;
+    let w2 = omega * omega;
+    let a = &model.attachments()[index];
+    let (w, theta) = shape.at(a.position());
+    match *a {
+        Attachment::Mass { mass, rotary_inertia, .. } => (mass * w2 * w, rotary_inertia * w2 * theta),
+        Attachment::Spring { stiffness, .. } if stiffness.is_finite() => (stiffness * w, 0.0),
+        Attachment::RotationalSpring { stiffness, .. } if stiffness.is_finite() => (0.0, stiffness * theta),
+        Attachment::SprungMass { stiffness, .. } => {
+            let d = shape.sprung.iter().find(|(i, _)| *i == index).map_or(0.0, |(_, d)| *d);
+            (stiffness * (w - d), 0.0)
+        }
+        _ => (0.0, 0.0),
+    }
+}
+
+/// Compression within this fraction of the critical load gets a warning.
+const NEAR_BUCKLING: f64 = 0.5;
+
+/// The critical load factor of the axial forces: an error when the beam has buckled, and a
+/// warning when the compression is more than half of what buckles it.
+fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
+    let factor = crate::axial::critical_load_factor(model)?;
+    if let Some(mu) = factor {
+        if mu <= 1.0 {
+            return Err(Error::new(
+                ErrorKind::Model,
+                format!(
+                    "the beam has buckled under these loads: the axial forces are {:.3} times the load that buckles \
+                     it, and a buckled beam has no natural frequencies about its straight shape. Reduce the \
+                     compression or add supports",
+                    1.0 / mu
+                ),
+            ));
+        }
+        if 1.0 / mu > NEAR_BUCKLING {
+            warnings.push(Warning {
+                code: WarningCode::NearBuckling,
+                message: format!(
+                    "The axial compression is {:.0} % of the load that buckles the beam (critical load factor \
+                     {mu:.3}). Frequencies fall steeply as it approaches 100 %, and small changes in the load, a \
+                     temperature or an imperfection move them a lot; the applicable code sets the margin against \
+                     buckling.",
+                    100.0 / mu
+                ),
+            });
+        }
+    }
+    Ok(factor)
+}
+
+/// An exact frequency whose estimated relative error exceeds this is flagged.
+pub const TRUSTED: f64 = 1e-9;
+
+/// Runs the exact method, finite elements and the bounds.
+pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
+    let options = &options.checked(model)?;
+    let mut warnings = Vec::new();
+    let critical_load_factor = buckling(model, &mut warnings)?;
+    let exact_modes = exact::modes(model, options.modes)?;
+    let rigid = model.rigid_body_modes();
+    let last = exact_modes.last().map_or(1.0, |m| m.omega);
+    let first = exact_modes.iter().find(|m| !m.rigid_body).map_or(last, |m| m.omega);
+    let mesh = match options.elements {
+        Some(n) => Mesh::Total(n),
+        None => Mesh::Between { lowest: first, highest: last },
+    };
+    let exact_elastic: Vec<f64> = exact_modes.iter().filter(|m| !m.rigid_body).map(|m| m.omega).collect();
+    let fe = fe::frequencies_near(model, options.modes, mesh, &exact_elastic)?;
+    let mut modes = Vec::with_capacity(exact_modes.len());
+    for (i, m) in exact_modes.into_iter().enumerate() {
+        let elastic = (!m.rigid_body).then(|| i - rigid);
+        let fe_omega = elastic.and_then(|j| fe.omegas.get(j).copied());
+        let fe_error = elastic.and_then(|j| {
+            // What the attachments inside elements add, from this mode's deflection there.
+            let interior: f64 = fe
+                .interior
+                .iter()
+                .map(|p| {
+                    let (force, moment) = point_loads(model, p.attachment, &m.shape, m.omega);
+                    p.error(force, moment, m.omega, m.shape.generalized_mass)
+                })
+                .filter(|e| e.is_finite())
+                .sum();
+            Some(fe.mesh_error.get(j)? + fe.round_off.get(j)? + interior)
+        });
+        let accuracy = (!m.rigid_body).then(|| {
+            let quotient = m.shape.rayleigh_quotient(model).sqrt();
+            let error = ((quotient - m.omega) / m.omega).abs();
+            if error.is_finite() {
+                error
+            } else {
+                1.0
+            }
+        });
+        modes.push(ModeResult {
+            number: i + 1,
+            omega: m.omega,
+            multiplicity: m.multiplicity,
+            rigid_body: m.rigid_body,
+            fe_omega,
+            fe_error,
+            accuracy,
+            shape: m.shape,
+        });
+    }
+    if let Some(close) = merged_points(model) {
+        warnings.push(close);
+    }
+    if let Some(m) = modes.iter().find(|m| m.accuracy.is_some_and(|a| a > TRUSTED)) {
+        warnings.push(Warning {
+            code: WarningCode::Accuracy,
+            message: format!(
+                "Mode {} is good to only about {:.0e} (Rayleigh's quotient of its shape disagrees by that much): \
+                 the inputs span so many orders of magnitude that rounding shows. Check the units.",
+                m.number,
+                m.accuracy.unwrap_or(1.0)
+            ),
+        });
+    }
+    if rigid > 0 {
+        warnings.push(Warning {
+            code: WarningCode::RigidBody,
+            message: format!(
+                "The beam is not held against {}: {rigid} rigid-body mode{} at 0 Hz. Rayleigh and Dunkerley \
+                 estimates need a restrained beam and are not shown.",
+                if rigid == 2 { "translation or rotation" } else { "moving as a rigid body" },
+                if rigid == 1 { "" } else { "s" }
+            ),
+        });
+    }
+    // The check disagrees when the difference exceeds what its own error estimate and the exact
+    // value's allow, with a factor 10 of margin: the estimates are of order, not bounds.
+    let disagreeing = modes.iter().find(|m| match (m.fe_difference(), m.fe_error, m.accuracy) {
+        (Some(d), Some(e), Some(a)) => d.abs() > 10.0 * (e + a) + 1e-12,
+        _ => false,
+    });
+    if let Some(m) = disagreeing {
+        let (d, e) = (m.fe_difference().unwrap_or(0.0), m.fe_error.unwrap_or(0.0));
+        warnings.push(Warning {
+            code: WarningCode::FeDisagrees,
+            message: format!(
+                "The finite-element check of mode {} differs from the exact value by {:.1e}, more than its mesh and \
+                 rounding explain ({:.0e}). Trust the exact value, whose own check (Rayleigh's quotient of the mode \
+                 shape) agrees to {:.0e}, and please report this model.",
+                m.number,
+                d.abs(),
+                e,
+                m.accuracy.unwrap_or(0.0)
+            ),
+        });
+    } else if let Some(worst) =
+        modes.iter().filter(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)).map(|m| m.number).next()
+    {
+        warnings.push(Warning {
+            code: WarningCode::FeUnconverged,
+            message: format!(
+                "The finite-element check differs from the exact result by more than 0.1 % from mode {worst} on, as \
+                 its mesh predicts; use more elements if you rely on it. The exact results are not affected."
+            ),
+        });
+    }
+    if modes.iter().any(|m| m.multiplicity > 1 && !m.rigid_body) {
+        warnings.push(Warning {
+            code: WarningCode::Repeated,
+            message:
+                "Some frequencies are repeated; their mode shapes are one mass-orthogonal choice among many."
+                    .to_string(),
+        });
+    }
+    let fundamental = match modes.get(rigid) {
+        Some(first) if rigid == 0 => {
+            let position = options.report_point.unwrap_or_else(|| bounds::largest_deflection(&first.shape));
+            let equivalent = bounds::equivalent(&first.shape, first.omega, position);
+            if equivalent.is_none() {
+                warnings.push(Warning {
+                    code: WarningCode::ReportPointAtNode,
+                    message: "Mode 1 barely moves at the chosen report point, so no equivalent mass is given there."
+                        .to_string(),
+                });
+            }
+            Some(Fundamental {
+                omega: first.omega,
+                rayleigh: bounds::rayleigh(model, &first.shape, first.omega),
+                dunkerley: bounds::dunkerley(model)?,
+                equivalent,
+            })
+        }
+        _ => None,
+    };
+    Ok(Analysis {
+        rigid_body_modes: rigid,
+        modes,
+        fundamental,
+        fe_elements: fe.elements,
+        fe_dofs: fe.dofs,
+        critical_load_factor,
+        warnings,
+    })
+}

@@ -1,0 +1,128 @@
+//! The public entry points: read a scenario, check it, run the analysis and its judgements, and
+//! present the results as a [`Report`].
+
+use super::{echo, FeReport, FundamentalReport, ModeReport, Report, ShapeSamples, SprungAmplitude};
+use crate::analysis::{self, margins, Excitation};
+use crate::error::{Error, ErrorKind, Result};
+use crate::scenario::Scenario;
+
+/// Reads, checks and solves a scenario given as parsed JSON.
+pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
+    solve(&Scenario::from_value(value)?)
+}
+
+/// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
+/// and bit for bit its `frequency_hz`, from the exact method alone. For a first look at a
+/// scenario whose report is known (a page's prerendered one): a fraction of the work of
+/// [`solve_value`]. An error here is the one [`solve_value`] gives, which may also fail in the
+/// steps this leaves out.
+pub fn frequencies_value(value: &serde_json::Value) -> Result<Vec<f64>> {
+    let inputs = Scenario::from_value(value)?.to_model()?;
+    let hz: Vec<f64> = analysis::exact_omegas(&inputs.model, &inputs.options)?.into_iter().map(hz).collect();
+    if !hz.iter().all(|f| f.is_finite()) {
+        return Err(overflow());
+    }
+    Ok(hz)
+}
+
+/// Reads, checks and solves a scenario given as JSON text.
+pub fn solve_json(text: &str) -> Result<Report> {
+    solve(&Scenario::from_json(text)?)
+}
+
+/// Reads, checks and solves a scenario.
+pub fn solve(scenario: &Scenario) -> Result<Report> {
+    let inputs = scenario.to_model()?;
+    let model = &inputs.model;
+    let analysis = analysis::analyse(model, &inputs.options)?;
+    let gyration: Vec<Option<f64>> = inputs.segments.iter().map(|s| s.gyration_squared).collect();
+    let comparison = analysis::other_theory(model, &gyration, &analysis)?;
+    let excitations: Vec<Excitation> = inputs
+        .excitations
+        .iter()
+        .map(|(label, f, harmonics)| Excitation {
+            label: label.clone(),
+            frequency_hz: *f,
+            harmonics: *harmonics,
+        })
+        .collect();
+    let modes: Vec<ModeReport> = analysis
+        .modes
+        .iter()
+        .enumerate()
+        .map(|(i, m)| {
+            let f = hz(m.omega);
+            ModeReport {
+                number: m.number,
+                rigid_body: m.rigid_body,
+                multiplicity: m.multiplicity,
+                frequency_hz: f,
+                rpm: f * 60.0,
+                fe_frequency_hz: m.fe_omega.map(hz),
+                fe_difference: m.fe_difference(),
+                fe_error: m.fe_error,
+                accuracy: m.accuracy,
+                other_theory_hz: comparison.as_ref().and_then(|c| c.omegas.get(i).copied()).map(hz),
+                nodes: m.shape.nodes.clone(),
+                generalized_mass: m.shape.generalized_mass,
+                shape: ShapeSamples { x: m.shape.x.clone(), w: m.shape.deflection.clone() },
+                sprung: m
+                    .shape
+                    .sprung
+                    .iter()
+                    .map(|&(attachment, amplitude)| SprungAmplitude { attachment, amplitude })
+                    .collect(),
+                nearest_excitation: if m.rigid_body {
+                    None
+                } else {
+                    margins::nearest(f, &excitations, inputs.margin)
+                },
+            }
+        })
+        .collect();
+    let mut warnings = analysis.warnings.clone();
+    warnings.extend(comparison.as_ref().and_then(|c| c.warning.clone()));
+    warnings.extend(margins::resonance_warning(
+        modes.iter().map(|m| (m.number, m.nearest_excitation.as_ref())),
+        &excitations,
+        inputs.margin,
+    ));
+    let report = Report {
+        title: scenario.title.clone(),
+        units: scenario.units,
+        theory: model.theory(),
+        comparison: comparison.as_ref().map(|c| c.theory),
+        beam: echo::beam(model, &inputs),
+        rigid_body_modes: analysis.rigid_body_modes,
+        modes,
+        fundamental: analysis.fundamental.map(|f| FundamentalReport {
+            exact_hz: hz(f.omega),
+            rayleigh_hz: f.rayleigh.map(hz),
+            dunkerley_hz: f.dunkerley.map(hz),
+            equivalent: f.equivalent,
+        }),
+        fe: FeReport { elements: analysis.fe_elements, dofs: analysis.fe_dofs },
+        excitations: echo::excitations(&inputs),
+        margin: inputs.margin,
+        warnings,
+        conversions: echo::conversions(&inputs),
+    };
+    if !report.is_finite() {
+        return Err(overflow());
+    }
+    Ok(report)
+}
+
+/// Hertz from rad/s.
+fn hz(omega: f64) -> f64 {
+    omega / std::f64::consts::TAU
+}
+
+/// The error of a result too large to compute with.
+fn overflow() -> Error {
+    Error::new(
+        ErrorKind::NoConvergence,
+        "a result overflowed the range of numbers the engine computes with; check the orders of magnitude of \
+         the inputs (units, exponents)",
+    )
+}

@@ -1,0 +1,57 @@
+//! The scenario being edited, held as JSON exactly as the user typed it, and how it is solved.
+//!
+//! The calculator keeps the scenario as a `serde_json::Value` rather than a typed `Scenario`
+//! because what is typed may not parse yet; core reads the text and says what is wrong, with the
+//! field path the editor uses to put the message beside the field.
+
+mod edit;
+pub mod path;
+pub mod text;
+
+#[cfg(test)]
+mod tests;
+
+pub use edit::{apply, Edit, List};
+
+use modebench::schema;
+use modebench::units::UnitSystem;
+use modebench::{Error, ErrorKind, FieldPath, Report};
+use serde_json::Value;
+
+/// Reads scenario text into the editable form; an error names what is wrong with the JSON.
+pub fn read(text: &str) -> Result<Value, Error> {
+    text::read(text)
+        .map_err(|e| Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}")))
+}
+
+/// The unit system the scenario asks for, read as the core reads it. An absent or unknown one is
+/// drawn in SI; an unknown one is also refused by the solve, and the refusal is shown beside the
+/// units field.
+pub fn unit_system(doc: &Value) -> UnitSystem {
+    modebench::scenario::unit_system_of(doc).unwrap_or_default()
+}
+
+/// Solves the scenario as it stands.
+pub fn solve(doc: &Value) -> Result<Report, Error> {
+    check_whole_numbers(doc)?;
+    modebench::solve_value(doc)
+}
+
+/// Whole-number fields hold text only when what was typed is not a whole number; say so with
+/// the field's path and range (core would only say a number was expected).
+fn check_whole_numbers(doc: &Value) -> Result<(), Error> {
+    let mut fields = vec![(FieldPath::from(schema::MODES.name), &schema::MODES)];
+    let count = doc.get("excitations").and_then(Value::as_array).map_or(0, Vec::len);
+    fields.extend(
+        (0..count)
+            .map(|i| (FieldPath::item("excitations", i).key(schema::HARMONICS.name), &schema::HARMONICS)),
+    );
+    for (place, field) in fields {
+        if let Some(Value::String(text)) = path::get(doc, &place.to_string()) {
+            let message = format!("{} must be {}", field.what, field.allowed());
+            let error = Error::new(ErrorKind::OutOfRange, message).at(place);
+            return Err(if text.trim().is_empty() { error } else { error.with_value(text) });
+        }
+    }
+    Ok(())
+}

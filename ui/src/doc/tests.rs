@@ -1,0 +1,150 @@
+//! Edits applied to scenarios: text kept as typed, optional fields removed when emptied,
+//! structural edits that carry over what still fits.
+
+use super::{apply, path, solve, Edit, List};
+use serde_json::{json, Value};
+
+fn boom() -> Value {
+    json!({
+        "units": "si-mm",
+        "left": "clamped",
+        "right": "free",
+        "segments": [{
+            "length": "1450 mm",
+            "section": { "shape": "tube", "outer_diameter": "60 mm", "wall": "4 mm" },
+            "material": "aluminium-6061-t6"
+        }],
+        "attachments": [{ "type": "mass", "position": "1450 mm", "mass": "2.8 kg", "label": "camera" }]
+    })
+}
+
+fn text(path: &str, text: &str) -> Edit {
+    Edit::Text { path: path.to_string(), text: text.to_string() }
+}
+
+fn choose(path: &str, value: &str) -> Edit {
+    Edit::Choose { path: path.to_string(), value: value.to_string() }
+}
+
+#[test]
+fn text_is_kept_exactly_as_typed_even_when_wrong() {
+    let mut doc = boom();
+    apply(&mut doc, &text("attachments[0].mass", "2.8 kgg "), None);
+    assert_eq!(doc["attachments"][0]["mass"], json!("2.8 kgg "));
+    let error = solve(&doc).err();
+    assert_eq!(error.map(|e| e.path.to_string()), Some("attachments[0].mass".to_string()));
+}
+
+#[test]
+fn emptied_optional_fields_are_removed_and_required_ones_kept_empty() {
+    let mut doc = boom();
+    apply(&mut doc, &text("attachments[0].label", "  "), None);
+    assert!(doc["attachments"][0].get("label").is_none());
+    apply(&mut doc, &text("attachments[0].position", ""), None);
+    assert_eq!(doc["attachments"][0]["position"], json!(""));
+    assert_eq!(solve(&doc).err().map(|e| e.path.to_string()), Some("attachments[0].position".to_string()));
+}
+
+#[test]
+fn whole_numbers_are_stored_as_numbers_and_bad_ones_named() {
+    let mut doc = boom();
+    apply(&mut doc, &text("modes", "3"), None);
+    assert_eq!(doc["modes"], json!(3));
+    apply(&mut doc, &text("modes", "three"), None);
+    let error = solve(&doc).err();
+    assert_eq!(error.as_ref().map(|e| e.path.to_string()).as_deref(), Some("modes"));
+    assert!(error.is_some_and(|e| e.message.contains("whole number from 1 to 20")));
+}
+
+#[test]
+fn retyping_an_attachment_keeps_position_label_and_fitting_fields() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("attachments[0].type", "sprung-mass"), None);
+    let a = &doc["attachments"][0];
+    assert_eq!(a["type"], json!("sprung-mass"));
+    assert_eq!(a["position"], json!("1450 mm"));
+    assert_eq!(a["label"], json!("camera"));
+    assert_eq!(a["mass"], json!("2.8 kg"));
+    assert_eq!(a["stiffness"], json!("1e6 N/m"));
+    assert!(solve(&doc).is_ok());
+    apply(&mut doc, &choose("attachments[0].type", "rotational-spring"), None);
+    // A translational stiffness does not carry over to a rotational spring.
+    assert_eq!(doc["attachments"][0]["stiffness"], json!("1e4 N*m/rad"));
+    assert!(doc["attachments"][0].get("mass").is_none());
+}
+
+#[test]
+fn elastic_ends_and_springs() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("right", "elastic"), None);
+    assert_eq!(doc["right"], json!({ "type": "elastic", "translational": "rigid" }));
+    apply(&mut doc, &text("right.rotational", "300 N*m/rad"), None);
+    assert!(solve(&doc).is_ok());
+    apply(&mut doc, &choose("right", "pinned"), None);
+    assert_eq!(doc["right"], json!("pinned"));
+}
+
+#[test]
+fn reshaping_keeps_dimensions_of_the_same_name() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("segments[0].section.shape", "round"), None);
+    assert_eq!(doc["segments"][0]["section"], json!({ "shape": "round", "diameter": "60 mm" }));
+    apply(&mut doc, &choose("segments[0].section.shape", "rectangular-tube"), None);
+    assert_eq!(doc["segments"][0]["section"]["wall"], json!(""));
+}
+
+#[test]
+fn switching_a_segment_to_properties_keeps_the_same_beam() {
+    let mut doc = boom();
+    let before = solve(&doc).ok();
+    apply(&mut doc, &Edit::SegmentBy { index: 0, by: "properties".into() }, before.as_ref());
+    assert!(doc["segments"][0].get("section").is_none());
+    let after = solve(&doc).ok();
+    let f = |r: &Option<modebench::Report>| r.as_ref().map(|r| r.modes[0].frequency_hz).unwrap_or(f64::NAN);
+    // The properties are shown to four significant figures, so the frequency moves by less than
+    // a part in a thousand.
+    assert!((f(&after) / f(&before) - 1.0).abs() < 1e-3, "{} vs {}", f(&after), f(&before));
+    apply(&mut doc, &Edit::SegmentBy { index: 0, by: "section".into() }, None);
+    assert_eq!(doc["segments"][0]["material"], json!("steel"));
+    assert!(solve(&doc).is_ok());
+}
+
+#[test]
+fn custom_material_starts_from_the_preset() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("segments[0].material", "custom"), None);
+    assert_eq!(
+        doc["segments"][0]["material"],
+        json!({ "youngs_modulus": "68900 MPa", "density": "2700 kg/m³" })
+    );
+    assert!(solve(&doc).is_ok());
+}
+
+#[test]
+fn rows_are_added_and_removed_but_one_segment_stays() {
+    let mut doc = boom();
+    let report = solve(&doc).ok();
+    apply(&mut doc, &Edit::Add(List::Attachments), report.as_ref());
+    assert_eq!(doc["attachments"][1], json!({ "type": "mass", "position": "725 mm", "mass": "1 kg" }));
+    apply(&mut doc, &Edit::Add(List::Excitations), None);
+    assert_eq!(doc["excitations"][0]["frequency"], json!("50 Hz"));
+    apply(&mut doc, &Edit::Add(List::Segments), None);
+    assert_eq!(doc["segments"].as_array().map(Vec::len), Some(2));
+    assert!(solve(&doc).is_ok());
+    apply(&mut doc, &Edit::Remove(List::Segments, 1), None);
+    apply(&mut doc, &Edit::Remove(List::Segments, 0), None);
+    assert_eq!(doc["segments"].as_array().map(Vec::len), Some(1));
+    apply(&mut doc, &Edit::Remove(List::Attachments, 0), None);
+    assert_eq!(path::text(&doc, "attachments[0].position"), "725 mm");
+}
+
+#[test]
+fn submerged_is_ticked_on_and_off() {
+    let mut doc = boom();
+    let tick = |on| Edit::Tick { path: "segments[0].extra_mass.submerged".into(), on };
+    apply(&mut doc, &tick(true), None);
+    assert_eq!(doc["segments"][0]["extra_mass"]["submerged"], json!({}));
+    assert!(solve(&doc).is_ok());
+    apply(&mut doc, &tick(false), None);
+    assert_eq!(doc["segments"][0]["extra_mass"], json!({}));
+}

@@ -1,0 +1,117 @@
+//! Placing an input error beside the field it concerns, and wording it for that place.
+
+use super::escape::escape;
+use modebench::error::mentions;
+use modebench::{Error, FieldPath};
+
+/// The field an error belongs beside, given the paths of the fields on show: the field it names;
+/// else the first field inside the part it names (`attachments[1]` → that row's first field);
+/// else the field that contains it; else the same for the enclosing part. `None` when nothing
+/// fits (a problem with the whole scenario), and the message then goes above the editor.
+pub fn placement<'a>(error_path: &FieldPath, fields: &[&'a str]) -> Option<&'a str> {
+    let parsed: Vec<(FieldPath, &'a str)> =
+        fields.iter().filter_map(|f| Some((FieldPath::parse(f)?, *f))).collect();
+    let mut path = error_path.clone();
+    while !path.is_empty() {
+        if let Some((_, f)) = parsed.iter().find(|(p, _)| *p == path) {
+            return Some(f);
+        }
+        if let Some((_, f)) = parsed.iter().find(|(p, _)| p.is_inside(&path)) {
+            return Some(f);
+        }
+        if let Some((_, f)) =
+            parsed.iter().filter(|(p, _)| path.is_inside(p)).max_by_key(|(p, _)| p.steps().len())
+        {
+            return Some(f);
+        }
+        path = path.parent().unwrap_or_default();
+    }
+    None
+}
+
+/// The message shown beside the field: what is wrong and what was typed (with its value in SI
+/// when the check was made in SI), without the field path (the position says it) and without
+/// JSON line numbers (the user typed into a field).
+pub fn message(error: &Error) -> String {
+    let mut text = strip_location(&error.message).to_string();
+    let typed = error.value.as_deref().filter(|v| !mentions(&text, v));
+    let si = error.si.as_deref().filter(|si| !mentions(&text, si) && Some(*si) != error.value.as_deref());
+    match (typed, si) {
+        (Some(typed), Some(si)) => text.push_str(&format!(" (you typed “{typed}”, which is {si})")),
+        (Some(typed), None) => text.push_str(&format!(" (you typed “{typed}”)")),
+        _ => {}
+    }
+    text
+}
+
+/// Serde ends its messages with "at line 1 column 230", which means nothing in a form.
+fn strip_location(message: &str) -> &str {
+    match message.rfind(" at line ") {
+        Some(i) if message[i + 9..].chars().all(|c| c.is_ascii_digit() || " column".contains(c)) => {
+            &message[..i]
+        }
+        _ => message,
+    }
+}
+
+/// The element holding an error message beside a field (or above the editor, when `general`).
+pub fn field_error_html(error: &Error, general: bool) -> String {
+    let text = if general && !error.path.is_empty() {
+        format!("{}: {}", error.path, message(error))
+    } else {
+        message(error)
+    };
+    format!(
+        "<span class=\"mb-field-error\" data-for=\"{}\" role=\"alert\">{}</span>",
+        escape(&error.path.to_string()),
+        escape(&text)
+    )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    const FIELDS: [&str; 5] = [
+        "modes",
+        "segments[0].length",
+        "segments[0].section.wall",
+        "attachments[1].type",
+        "attachments[1].position",
+    ];
+
+    #[test]
+    fn errors_go_to_the_named_or_nearest_field() {
+        let at = |text: &str| placement(&FieldPath::from(text), &FIELDS);
+        assert_eq!(at("segments[0].section.wall"), Some("segments[0].section.wall"));
+        assert_eq!(at("attachments[1]"), Some("attachments[1].type"));
+        assert_eq!(at("segments[0].flexural_rigidity"), Some("segments[0].length"));
+        assert_eq!(at("modes.x"), Some("modes"));
+        assert_eq!(at("fe.elements"), None);
+        assert_eq!(at(""), None);
+    }
+
+    #[test]
+    fn messages_give_what_was_typed_and_its_si_value() {
+        let mut doc: serde_json::Value = serde_json::from_str(
+            r#"{"left": "clamped", "right": "free", "segments": [{"length": "1450 mm",
+                "flexural_rigidity": "1e4 N*m^2", "mass_per_length": "2 kg/m"}],
+                "attachments": [{"type": "mass", "position": "2100 mm", "mass": "1 kg"}]}"#,
+        )
+        .unwrap();
+        let e = modebench::solve_value(&doc).unwrap_err();
+        assert_eq!(
+            message(&e),
+            "the position must lie on the beam (0 to 1.45 m) (you typed “2100 mm”, which is 2.1 m)"
+        );
+        doc["attachments"][0]["position"] = serde_json::json!("2.1 m");
+        let e = modebench::solve_value(&doc).unwrap_err();
+        assert_eq!(message(&e), "the position must lie on the beam (0 to 1.45 m) (you typed “2.1 m”)");
+    }
+
+    #[test]
+    fn messages_drop_json_locations() {
+        assert_eq!(strip_location("unknown field name `x` at line 1 column 23"), "unknown field name `x`");
+        assert_eq!(strip_location("keep at line endings"), "keep at line endings");
+    }
+}

@@ -1,0 +1,216 @@
+//! The results block: the mode table, mode 1's bounds, the mode plot, the warnings, and the
+//! inputs as modelled.
+
+use super::escape::escape;
+use super::number::{self, hz, percent, quantity, rpm};
+use super::{band, echo, plot};
+use modebench::report::ModeReport;
+use modebench::units::Kind;
+use modebench::{Report, Theory};
+
+/// What the reader has chosen to look at, kept across redraws.
+#[derive(Clone, Debug, Default, PartialEq)]
+pub struct View {
+    /// The mode drawn in the plot (its number); the first elastic mode when 0 or absent.
+    pub mode: usize,
+    /// The `data-part` names of the fold-out sections left open.
+    pub open: Vec<String>,
+}
+
+/// The whole results element. `stale` marks results that belong to an earlier input (shown
+/// greyed); `None` when no input has been solved yet.
+pub fn results_html(report: Option<&Report>, stale: bool, view: &View) -> String {
+    let class = if stale { "mb-results mb-stale" } else { "mb-results" };
+    format!("<div class=\"{class}\" aria-live=\"polite\">{}</div>", results_inner(report, stale, view))
+}
+
+/// The inside of the results element, which the widget replaces on every edit.
+pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> String {
+    let mut out = String::new();
+    match (report, stale) {
+        (None, _) => {
+            out.push_str(
+                "<p class=\"mb-stale-note\">No results yet: correct the field marked in the editor and they \
+                 appear here.</p>",
+            );
+            return out;
+        }
+        (Some(_), true) => out.push_str(stale_note()),
+        _ => {}
+    }
+    let Some(report) = report else { return out };
+    let mode = chosen_mode(report, view.mode);
+    out.push_str(&table(report));
+    out.push_str(&warnings(report));
+    out.push_str(&band::fundamental(report));
+    out.push_str(&plot_area(report, mode));
+    out.push_str(&echo::echo(report, &view.open));
+    out
+}
+
+/// The note above results that belong to an earlier input than the one in the editor.
+pub fn stale_note() -> &'static str {
+    "<p class=\"mb-stale-note\">These results belong to the last input that could be solved. Correct the field \
+     marked in the editor to bring them up to date.</p>"
+}
+
+/// The mode to draw: the one asked for if it exists, else the first elastic mode.
+pub(crate) fn chosen_mode(report: &Report, asked: usize) -> usize {
+    if report.modes.iter().any(|m| m.number == asked) {
+        return asked;
+    }
+    report.modes.iter().find(|m| !m.rigid_body).or(report.modes.first()).map_or(1, |m| m.number)
+}
+
+fn theory_name(theory: Theory) -> &'static str {
+    match theory {
+        Theory::Timoshenko => "Timoshenko",
+        _ => "Euler–Bernoulli",
+    }
+}
+
+fn table(report: &Report) -> String {
+    let system = report.units;
+    let other = report.comparison.map(|t| format!("<th scope=\"col\">{} check</th>", theory_name(t)));
+    let has_excitations = !report.excitations.is_empty();
+    let mut out = format!(
+        "<h4 class=\"mb-results-title\">Natural frequencies — {}</h4><div class=\"mb-table-wrap\">\
+         <table class=\"mb-modes\"><thead><tr><th scope=\"col\">Mode</th><th scope=\"col\">Frequency</th>\
+         <th scope=\"col\">Finite-element check</th><th scope=\"col\">Nodes from the left end</th>{}",
+        theory_name(report.theory),
+        other.unwrap_or_default()
+    );
+    if has_excitations {
+        out.push_str(&format!(
+            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (want ≥ {})</th>",
+            percent(report.margin, 3)
+        ));
+    }
+    out.push_str("</tr></thead><tbody>");
+    for m in &report.modes {
+        out.push_str(&row(report, m, system, has_excitations));
+    }
+    out.push_str("</tbody></table></div>");
+    out
+}
+
+fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, excitations: bool) -> String {
+    let close = m.nearest_excitation.as_ref().is_some_and(|s| s.too_close);
+    let mut out = format!(
+        "<tr data-mode=\"{}\"{}><th scope=\"row\">{}</th>",
+        m.number,
+        if close { " class=\"mb-too-close\"" } else { "" },
+        m.number
+    );
+    let data_hz = number::exact(m.frequency_hz).map(|v| format!(" data-hz=\"{v}\"")).unwrap_or_default();
+    let mut tags = String::new();
+    if m.rigid_body {
+        tags.push_str(" <span class=\"mb-tag\">rigid-body motion</span>");
+    }
+    if m.multiplicity > 1 {
+        tags.push_str(&format!(" <span class=\"mb-tag\">repeated ×{}</span>", m.multiplicity));
+    }
+    out.push_str(&format!(
+        "<td class=\"mb-hz\"{data_hz}><span class=\"mb-main\">{}</span>{tags}<span class=\"mb-sub\">{}</span></td>",
+        hz(m.frequency_hz),
+        rpm(m.rpm)
+    ));
+    // Differences far below the digits shown say only that the two methods agree.
+    let difference = m.fe_difference.map(|d| match d {
+        d if d.abs() < 1e-6 => "within 0.0001 %".to_string(),
+        d if d > 0.0 => format!("+{}", percent(d, 2)),
+        d => percent(d, 2),
+    });
+    match m.fe_frequency_hz.and_then(|f| number::exact(f).map(|text| (f, text))) {
+        Some((f, text)) => out.push_str(&format!(
+            "<td class=\"mb-fe\" data-fe-hz=\"{text}\"><span class=\"mb-main\">{}</span><span class=\"mb-sub\">{}</span></td>",
+            hz(f),
+            difference.unwrap_or_default()
+        )),
+        None => out.push_str(&format!("<td class=\"mb-fe\">{}</td>", number::MISSING)),
+    }
+    let nodes = if m.nodes.is_empty() {
+        "none".to_string()
+    } else {
+        m.nodes
+            .iter()
+            .map(|x| format!("<span class=\"mb-node-at\">{}</span>", quantity(*x, Kind::Length, system)))
+            .collect::<Vec<_>>()
+            .join(", ")
+    };
+    out.push_str(&format!("<td class=\"mb-nodes\">{nodes}</td>"));
+    if report.comparison.is_some() {
+        out.push_str(&format!("<td>{}</td>", m.other_theory_hz.map_or(number::MISSING.to_string(), hz)));
+    }
+    if excitations {
+        match &m.nearest_excitation {
+            Some(s) => {
+                let label = report
+                    .excitations
+                    .get(s.excitation)
+                    .map(|e| e.label.trim())
+                    .filter(|l| !l.is_empty())
+                    .map_or(format!("excitation {}", s.excitation + 1), escape);
+                let order = if s.order > 1 { format!(" ×{}", s.order) } else { String::new() };
+                out.push_str(&format!(
+                    "<td class=\"mb-nearest\">{label}{order}<span class=\"mb-sub\">{}</span></td>",
+                    hz(s.frequency_hz)
+                ));
+                let flag = if s.too_close {
+                    "<span class=\"mb-flag mb-flag-close\">⚠ too close</span>"
+                } else {
+                    "<span class=\"mb-flag mb-flag-clear\">clear</span>"
+                };
+                out.push_str(&format!(
+                    "<td class=\"mb-separation\"><span class=\"mb-main\">{}</span>{flag}</td>",
+                    percent(s.margin, 3)
+                ));
+            }
+            None => out.push_str(&format!("<td>{0}</td><td>{0}</td>", number::MISSING)),
+        }
+    }
+    out.push_str("</tr>");
+    out
+}
+
+fn warnings(report: &Report) -> String {
+    if report.warnings.is_empty() {
+        return String::new();
+    }
+    let items: String = report
+        .warnings
+        .iter()
+        .map(|w| {
+            format!(
+                "<li class=\"mb-warning\" data-code=\"{}\">{}</li>",
+                escape(w.code.id()),
+                escape(&w.message)
+            )
+        })
+        .collect();
+    format!("<ul class=\"mb-warnings\">{items}</ul>")
+}
+
+fn plot_area(report: &Report, mode: usize) -> String {
+    let buttons: String = report
+        .modes
+        .iter()
+        .map(|m| {
+            format!(
+                "<button type=\"button\" class=\"mb-button mb-mode-button\" data-show-mode=\"{0}\" \
+                 aria-pressed=\"{1}\">Mode {0}<span class=\"mb-button-hz\">{2}</span></button>",
+                m.number,
+                m.number == mode,
+                hz(m.frequency_hz)
+            )
+        })
+        .collect();
+    format!(
+        "<section class=\"mb-plot-area\"><h4 class=\"mb-results-title\">Mode shape</h4><div class=\"mb-mode-buttons\" \
+         role=\"group\" aria-label=\"Mode to draw\">{buttons}</div>{}<p class=\"mb-plot-key\">Circles mark nodes \
+         (points that stay still); the dashed line is the beam at rest, drawn thicker where it is stiffer. \
+         Deflections are scaled to fit{}.</p></section>",
+        plot::plot_svg(report, mode),
+        if report.modes.len() > 1 { "; choose a mode above" } else { "" }
+    )
+}
