@@ -5,6 +5,7 @@
 //! field path the editor uses to put the message beside the field.
 
 mod edit;
+pub mod history;
 pub mod path;
 pub mod text;
 
