@@ -13,6 +13,10 @@
 //! Every loop is bounded: a solve has a budget of evaluations, and past it the search stops with
 //! [`ErrorKind::NoConvergence`] instead of running on. Repeated frequencies stay unresolved by the
 //! count and are reported once per multiplicity at the centre of a tiny interval.
+//!
+//! The file runs past 400 lines on purpose: the sample list, the isolation loop and Brent's
+//! step share invariants (which samples are on which discretisation, which counts are trusted)
+//! that are easier to keep true when read together.
 
 use crate::error::{Error, ErrorKind, Result};
 
@@ -63,6 +67,11 @@ pub(crate) struct Work {
 const REPEATED: f64 = 1e-13;
 /// Relative tolerance of the polished root.
 const POLISH: f64 = 4e-14;
+/// The relative size of an interpolation step below which Brent's iteration is taken to have
+/// settled into its superlinear convergence (see [`brent`]).
+const SETTLED: f64 = 1e-6;
+/// How far above each hint (relative) it is probed.
+const HINT_OFFSET: f64 = 1e-9;
 /// Evaluations a search may spend besides those per mode (finding an upper bound, hints).
 const BUDGET_BASE: usize = 400;
 /// Evaluations a search may spend per frequency asked for. Isolating two frequencies a part in
@@ -118,7 +127,10 @@ pub(crate) fn find(
         }
     };
     for &h in hints.iter().filter(|h| **h < top) {
-        search.evaluate(&evaluator, h)?;
+        // A hint may be a root itself (the same model solved again), and a count taken within
+        // rounding of a root may be off by one; a part in 10⁹ above it is clear of that and
+        // still leaves the root at the very end of its bracket.
+        search.evaluate(&evaluator, h * (1.0 + HINT_OFFSET))?;
     }
 
     let mut roots: Vec<Root> = Vec::with_capacity(wanted);
@@ -129,7 +141,10 @@ pub(crate) fn find(
             let (lo, hi) = search.bracket(k);
             let (a, b) = (search.samples[lo], search.samples[hi]);
             if a.below + 1 == k && b.below == k && (a.omega > 0.0 || skip == 0) {
-                let omega = search.polish(&evaluator, lo, hi, system.tolerance(b.omega))?;
+                let tolerance = system.tolerance(b.omega);
+                let known: Vec<f64> = roots.iter().map(|r| r.omega).filter(|&w| w < a.omega).collect();
+                let omega = search.polish(&evaluator, lo, hi, &known, tolerance)?;
+                search.forget_tipped_counts(omega, k, tolerance);
                 roots.push(Root { omega, multiplicity: 1 });
                 k += 1;
                 break;
@@ -150,6 +165,17 @@ pub(crate) fn find(
         }
     }
     roots.truncate(wanted);
+    // Each root lies in a bracket above the one before, so the list is ascending whenever the
+    // counts are consistent. When the model's stiffnesses span more than double precision
+    // resolves, counts at tiny trial frequencies are round-off, and a list out of order is the
+    // sign of it: refuse it rather than show frequencies that mean nothing.
+    if let Some(i) = roots.windows(2).position(|w| w[1].omega < w[0].omega * (1.0 - 1e-9)) {
+        return Err(no_convergence(
+            skip + i + 2,
+            "the stiffnesses differ by more than double precision resolves \
+             (a segment, spring or support far softer or stiffer than the rest)",
+        ));
+    }
     Ok((roots, search.work))
 }
 
@@ -198,6 +224,16 @@ impl Search {
         Err(no_convergence(self.skip + 1, "the elimination broke down at every trial frequency near a root"))
     }
 
+    /// Drops the samples taken within rounding of the k-th frequency, just found at ω, whose
+    /// count is neither k − 1 nor k. There the matrix is singular to working precision: an
+    /// elimination step's pivot is rounding noise, and the next pivot, divided by it, can take
+    /// either sign, so the count may be off by one in either direction; left in place, such a
+    /// sample would bracket a phantom frequency beside the real one.
+    fn forget_tipped_counts(&mut self, omega: f64, k: usize, tolerance: f64) {
+        let window = 2.0 * (tolerance + f64::EPSILON) * omega;
+        self.samples.retain(|s| (s.omega - omega).abs() > window || s.below + 1 == k || s.below == k);
+    }
+
     /// Indices of the tightest sampled interval with count(lo) < k ≤ count(hi).
     fn bracket(&self, k: usize) -> (usize, usize) {
         let hi = self.samples.iter().position(|s| s.below >= k).unwrap_or(self.samples.len() - 1);
@@ -207,49 +243,70 @@ impl Search {
 
     /// The one frequency in the sampled interval (lo, hi] (counts k − 1 and k), by Brent's
     /// method on the determinant scaled by its larger value at the ends.
-    fn polish(&mut self, evaluator: &Evaluator<'_>, lo: usize, hi: usize, tolerance: f64) -> Result<f64> {
+    fn polish(
+        &mut self,
+        evaluator: &Evaluator<'_>,
+        lo: usize,
+        hi: usize,
+        known: &[f64],
+        tolerance: f64,
+    ) -> Result<f64> {
         let (a, b) = (self.samples[lo], self.samples[hi]);
         let (slo, llo) = match a.value {
             Some(v) => v,
-            None => {
-                let e = self.evaluate(evaluator, a.omega)?;
-                (e.sign, e.log)
-            }
+            None => self.revalue(evaluator, lo)?,
         };
         let (shi, lhi) = match b.value {
             Some(v) => v,
-            None => {
-                let e = self.evaluate(evaluator, b.omega)?;
-                (e.sign, e.log)
-            }
+            None => self.revalue(evaluator, hi)?,
         };
         if slo == shi {
             // Only where an end sits within rounding of a root; the count still brackets it.
             return Ok(0.5 * (a.omega + b.omega));
         }
-        let reference = llo.max(lhi);
-        let scaled = |(sign, log): (f64, f64)| sign * (log - reference).clamp(-700.0, 700.0).exp();
+        // The determinant divided by (ω − ωⱼ) for every frequency already found below the
+        // interval: those factors bend the determinant most across the interval, and without
+        // them the interpolation steps converge from the first. The product is positive inside
+        // the interval, so the sign change is the same. (Dividing also by the hints above the
+        // interval was tried and cost more evaluations on a warm start, not fewer.)
+        let deflated = |omega: f64, log: f64| log - known.iter().map(|w| (omega - w).ln()).sum::<f64>();
+        let (dlo, dhi) = (deflated(a.omega, llo), deflated(b.omega, lhi));
+        let reference = dlo.max(dhi);
+        let scaled = |omega: f64, sign: f64, log: f64| {
+            sign * (deflated(omega, log) - reference).clamp(-700.0, 700.0).exp()
+        };
         let mut failure = None;
-        let root =
-            brent(
-                a.omega,
-                scaled((slo, llo)),
-                b.omega,
-                scaled((shi, lhi)),
-                tolerance,
-                &mut |omega| match self.evaluate(evaluator, omega) {
-                    Ok(e) => Some(scaled((e.sign, e.log))),
-                    Err(e) => {
-                        failure = Some(e);
-                        None
-                    }
-                },
-            );
+        let root = brent(
+            a.omega,
+            scaled(a.omega, slo, llo),
+            b.omega,
+            scaled(b.omega, shi, lhi),
+            tolerance,
+            &mut |omega| match self.evaluate(evaluator, omega) {
+                Ok(e) => Some(scaled(omega, e.sign, e.log)),
+                Err(e) => {
+                    failure = Some(e);
+                    None
+                }
+            },
+        );
         match (root, failure) {
             (_, Some(e)) => Err(e),
             (Some(root), None) => Ok(root),
             (None, None) => Ok(0.5 * (a.omega + b.omega)),
         }
+    }
+
+    /// Evaluates the sample at `index` again on the search's discretisation (its first value
+    /// was taken on another), in place.
+    fn revalue(&mut self, evaluator: &Evaluator<'_>, index: usize) -> Result<(f64, f64)> {
+        let omega = self.samples[index].omega;
+        let e = self.evaluate(evaluator, omega)?;
+        // `evaluate` inserted a second sample at the same ω (or a nudged one); keep one.
+        if let Some(at) = self.samples.iter().position(|s| s.omega == omega && s.value.is_none()) {
+            self.samples.remove(at);
+        }
+        Ok((e.sign, e.log))
     }
 }
 
@@ -301,6 +358,8 @@ fn brent(
     let (mut c, mut fc) = (a, fa);
     let mut d = b - a;
     let mut e = d;
+    // The interpolation step taken in this iteration (NaN when it bisected).
+    let mut p_over_q: f64;
     for _ in 0..200 {
         if fb.signum() == fc.signum() {
             (c, fc) = (a, fa);
@@ -337,13 +396,25 @@ fn brent(
             if 2.0 * p < (3.0 * m * q - (tol * q).abs()).min((e * q).abs()) {
                 e = d;
                 d = p / q;
+                p_over_q = d;
             } else {
                 d = m;
+                p_over_q = f64::NAN;
                 e = m;
             }
         } else {
             d = m;
+            p_over_q = f64::NAN;
             e = m;
+        }
+        if d == p_over_q && d.abs() <= tol && e.abs() <= SETTLED * b.abs() {
+            // Two interpolation steps in a row, the last smaller than the tolerance and the one
+            // before it already small: convergence is superlinear there, so the stepped
+            // estimate's error is far smaller still, and evaluating it (or stepping across the
+            // root only to shrink the bracket) would cost one more factorisation for nothing.
+            // Far from the root a step can be small for other reasons (values at the ends that
+            // differ by many orders of magnitude), so the step before must be small too.
+            return Some(b + d);
         }
         (a, fa) = (b, fb);
         b += if d.abs() > tol { d } else { tol.copysign(m) };

@@ -119,13 +119,16 @@ fn point_loads(model: &Model, index: usize, shape: &ModeShape, omega: f64) -> (f
 
 /// Compression within this fraction of the critical load gets a warning.
 const NEAR_BUCKLING: f64 = 0.5;
+/// A critical load factor this close above 1 is the critical load itself, found to within the
+/// root search's tolerance: the fundamental is zero there and the beam is treated as buckled.
+const AT_BUCKLING: f64 = 1e-9;
 
 /// The critical load factor of the axial forces: an error when the beam has buckled, and a
 /// warning when the compression is more than half of what buckles it.
 fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
     let factor = crate::axial::critical_load_factor(model)?;
     if let Some(mu) = factor {
-        if mu <= 1.0 {
+        if mu <= 1.0 + AT_BUCKLING {
             return Err(Error::new(
                 ErrorKind::Model,
                 format!(
@@ -157,10 +160,16 @@ pub const TRUSTED: f64 = 1e-9;
 
 /// Runs the exact method, finite elements and the bounds.
 pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
+    analyse_with_hints(model, options, &[])
+}
+
+/// As [`analyse`], with the exact search started from `hints` (rad/s; see
+/// [`exact::modes_with_hints`]): the frequencies of the case before an edit.
+pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Result<Analysis> {
     let options = &options.checked(model)?;
     let mut warnings = Vec::new();
     let critical_load_factor = buckling(model, &mut warnings)?;
-    let exact_modes = exact::modes(model, options.modes)?;
+    let exact_modes = exact::modes_with_hints(model, options.modes, hints)?;
     let rigid = model.rigid_body_modes();
     let last = exact_modes.last().map_or(1.0, |m| m.omega);
     let first = exact_modes.iter().find(|m| !m.rigid_body).map_or(last, |m| m.omega);
@@ -282,10 +291,25 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
                         .to_string(),
                 });
             }
+            let (rayleigh, dunkerley) = trusted_bounds(
+                first.omega,
+                bounds::rayleigh(model, &first.shape, first.omega),
+                bounds::dunkerley(model)?,
+            );
+            if rayleigh.withheld || dunkerley.withheld {
+                warnings.push(Warning {
+                    code: WarningCode::Accuracy,
+                    message: "Rayleigh's or Dunkerley's bound came out on the wrong side of the exact mode 1, which \
+                              happens only when the model's stiffnesses differ by more than double precision resolves \
+                              (an extremely stiff spring or support on a very flexible beam): the bound is not shown, \
+                              and mode 1 itself may be inaccurate. Check the stiffnesses."
+                        .to_string(),
+                });
+            }
             Some(Fundamental {
                 omega: first.omega,
-                rayleigh: bounds::rayleigh(model, &first.shape, first.omega),
-                dunkerley: bounds::dunkerley(model)?,
+                rayleigh: rayleigh.value,
+                dunkerley: dunkerley.value,
                 equivalent,
             })
         }
@@ -300,4 +324,23 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
         critical_load_factor,
         warnings,
     })
+}
+
+/// A bound as shown: its value, or none when it was withheld.
+struct Shown {
+    value: Option<f64>,
+    withheld: bool,
+}
+
+/// Rayleigh's upper and Dunkerley's lower bound on mode 1 as they may be shown. Both hold in
+/// exact arithmetic for every model they are computed for; a computed one on the wrong side of
+/// the exact value (beyond 1e-9, the exact value's own accuracy) shows that round-off has taken
+/// over, and a bound that is not one is not shown as one.
+fn trusted_bounds(omega: f64, rayleigh: Option<f64>, dunkerley: Option<f64>) -> (Shown, Shown) {
+    const SLACK: f64 = 1e-9;
+    let check = |value: Option<f64>, holds: &dyn Fn(f64) -> bool| match value {
+        Some(v) if !holds(v) => Shown { value: None, withheld: true },
+        value => Shown { value, withheld: false },
+    };
+    (check(rayleigh, &|r| r >= omega * (1.0 - SLACK)), check(dunkerley, &|d| d <= omega * (1.0 + SLACK)))
 }

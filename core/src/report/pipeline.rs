@@ -32,9 +32,23 @@ pub fn solve_json(text: &str) -> Result<Report> {
 
 /// Reads, checks and solves a scenario.
 pub fn solve(scenario: &Scenario) -> Result<Report> {
+    solve_with_hints(scenario, &[])
+}
+
+/// Reads, checks and solves a scenario given as parsed JSON, starting the search from the
+/// frequencies (Hz) of an earlier report, typically the case's before the edit being solved.
+/// The results are those of [`solve_value`] to within the root search's tolerance, whatever the
+/// hints: every frequency is still isolated by the count.
+pub fn solve_value_with_hints(value: &serde_json::Value, hints_hz: &[f64]) -> Result<Report> {
+    solve_with_hints(&Scenario::from_value(value)?, hints_hz)
+}
+
+/// As [`solve`], with hints (Hz) as for [`solve_value_with_hints`].
+pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report> {
     let inputs = scenario.to_model()?;
     let model = &inputs.model;
-    let analysis = analysis::analyse(model, &inputs.options)?;
+    let hints: Vec<f64> = hints_hz.iter().map(|f| f * std::f64::consts::TAU).collect();
+    let analysis = analysis::analyse_with_hints(model, &inputs.options, &hints)?;
     let gyration: Vec<Option<f64>> = inputs.segments.iter().map(|s| s.gyration_squared).collect();
     let comparison = analysis::other_theory(model, &gyration, &analysis)?;
     let excitations: Vec<Excitation> = inputs

@@ -34,8 +34,14 @@ pub fn unit_system(doc: &Value) -> UnitSystem {
 
 /// Solves the scenario as it stands.
 pub fn solve(doc: &Value) -> Result<Report, Error> {
+    solve_with_hints(doc, &[])
+}
+
+/// Solves the scenario as it stands, starting the search from the frequencies (Hz) of the
+/// case's report before the edit; see [`modebench::solve_value_with_hints`].
+pub fn solve_with_hints(doc: &Value, hints_hz: &[f64]) -> Result<Report, Error> {
     check_whole_numbers(doc)?;
-    modebench::solve_value(doc)
+    modebench::solve_value_with_hints(doc, hints_hz)
 }
 
 /// Whole-number fields hold text only when what was typed is not a whole number; say so with

@@ -6,6 +6,7 @@ use crate::doc::{self, text};
 use modebench::report::{report_from_json, FromJson};
 use modebench::{Error, ErrorKind, Report};
 use serde::Serialize;
+use std::cell::RefCell;
 
 /// The worker's answer, as JSON text: `{"report": {…}}` or `{"error": {…}}`.
 #[derive(Debug, Serialize)]
@@ -15,11 +16,24 @@ enum Answer {
     Error(Error),
 }
 
+thread_local! {
+    /// The frequencies (Hz) of the last report this worker sent. A worker serves one
+    /// calculator, so they are the case's before the edit now being solved, and the search
+    /// starts from them; the count still certifies every frequency. A worker stopped for running
+    /// past its budget takes them with it, and its replacement starts cold.
+    static LAST: RefCell<Vec<f64>> = const { RefCell::new(Vec::new()) };
+}
+
 /// Solves a scenario given as JSON text and writes the answer as JSON text. This is the
 /// worker's whole job; the page never calls it.
 pub fn solve(scenario: &str) -> String {
-    let answer = match doc::read(scenario).and_then(|d| doc::solve(&d)) {
-        Ok(report) => Answer::Report(Box::new(report)),
+    let hints = LAST.with(|last| last.borrow().clone());
+    let answer = match doc::read(scenario).and_then(|d| doc::solve_with_hints(&d, &hints)) {
+        Ok(report) => {
+            let hz = report.modes.iter().filter(|m| !m.rigid_body).map(|m| m.frequency_hz).collect();
+            LAST.with(|last| *last.borrow_mut() = hz);
+            Answer::Report(Box::new(report))
+        }
         Err(error) => Answer::Error(error),
     };
     serde_json::to_string(&answer).unwrap_or_else(|e| {
