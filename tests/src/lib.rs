@@ -1,6 +1,7 @@
 //! Shared pieces of the cross-crate checks: the table of published values, one comparison
 //! helper, a seeded generator of random models, and the bridge to the Python reference library.
 
+pub mod fuzz;
 pub mod published;
 pub mod random;
 pub mod reference;
