@@ -91,7 +91,7 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
         title: scenario.title.clone(),
         units: scenario.units,
         theory: model.theory(),
-        comparison: comparison.as_ref().map(|c| c.theory),
+        comparison: comparison.as_ref().filter(|c| !c.omegas.is_empty()).map(|c| c.theory),
         beam: echo::beam(model, &inputs),
         rigid_body_modes: analysis.rigid_body_modes,
         modes,
@@ -106,6 +106,7 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
         margin: inputs.margin,
         warnings,
         conversions: echo::conversions(&inputs),
+        critical_load_factor: analysis.critical_load_factor,
     };
     if !report.is_finite() {
         return Err(overflow());
