@@ -11,7 +11,7 @@ const SCENARIOS: [(&str, &str); 8] = [
     ("filled-pipe-span", include_str!("../../docs/scenarios/filled-pipe-span.json")),
     ("absorber-on-platform-beam", include_str!("../../docs/scenarios/absorber-on-platform-beam.json")),
     ("pump-discharge-valve-us", include_str!("../../docs/scenarios/pump-discharge-valve-us.json")),
-    ("compressor-on-isolators", include_str!("../../docs/scenarios/compressor-on-isolators.json")),
+    ("fan-set-on-mounts", include_str!("../../docs/scenarios/fan-set-on-mounts.json")),
     ("hot-line-between-anchors", include_str!("../../docs/scenarios/hot-line-between-anchors.json")),
     ("stub-shaft-timoshenko", include_str!("../../docs/scenarios/stub-shaft-timoshenko.json")),
 ];
