@@ -13,11 +13,16 @@ use crate::error::{Error, ErrorKind, Result};
 use crate::exact::{self, System};
 use crate::layout::Layout;
 use crate::model::{Model, Theory};
+use crate::path::FieldPath;
 use crate::roots::{self, Evaluation, Evaluator, Spectrum};
 
-/// Largest axial force accepted, N: far beyond any beam's strength, so that a larger one is a
-/// unit slip, and small enough that every intermediate stays in range.
-const LIMIT: f64 = 1e12;
+/// Largest axial force accepted, N (the schema's).
+const LIMIT: f64 = crate::schema::AXIAL_FORCE_LIMIT;
+
+/// The path of a segment's axial force.
+fn force_path(segment: usize) -> FieldPath {
+    FieldPath::item("segments", segment).key(crate::schema::AXIAL_FORCE.name)
+}
 
 impl Model {
     /// The same model with an axial force in each segment (N, tension positive; one per
@@ -40,7 +45,7 @@ impl Model {
                     ErrorKind::OutOfRange,
                     format!("an axial force must lie between −{LIMIT:e} and {LIMIT:e} N; check the unit"),
                 )
-                .at(format!("segments[{i}].axial_force"))
+                .at(force_path(i))
                 .with_number(*f));
             }
         }
@@ -53,14 +58,14 @@ impl Model {
                  give different frequencies for a stocky member under compression, and neither is the one right \
                  answer; use the Euler–Bernoulli theory",
             )
-            .at(format!("segments[{at}].axial_force")));
+            .at(force_path(at)));
         }
         if self.rigid_body_modes() > 0 {
             return Err(Error::new(
                 ErrorKind::Model,
                 "an axial force needs a beam held against moving as a rigid body (ends or supports that react it)",
             )
-            .at(format!("segments[{at}].axial_force")));
+            .at(force_path(at)));
         }
         self.axial = forces;
         Ok(self)

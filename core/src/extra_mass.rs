@@ -10,7 +10,7 @@
 #[cfg(test)]
 mod tests;
 
-use crate::error::{Error, ErrorKind};
+use crate::error::{echo, Error, ErrorKind};
 use crate::path::FieldPath;
 use crate::section::SectionProps;
 use crate::units::{self, Conversion, Kind, Quantity};
@@ -57,6 +57,10 @@ pub fn contents_preset(id: &str) -> Option<&'static Contents> {
 /// Non-structural mass as written in a scenario; every part is optional.
 #[derive(Clone, Debug, Default, PartialEq, serde::Serialize)]
 pub struct ExtraMassInput {
+    /// A contents preset by name ("water"); its density is used when `contents_density` is
+    /// absent, and the editor records it there so that a saved case keeps it.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub contents: Option<String>,
     /// Density of a fluid or solid filling the bore.
     pub contents_density: Option<Quantity>,
     /// Mass per length of insulation, lining, cables and the like.
@@ -128,7 +132,26 @@ pub fn breakdown(
         }
     };
 
-    let contents = match &extra.contents_density {
+    // A preset by name gives the density when none is recorded; a recorded density wins, so a
+    // later change of the table never changes a saved case.
+    let preset_density = match &extra.contents {
+        None => None,
+        Some(id) => Some(
+            contents_preset(id.trim())
+                .ok_or_else(|| {
+                    let ids: Vec<&str> = CONTENTS.iter().map(|c| c.id).collect();
+                    Error::new(
+                        ErrorKind::UnknownOption,
+                        format!("no contents called {}; the presets are {}", echo(id), ids.join(", ")),
+                    )
+                    .at("contents")
+                    .with_value(id)
+                })?
+                .density,
+        ),
+    };
+    let preset_quantity = preset_density.map(Quantity::Number);
+    let contents = match extra.contents_density.as_ref().or(preset_quantity.as_ref()) {
         None => 0.0,
         Some(quantity) => {
             if section.bore_area.is_nan() || section.bore_area <= 0.0 {

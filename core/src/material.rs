@@ -183,6 +183,8 @@ pub struct ResolvedMaterial {
     pub shear_modulus: f64,
     /// Poisson's ratio ν.
     pub poisson: f64,
+    /// Coefficient of thermal expansion, 1/K: the preset's; `None` for a custom material.
+    pub thermal_expansion: Option<f64>,
     /// Unit conversions applied to the written properties, by field ("youngs_modulus").
     pub conversions: Vec<(crate::path::FieldPath, Conversion)>,
 }
@@ -208,6 +210,7 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
                 density: material.density,
                 shear_modulus: material.shear_modulus(),
                 poisson: material.poisson,
+                thermal_expansion: Some(material.thermal_expansion),
                 conversions: Vec::new(),
             })
         }
@@ -270,6 +273,7 @@ fn resolve_custom(
         density: rho,
         shear_modulus: g,
         poisson: nu,
+        thermal_expansion: None,
         conversions,
     })
 }

@@ -54,6 +54,20 @@ pub enum SectionInput {
         /// Wall thickness.
         wall: Quantity,
     },
+    /// Steel pipe by nominal size and schedule ([`pipe`]); the outside diameter and wall the
+    /// table gave are recorded beside them and, when present, are what is computed with.
+    Pipe {
+        /// Nominal size, as "4" or "1-1/2".
+        nominal_size: String,
+        /// Schedule, as "40" or "STD".
+        schedule: String,
+        /// The recorded outside diameter; the table's when absent.
+        #[serde(skip_serializing_if = "Option::is_none")]
+        outer_diameter: Option<Quantity>,
+        /// The recorded wall; the table's when absent.
+        #[serde(skip_serializing_if = "Option::is_none")]
+        wall: Option<Quantity>,
+    },
     /// Rectangular hollow section with a uniform wall.
     RectangularTube {
         /// Outer side across the plane of vibration.
@@ -141,6 +155,28 @@ pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Er
                 )
                 .at("wall")
                 .with_value(wall));
+            }
+            tube(d_o, t, poisson)
+        }
+        SectionInput::Pipe { nominal_size, schedule, outer_diameter, wall } => {
+            // The size and schedule must name a pipe of the table even when the dimensions are
+            // recorded, so that a case never carries a size that does not exist.
+            let (table_od, table_wall) = pipe::dimensions(nominal_size, schedule)?;
+            let d_o = match outer_diameter {
+                Some(q) => read.positive(q, "outer_diameter")?,
+                None => table_od,
+            };
+            let t = match wall {
+                Some(q) => read.positive(q, "wall")?,
+                None => table_wall,
+            };
+            if t >= d_o / 2.0 {
+                return Err(Error::new(
+                    ErrorKind::Conflict,
+                    "the recorded wall must be thinner than half the recorded outside diameter",
+                )
+                .at("wall")
+                .with_si(t, "m"));
             }
             tube(d_o, t, poisson)
         }

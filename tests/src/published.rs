@@ -45,6 +45,11 @@ pub fn cases() -> Vec<Case> {
 /// Modebench's value for a case (exact method).
 pub fn evaluate(case: &Case) -> Result<f64, Error> {
     let report = modebench::solve(&case.scenario)?;
+    if case.quantity == "critical_load_factor" {
+        return report.critical_load_factor.ok_or_else(|| {
+            Error::new(modebench::ErrorKind::Model, format!("case {} has no critical load factor", case.id))
+        });
+    }
     let elastic: Vec<_> = report.modes.iter().filter(|m| !m.rigid_body).collect();
     let mode = elastic.get(case.mode.saturating_sub(1)).ok_or_else(|| {
         Error::new(

@@ -159,3 +159,30 @@ fn a_buckled_beam_is_refused_and_one_near_buckling_is_warned() {
     let shift = (taut.modes[0].omega - string) / string;
     assert!(shift > 0.0 && shift < 1e-4, "{} vs {string}", taut.modes[0].omega);
 }
+
+#[test]
+fn mode_shapes_under_axial_force_give_back_their_frequencies() {
+    // Rayleigh's quotient of an exact mode shape is its frequency (Rayleigh's principle, a fact
+    // of the theory), with the force's work P·w′² in the strain energy; every classical end pair,
+    // the bare clamped–clamped beam included, whose stations are all held.
+    use modebench::{analyse, Options};
+    let p_cr = std::f64::consts::PI.powi(2) * 2.5e4 / 1.8f64.powi(2);
+    for (left, right) in [
+        (End::Clamped, End::Clamped),
+        (End::Pinned, End::Pinned),
+        (End::Clamped, End::Pinned),
+        (End::Clamped, End::Free),
+    ] {
+        for fraction in [0.0, -0.2, 0.1, 3.0] {
+            let a = analyse(&column(left, right, fraction * p_cr), &Options::with_modes(3)).expect("solves");
+            for m in &a.modes {
+                let accuracy = m.accuracy.expect("restrained");
+                assert!(
+                    accuracy < 1e-10,
+                    "{left:?}–{right:?} at {fraction} P_cr, mode {}: {accuracy:e}",
+                    m.number
+                );
+            }
+        }
+    }
+}

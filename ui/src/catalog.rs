@@ -5,6 +5,7 @@
 //! format; this module only adds what the editor asks of it. The JS API returns this catalogue
 //! so that pages can build on it.
 
+pub use modebench::schema::AXIAL_FIELDS;
 use modebench::schema::{self, Field, Range};
 pub use modebench::schema::{
     find, Choice, Field as FieldSpec, Form, ATTACHMENTS, ENDS, EXTRA_MASS_FIELDS, MATERIAL_FIELDS,
@@ -22,7 +23,8 @@ pub(crate) fn chosen(
 
 /// Every field the schema describes, choices' fields included.
 fn every_field() -> impl Iterator<Item = &'static Field> {
-    let lists: [&'static [Field]; 9] = [
+    let lists: [&'static [Field]; 10] = [
+        &schema::AXIAL_FIELDS,
         &schema::SCENARIO,
         &schema::SEGMENT,
         &PROPERTY_FIELDS,

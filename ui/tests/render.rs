@@ -5,11 +5,15 @@
 use modebench_ui::render::{self, Editing, View};
 use modebench_ui::{doc, render::widget_html};
 
-const SCENARIOS: [(&str, &str); 4] = [
+const SCENARIOS: [(&str, &str); 8] = [
     ("sensor-boom", include_str!("../../docs/scenarios/sensor-boom.json")),
     ("fan-floor-beam-us", include_str!("../../docs/scenarios/fan-floor-beam-us.json")),
     ("filled-pipe-span", include_str!("../../docs/scenarios/filled-pipe-span.json")),
     ("absorber-on-platform-beam", include_str!("../../docs/scenarios/absorber-on-platform-beam.json")),
+    ("pump-discharge-valve-us", include_str!("../../docs/scenarios/pump-discharge-valve-us.json")),
+    ("fan-set-on-mounts", include_str!("../../docs/scenarios/fan-set-on-mounts.json")),
+    ("hot-line-between-anchors", include_str!("../../docs/scenarios/hot-line-between-anchors.json")),
+    ("stub-shaft-timoshenko", include_str!("../../docs/scenarios/stub-shaft-timoshenko.json")),
 ];
 
 /// Words that would mean a number escaped its guard: Rust writes NaN and inf, JavaScript NaN,

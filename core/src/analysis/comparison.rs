@@ -16,7 +16,8 @@ use crate::model::{Model, Theory};
 pub struct Comparison {
     /// The theory of `omegas`.
     pub theory: Theory,
-    /// Its angular frequencies, rad/s, one per mode of the analysis (rigid-body modes at 0).
+    /// Its angular frequencies, rad/s, one per mode of the analysis (rigid-body modes at 0);
+    /// empty when only its warning is given (an axial force under the slender theory).
     pub omegas: Vec<f64>,
     /// What the difference means for the user, when it matters.
     pub warning: Option<Warning>,
@@ -74,6 +75,25 @@ pub fn other_theory(
                 shear_effect(model, gyration_squared, m.omega).filter(|e| *e > 0.01).map(|e| (m.number, e))
             });
             let Some((number, effect)) = estimate else { return Ok(None) };
+            if model.has_axial_force() {
+                // The shear-flexible member is not offered with an axial force (see `axial`):
+                // the estimate is said, and no second set of frequencies is computed.
+                let warning = Warning {
+                    code: WarningCode::ShearMatters,
+                    message: format!(
+                        "From mode {number} on, the wavelength is short for the section depth: the slender-beam \
+                         result is estimated to be {:.1} % too high (first-order shear and rotary-inertia \
+                         correction). With an axial force the Timoshenko result is not computed, so read these \
+                         modes as upper estimates.",
+                        100.0 * effect
+                    ),
+                };
+                return Ok(Some(Comparison {
+                    theory: Theory::Timoshenko,
+                    omegas: Vec::new(),
+                    warning: Some(warning),
+                }));
+            }
             let omegas = solve(Theory::Timoshenko)?;
             let warning = Warning {
                 code: WarningCode::ShearMatters,

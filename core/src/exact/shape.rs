@@ -121,7 +121,10 @@ impl ModeShape {
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
-    let system = System::new(model, Layout::new(model, &|_| 1)?);
+    // Each natural span is cut in two, so that every span has a station free to take the
+    // iteration's loads: a span held at both ends (a clamped–clamped beam with nothing on it)
+    // would otherwise take them all on its supports and respond with nothing.
+    let system = System::new(model, Layout::new(model, &|_| 2)?);
     let pieces = sweep::pieces(&system, omega)?;
     let mut out: Vec<ModeShape> = Vec::with_capacity(count);
     if omega == 0.0 {

@@ -105,7 +105,7 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
         title: scenario.title.clone(),
         units: scenario.units,
         theory: model.theory(),
-        comparison: comparison.as_ref().map(|c| c.theory),
+        comparison: comparison.as_ref().filter(|c| !c.omegas.is_empty()).map(|c| c.theory),
         beam: echo::beam(model, &inputs),
         rigid_body_modes: analysis.rigid_body_modes,
         modes,
@@ -120,6 +120,7 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
         margin: inputs.margin,
         warnings,
         conversions: echo::conversions(&inputs),
+        critical_load_factor: analysis.critical_load_factor,
     };
     if !report.is_finite() {
         return Err(overflow());

@@ -125,11 +125,11 @@ macro_rules! fields {
 fields! {
     Report {
         title, units, theory, comparison, beam, rigid_body_modes, modes, fundamental, fe, excitations, margin,
-        warnings, conversions
+        warnings, conversions, critical_load_factor
     }
     BeamEcho { length, segments, left, right, attachments }
     SegmentReport { start, end, flexural_rigidity, mass_per_length, shear_rigidity; flatten echo }
-    SegmentEcho { section, material, mass, depth, gyration_squared }
+    SegmentEcho { section, material, mass, depth, gyration_squared, axial_force, thermal_force }
     MassBreakdown { structural, contents, lining, added_water, conversions }
     Conversion { written, si, si_unit, text }
     EndEcho { kind, translational, rotational }
@@ -162,6 +162,8 @@ mod tests {
             include_str!("../../../docs/scenarios/fan-floor-beam-us.json"),
             include_str!("../../../docs/scenarios/filled-pipe-span.json"),
             include_str!("../../../docs/scenarios/absorber-on-platform-beam.json"),
+            include_str!("../../../docs/scenarios/pump-discharge-valve-us.json"),
+            include_str!("../../../docs/scenarios/hot-line-between-anchors.json"),
         ];
         for text in scenarios {
             let Ok(report) = super::super::solve_json(text) else { panic!("{text}") };

@@ -37,6 +37,9 @@ pub struct Report {
     pub warnings: Vec<Warning>,
     /// Every unit conversion applied to the input.
     pub conversions: Vec<ConversionEcho>,
+    /// The lowest multiple of the axial forces at which the beam buckles; `None` without
+    /// compression (or when the tensions outweigh it).
+    pub critical_load_factor: Option<f64>,
 }
 
 /// The beam as modelled.
@@ -222,16 +225,23 @@ impl Report {
                 && f.equivalent.is_none_or(|e| ok(e.mass) && ok(e.stiffness) && ok(e.position))
         });
         let beam = ok(self.beam.length)
-            && self
-                .beam
-                .segments
-                .iter()
-                .all(|s| ok(s.flexural_rigidity) && ok(s.mass_per_length) && opt(s.shear_rigidity))
+            && self.beam.segments.iter().all(|s| {
+                ok(s.flexural_rigidity)
+                    && ok(s.mass_per_length)
+                    && opt(s.shear_rigidity)
+                    && opt(s.echo.axial_force)
+                    && opt(s.echo.thermal_force)
+            })
             && self
                 .beam
                 .attachments
                 .iter()
                 .all(|a| ok(a.position) && opt(a.mass) && opt(a.rotary_inertia) && opt(a.stiffness));
-        modes && fundamental && beam && ok(self.margin) && self.excitations.iter().all(|e| ok(e.frequency_hz))
+        modes
+            && fundamental
+            && beam
+            && ok(self.margin)
+            && opt(self.critical_load_factor)
+            && self.excitations.iter().all(|e| ok(e.frequency_hz))
     }
 }

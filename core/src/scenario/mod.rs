@@ -10,6 +10,8 @@ mod parse;
 mod read;
 #[cfg(test)]
 mod tests;
+#[cfg(test)]
+mod tests_axial;
 pub(crate) mod text;
 
 pub use crate::schema::DEFAULT_MARGIN;
@@ -100,6 +102,12 @@ pub struct SegmentInput {
     /// Contents, lining and surrounding water (with `section`).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub extra_mass: Option<ExtraMassInput>,
+    /// Axial force, tension positive.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub axial_force: Option<Quantity>,
+    /// Temperature change since the ends were fixed, both ends held axially.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub temperature_change: Option<Quantity>,
 }
 
 /// Something attached to the beam, as written: its type, where it is, the values written for

@@ -10,7 +10,7 @@ use crate::material::MaterialInput;
 use crate::model::{AttachmentKind, EndKind, Theory};
 use crate::schema::{self, Choice, Field};
 use crate::section::{BendingAxis, SectionInput};
-use crate::units::UnitSystem;
+use crate::units::{Quantity, UnitSystem};
 
 pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
     n.fields("a scenario object", &schema::keys(&[&schema::SCENARIO]))?;
@@ -96,7 +96,10 @@ pub(crate) fn end(n: &Node<'_>) -> Result<EndInput> {
 }
 
 pub(crate) fn segment(n: &Node<'_>) -> Result<SegmentInput> {
-    n.fields("a segment object", &schema::keys(&[&schema::SEGMENT, &schema::PROPERTY_FIELDS]))?;
+    n.fields(
+        "a segment object",
+        &schema::keys(&[&schema::SEGMENT, &schema::PROPERTY_FIELDS, &schema::AXIAL_FIELDS]),
+    )?;
     Ok(SegmentInput {
         length: n.quantity_at("length")?,
         flexural_rigidity: n.quantity_at("flexural_rigidity")?,
@@ -106,7 +109,21 @@ pub(crate) fn segment(n: &Node<'_>) -> Result<SegmentInput> {
         section: n.get("section").map(|s| section(&s)).transpose()?,
         material: n.get("material").map(|m| material(&m)).transpose()?,
         extra_mass: n.get("extra_mass").map(|e| extra_mass(&e)).transpose()?,
+        axial_force: n.quantity_at(schema::AXIAL_FORCE.name)?,
+        temperature_change: n.quantity_at(schema::TEMPERATURE_CHANGE.name)?,
     })
+}
+
+/// A name that engineers also write as a number (a pipe size `4`, a schedule `40`), as text.
+fn name_or_number(n: &Node<'_>, key: &str, what: &str) -> Result<String> {
+    let value = n.require(key, what)?;
+    if value.is_text() {
+        return Ok(value.text(what)?.to_string());
+    }
+    match value.quantity()? {
+        Quantity::Number(v) => Ok(crate::error::as_typed(v)),
+        Quantity::Text(t) => Ok(t),
+    }
 }
 
 pub(crate) fn section(n: &Node<'_>) -> Result<SectionInput> {
@@ -122,6 +139,12 @@ pub(crate) fn section(n: &Node<'_>) -> Result<SectionInput> {
         "rectangle" => SectionInput::Rectangle { width: q("width")?, depth: q("depth")? },
         "round" => SectionInput::Round { diameter: q("diameter")? },
         "tube" => SectionInput::Tube { outer_diameter: q("outer_diameter")?, wall: q("wall")? },
+        "pipe" => SectionInput::Pipe {
+            nominal_size: name_or_number(n, "nominal_size", "a nominal pipe size")?,
+            schedule: name_or_number(n, "schedule", "a pipe schedule")?,
+            outer_diameter: n.quantity_at("outer_diameter")?,
+            wall: n.quantity_at("wall")?,
+        },
         "rectangular-tube" => {
             SectionInput::RectangularTube { width: q("width")?, depth: q("depth")?, wall: q("wall")? }
         }
@@ -182,6 +205,7 @@ pub(crate) fn extra_mass(n: &Node<'_>) -> Result<ExtraMassInput> {
         None => None,
     };
     Ok(ExtraMassInput {
+        contents: n.text_at("contents")?,
         contents_density: n.quantity_at("contents_density")?,
         lining: n.quantity_at("lining")?,
         submerged,

@@ -46,6 +46,11 @@ pub struct SegmentEcho {
     pub depth: Option<f64>,
     /// Squared radius of gyration I/A, m², when known.
     pub gyration_squared: Option<f64>,
+    /// The axial force in the segment, N, tension positive, when it carries one: the force
+    /// typed plus that of the temperature change.
+    pub axial_force: Option<f64>,
+    /// The part of `axial_force` from the temperature change with the ends held, −E·A·α·ΔT, N.
+    pub thermal_force: Option<f64>,
 }
 
 #[derive(Default)]
@@ -115,6 +120,8 @@ impl Scenario {
                 };
                 r.typed(e)
             })?;
+        let forces: Vec<f64> = echoes.iter().map(|e: &SegmentEcho| e.axial_force.unwrap_or(0.0)).collect();
+        let model = model.with_axial_forces(forces).map_err(|e| r.typed(e))?;
         let report_point = match &self.report_point {
             Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, &schema::REPORT_POINT.name.into())?),
             None => None,
@@ -212,12 +219,34 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<Re
             // taken to translate only (the usual assumption).
             rotary_inertia_per_length: mat.density * props.second_moment,
         };
+        let thermal = match &s.temperature_change {
+            Some(q) => {
+                let field = at(schema::TEMPERATURE_CHANGE.name);
+                let dt = r.read(q, schema::TEMPERATURE_CHANGE.kind, &field)?;
+                model::value(&schema::TEMPERATURE_CHANGE, dt).map_err(|e| e.at(path).with_value(q))?;
+                let Some(alpha) = mat.thermal_expansion else {
+                    return Err(Error::new(
+                        ErrorKind::Conflict,
+                        "a temperature change needs the material's thermal expansion: choose a preset material \
+                         (each gives its α), or give the force −E·A·α·ΔT as the axial force",
+                    )
+                    .at(field)
+                    .with_value(q));
+                };
+                // Held at both ends, the segment cannot grow: the force is what squeezes the
+                // free thermal strain α·ΔT back out, −E·A·α·ΔT (compression when heated).
+                Some(-mat.youngs_modulus * props.area * alpha * dt)
+            }
+            None => None,
+        };
         let echo = SegmentEcho {
-            section: Some(section_name(section_input).to_string()),
+            section: Some(section_name(section_input)),
             material: Some(mat.name.clone()),
             mass: Some(mass.clone()),
             depth: Some(props.depth),
             gyration_squared: Some(props.second_moment / props.area),
+            axial_force: axial_force(r, s, path, thermal)?,
+            thermal_force: thermal,
         };
         let origin = SectionOrigin { material_input: material_input.clone(), material: mat, props, mass };
         return Ok((segment, echo, Some(origin)));
@@ -244,18 +273,71 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<Re
         (rotary_inertia_per_length > 0.0).then(|| rotary_inertia_per_length / mass_per_length);
     let segment =
         Segment { length, flexural_rigidity, mass_per_length, shear_rigidity, rotary_inertia_per_length };
-    Ok((segment, SegmentEcho { gyration_squared, ..SegmentEcho::default() }, None))
+    if let Some(q) = &s.temperature_change {
+        return Err(Error::new(
+            ErrorKind::Conflict,
+            "a temperature change needs a section and a preset material (for E, A and α); for a segment given \
+             by its properties, give the force −E·A·α·ΔT as the axial force",
+        )
+        .at(at(schema::TEMPERATURE_CHANGE.name))
+        .with_value(q));
+    }
+    let axial_force = axial_force(r, s, path, None)?;
+    Ok((segment, SegmentEcho { gyration_squared, axial_force, ..SegmentEcho::default() }, None))
 }
 
-fn section_name(s: &section::SectionInput) -> &'static str {
-    match s {
+/// The segment's axial force, N: the force typed plus the thermal one; `None` when neither.
+fn axial_force(
+    r: &mut Reader,
+    s: &SegmentInput,
+    path: &FieldPath,
+    thermal: Option<f64>,
+) -> Result<Option<f64>> {
+    let typed = match &s.axial_force {
+        Some(q) => {
+            let at = path.key(schema::AXIAL_FORCE.name);
+            let p = r.read(q, schema::AXIAL_FORCE.kind, &at)?;
+            model::value(&schema::AXIAL_FORCE, p).map_err(|e| e.at(path).with_value(q))?;
+            Some(p)
+        }
+        None => None,
+    };
+    let total = match (typed, thermal) {
+        (None, None) => return Ok(None),
+        (a, b) => a.unwrap_or(0.0) + b.unwrap_or(0.0),
+    };
+    if total.abs() > schema::AXIAL_FORCE_LIMIT {
+        let at = path.key(if thermal.is_some() {
+            schema::TEMPERATURE_CHANGE.name
+        } else {
+            schema::AXIAL_FORCE.name
+        });
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!(
+                "the axial force this gives, {} N, is beyond any beam's strength (at most {} N); check the units",
+                crate::error::number(total),
+                crate::error::number(schema::AXIAL_FORCE_LIMIT)
+            ),
+        )
+        .at(at));
+    }
+    Ok(Some(total))
+}
+
+fn section_name(s: &section::SectionInput) -> String {
+    if let section::SectionInput::Pipe { nominal_size, schedule, .. } = s {
+        return format!("steel pipe {} in, schedule {}", nominal_size.trim(), schedule.trim());
+    }
+    let name = match s {
         section::SectionInput::Rectangle { .. } => "solid rectangle",
         section::SectionInput::Round { .. } => "solid round",
         section::SectionInput::Tube { .. } => "round tube",
         section::SectionInput::RectangularTube { .. } => "rectangular tube",
         section::SectionInput::IBeam { .. } => "I-section",
         _ => "custom section",
-    }
+    };
+    name.to_string()
 }
 
 fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {

@@ -181,6 +181,9 @@ fn every_kind_and_shape_the_schema_lists_is_read() {
         if shape.id.ends_with("tube") {
             section["wall"] = json!("1 mm");
         }
+        if shape.id == "pipe" {
+            section = json!({ "shape": "pipe", "nominal_size": "2", "schedule": "40" });
+        }
         if shape.id == "i-beam" {
             section["flange_thickness"] = json!("1 mm");
             section["web_thickness"] = json!("1 mm");

@@ -18,6 +18,7 @@ pub fn tables() -> Vec<(&'static str, String)> {
         ("attachment", fields(&super::ATTACHMENT_FIELDS)),
         ("attachments", choices(&super::ATTACHMENTS, "type")),
         ("excitation", fields(&super::EXCITATION_FIELDS)),
+        ("axial", fields(&super::AXIAL_FIELDS)),
     ]
 }
 
@@ -111,7 +112,8 @@ mod tests {
 
     #[test]
     fn every_field_has_words() {
-        let lists: [&[Field]; 8] = [
+        let lists: [&[Field]; 9] = [
+            &super::super::AXIAL_FIELDS,
             &super::super::SCENARIO,
             &super::super::SEGMENT,
             &super::super::PROPERTY_FIELDS,

@@ -197,12 +197,19 @@ const DEPTH: Field = length("depth", "Depth (in the plane of vibration)", "a dep
 const WALL: Field = length("wall", "Wall", "a wall thickness");
 
 /// The section shapes, with their dimensions.
-pub static SHAPES: [Choice; 6] = [
+pub static SHAPES: [Choice; 7] = [
     Choice {
         id: "tube",
         name: "Round tube or pipe",
         fields: &[length("outer_diameter", "Outside diameter", "an outer diameter"), WALL],
         help: doc("a round tube or pipe"),
+    },
+    Choice {
+        id: "pipe",
+        name: "Steel pipe by size and schedule",
+        fields: &PIPE_FIELDS,
+        help: doc("a welded or seamless steel pipe by nominal size and schedule (ASME B36.10M dimensions, \
+             ½ in to 24 in); the scenario records the outside diameter and wall the table gave"),
     },
     Choice {
         id: "round",
@@ -278,7 +285,15 @@ pub static MATERIAL_FIELDS: [Field; 4] = [
 ];
 
 /// The fields of the extra mass carried by a segment given by section.
-pub static EXTRA_MASS_FIELDS: [Field; 3] = [
+pub static EXTRA_MASS_FIELDS: [Field; 4] = [
+    Field::of("contents", Form::Name)
+        .label("Contents")
+        .what("the contents")
+        .help(
+            "what fills the bore, by name: `\"water\"`, `\"seawater\"`, `\"light-oil\"`, `\"glycol-mix\"`, \
+             `\"air\"`; its density is recorded in `contents_density`, which wins when both are given",
+        )
+        .or("none (or `contents_density`)"),
     Field::quantity("contents_density", Kind::Density, Range::UpTo(f64::INFINITY))
         .label("Contents density (fills the bore)")
         .what("the contents density")
@@ -412,4 +427,55 @@ pub static EXCITATION_FIELDS: [Field; 3] = [
         .or("none"),
     FREQUENCY,
     HARMONICS,
+];
+
+// Axial force and the pipe table. Kept together at the end of the table so that additions by
+// other work stay apart from them.
+
+/// Largest axial force accepted, N: far beyond any beam's strength, so that a larger one is a
+/// unit slip, and small enough that every intermediate stays in range.
+pub const AXIAL_FORCE_LIMIT: f64 = 1e12;
+
+/// The axial force along a segment, tension positive.
+pub const AXIAL_FORCE: Field =
+    Field::quantity("axial_force", Kind::Force, Range::Magnitude(AXIAL_FORCE_LIMIT))
+        .label("Axial force (tension +, compression −)")
+        .what("an axial force")
+        .help(
+            "the force along the segment, tension positive and compression negative, e.g. `\"-12 kN\"`; \
+         it changes the frequencies and may buckle the beam",
+        )
+        .or("0");
+
+/// A temperature change of a segment held at both ends.
+pub const TEMPERATURE_CHANGE: Field =
+    Field::quantity("temperature_change", Kind::TemperatureChange, Range::Magnitude(1000.0))
+        .label("Temperature rise, ends held (°C or °F change)")
+        .what("a temperature change")
+        .help(
+            "a rise (positive) or fall since the ends were fixed, with both ends held axially, e.g. \
+             `\"80 °C\"` or `\"144 °F\"` (a change, not a reading); adds −E·A·α·ΔT to the axial force; \
+             needs a section and a preset material (for α)",
+        )
+        .or("0");
+
+/// The fields of a segment that load it axially, whichever way it is described.
+pub static AXIAL_FIELDS: [Field; 2] = [AXIAL_FORCE, TEMPERATURE_CHANGE];
+
+/// The fields of a pipe given by nominal size and schedule.
+pub static PIPE_FIELDS: [Field; 4] = [
+    Field::of("nominal_size", Form::Name)
+        .label("Nominal size (in)")
+        .what("a nominal pipe size")
+        .help("the nominal size in inches as written on the pipe: `\"1/2\"` to `\"24\"`, `\"1-1/2\"`"),
+    Field::of("schedule", Form::Name)
+        .label("Schedule")
+        .what("a pipe schedule")
+        .help("`\"10\"`, `\"40\"`, `\"80\"`, `\"160\"`, `\"STD\"`, `\"XS\"` or `\"XXS\"`, where defined for the size"),
+    length("outer_diameter", "Outside diameter (from the table)", "an outer diameter")
+        .help("the outside diameter the table gave, recorded so a saved case keeps it")
+        .or("the table's"),
+    length("wall", "Wall (from the table)", "a wall thickness")
+        .help("the wall the table gave, recorded so a saved case keeps it")
+        .or("the table's"),
 ];

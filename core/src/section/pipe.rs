@@ -126,6 +126,14 @@ pub fn schedules(nominal: &str) -> Vec<&'static str> {
 /// Outside diameter and wall, m, of a nominal size and schedule. Accepts "4", "4 in", "1-1/2",
 /// "1.5" and schedule names in any case ("sch 40", "40", "std").
 pub fn dimensions(nominal: &str, schedule: &str) -> Result<(f64, f64)> {
+    const INCH: f64 = 0.0254;
+    let (outside, wall) = inches(nominal, schedule)?;
+    Ok((outside * INCH, wall * INCH))
+}
+
+/// Outside diameter and wall in inches, as the table gives them, of a nominal size and schedule
+/// read as [`dimensions`] reads them.
+pub fn inches(nominal: &str, schedule: &str) -> Result<(f64, f64)> {
     let wanted = normalise_size(nominal);
     let size = SIZES.iter().find(|s| s.nominal == wanted).ok_or_else(|| {
         let known: Vec<&str> = sizes().collect();
@@ -151,8 +159,7 @@ pub fn dimensions(nominal: &str, schedule: &str) -> Result<(f64, f64)> {
         .at("schedule")
         .with_value(schedule)
     })?;
-    const INCH: f64 = 0.0254;
-    Ok((size.outside * INCH, wall * INCH))
+    Ok((size.outside, wall))
 }
 
 /// "1.5", "1 1/2", "1-1/2 in", "4\"" → the table's names.

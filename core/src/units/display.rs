@@ -1,6 +1,6 @@
 //! Writing SI values in the unit system the user reads in: "47.24 in", "29.01 Msi".
 
-use super::table::{self, FOOT, INCH, POUND, POUND_FORCE, PSI};
+use super::table::{self, FAHRENHEIT_DEGREE, FOOT, INCH, POUND, POUND_FORCE, PSI};
 use super::Kind;
 
 /// The set of units results are shown in.
@@ -61,6 +61,8 @@ pub fn display_unit(kind: Kind, system: UnitSystem) -> DisplayUnit {
     match (kind, system) {
         (Kind::Frequency, _) => unit("Hz", 1.0),
         (Kind::Ratio, _) => unit("", 1.0),
+        (Kind::TemperatureChange, Si | SiMm) => unit("K", 1.0),
+        (Kind::TemperatureChange, UsInch | UsFoot) => unit("°F", FAHRENHEIT_DEGREE),
         (Kind::Mass, Si | SiMm) => unit("kg", 1.0),
         (Kind::Mass, UsInch | UsFoot) => unit("lb", POUND),
         (Kind::Force | Kind::ShearRigidity, Si | SiMm) => unit("N", 1.0),

@@ -38,11 +38,13 @@ pub enum Kind {
     Frequency,
     /// A dimensionless ratio, such as Poisson's ratio.
     Ratio,
+    /// A change of temperature, K (°C and °F read as changes, not as readings on a scale).
+    TemperatureChange,
 }
 
 impl Kind {
     /// Every kind, in the order used to name an unexpected dimension.
-    pub const ALL: [Kind; 16] = [
+    pub const ALL: [Kind; 17] = [
         Kind::Length,
         Kind::Mass,
         Kind::Force,
@@ -59,6 +61,7 @@ impl Kind {
         Kind::RotaryInertiaPerLength,
         Kind::Frequency,
         Kind::Ratio,
+        Kind::TemperatureChange,
     ];
 
     /// The dimension as exponents of mass, length and time; a frequency counts as 1/s.
@@ -79,6 +82,7 @@ impl Kind {
             Kind::RotaryInertiaPerLength => Dim::new(1, 1, 0),
             Kind::Frequency => table::PER_TIME,
             Kind::Ratio => table::NONE,
+            Kind::TemperatureChange => table::TEMPERATURE,
         }
     }
 
@@ -101,6 +105,7 @@ impl Kind {
             Kind::RotaryInertiaPerLength => "rotary-inertia-per-length",
             Kind::Frequency => "frequency",
             Kind::Ratio => "ratio",
+            Kind::TemperatureChange => "temperature-change",
         }
     }
 
@@ -127,6 +132,7 @@ impl Kind {
             Kind::RotaryInertiaPerLength => "kg·m",
             Kind::Frequency => "Hz",
             Kind::Ratio => "",
+            Kind::TemperatureChange => "K",
         }
     }
 
@@ -149,6 +155,7 @@ impl Kind {
             Kind::RotaryInertiaPerLength => "a rotary inertia per length",
             Kind::Frequency => "a frequency",
             Kind::Ratio => "a dimensionless ratio",
+            Kind::TemperatureChange => "a temperature change",
         }
     }
 }
@@ -166,7 +173,7 @@ pub(crate) fn describe_dim(dim: Dim) -> String {
 
 /// Writes a dimension as a product of SI base units: kg·m/s².
 fn si_expression(dim: Dim) -> String {
-    let parts = [("kg", dim.mass), ("m", dim.length), ("s", dim.time)];
+    let parts = [("kg", dim.mass), ("m", dim.length), ("s", dim.time), ("K", dim.temperature)];
     let power = |symbol: &str, p: i32| match p {
         1 => symbol.to_string(),
         p => format!("{symbol}^{p}"),

@@ -123,7 +123,7 @@ fn missing_number(s: &str) -> Error {
 /// A letter of a unit symbol: ASCII letters and the micro sign (both code points for it). Unit
 /// symbols need no more, and the full Unicode tables would weigh on the browser build.
 fn is_letter(c: char) -> bool {
-    c.is_ascii_alphabetic() || matches!(c, 'µ' | 'μ')
+    c.is_ascii_alphabetic() || matches!(c, 'µ' | 'μ' | '°')
 }
 
 /// Spaces that may separate a number and its unit: ASCII blanks and the no-break spaces that word

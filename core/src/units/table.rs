@@ -19,7 +19,7 @@ pub(crate) const PSI: f64 = POUND_FORCE / (INCH * INCH);
 /// Kilograms in one slug (lbf·s²/ft).
 pub(crate) const SLUG: f64 = POUND_FORCE / FOOT;
 
-/// A physical dimension as integer exponents of mass, length and time.
+/// A physical dimension as integer exponents of mass, length, time and temperature.
 ///
 /// Angles are dimensionless, so a radian changes neither the dimension nor the factor; that lets
 /// `N·m/rad` and `N·m` both describe a rotational stiffness.
@@ -28,21 +28,33 @@ pub(crate) struct Dim {
     pub(crate) mass: i32,
     pub(crate) length: i32,
     pub(crate) time: i32,
+    /// Temperature (a difference of temperature: only temperature changes are read).
+    pub(crate) temperature: i32,
 }
 
 impl Dim {
     pub(crate) const fn new(mass: i32, length: i32, time: i32) -> Self {
-        Dim { mass, length, time }
+        Dim { mass, length, time, temperature: 0 }
     }
 
     /// This dimension raised to an integer power.
     pub(crate) const fn pow(self, power: i32) -> Self {
-        Dim::new(self.mass * power, self.length * power, self.time * power)
+        Dim {
+            mass: self.mass * power,
+            length: self.length * power,
+            time: self.time * power,
+            temperature: self.temperature * power,
+        }
     }
 
     /// The product of two dimensions.
     pub(crate) const fn times(self, other: Dim) -> Self {
-        Dim::new(self.mass + other.mass, self.length + other.length, self.time + other.time)
+        Dim {
+            mass: self.mass + other.mass,
+            length: self.length + other.length,
+            time: self.time + other.time,
+            temperature: self.temperature + other.temperature,
+        }
     }
 }
 
@@ -53,6 +65,10 @@ pub(crate) const TIME: Dim = Dim::new(0, 0, 1);
 pub(crate) const FORCE: Dim = Dim::new(1, 1, -2);
 pub(crate) const PRESSURE: Dim = Dim::new(1, -1, -2);
 pub(crate) const PER_TIME: Dim = Dim::new(0, 0, -1);
+/// A change of temperature (kelvin).
+pub(crate) const TEMPERATURE: Dim = Dim { mass: 0, length: 0, time: 0, temperature: 1 };
+/// Kelvins in one degree Fahrenheit of temperature change (NIST SP 811, exact).
+pub(crate) const FAHRENHEIT_DEGREE: f64 = 5.0 / 9.0;
 
 /// What a unit is beyond its dimension, where that changes how it may be used.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -127,6 +143,10 @@ pub(crate) static UNITS: &[Unit] = &[
     special(&["kHz"], "kilohertz", PER_TIME, 1e3, Class::Cycle),
     special(&["rpm"], "revolutions per minute", PER_TIME, 1.0 / 60.0, Class::Cycle),
     special(&["cpm"], "cycles per minute", PER_TIME, 1.0 / 60.0, Class::Cycle),
+    // Temperature changes only: a change of 1 °C is a change of 1 K, whatever the scale's zero.
+    plain(&["K"], "kelvin (temperature change)", TEMPERATURE, 1.0),
+    plain(&["°C", "degC"], "degree Celsius (temperature change)", TEMPERATURE, 1.0),
+    plain(&["°F", "degF"], "degree Fahrenheit (temperature change)", TEMPERATURE, FAHRENHEIT_DEGREE),
 ];
 
 /// The unit with this exact (case-sensitive) spelling, and the spelling as stored in the table.

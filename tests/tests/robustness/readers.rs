@@ -129,6 +129,7 @@ fn random_inputs_give_errors_or_finite_values() {
             conversions: Vec::new(),
         };
         let extra = ExtraMassInput {
+            contents: None,
             contents_density: maybe(&mut rng),
             lining: maybe(&mut rng),
             submerged: (rng.below(2) == 0).then(|| Submerged {

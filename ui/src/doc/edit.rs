@@ -154,6 +154,8 @@ fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
         }
         "type" => retype(doc, parent, value, system),
         "shape" => reshape(doc, parent, value),
+        "nominal_size" | "schedule" => pipe_size(doc, parent, key, value),
+        "contents" => contents(doc, parent, value),
         "material" => material(doc, path, value, system),
         _ => {
             path::set(doc, path, Value::String(value.to_string()));
@@ -235,6 +237,12 @@ fn retype(doc: &mut Value, path: &str, id: &str, system: UnitSystem) {
 /// outside diameter); new dimensions start empty so the editor asks for them.
 fn reshape(doc: &mut Value, path: &str, id: &str) {
     let Some(new) = catalog::find(&catalog::SHAPES, id) else { return };
+    if id == "pipe" {
+        // A pipe starts as a common size, its dimensions recorded from the table.
+        path::set(doc, path, text_object(&[("shape", "pipe"), ("nominal_size", "4"), ("schedule", "40")]));
+        pipe_size(doc, path, "schedule", "40");
+        return;
+    }
     let old = path::get(doc, path).cloned().unwrap_or_default();
     let mut object = Map::new();
     object.insert("shape".into(), Value::String(id.to_string()));
@@ -352,4 +360,42 @@ fn text_object(fields: &[(&str, &str)]) -> Value {
         map.insert((*key).to_string(), Value::String((*value).to_string()));
     }
     Value::Object(map)
+}
+
+/// Sets a pipe's nominal size or schedule and records the outside diameter and wall the table
+/// gives for the pair, in inches as the table has them; a pair the table does not define has
+/// no recorded dimensions, so the reader names what is allowed.
+fn pipe_size(doc: &mut Value, section: &str, key: &str, value: &str) {
+    path::set(doc, &format!("{section}.{key}"), Value::String(value.to_string()));
+    let size = path::text(doc, &format!("{section}.nominal_size"));
+    let schedule = path::text(doc, &format!("{section}.schedule"));
+    match modebench::section::pipe::inches(&size, &schedule) {
+        Ok((outside, wall)) => {
+            path::set(doc, &format!("{section}.outer_diameter"), Value::String(format!("{outside} in")));
+            path::set(doc, &format!("{section}.wall"), Value::String(format!("{wall} in")));
+        }
+        Err(_) => {
+            path::remove(doc, &format!("{section}.outer_diameter"));
+            path::remove(doc, &format!("{section}.wall"));
+        }
+    }
+}
+
+/// Picks a contents preset and records its density beside it (in SI, as the table has it), or
+/// clears both.
+fn contents(doc: &mut Value, extra: &str, id: &str) {
+    match modebench::extra_mass::contents_preset(id) {
+        Some(preset) => {
+            path::set(doc, &format!("{extra}.contents"), Value::String(id.to_string()));
+            path::set(
+                doc,
+                &format!("{extra}.contents_density"),
+                Value::String(format!("{} kg/m^3", preset.density)),
+            );
+        }
+        None => {
+            path::remove(doc, &format!("{extra}.contents"));
+            path::remove(doc, &format!("{extra}.contents_density"));
+        }
+    }
 }

@@ -148,3 +148,57 @@ fn submerged_is_ticked_on_and_off() {
     apply(&mut doc, &tick(false), None);
     assert_eq!(doc["segments"][0]["extra_mass"], json!({}));
 }
+
+#[test]
+fn a_pipe_size_records_the_dimensions_the_table_gives() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("segments[0].section.shape", "pipe"), None);
+    let section = &doc["segments"][0]["section"];
+    assert_eq!(section["nominal_size"], json!("4"));
+    assert_eq!(
+        (section["outer_diameter"].clone(), section["wall"].clone()),
+        (json!("4.5 in"), json!("0.237 in"))
+    );
+    apply(&mut doc, &choose("segments[0].section.nominal_size", "6"), None);
+    apply(&mut doc, &choose("segments[0].section.schedule", "80"), None);
+    let section = &doc["segments"][0]["section"];
+    // ASME B36.10M, 6 in schedule 80: OD 6.625 in, wall 0.432 in (from memory).
+    assert_eq!(
+        (section["outer_diameter"].clone(), section["wall"].clone()),
+        (json!("6.625 in"), json!("0.432 in"))
+    );
+    assert!(solve(&doc).is_ok());
+    // A schedule the size does not have leaves nothing recorded, and the reader says what is.
+    apply(&mut doc, &choose("segments[0].section.nominal_size", "3-1/2"), None);
+    apply(&mut doc, &choose("segments[0].section.schedule", "160"), None);
+    assert!(doc["segments"][0]["section"].get("wall").is_none());
+    let e = solve(&doc).err().map(|e| e.path.to_string());
+    assert_eq!(e.as_deref(), Some("segments[0].section.schedule"));
+}
+
+#[test]
+fn contents_by_name_record_their_density() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("segments[0].extra_mass.contents", "glycol-mix"), None);
+    let extra = &doc["segments"][0]["extra_mass"];
+    assert_eq!(
+        (extra["contents"].clone(), extra["contents_density"].clone()),
+        (json!("glycol-mix"), json!("1070 kg/m^3"))
+    );
+    assert!(solve(&doc).is_ok());
+    apply(&mut doc, &choose("segments[0].extra_mass.contents", "none"), None);
+    assert!(doc["segments"][0]["extra_mass"].get("contents_density").is_none());
+}
+
+#[test]
+fn an_axial_force_typed_in_the_editor_reaches_the_report() {
+    let mut doc = boom();
+    doc["right"] = json!("pinned");
+    apply(&mut doc, &text("segments[0].axial_force", "-2 kN"), None);
+    let report = solve(&doc).expect("solves");
+    assert_eq!(report.beam.segments[0].echo.axial_force, Some(-2000.0));
+    assert!(report.critical_load_factor.is_some_and(|f| f > 1.0));
+    // Emptied, the optional field goes.
+    apply(&mut doc, &text("segments[0].axial_force", ""), None);
+    assert!(doc["segments"][0].get("axial_force").is_none());
+}

@@ -147,6 +147,7 @@ fn segment_row(i: usize, seg: &SegmentReport, s: UnitSystem) -> String {
         }
         made_of.push_str(&format!("; {}", parts.join(" + ")));
     }
+    made_of.push_str(&axial_text(seg, s));
     format!(
         "<tr><th scope=\"row\">{}</th><td>{} – {}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>",
         i + 1,
@@ -157,4 +158,22 @@ fn segment_row(i: usize, seg: &SegmentReport, s: UnitSystem) -> String {
         seg.shear_rigidity.map_or(MISSING.to_string(), |k| quantity(k, Kind::ShearRigidity, s)),
         escape(&made_of)
     )
+}
+
+/// The segment's axial force in words, empty without one: "; axial force −12.3 kN (compression;
+/// −12.3 kN of it from the temperature change)".
+fn axial_text(seg: &SegmentReport, s: UnitSystem) -> String {
+    let Some(p) = seg.echo.axial_force else { return String::new() };
+    let sense = if p < 0.0 {
+        "compression"
+    } else if p > 0.0 {
+        "tension"
+    } else {
+        "none"
+    };
+    let thermal = match seg.echo.thermal_force {
+        Some(t) => format!("; {} of it from the temperature change", quantity(t, Kind::Force, s)),
+        None => String::new(),
+    };
+    format!("; axial force {} ({sense}{thermal})", quantity(p, Kind::Force, s))
 }

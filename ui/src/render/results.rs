@@ -43,6 +43,7 @@ pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> Strin
     out.push_str(&table(report));
     out.push_str(&warnings(report));
     out.push_str(&band::fundamental(report));
+    out.push_str(&buckling(report));
     out.push_str(&plot_area(report, mode));
     out.push_str(&echo::echo(report, &view.open));
     out
@@ -212,5 +213,27 @@ fn plot_area(report: &Report, mode: usize) -> String {
          Deflections are scaled to fit{}.</p></section>",
         plot::plot_svg(report, mode),
         if report.modes.len() > 1 { "; choose a mode above" } else { "" }
+    )
+}
+
+/// The buckling check of the axial forces, when some segment is compressed: how far they are
+/// from the load that buckles the beam.
+fn buckling(report: &Report) -> String {
+    let Some(factor) = report.critical_load_factor else {
+        let compressed = report.beam.segments.iter().any(|s| s.echo.axial_force.is_some_and(|p| p < 0.0));
+        return if compressed {
+            "<p class=\"mb-buckling\">Buckling: the tensions outweigh the compressions; these axial forces \
+             do not buckle the beam at any multiple.</p>"
+                .to_string()
+        } else {
+            String::new()
+        };
+    };
+    format!(
+        "<p class=\"mb-buckling\">Buckling: the axial forces are {} of the load that buckles the beam \
+         (critical load factor {}: the forces would have to be {} times as large).</p>",
+        percent(1.0 / factor, 3),
+        number::sig(factor, 4),
+        number::sig(factor, 3)
     )
 }

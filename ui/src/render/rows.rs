@@ -59,6 +59,7 @@ pub(crate) fn segments(form: &mut Form<'_>) -> String {
                 body.push_str(&form.spec(&base, spec));
             }
         }
+        body.push_str(&axial_fields(form, &base, segment, by_section));
         body.push_str("</div></div>");
     }
     body.push_str(&add_button("segments", "Add a segment"));
@@ -101,6 +102,9 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
         shape_id,
         "",
     ));
+    if shape_id == "pipe" {
+        out.push_str(&pipe_fields(form, &section_path));
+    }
     if let Some(shape) = shape {
         for spec in shape.fields {
             out.push_str(&form.spec(&section_path, spec));
@@ -122,6 +126,9 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     let has = |key: &str| segment.get("extra_mass").and_then(|e| e.get(key)).is_some();
     let hollow = matches!(shape_id, "tube" | "rectangular-tube" | "custom");
     let round = matches!(shape_id, "tube" | "round");
+    if hollow || has("contents") {
+        out.push_str(&contents_field(form, &extra, segment));
+    }
     for spec in &catalog::EXTRA_MASS_FIELDS {
         if spec.name != "contents_density" || hollow || has(spec.name) {
             out.push_str(&form.spec(&extra, spec));
@@ -231,4 +238,42 @@ pub(crate) fn excitations(form: &mut Form<'_>) -> String {
     }
     body.push_str(&add_button("excitations", "Add an excitation"));
     group("mb-excitations", "Excitations (running speeds, line frequency, blade pass)", &body)
+}
+
+/// A segment's axial force, and the temperature change with its ends held where the section
+/// and material give E·A·α.
+fn axial_fields(form: &mut Form<'_>, base: &str, segment: &Value, by_section: bool) -> String {
+    let mut out = form.spec(base, &catalog::AXIAL_FIELDS[0]);
+    if by_section || segment.get(catalog::AXIAL_FIELDS[1].name).is_some() {
+        out.push_str(&form.spec(base, &catalog::AXIAL_FIELDS[1]));
+    }
+    out
+}
+
+/// A steel pipe's nominal size and schedule, from the table; choosing either records the
+/// outside diameter and wall it gives (drawn after these as text fields).
+fn pipe_fields(form: &mut Form<'_>, section_path: &str) -> String {
+    use modebench::section::pipe;
+    let size = path::text(form.doc, &format!("{section_path}.nominal_size"));
+    let schedule = path::text(form.doc, &format!("{section_path}.schedule"));
+    let sizes: Vec<(&str, String)> = pipe::sizes().map(|s| (s, format!("{s} in"))).collect();
+    let sizes: Vec<(&str, &str)> = sizes.iter().map(|(id, words)| (*id, words.as_str())).collect();
+    let mut out = form.select(&format!("{section_path}.nominal_size"), "Nominal size", &sizes, &size, "");
+    let schedules: Vec<(&str, &str)> = pipe::schedules(&size).into_iter().map(|s| (s, s)).collect();
+    out.push_str(&form.select(&format!("{section_path}.schedule"), "Schedule", &schedules, &schedule, ""));
+    out
+}
+
+/// What fills the bore: a preset (its density recorded beside it), or a density typed.
+fn contents_field(form: &mut Form<'_>, extra: &str, segment: &Value) -> String {
+    let presets = modebench::extra_mass::contents_presets();
+    let mut options: Vec<(&str, &str)> = vec![("none", "Empty, or a density typed below")];
+    options.extend(presets.iter().map(|c| (c.id, c.name)));
+    let current = segment
+        .get("extra_mass")
+        .and_then(|e| e.get("contents"))
+        .and_then(Value::as_str)
+        .unwrap_or("none")
+        .to_string();
+    form.select(&format!("{extra}.contents"), "Contents", &options, &current, "")
 }

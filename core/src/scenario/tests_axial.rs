@@ -1,0 +1,139 @@
+//! Axial force, temperature change, pipe sizes and contents as a scenario writes them: each read
+//! into the model's numbers, checked against the formulas they stand for, and refused with the
+//! field named where they cannot apply.
+
+use super::Scenario;
+use crate::error::ErrorKind;
+use serde_json::{json, Value};
+
+fn read(scenario: &Value) -> crate::Result<super::Inputs> {
+    Scenario::from_json(&scenario.to_string()).and_then(|s| s.to_model())
+}
+
+/// A 4 in schedule 40 steel pipe between two anchors.
+fn pipe(extra: Value) -> Value {
+    let mut segment = json!({
+        "length": "6 m",
+        "section": { "shape": "pipe", "nominal_size": "4", "schedule": "40" },
+        "material": "steel"
+    });
+    if let (Some(s), Some(e)) = (segment.as_object_mut(), extra.as_object()) {
+        s.extend(e.clone());
+    }
+    json!({ "left": "clamped", "right": "clamped", "segments": [segment] })
+}
+
+/// Area of the 4 in schedule 40 pipe, m²: OD 4.500 in, wall 0.237 in (ASME B36.10M, from memory).
+fn area() -> f64 {
+    let (d, t): (f64, f64) = (4.5 * 0.0254, 0.237 * 0.0254);
+    std::f64::consts::PI * (d * d - (d - 2.0 * t).powi(2)) / 4.0
+}
+
+#[test]
+fn a_temperature_rise_with_the_ends_held_is_the_force_minus_e_a_alpha_delta_t() {
+    // −E·A·α·ΔT with the steel preset's E = 200 GPa and α = 12e-6 /K; 90 °F is a change of 50 K
+    // (1 °F = 5/9 K, NIST SP 811).
+    let want = -200e9 * area() * 12e-6 * 50.0;
+    for dt in ["50 K", "50 °C", "50 degC", "90 °F", "90 degF"] {
+        let inputs = read(&pipe(json!({ "temperature_change": dt }))).expect("reads");
+        let got = inputs.model.axial_force(0);
+        assert!((got - want).abs() < 1e-9 * want.abs(), "{dt}: {got} vs {want}");
+        assert_eq!(inputs.segments[0].thermal_force, Some(got));
+    }
+    // A typed force adds to the thermal one.
+    let both = read(&pipe(json!({ "temperature_change": "50 K", "axial_force": "10 kN" }))).expect("reads");
+    assert!((both.model.axial_force(0) - (want + 1e4)).abs() < 1e-6);
+    assert_eq!(both.segments[0].axial_force, Some(both.model.axial_force(0)));
+}
+
+#[test]
+fn a_typed_force_is_the_same_beam_as_the_temperature_that_gives_it() {
+    let thermal = read(&pipe(json!({ "temperature_change": "30 K" }))).expect("reads");
+    let force = thermal.model.axial_force(0);
+    let typed = read(&pipe(json!({ "axial_force": format!("{force} N") }))).expect("reads");
+    let a = crate::exact::frequencies(&thermal.model, 3).expect("solves");
+    let b = crate::exact::frequencies(&typed.model, 3).expect("solves");
+    assert_eq!(a, b);
+}
+
+#[test]
+fn axial_inputs_that_cannot_apply_are_refused_with_the_field_named() {
+    // No α for a segment given by its properties.
+    let e = read(&json!({
+        "left": "pinned", "right": "pinned",
+        "segments": [{ "length": 2, "flexural_rigidity": 1e4, "mass_per_length": 5, "temperature_change": "40 K" }]
+    }))
+    .unwrap_err();
+    assert_eq!(e.path.to_string(), "segments[0].temperature_change");
+    assert_eq!(e.kind, ErrorKind::Conflict);
+    // A custom material has no α either.
+    let mut custom = pipe(json!({ "temperature_change": "40 K" }));
+    custom["segments"][0]["material"] = json!({ "youngs_modulus": "200 GPa", "density": "7850 kg/m^3" });
+    assert_eq!(read(&custom).unwrap_err().path.to_string(), "segments[0].temperature_change");
+    // A temperature is a change with a temperature unit, not a length.
+    let e = read(&pipe(json!({ "temperature_change": "40 mm" }))).unwrap_err();
+    assert_eq!(
+        (e.path.to_string().as_str(), e.kind),
+        ("segments[0].temperature_change", ErrorKind::WrongDimension)
+    );
+    // A force beyond any beam's strength is a unit slip.
+    let e = read(&pipe(json!({ "axial_force": "-3e12 N" }))).unwrap_err();
+    assert_eq!((e.path.to_string().as_str(), e.kind), ("segments[0].axial_force", ErrorKind::OutOfRange));
+    // A beam free to move as a rigid body has nothing to react the force.
+    let mut free = pipe(json!({ "axial_force": "-1 kN" }));
+    free["left"] = json!("free");
+    free["right"] = json!("free");
+    assert_eq!(read(&free).unwrap_err().path.to_string(), "segments[0].axial_force");
+    // The slender theory only.
+    let mut deep = pipe(json!({ "axial_force": "-1 kN" }));
+    deep["theory"] = json!("timoshenko");
+    let e = read(&deep).unwrap_err();
+    assert!(e.message.contains("slender-beam theory only"), "{e}");
+}
+
+#[test]
+fn a_pipe_by_size_keeps_its_recorded_dimensions() {
+    // The table's 4 in schedule 40 pipe, then the same size with other recorded dimensions: the
+    // recorded ones are computed with, so a corrected table never changes a saved case.
+    let table = read(&pipe(json!({}))).expect("reads");
+    let mut recorded = pipe(json!({}));
+    recorded["segments"][0]["section"]["outer_diameter"] = json!("4.5 in");
+    recorded["segments"][0]["section"]["wall"] = json!("0.237 in");
+    let same = read(&recorded).expect("reads");
+    assert_eq!(table.model.segments(), same.model.segments());
+    recorded["segments"][0]["section"]["wall"] = json!("0.25 in");
+    let other = read(&recorded).expect("reads");
+    assert!(other.model.segments()[0].mass_per_length > table.model.segments()[0].mass_per_length);
+    // A schedule the standard does not define for the size names what is.
+    let mut undefined = pipe(json!({}));
+    undefined["segments"][0]["section"]["nominal_size"] = json!("3-1/2");
+    undefined["segments"][0]["section"]["schedule"] = json!("160");
+    let e = read(&undefined).unwrap_err();
+    assert_eq!(e.path.to_string(), "segments[0].section.schedule");
+    assert!(e.message.contains("defined: 10, 40, 80, STD, XS"), "{e}");
+    // Sizes written as numbers read as the names.
+    let mut numbers = pipe(json!({}));
+    numbers["segments"][0]["section"]["nominal_size"] = json!(4);
+    numbers["segments"][0]["section"]["schedule"] = json!(40);
+    assert_eq!(read(&numbers).expect("reads").model.segments(), table.model.segments());
+}
+
+#[test]
+fn contents_by_name_give_their_density_unless_one_is_recorded() {
+    // Water at 998.2 kg/m³ in the bore of OD 4.500 in, wall 0.237 in.
+    let bore = std::f64::consts::PI * ((4.5 - 2.0 * 0.237) * 0.0254f64).powi(2) / 4.0;
+    let water = read(&pipe(json!({ "extra_mass": { "contents": "water" } }))).expect("reads");
+    let mass = water.segments[0].mass.as_ref().expect("by section");
+    assert!((mass.contents - 998.2 * bore).abs() < 1e-9);
+    let recorded =
+        read(&pipe(json!({ "extra_mass": { "contents": "water", "contents_density": "1000 kg/m^3" } })))
+            .expect("reads");
+    let mass = recorded.segments[0].mass.as_ref().expect("by section");
+    assert!((mass.contents - 1000.0 * bore).abs() < 1e-9);
+    let e = read(&pipe(json!({ "extra_mass": { "contents": "beer" } }))).unwrap_err();
+    assert_eq!(
+        (e.path.to_string().as_str(), e.kind),
+        ("segments[0].extra_mass.contents", ErrorKind::UnknownOption)
+    );
+    assert!(e.message.contains("glycol-mix"), "{e}");
+}
