@@ -40,12 +40,24 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
     let excitations: Vec<Excitation> = inputs
         .excitations
         .iter()
-        .map(|(label, f, harmonics)| Excitation {
-            label: label.clone(),
-            frequency_hz: *f,
-            harmonics: *harmonics,
+        .map(|e| Excitation {
+            label: e.label.clone(),
+            low_hz: e.low_hz,
+            high_hz: e.high_hz,
+            orders: e.orders.clone(),
         })
         .collect();
+    let orders = margins::orders(&excitations);
+    let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
+    let design = crate::design::study(
+        scenario,
+        &crate::design::study::Solved {
+            elastic_hz: &elastic_hz,
+            rigid: analysis.rigid_body_modes,
+            orders: &orders,
+            margin: inputs.margin,
+        },
+    )?;
     let modes: Vec<ModeReport> = analysis
         .modes
         .iter()
@@ -75,7 +87,9 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
                 nearest_excitation: if m.rigid_body {
                     None
                 } else {
-                    margins::nearest(f, &excitations, inputs.margin)
+                    let band =
+                        design.bands.iter().find(|b| b.mode == m.number).map(|b| (b.low_hz, b.high_hz));
+                    margins::nearest(f, band, &orders, inputs.margin)
                 },
             }
         })
@@ -106,6 +120,7 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
         margin: inputs.margin,
         warnings,
         conversions: echo::conversions(&inputs),
+        design,
     };
     if !report.is_finite() {
         return Err(overflow());

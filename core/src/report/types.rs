@@ -37,6 +37,8 @@ pub struct Report {
     pub warnings: Vec<Warning>,
     /// Every unit conversion applied to the input.
     pub conversions: Vec<ConversionEcho>,
+    /// What moves each mode, tolerance bands, measurements, calibration and resizing.
+    pub design: crate::design::Design,
 }
 
 /// The beam as modelled.
@@ -160,10 +162,12 @@ pub struct SprungAmplitude {
 pub struct ExcitationEcho {
     /// Its label.
     pub label: String,
-    /// Frequency, Hz.
+    /// Frequency, or the bottom of a variable speed's range, Hz.
     pub frequency_hz: f64,
-    /// Harmonics checked.
-    pub harmonics: usize,
+    /// The top of a variable speed's range, Hz.
+    pub up_to_hz: Option<f64>,
+    /// The orders checked (1 = the frequency itself).
+    pub orders: Vec<f64>,
 }
 
 /// Mode 1 by the approximate methods.
@@ -213,7 +217,13 @@ impl Report {
                 && ok(m.generalized_mass)
                 && m.nodes.iter().chain(&m.shape.x).chain(&m.shape.w).all(|v| v.is_finite())
                 && m.sprung.iter().all(|s| ok(s.amplitude))
-                && m.nearest_excitation.as_ref().is_none_or(|s| ok(s.margin) && ok(s.frequency_hz))
+                && m.nearest_excitation.as_ref().is_none_or(|s| {
+                    ok(s.margin)
+                        && ok(s.separation)
+                        && ok(s.frequency_hz)
+                        && opt(s.up_to_hz)
+                        && opt(s.band_separation)
+                })
         });
         let fundamental = self.fundamental.is_none_or(|f| {
             ok(f.exact_hz)
@@ -232,6 +242,10 @@ impl Report {
                 .attachments
                 .iter()
                 .all(|a| ok(a.position) && opt(a.mass) && opt(a.rotary_inertia) && opt(a.stiffness));
-        modes && fundamental && beam && ok(self.margin) && self.excitations.iter().all(|e| ok(e.frequency_hz))
+        let excitations = self
+            .excitations
+            .iter()
+            .all(|e| ok(e.frequency_hz) && opt(e.up_to_hz) && e.orders.iter().all(|o| ok(*o)));
+        modes && fundamental && beam && ok(self.margin) && excitations && self.design.is_finite()
     }
 }
