@@ -6,8 +6,11 @@
 //!
 //! By default it prints, per mode, the exact frequency, the finite-element frequency and their
 //! difference, and the node positions; the Rayleigh and Dunkerley values for mode 1; the unit
-//! conversions applied; and any warnings. `--shapes` adds the sampled mode shapes; `--full`
-//! prints the whole report.
+//! conversions applied; any warnings; and the design study: for each mode the inputs that move
+//! it most (% of frequency per % of input), the tolerance bands, the measured frequencies, the
+//! calibration and the resizing asked for, and the drives with the bands the margin forbids.
+//! `--shapes` adds the sampled mode shapes and the resizing sweep; `--full` prints the whole
+//! report.
 
 use std::process::ExitCode;
 
@@ -65,8 +68,8 @@ fn summary(report: &modebench::Report, shapes: bool) -> serde_json::Value {
             }
             if let Some(s) = &m.nearest_excitation {
                 row["nearest_excitation"] = serde_json::json!({
-                    "excitation": s.excitation, "order": s.order, "hz": s.frequency_hz,
-                    "margin": s.margin, "too_close": s.too_close });
+                    "excitation": s.excitation, "order": s.order, "hz": s.frequency_hz, "up_to_hz": s.up_to_hz,
+                    "separation": s.separation, "band_separation": s.band_separation, "too_close": s.too_close });
             }
             if shapes {
                 row["shape"] = serde_json::json!({ "x_m": m.shape.x, "w": m.shape.w });
@@ -88,5 +91,42 @@ fn summary(report: &modebench::Report, shapes: bool) -> serde_json::Value {
         "fe": report.fe,
         "conversions": report.conversions.iter().map(|c| format!("{}: {}", c.path, c.text)).collect::<Vec<_>>(),
         "warnings": report.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),
+        "design": design(&report.design, shapes),
     })
+}
+
+/// The design study in short: the three inputs that move each mode most, and the rest as is.
+fn design(d: &modebench::design::Design, sweep: bool) -> serde_json::Value {
+    let moves: Vec<serde_json::Value> = d
+        .sensitivities
+        .iter()
+        .map(|s| {
+            let top: Vec<serde_json::Value> = modebench::design::sensitivity::strongest(&s.per_input, 3)
+                .into_iter()
+                .filter_map(|(j, v)| {
+                    Some(serde_json::json!({ "input": d.inputs.get(j)?.path, "percent_per_percent": v }))
+                })
+                .collect();
+            serde_json::json!({ "mode": s.mode, "moved_most_by": top })
+        })
+        .collect();
+    let mut out = serde_json::json!({
+        "what_moves_each_mode": moves,
+        "tolerances": d.tolerances,
+        "bands": d.bands,
+        "measured": d.measured,
+        "calibration": d.calibration,
+        "drives": d.drives,
+    });
+    if let Some(r) = &d.resize {
+        let mut resize = serde_json::json!({
+            "input": r.input, "from": r.low, "to": r.high, "feasible_intervals": r.intervals,
+            "nearest": r.nearest, "clear_today": r.clear_today, "problem": r.problem,
+        });
+        if sweep {
+            resize["sweep"] = serde_json::json!({ "x": r.x, "hz": r.hz });
+        }
+        out["resize"] = resize;
+    }
+    out
 }

@@ -184,7 +184,8 @@ fn the_editor_shows_a_field_for_every_part_of_the_scenario() {
         "attachments[1].rotary_inertia",
         "excitations[0].label",
         "excitations[0].frequency",
-        "excitations[0].harmonics",
+        "excitations[0].up_to",
+        "excitations[0].orders",
     ] {
         assert!(fields.iter().any(|f| f == path), "no field for {path}");
     }

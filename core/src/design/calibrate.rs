@@ -153,21 +153,23 @@ fn one(frequencies: &Frequencies<'_>, p0: &[f64], u: Unknown, m: Measured) -> Re
         roots.push(xs[SCAN]);
     }
     if roots.is_empty() {
-        let (best, g) = xs
+        let (i, g) = gs
             .iter()
-            .zip(&gs)
+            .enumerate()
             .min_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))
-            .map(|(x, g)| (*x, *g))
-            .unwrap_or((u.low, 1.0));
+            .map(|(i, g)| (i, *g))
+            .unwrap_or((0, 1.0));
+        let place = match i {
+            0 => "at the low end of the range",
+            i if i == SCAN => "at the high end of the range",
+            _ => "inside the range",
+        };
         return Err(Error::new(
             ErrorKind::OutOfRange,
             format!(
-                "no value of the input from {} to {} puts mode {} at {} Hz; the closest, {best:.6e}, leaves it {:.2} % \
-                 {}; widen the range or check the mode's number",
-                u.low,
-                u.high,
-                m.mode + 1,
-                m.hz,
+                "no value in the range brings the mode measured at {} Hz there: the closest, {place}, leaves it \
+                 {:.2} % {}; widen the range, choose another input, or check the mode's number and the measurement",
+                crate::error::number(m.hz),
                 100.0 * g.abs(),
                 if g > 0.0 { "above" } else { "below" }
             ),

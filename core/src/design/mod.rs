@@ -9,10 +9,16 @@
 //! the tests build it on models directly.
 
 pub mod calibrate;
+pub mod inputs;
 pub mod margin;
+mod requests;
 pub mod resize;
 pub mod sensitivity;
+pub mod study;
 pub mod tolerance;
+mod types;
+
+pub use study::{study, Design};
 
 use crate::error::Result;
 

@@ -81,10 +81,11 @@ pub(super) fn excitations(inputs: &Inputs) -> Vec<ExcitationEcho> {
     inputs
         .excitations
         .iter()
-        .map(|(label, f, harmonics)| ExcitationEcho {
-            label: label.clone(),
-            frequency_hz: *f,
-            harmonics: *harmonics,
+        .map(|e| ExcitationEcho {
+            label: e.label.clone(),
+            frequency_hz: e.low_hz,
+            up_to_hz: e.high_hz,
+            orders: e.orders.clone(),
         })
         .collect()
 }

@@ -54,12 +54,24 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
     let excitations: Vec<Excitation> = inputs
         .excitations
         .iter()
-        .map(|(label, f, harmonics)| Excitation {
-            label: label.clone(),
-            frequency_hz: *f,
-            harmonics: *harmonics,
+        .map(|e| Excitation {
+            label: e.label.clone(),
+            low_hz: e.low_hz,
+            high_hz: e.high_hz,
+            orders: e.orders.clone(),
         })
         .collect();
+    let orders = margins::orders(&excitations);
+    let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
+    let design = crate::design::study(
+        scenario,
+        &crate::design::study::Solved {
+            elastic_hz: &elastic_hz,
+            rigid: analysis.rigid_body_modes,
+            orders: &orders,
+            margin: inputs.margin,
+        },
+    )?;
     let modes: Vec<ModeReport> = analysis
         .modes
         .iter()
@@ -89,7 +101,9 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
                 nearest_excitation: if m.rigid_body {
                     None
                 } else {
-                    margins::nearest(f, &excitations, inputs.margin)
+                    let band =
+                        design.bands.iter().find(|b| b.mode == m.number).map(|b| (b.low_hz, b.high_hz));
+                    margins::nearest(f, band, &orders, inputs.margin)
                 },
             }
         })
@@ -121,6 +135,7 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
         warnings,
         conversions: echo::conversions(&inputs),
         critical_load_factor: analysis.critical_load_factor,
+        design,
     };
     if !report.is_finite() {
         return Err(overflow());

@@ -8,6 +8,10 @@
 use super::types::*;
 use crate::analysis::{Separation, Warning, WarningCode};
 use crate::bounds::Equivalent;
+use crate::design::study::{
+    CalibrationReport, Design, DriveEcho, InputEcho, MeasuredEcho, ModeBand, ModeSensitivity, ResizeReport,
+    ToleranceEcho,
+};
 use crate::error::{Error, ErrorKind};
 use crate::extra_mass::MassBreakdown;
 use crate::model::{AttachmentKind, EndKind, Theory};
@@ -103,6 +107,7 @@ by_id! {
     AttachmentKind => AttachmentKind::ALL,
     WarningCode => WarningCode::ALL,
     ErrorKind => ErrorKind::ALL,
+    crate::units::Kind => crate::units::Kind::ALL,
 }
 
 /// Structs written as objects, one key per field: each field is read from its key, a missing
@@ -125,7 +130,7 @@ macro_rules! fields {
 fields! {
     Report {
         title, units, theory, comparison, beam, rigid_body_modes, modes, fundamental, fe, excitations, margin,
-        warnings, conversions, critical_load_factor
+        warnings, conversions, critical_load_factor, design
     }
     BeamEcho { length, segments, left, right, attachments }
     SegmentReport { start, end, flexural_rigidity, mass_per_length, shear_rigidity; flatten echo }
@@ -140,14 +145,27 @@ fields! {
     }
     ShapeSamples { x, w }
     SprungAmplitude { attachment, amplitude }
-    Separation { excitation, order, frequency_hz, margin, too_close }
-    ExcitationEcho { label, frequency_hz, harmonics }
+    Separation { excitation, order, frequency_hz, up_to_hz, separation, margin, band_separation, too_close }
+    ExcitationEcho { label, frequency_hz, up_to_hz, orders }
     FundamentalReport { exact_hz, rayleigh_hz, dunkerley_hz, equivalent }
     Equivalent { position, mass, stiffness }
     FeReport { elements, dofs }
     Warning { code, message }
     ConversionEcho { path, text }
     Error { kind, path, value, si, message }
+}
+
+// The design study.
+fields! {
+    Design { inputs, sensitivities, tolerances, bands, measured, calibration, resize, drives }
+    InputEcho { path, label, kind, value }
+    ModeSensitivity { mode, per_input }
+    ToleranceEcho { input, plus_minus, low, high }
+    ModeBand { mode, low_hz, high_hz }
+    MeasuredEcho { mode, measured_hz, computed_hz, difference }
+    CalibrationReport { inputs, fitted, fitted_hz, residuals, condition, alternatives, notes, problem }
+    ResizeReport { input, low, high, intervals, nearest, clear_today, x, hz, problem }
+    DriveEcho { excitation, order, low_hz, high_hz, forbidden_low_hz, forbidden_high_hz }
 }
 
 #[cfg(test)]

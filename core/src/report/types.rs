@@ -40,6 +40,8 @@ pub struct Report {
     /// The lowest multiple of the axial forces at which the beam buckles; `None` without
     /// compression (or when the tensions outweigh it).
     pub critical_load_factor: Option<f64>,
+    /// What moves each mode, tolerance bands, measurements, calibration and resizing.
+    pub design: crate::design::Design,
 }
 
 /// The beam as modelled.
@@ -163,10 +165,12 @@ pub struct SprungAmplitude {
 pub struct ExcitationEcho {
     /// Its label.
     pub label: String,
-    /// Frequency, Hz.
+    /// Frequency, or the bottom of a variable speed's range, Hz.
     pub frequency_hz: f64,
-    /// Harmonics checked.
-    pub harmonics: usize,
+    /// The top of a variable speed's range, Hz.
+    pub up_to_hz: Option<f64>,
+    /// The orders checked (1 = the frequency itself).
+    pub orders: Vec<f64>,
 }
 
 /// Mode 1 by the approximate methods.
@@ -216,7 +220,13 @@ impl Report {
                 && ok(m.generalized_mass)
                 && m.nodes.iter().chain(&m.shape.x).chain(&m.shape.w).all(|v| v.is_finite())
                 && m.sprung.iter().all(|s| ok(s.amplitude))
-                && m.nearest_excitation.as_ref().is_none_or(|s| ok(s.margin) && ok(s.frequency_hz))
+                && m.nearest_excitation.as_ref().is_none_or(|s| {
+                    ok(s.margin)
+                        && ok(s.separation)
+                        && ok(s.frequency_hz)
+                        && opt(s.up_to_hz)
+                        && opt(s.band_separation)
+                })
         });
         let fundamental = self.fundamental.is_none_or(|f| {
             ok(f.exact_hz)
@@ -237,11 +247,16 @@ impl Report {
                 .attachments
                 .iter()
                 .all(|a| ok(a.position) && opt(a.mass) && opt(a.rotary_inertia) && opt(a.stiffness));
+        let excitations = self
+            .excitations
+            .iter()
+            .all(|e| ok(e.frequency_hz) && opt(e.up_to_hz) && e.orders.iter().all(|o| ok(*o)));
         modes
             && fundamental
             && beam
             && ok(self.margin)
             && opt(self.critical_load_factor)
-            && self.excitations.iter().all(|e| ok(e.frequency_hz))
+            && excitations
+            && self.design.is_finite()
     }
 }

@@ -5,6 +5,7 @@
 //! and returns the validated [`Model`](crate::Model) together with an echo of the inputs in SI.
 
 mod derived;
+mod design;
 pub(crate) mod json;
 mod parse;
 mod read;
@@ -15,7 +16,8 @@ mod tests_axial;
 pub(crate) mod text;
 
 pub use crate::schema::DEFAULT_MARGIN;
-pub use read::{Inputs, SegmentEcho};
+pub use design::{MeasuredInput, RangeInput, ResizeInput, ToleranceInput};
+pub use read::{ExcitationRead, Inputs, SegmentEcho};
 
 use crate::error::Result;
 use crate::extra_mass::ExtraMassInput;
@@ -53,6 +55,14 @@ pub struct Scenario {
     /// Separation margin wanted between natural and excitation frequencies, as a ratio (0.2 or
     /// "20 %"); 0.2 when omitted.
     pub margin: Option<Quantity>,
+    /// How far inputs may stray from their values.
+    pub tolerances: Vec<ToleranceInput>,
+    /// Frequencies measured on the part.
+    pub measured: Vec<MeasuredInput>,
+    /// One or two inputs to fit to the measured frequencies.
+    pub calibrate: Vec<RangeInput>,
+    /// A design input and its range, to find where every margin holds.
+    pub resize: Option<ResizeInput>,
 }
 
 /// How an end is held, as written: `"clamped"` or `{"type": "elastic", …}`.
@@ -154,10 +164,17 @@ impl serde::Serialize for AttachmentInput {
 pub struct ExcitationInput {
     /// What it is ("motor running speed").
     pub label: String,
-    /// The frequency ("1780 rpm", "60 Hz").
+    /// The frequency ("1780 rpm", "60 Hz"); the bottom of the range for a variable speed.
     pub frequency: Quantity,
+    /// The top of a variable speed's range.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub up_to: Option<Quantity>,
+    /// The multiples that drive the beam (1×, 2×, a blade count ×); 1 to `harmonics` when omitted.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub orders: Option<Vec<f64>>,
     /// How many multiples to check (1 = the frequency itself); 1 when omitted.
-    pub harmonics: usize,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub harmonics: Option<usize>,
 }
 
 impl Scenario {

@@ -44,6 +44,19 @@ pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
             .map(excitation)
             .collect::<Result<_>>()?,
         margin: n.quantity_at("margin")?,
+        tolerances: list("tolerances", "a list of tolerances")?
+            .iter()
+            .map(super::design::tolerance)
+            .collect::<Result<_>>()?,
+        measured: list("measured", "a list of measured frequencies")?
+            .iter()
+            .map(super::design::measured)
+            .collect::<Result<_>>()?,
+        calibrate: list("calibrate", "a list of inputs to calibrate")?
+            .iter()
+            .map(super::design::range)
+            .collect::<Result<_>>()?,
+        resize: n.get("resize").map(|r| super::design::resize(&r)).transpose()?,
     })
 }
 
@@ -244,10 +257,8 @@ pub(crate) fn excitation(n: &Node<'_>) -> Result<ExcitationInput> {
     Ok(ExcitationInput {
         label: n.text_at("label")?.unwrap_or_default(),
         frequency: n.require_quantity(schema::FREQUENCY.name, "a frequency, like \"1780 rpm\"")?,
-        harmonics: n
-            .get(schema::HARMONICS.name)
-            .map(|h| h.whole(&schema::HARMONICS))
-            .transpose()?
-            .unwrap_or(schema::DEFAULT_HARMONICS),
+        up_to: n.quantity_at(schema::UP_TO.name)?,
+        orders: n.get(schema::ORDERS.name).map(|o| super::design::orders(&o)).transpose()?,
+        harmonics: n.get(schema::HARMONICS.name).map(|h| h.whole(&schema::HARMONICS)).transpose()?,
     })
 }

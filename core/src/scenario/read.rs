@@ -25,12 +25,25 @@ pub struct Inputs {
     pub labels: Vec<String>,
     /// Per attachment: its kind, as the scenario names it.
     pub kinds: Vec<crate::model::AttachmentKind>,
-    /// Excitations: (label, frequency in Hz, harmonics to check).
-    pub excitations: Vec<(String, f64, usize)>,
+    /// Excitations, in Hz.
+    pub excitations: Vec<ExcitationRead>,
     /// Separation margin as a ratio.
     pub margin: f64,
     /// Every unit conversion applied: (field path, record).
     pub conversions: Vec<(FieldPath, Conversion)>,
+}
+
+/// An excitation read: a single speed or a range, and the orders that drive the beam.
+#[derive(Clone, Debug, PartialEq)]
+pub struct ExcitationRead {
+    /// What it is; empty when the scenario gave no label.
+    pub label: String,
+    /// The frequency, or the bottom of a variable speed's range, Hz.
+    pub low_hz: f64,
+    /// The top of a variable speed's range, Hz.
+    pub high_hz: Option<f64>,
+    /// The multiples that drive the beam, ascending.
+    pub orders: Vec<f64>,
 }
 
 /// How a segment's properties came about.
@@ -381,12 +394,62 @@ fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Res
     a.kind.model(position, &value).map_err(|e| r.typed(e.at(path)))
 }
 
-fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<(String, f64, usize)> {
+fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<ExcitationRead> {
     let at = |field: &str| path.key(field);
     let f = r.read(&e.frequency, schema::FREQUENCY.kind, &at(schema::FREQUENCY.name))?;
     model::value(&schema::FREQUENCY, f).map_err(|err| err.at(path).with_value(&e.frequency))?;
-    model::whole(&schema::HARMONICS, e.harmonics).map_err(|err| err.at(path))?;
-    Ok((e.label.clone(), f, e.harmonics))
+    let high_hz = match &e.up_to {
+        Some(q) => {
+            let top = r.read(q, schema::UP_TO.kind, &at(schema::UP_TO.name))?;
+            model::value(&schema::UP_TO, top).map_err(|err| err.at(path).with_value(q))?;
+            if top < f {
+                return Err(Error::new(
+                    ErrorKind::OutOfRange,
+                    "the top of the speed range must not lie below its bottom (`frequency`)",
+                )
+                .at(at(schema::UP_TO.name))
+                .with_value(q));
+            }
+            Some(top)
+        }
+        None => None,
+    };
+    let orders = match (&e.orders, e.harmonics) {
+        (Some(_), Some(_)) => {
+            return Err(Error::new(
+                ErrorKind::Conflict,
+                "give either orders or harmonics, not both (orders [1, 2, 3] are harmonics 3)",
+            )
+            .at(at(schema::HARMONICS.name)))
+        }
+        (Some(orders), None) => {
+            let mut orders = orders.clone();
+            orders.sort_by(f64::total_cmp);
+            orders.dedup();
+            orders
+        }
+        (None, harmonics) => {
+            let harmonics = harmonics.unwrap_or(schema::DEFAULT_HARMONICS);
+            model::whole(&schema::HARMONICS, harmonics).map_err(|err| err.at(path))?;
+            (1..=harmonics).map(|h| h as f64).collect()
+        }
+    };
+    // The drives and the bands a margin forbids around them must stay within the numbers the
+    // engine computes with (a margin is below 100 %, so twice the top is the widest band).
+    let top = high_hz.unwrap_or(f) * orders.iter().copied().fold(1.0, f64::max) * 2.0;
+    if !top.is_finite() {
+        let (key, q) = match &e.up_to {
+            Some(q) => (schema::UP_TO.name, q),
+            None => (schema::FREQUENCY.name, &e.frequency),
+        };
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            "this frequency times its highest order is too large to compute with; check the unit and the exponent",
+        )
+        .at(at(key))
+        .with_value(q));
+    }
+    Ok(ExcitationRead { label: e.label.clone(), low_hz: f, high_hz, orders })
 }
 
 /// The margin, a ratio written as a number (0.2) or a percentage ("20 %").

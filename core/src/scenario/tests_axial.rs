@@ -53,7 +53,10 @@ fn a_typed_force_is_the_same_beam_as_the_temperature_that_gives_it() {
     let typed = read(&pipe(json!({ "axial_force": format!("{force} N") }))).expect("reads");
     let a = crate::exact::frequencies(&thermal.model, 3).expect("solves");
     let b = crate::exact::frequencies(&typed.model, 3).expect("solves");
-    assert_eq!(a, b);
+    // The same beam to the last digits: the search may stop a rounding step apart.
+    for (x, y) in a.iter().zip(&b) {
+        assert!((x - y).abs() <= 1e-13 * x, "{a:?} vs {b:?}");
+    }
 }
 
 #[test]

@@ -19,6 +19,10 @@ pub fn tables() -> Vec<(&'static str, String)> {
         ("attachments", choices(&super::ATTACHMENTS, "type")),
         ("excitation", fields(&super::EXCITATION_FIELDS)),
         ("axial", fields(&super::AXIAL_FIELDS)),
+        ("tolerance", fields(&super::TOLERANCE_FIELDS)),
+        ("measured", fields(&super::MEASURED_FIELDS)),
+        ("calibrate", fields(&super::CALIBRATE_FIELDS)),
+        ("resize", fields(&super::RESIZE_FIELDS)),
     ]
 }
 
@@ -28,6 +32,8 @@ fn fields(list: &[Field]) -> String {
         String::from("| field | meaning | value | allowed | default |\n| --- | --- | --- | --- | --- |\n");
     for f in list {
         let value = match f.form {
+            // A range's ends take the kind of the input they belong to.
+            Form::Quantity if f.range == Range::Any => "the input's kind of quantity".to_string(),
             Form::Quantity => f.kind.describe().to_string(),
             Form::Count => "a whole number".to_string(),
             Form::Percent => "a ratio or a percentage".to_string(),
@@ -112,7 +118,7 @@ mod tests {
 
     #[test]
     fn every_field_has_words() {
-        let lists: [&[Field]; 9] = [
+        let lists: [&[Field]; 13] = [
             &super::super::AXIAL_FIELDS,
             &super::super::SCENARIO,
             &super::super::SEGMENT,
@@ -122,6 +128,10 @@ mod tests {
             &super::super::SUBMERGED_FIELDS,
             &super::super::ATTACHMENT_FIELDS,
             &super::super::EXCITATION_FIELDS,
+            &super::super::TOLERANCE_FIELDS,
+            &super::super::MEASURED_FIELDS,
+            &super::super::CALIBRATE_FIELDS,
+            &super::super::RESIZE_FIELDS,
         ];
         let choices =
             super::super::SHAPES.iter().chain(&super::super::ATTACHMENTS).chain(&super::super::ENDS);

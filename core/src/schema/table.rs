@@ -40,7 +40,7 @@ const fn length(name: &'static str, label: &'static str, what: &'static str) -> 
 }
 
 /// The fields of the scenario object.
-pub static SCENARIO: [Field; 12] = [
+pub static SCENARIO: [Field; 16] = [
     Field::of("title", Form::Text).label("Title").what("a title").help("a title for the results").or("empty"),
     Field::of("units", Form::Name)
         .label("Units")
@@ -69,6 +69,10 @@ pub static SCENARIO: [Field; 12] = [
         .help("frequencies the beam will be driven at (below)")
         .or("none"),
     MARGIN,
+    TOLERANCES,
+    MEASURED,
+    CALIBRATE,
+    RESIZE,
 ];
 
 /// Elastic modes to compute.
@@ -419,13 +423,15 @@ pub const FREQUENCY: Field = Field::quantity("frequency", Kind::Frequency, Range
     .help("the frequency, e.g. `\"1780 rpm\"` or `\"60 Hz\"`");
 
 /// The fields of an excitation.
-pub static EXCITATION_FIELDS: [Field; 3] = [
+pub static EXCITATION_FIELDS: [Field; 5] = [
     Field::of("label", Form::Text)
         .label("Label")
         .what("a label")
         .help("what it is (\"fan running speed\")")
         .or("none"),
     FREQUENCY,
+    UP_TO,
+    ORDERS,
     HARMONICS,
 ];
 
@@ -478,4 +484,114 @@ pub static PIPE_FIELDS: [Field; 4] = [
     length("wall", "Wall (from the table)", "a wall thickness")
         .help("the wall the table gave, recorded so a saved case keeps it")
         .or("the table's"),
+];
+
+// Design work on a solved model: speed ranges and orders of excitations, tolerances on inputs,
+// measured frequencies, calibration to them and resizing to the margin.
+
+/// Most orders listed for one excitation.
+pub const MAX_ORDERS: usize = 20;
+/// The largest order of an excitation (a blade or vane count, a gear's teeth).
+pub const MAX_ORDER: f64 = 1000.0;
+/// Most unknowns one calibration fits.
+pub const MAX_UNKNOWNS: usize = 2;
+/// Points of a resizing sweep when the scenario does not say.
+pub const DEFAULT_POINTS: usize = 200;
+
+/// The top of an excitation's speed range.
+pub const UP_TO: Field = Field::quantity("up_to", Kind::Frequency, Range::AboveZero(f64::INFINITY))
+    .label("Up to (variable speed)")
+    .what("the top of the speed range")
+    .help("for a variable speed: the range runs from `frequency` up to this, e.g. `\"1800 rpm\"`")
+    .or("a single speed");
+
+/// The multiples of an excitation's frequency that drive the beam.
+pub const ORDERS: Field = Field { range: Range::AboveZero(MAX_ORDER), ..Field::of("orders", Form::Text) }
+    .label("Orders (multiples)")
+    .what("the orders")
+    .help(
+        "the multiples that drive the beam, as a list `[1, 2, 6]` or a text `\"1, 2, 6\"`: 1× and 2× running \
+         speed, a blade or vane count ×; line frequency and twice line frequency are orders 1 and 2 of it",
+    )
+    .or("1 to `harmonics`");
+
+/// A path naming one numeric input of the scenario.
+pub const INPUT_FIELD: Field = Field::of("field", Form::Text)
+    .label("Input")
+    .what("the input's place in the scenario")
+    .help("the input, as a path: `\"segments[0].section.wall\"`, `\"left.rotational\"`, `\"attachments[1].mass\"`");
+
+/// The low end of an input's range.
+pub const FROM: Field = Field::of("from", Form::Quantity)
+    .label("From")
+    .what("the low end of the range")
+    .help("in the input's own kind of quantity (`\"4 mm\"`); for an end, `\"pinned\"` or `\"free\"`");
+
+/// The high end of an input's range.
+pub const TO: Field = Field::of("to", Form::Quantity)
+    .label("To")
+    .what("the high end of the range")
+    .help("in the input's own kind of quantity, or `\"rigid\"` for a stiffness; for an end, `\"clamped\"` or `\"guided\"`");
+
+/// Input tolerances.
+pub const TOLERANCES: Field = Field::of("tolerances", Form::Part)
+    .what("a list of tolerances")
+    .help("how far inputs may stray from their values (below); each mode then gets a band")
+    .or("none");
+
+/// Measured frequencies.
+pub const MEASURED: Field = Field::of("measured", Form::Part)
+    .what("a list of measured frequencies")
+    .help("frequencies measured on the part, by mode (below)")
+    .or("none");
+
+/// What to calibrate.
+pub const CALIBRATE: Field = Field::of("calibrate", Form::Part)
+    .what("a list of inputs to calibrate")
+    .help("one or two uncertain inputs to fit to the measured frequencies (below)")
+    .or("none");
+
+/// What to resize.
+pub const RESIZE: Field = Field::of("resize", Form::Part)
+    .what("a resizing request")
+    .help("a design input and its range, to find where every margin holds (below)")
+    .or("none");
+
+/// The fields of a tolerance.
+pub static TOLERANCE_FIELDS: [Field; 4] = [
+    INPUT_FIELD,
+    Field { range: Range::Fraction, ..Field::of("plus_minus", Form::Percent) }
+        .label("±")
+        .what("a tolerance")
+        .help("± this fraction of the value: `0.05` or `\"5 %\"`")
+        .or("give `from` and `to` instead"),
+    FROM.or("give `plus_minus` instead"),
+    TO.or("give `plus_minus` instead"),
+];
+
+/// The fields of a measured frequency.
+pub static MEASURED_FIELDS: [Field; 2] = [
+    Field { range: Range::Whole(1, MAX_MODES + 6), ..Field::of("mode", Form::Count) }
+        .label("Mode")
+        .what("the mode's number")
+        .help("the mode's number as the results list it (rigid-body modes first)"),
+    Field::quantity("frequency", Kind::Frequency, Range::AboveZero(f64::INFINITY))
+        .label("Measured")
+        .what("a measured frequency")
+        .help("the frequency measured, e.g. `\"14.2 Hz\"`"),
+];
+
+/// The fields of an input to calibrate.
+pub static CALIBRATE_FIELDS: [Field; 3] = [INPUT_FIELD, FROM, TO];
+
+/// The fields of a resizing request.
+pub static RESIZE_FIELDS: [Field; 4] = [
+    INPUT_FIELD,
+    FROM,
+    TO,
+    Field { range: Range::Whole(20, 1000), ..Field::of("points", Form::Count) }
+        .label("Points")
+        .what("the number of points")
+        .help("values of the input solved across the range")
+        .or("200"),
 ];

@@ -3,8 +3,9 @@
 //! text, in models built directly (`models.rs`), in scenario JSON (`scenarios.rs`) and in the
 //! input readers of sections, materials, extra masses and quantities (`readers.rs`). Its error
 //! messages stay short, never show a non-finite number, and name the place in the scenario they
-//! concern.
+//! concern. Design requests that are badly put or have no answer are in `design.rs`.
 
+mod design;
 mod models;
 mod readers;
 mod scenarios;

@@ -31,6 +31,10 @@ pub fn text(doc: &Value, path: &str) -> String {
     match get(doc, path) {
         Some(Value::String(s)) => s.clone(),
         Some(Value::Number(n)) => super::text::number(n),
+        // A list of numbers (an excitation's orders) is shown as it may be typed: "1, 2, 6".
+        Some(Value::Array(items)) if items.iter().all(Value::is_number) => {
+            items.iter().filter_map(|v| v.as_number().map(super::text::number)).collect::<Vec<_>>().join(", ")
+        }
         _ => String::new(),
     }
 }

@@ -109,17 +109,18 @@ fn model(report: &Report) -> String {
             .iter()
             .map(|e| {
                 let label = if e.label.trim().is_empty() { "excitation" } else { e.label.trim() };
-                let multiples = if e.harmonics > 1 {
-                    format!(", multiples up to ×{}", e.harmonics)
-                } else {
-                    String::new()
+                let orders: Vec<String> = e.orders.iter().map(|o| super::number::order(*o)).collect();
+                let speed = match e.up_to_hz {
+                    Some(top) => format!(
+                        "{} to {} ({} to {})",
+                        hz(e.frequency_hz),
+                        hz(top),
+                        rpm(e.frequency_hz * 60.0),
+                        rpm(top * 60.0)
+                    ),
+                    None => format!("{} ({})", hz(e.frequency_hz), rpm(e.frequency_hz * 60.0)),
                 };
-                format!(
-                    "<li>{}: {} ({}){multiples}</li>",
-                    escape(label),
-                    hz(e.frequency_hz),
-                    rpm(e.frequency_hz * 60.0)
-                )
+                format!("<li>{}: {speed}, orders {}</li>", escape(label), orders.join(", "))
             })
             .collect();
         out.push_str(&format!(

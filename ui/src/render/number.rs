@@ -28,6 +28,20 @@ pub(crate) fn percent(ratio: f64, significant: usize) -> String {
     format!("{} %", sig(ratio * 100.0, significant))
 }
 
+/// A signed ratio as a percentage with its sign: "−16.2 %", "+4 %", "0 %".
+pub(crate) fn signed_percent(ratio: f64, significant: usize) -> String {
+    match ratio {
+        r if r > 0.0 => format!("+{}", percent(r, significant)),
+        r if r < 0.0 => format!("−{}", percent(-r, significant)),
+        _ => "0 %".to_string(),
+    }
+}
+
+/// An order of an excitation: "2×", "0.5×".
+pub(crate) fn order(order: f64) -> String {
+    format!("{}×", sig(order, 4))
+}
+
 /// An SI value in the display unit of the chosen system, through core's formatter.
 pub(crate) fn quantity(si: f64, kind: Kind, system: UnitSystem) -> String {
     if si.is_finite() {

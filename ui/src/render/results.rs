@@ -2,7 +2,7 @@
 //! inputs as modelled.
 
 use super::escape::escape;
-use super::number::{self, hz, percent, quantity, rpm};
+use super::number::{self, hz, percent, quantity, rpm, signed_percent};
 use super::{band, echo, plot};
 use modebench::report::ModeReport;
 use modebench::units::Kind;
@@ -83,7 +83,8 @@ fn table(report: &Report) -> String {
     );
     if has_excitations {
         out.push_str(&format!(
-            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (want ≥ {})</th>",
+            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (f − f<sub>e</sub>)/f<sub>e</sub> \
+             (want ≥ {} either side)</th>",
             percent(report.margin, 3)
         ));
     }
@@ -92,7 +93,28 @@ fn table(report: &Report) -> String {
         out.push_str(&row(report, m, system, has_excitations));
     }
     out.push_str("</tbody></table></div>");
+    if has_excitations {
+        out.push_str(&separation_note(report));
+    }
     out
+}
+
+/// How the separation column is defined, under the table.
+fn separation_note(report: &Report) -> String {
+    let banded = !report.design.bands.is_empty();
+    format!(
+        "<p class=\"mb-note mb-separation-note\">Separation is (f − f<sub>e</sub>)/f<sub>e</sub>, with f the mode's \
+         frequency and f<sub>e</sub> the excitation's (times its order; the nearer end of a speed range, and 0 inside \
+         it): negative when the mode lies below the excitation, positive above. A mode is flagged when its size is \
+         under {} — this definition and margins of 10–20 % are common practice, not from a single source; follow \
+         the code that applies.{}</p>",
+        percent(report.margin, 3),
+        if banded {
+            " With tolerances given, the edge of the mode's band nearer the excitation is judged (second figure)."
+        } else {
+            ""
+        }
+    )
 }
 
 fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, excitations: bool) -> String {
@@ -152,19 +174,34 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
                     .map(|e| e.label.trim())
                     .filter(|l| !l.is_empty())
                     .map_or(format!("excitation {}", s.excitation + 1), escape);
-                let order = if s.order > 1 { format!(" ×{}", s.order) } else { String::new() };
+                let order =
+                    if s.order != 1.0 { format!(" × {}", number::sig(s.order, 4)) } else { String::new() };
+                let driven = match s.up_to_hz {
+                    Some(top) => format!("{} to {}", hz(s.frequency_hz), hz(top)),
+                    None => hz(s.frequency_hz),
+                };
                 out.push_str(&format!(
-                    "<td class=\"mb-nearest\">{label}{order}<span class=\"mb-sub\">{}</span></td>",
-                    hz(s.frequency_hz)
+                    "<td class=\"mb-nearest\">{label}{order}<span class=\"mb-sub\">{driven}</span></td>"
                 ));
                 let flag = if s.too_close {
                     "<span class=\"mb-flag mb-flag-close\">⚠ too close</span>"
                 } else {
                     "<span class=\"mb-flag mb-flag-clear\">clear</span>"
                 };
+                let side = match s.separation {
+                    v if v < 0.0 => "below",
+                    v if v > 0.0 => "above",
+                    _ => "inside the range",
+                };
+                let band = s
+                    .band_separation
+                    .map(|b| format!("<span class=\"mb-sub\">band edge {}</span>", signed_percent(b, 3)))
+                    .unwrap_or_default();
                 out.push_str(&format!(
-                    "<td class=\"mb-separation\"><span class=\"mb-main\">{}</span>{flag}</td>",
-                    percent(s.margin, 3)
+                    "<td class=\"mb-separation\" data-separation=\"{}\"><span class=\"mb-main\">{}</span>\
+                     <span class=\"mb-sub\">{side}</span>{band}{flag}</td>",
+                    number::exact(s.separation).unwrap_or_default(),
+                    signed_percent(s.separation, 3)
                 ));
             }
             None => out.push_str(&format!("<td>{0}</td><td>{0}</td>", number::MISSING)),

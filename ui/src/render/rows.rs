@@ -230,10 +230,33 @@ pub(crate) fn excitations(form: &mut Form<'_>) -> String {
             TextOptions { placeholder: Some("e.g. 1780 rpm or 60 Hz"), ..TextOptions::default() },
         ));
         body.push_str(&form.text(
-            &format!("{base}.harmonics"),
-            "Multiples to check",
-            TextOptions { placeholder: Some("1"), optional: true, numeric: true, ..TextOptions::default() },
+            &format!("{base}.up_to"),
+            "Up to (variable speed)",
+            TextOptions {
+                placeholder: Some("optional, e.g. 1800 rpm"),
+                optional: true,
+                ..TextOptions::default()
+            },
         ));
+        // Older scenarios count multiples; the orders field says which ones.
+        if list[i].get("harmonics").is_some() {
+            body.push_str(&form.text(
+                &format!("{base}.harmonics"),
+                "Multiples to check",
+                TextOptions {
+                    placeholder: Some("1"),
+                    optional: true,
+                    numeric: true,
+                    ..TextOptions::default()
+                },
+            ));
+        } else {
+            body.push_str(&form.text(
+                &format!("{base}.orders"),
+                "Orders (1×, 2×, blade count…)",
+                TextOptions { placeholder: Some("1"), optional: true, ..TextOptions::default() },
+            ));
+        }
         body.push_str("</div></div>");
     }
     body.push_str(&add_button("excitations", "Add an excitation"));

@@ -1,4 +1,5 @@
-//! The design tools against results known in closed form or computed independently:
+//! The design tools, as functions of input values, against results known in closed form or
+//! computed independently:
 //! sensitivities against scaling laws and the first-order perturbation of a point mass,
 //! calibration round trips and a published frequency equation, resizing against re-solves at
 //! its edges, tolerance bands against a seeded Monte Carlo, and refusals of impossible requests.
@@ -225,7 +226,7 @@ fn impossible_requests_get_clear_messages() {
         &[Measured { mode: 0, hz: 1e6 }],
     )
     .unwrap_err();
-    assert!(e.message.contains("no value of the input"), "{e}");
+    assert!(e.message.contains("no value in the range"), "{e}");
     // A range that crosses zero.
     let e = calibrate(
         &f,

@@ -1,0 +1,322 @@
+//! The design study of a scenario: what moves each mode (sensitivities to every numeric input),
+//! the tolerance band of each mode, the measured frequencies beside the computed ones, the
+//! calibration asked for, the resizing asked for, and the drives with the bands they forbid.
+//!
+//! The requests are checked here, where the scenario's values and the field each path names are
+//! known: a path that names no numeric input, a range that crosses zero or runs backwards, a
+//! measured mode that was not computed is an error naming its field, like any bad input. A
+//! request that is well put but has no answer (no value in range reaches the measurement, no
+//! value clears every margin) is an answer: the report says so and why.
+
+use super::calibrate::{self, Fit, Measured, Unknown};
+use super::inputs::{self, Input};
+use super::margin::Drive;
+use super::requests::{end_range, range_of, ranged, ratio, relocate};
+use super::resize;
+use super::sensitivity::sensitivities;
+use super::tolerance::{bands, Spread};
+use crate::analysis::margins::Order;
+use crate::error::{Error, ErrorKind, Result};
+use crate::path::FieldPath;
+use crate::scenario::{RangeInput, Scenario};
+use serde_json::Value;
+
+pub use super::types::*;
+
+fn echo(input: &Input) -> InputEcho {
+    InputEcho {
+        path: input.path.to_string(),
+        label: input.field.label.to_string(),
+        kind: input.field.kind,
+        value: input.value.is_finite().then_some(input.value),
+    }
+}
+
+/// What the study needs of the solved scenario.
+pub struct Solved<'a> {
+    /// The elastic frequencies, Hz.
+    pub elastic_hz: &'a [f64],
+    /// Rigid-body modes listed before them.
+    pub rigid: usize,
+    /// Every order of every excitation.
+    pub orders: &'a [Order],
+    /// The margin wanted.
+    pub margin: f64,
+}
+
+/// Runs the design study of a scenario.
+pub fn study(scenario: &Scenario, solved: &Solved<'_>) -> Result<Design> {
+    let doc = serde_json::to_value(scenario)
+        .map_err(|e| Error::new(ErrorKind::Model, format!("the scenario could not be copied: {e}")))?;
+    let drives = solved
+        .orders
+        .iter()
+        .map(|o| {
+            let (low_hz, high_hz) = o.drive.range();
+            let (forbidden_low_hz, forbidden_high_hz) = o.drive.forbidden(solved.margin);
+            DriveEcho {
+                excitation: o.excitation,
+                order: o.order,
+                low_hz,
+                high_hz,
+                forbidden_low_hz,
+                forbidden_high_hz,
+            }
+        })
+        .collect();
+    let mut design = Design { drives, ..Design::default() };
+    // What moves each mode.
+    let all = inputs::all(&doc);
+    let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
+    let values: Vec<f64> = all.iter().map(|i| i.value).collect();
+    let f = |p: &[f64]| inputs::frequencies(&doc, &paths, p);
+    if let Ok(s) = sensitivities(&f, &values) {
+        design.inputs = all.iter().map(echo).collect();
+        design.sensitivities = s
+            .into_iter()
+            .enumerate()
+            .map(|(k, per_input)| ModeSensitivity { mode: solved.rigid + k + 1, per_input })
+            .collect();
+    }
+    tolerances(scenario, &doc, solved, &mut design)?;
+    let measured = measured(scenario, solved, &mut design)?;
+    calibration(scenario, &doc, &measured, &mut design)?;
+    resizing(scenario, &doc, solved, &mut design)?;
+    Ok(design)
+}
+
+fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+    if scenario.tolerances.is_empty() {
+        return Ok(());
+    }
+    let mut chosen: Vec<Input> = Vec::new();
+    let mut spreads = Vec::new();
+    for (i, t) in scenario.tolerances.iter().enumerate() {
+        let at = FieldPath::item("tolerances", i);
+        let (input, spread) = match end_range(doc, t, &at)? {
+            Some(input) => (input, Spread::Between { low: 0.0, high: f64::INFINITY }),
+            None => {
+                let input = inputs::input_at(doc, &t.field).map_err(|e| relocate(e, &at.key("field")))?;
+                let spread = match (&t.plus_minus, &t.from, &t.to) {
+                    (Some(pm), _, _) => {
+                        let fraction = ratio(pm, &at.key("plus_minus"))?;
+                        if !(input.value.is_finite() && input.value != 0.0) {
+                            return Err(Error::new(
+                                ErrorKind::Conflict,
+                                "a ± tolerance needs a finite value other than zero; give a range from … to …",
+                            )
+                            .at(at.key("plus_minus")));
+                        }
+                        Spread::Relative { fraction }
+                    }
+                    (None, Some(from), Some(to)) => {
+                        let (low, high) = range_of(&input, from, to, &at)?;
+                        Spread::Between { low, high }
+                    }
+                    _ => {
+                        return Err(Error::new(
+                            ErrorKind::Missing,
+                            "a tolerance needs plus_minus or from and to",
+                        )
+                        .at(at.key("plus_minus")))
+                    }
+                };
+                (input, spread)
+            }
+        };
+        if chosen.iter().any(|c| c.path == input.path) {
+            return Err(
+                Error::new(ErrorKind::Conflict, "this input already has a tolerance").at(at.key("field"))
+            );
+        }
+        let (low, high, plus_minus) = match spread {
+            Spread::Relative { fraction } => {
+                let (a, b) = (input.value * (1.0 - fraction), input.value * (1.0 + fraction));
+                (a.min(b), a.max(b), Some(fraction))
+            }
+            Spread::Between { low, high } => (low, high, None),
+        };
+        design.tolerances.push(ToleranceEcho {
+            input: echo(&input),
+            plus_minus,
+            low: low.is_finite().then_some(low),
+            high: high.is_finite().then_some(high),
+        });
+        chosen.push(input);
+        spreads.push(Some(spread));
+    }
+    let paths: Vec<FieldPath> = chosen.iter().map(|i| i.path.clone()).collect();
+    let values: Vec<f64> = chosen.iter().map(|i| i.value).collect();
+    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let b = bands(&f, &values, &spreads)?;
+    design.bands = b
+        .iter()
+        .enumerate()
+        .map(|(k, b)| ModeBand { mode: solved.rigid + k + 1, low_hz: b.low, high_hz: b.high })
+        .collect();
+    Ok(())
+}
+
+fn measured(scenario: &Scenario, solved: &Solved<'_>, design: &mut Design) -> Result<Vec<Measured>> {
+    let mut out = Vec::new();
+    for (i, m) in scenario.measured.iter().enumerate() {
+        let at = FieldPath::item("measured", i);
+        let field = &crate::schema::MEASURED_FIELDS[1];
+        crate::model::whole(&crate::schema::MEASURED_FIELDS[0], m.mode).map_err(|e| e.at(at.key("mode")))?;
+        let hz = inputs::read(&m.frequency, field, &at.key("frequency"))?;
+        crate::model::value(field, hz).map_err(|e| e.at(at.key("frequency")).with_value(&m.frequency))?;
+        let elastic = m.mode.checked_sub(solved.rigid + 1).filter(|k| *k < solved.elastic_hz.len());
+        let Some(k) = elastic else {
+            let shown = solved.rigid + solved.elastic_hz.len();
+            return Err(Error::new(
+                ErrorKind::OutOfRange,
+                if m.mode <= solved.rigid {
+                    format!("mode {} is a rigid-body mode at 0 Hz; measured modes are elastic ones", m.mode)
+                } else {
+                    format!("only modes up to {shown} are computed; ask for more modes or check the number")
+                },
+            )
+            .at(at.key("mode"))
+            .with_value(m.mode));
+        };
+        if out.iter().any(|o: &Measured| o.mode == k) {
+            return Err(Error::new(ErrorKind::Conflict, "this mode is already measured").at(at.key("mode")));
+        }
+        let computed = solved.elastic_hz[k];
+        design.measured.push(MeasuredEcho {
+            mode: m.mode,
+            measured_hz: hz,
+            computed_hz: computed,
+            difference: (computed - hz) / hz,
+        });
+        out.push(Measured { mode: k, hz });
+    }
+    Ok(out)
+}
+
+fn calibration(scenario: &Scenario, doc: &Value, measured: &[Measured], design: &mut Design) -> Result<()> {
+    if scenario.calibrate.is_empty() {
+        return Ok(());
+    }
+    let count = scenario.calibrate.len();
+    if count > crate::schema::MAX_UNKNOWNS {
+        return Err(Error::new(ErrorKind::OutOfRange, "calibrate one or two inputs at a time")
+            .at("calibrate")
+            .with_value(count));
+    }
+    if measured.len() < count {
+        return Err(Error::new(
+            ErrorKind::Missing,
+            format!(
+                "calibrating {count} input{} needs at least {count} measured frequenc{}; add them under `measured`",
+                if count == 1 { "" } else { "s" },
+                if count == 1 { "y" } else { "ies" }
+            ),
+        )
+        .at("measured"));
+    }
+    let list: Vec<&RangeInput> = scenario.calibrate.iter().collect();
+    let chosen = ranged(doc, &list, &|i| FieldPath::item("calibrate", i))?;
+    for (i, (_, low, high)) in chosen.iter().enumerate() {
+        let one_sign = low.is_finite() && high.is_finite() && (*low > 0.0 || *high < 0.0);
+        if !one_sign {
+            return Err(Error::new(
+                ErrorKind::OutOfRange,
+                "a calibration range needs two finite ends of one sign, neither zero (e.g. from 1e3 to 1e9 N·m/rad \
+                 for a rotational spring)",
+            )
+            .at(FieldPath::item("calibrate", i).key("from")));
+        }
+    }
+    if chosen.len() == 2 && chosen[0].0.path == chosen[1].0.path {
+        return Err(Error::new(ErrorKind::Conflict, "the two inputs are the same")
+            .at(FieldPath::item("calibrate", 1)));
+    }
+    let paths: Vec<FieldPath> = chosen.iter().map(|c| c.0.path.clone()).collect();
+    let p0: Vec<f64> = chosen.iter().map(|c| c.0.value).collect();
+    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let unknowns: Vec<Unknown> =
+        chosen.iter().enumerate().map(|(i, c)| Unknown { input: i, low: c.1, high: c.2 }).collect();
+    let mut report = CalibrationReport {
+        inputs: chosen.iter().map(|c| echo(&c.0)).collect(),
+        fitted: Vec::new(),
+        fitted_hz: Vec::new(),
+        residuals: Vec::new(),
+        condition: None,
+        alternatives: Vec::new(),
+        notes: Vec::new(),
+        problem: None,
+    };
+    match calibrate::calibrate(&f, &p0, &unknowns, measured) {
+        Ok(Fit { values, residuals, condition, alternatives, notes }) => {
+            let at = f(&values)?;
+            report.fitted_hz = measured.iter().filter_map(|m| at.get(m.mode).copied()).collect();
+            report.fitted = values;
+            report.residuals = residuals;
+            report.condition = condition.filter(|c| c.is_finite());
+            report.alternatives = alternatives;
+            report.notes = notes;
+        }
+        Err(e) => report.problem = Some(e.at(FieldPath::item("calibrate", 0).key("from"))),
+    }
+    design.calibration = Some(report);
+    Ok(())
+}
+
+fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+    let Some(r) = &scenario.resize else { return Ok(()) };
+    crate::model::whole(&crate::schema::RESIZE_FIELDS[3], r.points)
+        .map_err(|e| e.at(FieldPath::root().key("resize").key("points")))?;
+    let chosen = ranged(doc, &[&r.range], &|_| FieldPath::root().key("resize"))?;
+    let (input, low, high) =
+        chosen.into_iter().next().ok_or_else(|| Error::new(ErrorKind::Missing, "nothing to resize"))?;
+    if !(low.is_finite() && high.is_finite()) {
+        return Err(Error::new(ErrorKind::OutOfRange, "a resizing range needs two finite ends")
+            .at(FieldPath::root().key("resize").key("to")));
+    }
+    let drives: Vec<Drive> = solved.orders.iter().map(|o| o.drive).collect();
+    let path = [input.path.clone()];
+    let f = |p: &[f64]| inputs::frequencies(doc, &path, p);
+    let clear_today =
+        solved.elastic_hz.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, solved.margin)));
+    let mut report = ResizeReport {
+        input: echo(&input),
+        low,
+        high,
+        intervals: Vec::new(),
+        nearest: None,
+        clear_today,
+        x: Vec::new(),
+        hz: Vec::new(),
+        problem: None,
+    };
+    if drives.is_empty() {
+        report.problem = Some(
+            Error::new(
+                ErrorKind::Missing,
+                "there are no excitations to keep clear of; add the speeds that drive the beam",
+            )
+            .at("excitations"),
+        );
+    } else {
+        match resize::resize(&f, &[input.value], 0, (low, high), &drives, solved.margin, r.points) {
+            Ok(found) => {
+                if found.intervals.is_empty() {
+                    report.problem = Some(Error::new(
+                        ErrorKind::Model,
+                        "no value in this range clears every mode from every excitation by the margin; widen the \
+                         range, resize another input, or change the margin after checking what your code asks",
+                    ));
+                }
+                report.intervals = found.intervals;
+                report.nearest = found.nearest;
+                let (x, hz) = found.sweep.into_iter().unzip();
+                report.x = x;
+                report.hz = hz;
+            }
+            Err(e) => report.problem = Some(e),
+        }
+    }
+    design.resize = Some(report);
+    Ok(())
+}
