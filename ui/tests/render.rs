@@ -185,7 +185,10 @@ fn the_editor_shows_a_field_for_every_part_of_the_scenario() {
         assert!(fields.iter().any(|f| f == path), "no field for {path}");
     }
     let html = render::editor_html(&doc, None, Editing::Live);
-    assert!(html.contains("data-field=\"right.rotational\" value=\"0\""), "numbers are shown as written");
+    assert!(
+        html.contains("data-field=\"right.rotational\" data-unit=\"N·m/rad\" value=\"0\""),
+        "numbers are shown as written, in SI units where the system's are SI"
+    );
 }
 
 #[test]

@@ -7,6 +7,7 @@
 mod derived;
 pub(crate) mod json;
 mod parse;
+pub mod plausible;
 mod read;
 #[cfg(test)]
 mod tests;

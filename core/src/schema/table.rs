@@ -280,7 +280,7 @@ pub static MATERIAL_FIELDS: [Field; 4] = [
 /// The fields of the extra mass carried by a segment given by section.
 pub static EXTRA_MASS_FIELDS: [Field; 3] = [
     Field::quantity("contents_density", Kind::Density, Range::UpTo(f64::INFINITY))
-        .label("Contents density (fills the bore)")
+        .label("Contents density (what fills the bore, e.g. water in the pipe)")
         .what("the contents density")
         .help("the density of what fills the bore")
         .or("0"),

@@ -5,7 +5,7 @@ use super::escape::escape;
 use super::number::{hz, percent, quantity, rpm, MISSING};
 use modebench::report::{AttachmentKind, EndEcho, EndKind, SegmentReport};
 use modebench::units::{Kind, UnitSystem};
-use modebench::Report;
+use modebench::{schema, FieldPath, Report};
 
 /// A fold-out section, open if the reader left it open.
 fn fold(part: &str, summary: &str, body: &str, open: &[String]) -> String {
@@ -23,7 +23,16 @@ pub(crate) fn echo(report: &Report, open: &[String]) -> String {
         let items: String = report
             .conversions
             .iter()
-            .map(|c| format!("<li><code>{}</code>: {}</li>", escape(&c.path), escape(&c.text)))
+            .map(|c| {
+                // The field in words ("Segment 1, wall"); its path stays a machine's key.
+                let place = FieldPath::parse(&c.path).map_or_else(|| c.path.clone(), |p| schema::words(&p));
+                format!(
+                    "<li data-path=\"{}\"><span class=\"mb-conversion-field\">{}</span>: {}</li>",
+                    escape(&c.path),
+                    escape(&place),
+                    escape(&c.text)
+                )
+            })
             .collect();
         let summary = format!("Unit conversions applied ({})", report.conversions.len());
         out.push_str(&fold(

@@ -20,7 +20,7 @@ mod rows;
 mod symbols;
 
 pub use editor::{editor_html, field_paths};
-pub use errors::{field_error_html, message, placement};
+pub use errors::{field_error_html, is_unfilled, message, needed_html, placement};
 pub use escape::escape;
 pub use form::Editing;
 pub use offer::offer_html;
