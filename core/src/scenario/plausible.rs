@@ -10,7 +10,7 @@ use super::{Inputs, Scenario};
 use crate::analysis::{Warning, WarningCode};
 use crate::model::{Attachment, Model};
 use crate::path::FieldPath;
-use crate::schema::words;
+use crate::schema::{self, words};
 use crate::section::SectionInput;
 use crate::units::{self, Kind, Quantity};
 
@@ -31,7 +31,7 @@ pub fn warnings(scenario: &Scenario, inputs: &Inputs) -> Vec<Warning> {
     for (i, segment) in scenario.segments.iter().enumerate() {
         let Some(section) = &segment.section else { continue };
         let at = FieldPath::item("segments", i).key("section");
-        let (outer, thin) = dimensions(section);
+        let (shape, outer, thin) = dimensions(section);
         for &(key, q) in &outer {
             let Some(size) = si(q, Kind::Length) else { continue };
             if size >= span {
@@ -49,7 +49,7 @@ pub fn warnings(scenario: &Scenario, inputs: &Inputs) -> Vec<Warning> {
             if t < THINNEST_WALL {
                 let beside = widest
                     .map(|(wide, size)| {
-                        format!(" beside {} of {}", label(&at.key(wide)), shown(size, Kind::Length))
+                        format!(", beside {} of {}", label(shape, wide), shown(size, Kind::Length))
                     })
                     .unwrap_or_default();
                 out.push(warning(format!(
@@ -105,34 +105,42 @@ fn longest_span(model: &Model) -> f64 {
         .collect();
     at.push(0.0);
     at.push(model.length());
-    at.sort_by(f64::total_cmp);
+    crate::sort::floats(&mut at);
     at.windows(2).map(|w| w[1] - w[0]).fold(0.0, f64::max)
 }
 
-/// A section's outside dimensions (largest first) and its wall, flange and web thicknesses.
-#[allow(clippy::type_complexity)]
-fn dimensions(section: &SectionInput) -> (Vec<(&'static str, &Quantity)>, Vec<(&'static str, &Quantity)>) {
+/// Dimensions of a section, by their keys.
+type Dimensions<'a> = Vec<(&'static str, &'a Quantity)>;
+
+/// A section's shape id, its outside dimensions (the one in the plane of vibration first) and
+/// its wall, flange and web thicknesses.
+fn dimensions(section: &SectionInput) -> (&'static str, Dimensions<'_>, Dimensions<'_>) {
     match section {
-        SectionInput::Rectangle { width, depth } => (vec![("depth", depth), ("width", width)], vec![]),
-        SectionInput::Round { diameter } => (vec![("diameter", diameter)], vec![]),
+        SectionInput::Rectangle { width, depth } => {
+            ("rectangle", vec![("depth", depth), ("width", width)], vec![])
+        }
+        SectionInput::Round { diameter } => ("round", vec![("diameter", diameter)], vec![]),
         SectionInput::Tube { outer_diameter, wall } => {
-            (vec![("outer_diameter", outer_diameter)], vec![("wall", wall)])
+            ("tube", vec![("outer_diameter", outer_diameter)], vec![("wall", wall)])
         }
         SectionInput::RectangularTube { width, depth, wall } => {
-            (vec![("depth", depth), ("width", width)], vec![("wall", wall)])
+            ("rectangular-tube", vec![("depth", depth), ("width", width)], vec![("wall", wall)])
         }
         SectionInput::IBeam { depth, flange_width, flange_thickness, web_thickness, .. } => (
+            "i-beam",
             vec![("depth", depth), ("flange_width", flange_width)],
             vec![("flange_thickness", flange_thickness), ("web_thickness", web_thickness)],
         ),
-        SectionInput::Custom { depth, .. } => (depth.iter().map(|d| ("depth", d)).collect(), vec![]),
+        SectionInput::Custom { depth, .. } => {
+            ("custom", depth.iter().map(|d| ("depth", d)).collect(), vec![])
+        }
     }
 }
 
-/// A field's own words, without its place: "outside diameter".
-fn label(path: &FieldPath) -> String {
-    let whole = words(path);
-    let own = whole.rsplit(", ").next().unwrap_or(&whole);
+/// A dimension of a shape in words, with its article: "an overall depth".
+fn label(shape: &str, key: &str) -> String {
+    let field = schema::find(&schema::SHAPES, shape).and_then(|c| c.fields.iter().find(|f| f.name == key));
+    let own = schema::field_words(field.map_or("", |f| f.label), key);
     let article = if own.starts_with(['a', 'e', 'i', 'o', 'u']) { "an" } else { "a" };
     format!("{article} {own}")
 }

@@ -15,7 +15,7 @@ mod words;
 
 pub use range::Range;
 pub use table::*;
-pub use words::words;
+pub use words::{field_words, words};
 
 use crate::units::Kind;
 

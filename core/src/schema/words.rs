@@ -41,12 +41,16 @@ pub fn words(path: &FieldPath) -> String {
         }
         i += 1;
     }
-    let text = parts.join(", ");
-    let mut chars = text.chars();
-    match chars.next() {
-        Some(first) => first.to_uppercase().chain(chars).collect(),
-        None => "the whole scenario".to_string(),
+    let mut text = parts.join(", ");
+    if text.is_empty() {
+        return "the whole scenario".to_string();
     }
+    // ASCII case only: every word here starts with an ASCII letter, and the Unicode case tables
+    // would weigh on the browser build.
+    if text.is_char_boundary(1) {
+        text[..1].make_ascii_uppercase();
+    }
+    text
 }
 
 /// Every field the format describes, choices' fields included.
@@ -70,16 +74,25 @@ fn every_field() -> impl Iterator<Item = &'static Field> {
 fn label(key: &str) -> String {
     let found = every_field().find(|f| f.name == key && !f.label.is_empty()).map(|f| f.label);
     let Some(label) = found else { return key.replace('_', " ") };
+    field_words(label, key)
+}
+
+/// A field's words from its editor's `label`, as [`words`] writes them ("Overall depth" is
+/// "overall depth"); the `key` with spaces when the label is empty.
+pub fn field_words(label: &str, key: &str) -> String {
     let plain = label.split(" (").next().unwrap_or(label).trim();
     let first_word = plain.split(' ').next().unwrap_or("");
     if first_word.ends_with("'s") {
         return plain.to_string();
     }
-    let mut chars = plain.chars();
-    match chars.next() {
-        Some(first) => first.to_lowercase().chain(chars).collect(),
-        None => key.replace('_', " "),
+    if plain.is_empty() {
+        return key.replace('_', " ");
     }
+    let mut plain = plain.to_string();
+    if plain.is_char_boundary(1) {
+        plain[..1].make_ascii_lowercase();
+    }
+    plain
 }
 
 #[cfg(test)]

@@ -71,7 +71,8 @@ fn model(report: &Report) -> String {
         report.fe.dofs
     );
     out.push_str(
-        "<div class=\"mb-table-wrap\"><table class=\"mb-echo\"><thead><tr><th scope=\"col\">Segment</th>\
+        "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Segments as modelled\">\
+         <table class=\"mb-echo\"><thead><tr><th scope=\"col\">Segment</th>\
          <th scope=\"col\">From – to</th><th scope=\"col\">EI</th><th scope=\"col\">Mass per length</th>\
          <th scope=\"col\">κGA</th><th scope=\"col\">Made of</th></tr></thead><tbody>",
     );
@@ -81,7 +82,8 @@ fn model(report: &Report) -> String {
     out.push_str("</tbody></table></div>");
     if !beam.attachments.is_empty() {
         out.push_str(
-            "<div class=\"mb-table-wrap\"><table class=\"mb-echo\"><thead><tr><th scope=\"col\">Attachment</th>\
+            "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Attachments as modelled\">\
+             <table class=\"mb-echo\"><thead><tr><th scope=\"col\">Attachment</th>\
              <th scope=\"col\">At</th><th scope=\"col\">Mass</th><th scope=\"col\">Rotary inertia</th>\
              <th scope=\"col\">Stiffness</th></tr></thead><tbody>",
         );

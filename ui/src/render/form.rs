@@ -8,7 +8,7 @@ use super::errors;
 use super::escape::escape;
 use crate::catalog::FieldSpec;
 use crate::doc::path;
-use modebench::units::{self, display_unit, Kind, UnitSystem};
+use modebench::units::{self, Kind, UnitSystem};
 use modebench::Error;
 use serde_json::Value;
 
@@ -101,15 +101,12 @@ impl<'a> Form<'a> {
         };
         let placeholder = match (options.placeholder, options.kind) {
             (Some(p), _) => p.to_string(),
-            (None, Some(kind)) => {
-                let unit = display_unit(kind, self.system).symbol;
-                match (options.rigid, options.optional, unit.is_empty()) {
-                    (true, _, _) => format!("{unit} or rigid"),
-                    (false, true, true) => "optional".to_string(),
-                    (false, true, false) => format!("optional, {unit}"),
-                    (false, false, _) => unit.to_string(),
-                }
-            }
+            // The unit is beside the box; the placeholder says only what else the field takes.
+            (None, Some(_)) => match (options.rigid, options.optional) {
+                (true, _) => "a number, or rigid".to_string(),
+                (false, true) => "optional".to_string(),
+                (false, false) => String::new(),
+            },
             (None, None) => String::new(),
         };
         let mode = if options.numeric { "numeric" } else { "text" };
