@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { axeProblems, isolatedContext, launch, pages, startSite, watchedPage } from "./support.mjs";
+import { TABLETS, axeProblems, isolatedContext, launch, pages, startSite, watchedPage } from "./support.mjs";
 
 const FAN = "fan-floor-beam.html"; // a US-inch case: 16 ft I-beam, a 540 lb fan at 6.5 ft
 const BOOM = "sensor-boom.html";
@@ -142,17 +142,20 @@ describe("focus after adding and removing rows", () => {
 
 describe("accessibility (axe-core)", () => {
   for (const file of pages()) {
-    test(`${file}: no serious or critical problem`, async () => {
-      const { context } = await isolatedContext(browser, { bypassCSP: true });
-      const { page } = await watchedPage(context);
-      await page.goto(site.url + file);
-      if ((await page.locator(".mb-calc").count()) > 0) {
-        await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-        await settled(page);
-      }
-      assert.deepEqual(await axeProblems(page), []);
-      await context.close();
-    });
+    for (const tablet of TABLETS) {
+      test(`${file} at ${tablet.width}×${tablet.height}: no serious or critical problem`, async () => {
+        const viewport = { width: tablet.width, height: tablet.height };
+        const { context } = await isolatedContext(browser, { bypassCSP: true, viewport, hasTouch: true });
+        const { page } = await watchedPage(context);
+        await page.goto(site.url + file);
+        if ((await page.locator(".mb-calc").count()) > 0) {
+          await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+          await settled(page);
+        }
+        assert.deepEqual(await axeProblems(page), []);
+        await context.close();
+      });
+    }
   }
 
   test("with an input error showing, the error is tied to its field and nothing serious is found", async () => {
