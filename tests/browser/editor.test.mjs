@@ -87,6 +87,30 @@ describe("units in the editor", () => {
   });
 });
 
+describe("at the bench", () => {
+  for (const tablet of TABLETS) {
+    test(`at ${tablet.width}×${tablet.height}, the modes stay in view while a field at the top of the editor changes`, async () => {
+      const viewport = { width: tablet.width, height: tablet.height };
+      const { context, page, problems } = await openLive(FAN, { viewport, hasTouch: true });
+      await page.locator(".jump a").click();
+      const depth = '[data-field="segments[0].section.depth"]';
+      await page.locator(depth).scrollIntoViewIfNeeded();
+      await type(page, depth, "12 in");
+      const inView = await page.evaluate(() => {
+        const box = document.querySelector(".mb-summary").getBoundingClientRect();
+        return box.height > 0 && box.top >= 0 && box.bottom <= window.innerHeight;
+      });
+      assert.ok(inView, "the summary of the modes is on screen");
+      // It shows what the table shows, for the input as it now stands.
+      const table = (await page.locator('table.mb-modes tr[data-mode="1"] .mb-main').first().textContent()).trim();
+      const line = await page.locator(".mb-summary").textContent();
+      assert.ok(line.includes(`1: ${table}`), `"${line}" lacks mode 1 at ${table}`);
+      assert.deepEqual(problems, []);
+      await context.close();
+    });
+  }
+});
+
 describe("focus after adding and removing rows", () => {
   for (const list of ["attachments", "segments", "excitations"]) {
     test(`${list}: Add focuses the new row's first field; Remove the next row, then the Add button`, async () => {

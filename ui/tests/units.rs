@@ -200,3 +200,29 @@ fn the_equivalent_mass_of_a_case_with_a_sprung_mass_is_explained() {
     ]);
     assert!(with_note(&doc));
 }
+
+#[test]
+fn a_one_line_summary_of_the_modes_sits_between_the_editor_and_the_results() {
+    let json = doc::text::write(&pipe());
+    let html = render::widget_html(&json);
+    let editor = html.find("class=\"mb-editor\"").unwrap_or(usize::MAX);
+    let summary = html.find("class=\"mb-summary\"").unwrap_or(0);
+    let results = html.find("class=\"mb-results\"").unwrap_or(0);
+    assert!(editor < summary && summary < results, "the summary is not between editor and results");
+    let report = solve(&pipe());
+    let line = render::summary_html(Some(&report), false);
+    // Each mode as the table shows it, with its separation from the pump.
+    for m in report.modes.iter().take(6) {
+        let shown = format!("{}: <span class=\"mb-summary-hz\">{}", m.number, format_hz(m.frequency_hz));
+        assert!(line.contains(&shown), "{shown} missing from {line}");
+    }
+    assert!(line.contains("mb-summary-sep"));
+    assert!(line.contains("aria-hidden=\"true\""), "a copy for the eye; the table is read out");
+    let stale = render::summary_html(Some(&report), true);
+    assert!(stale.contains("mb-stale-summary") && stale.contains("Earlier results"));
+}
+
+/// A frequency as the page writes it: four significant digits.
+fn format_hz(hz: f64) -> String {
+    format!("{} Hz", modebench::units::significant(hz, 4))
+}

@@ -144,6 +144,7 @@ impl Calculator {
         let Some(results) = dom::first(&self.root, ".mb-results") else { return };
         let _ = results.remove_attribute("aria-busy");
         let note = dom::first(&results, ".mb-stale-note");
+        self.grey_summary(self.error.is_some());
         if self.error.is_some() {
             let _ = results.class_list().add_1("mb-stale");
             if note.is_none() {
@@ -188,7 +189,17 @@ impl Calculator {
                 &self.view,
             ));
         }
+        if let Some(summary) = dom::first(&self.root, ".mb-summary") {
+            summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
+        }
         self.mark_error();
+    }
+
+    /// Greys the one-line summary, or shows it in full colour again.
+    fn grey_summary(&self, grey: bool) {
+        if let Some(summary) = dom::first(&self.root, ".mb-summary") {
+            let _ = summary.class_list().toggle_with_force("mb-stale-summary", grey);
+        }
     }
 
     /// Greys the results on show while the scenario being edited is still with the worker.
@@ -197,6 +208,7 @@ impl Calculator {
             let _ = results.class_list().add_1("mb-stale");
             let _ = results.set_attribute("aria-busy", "true");
         }
+        self.grey_summary(true);
     }
 
     fn mark_error(&self) {
