@@ -23,7 +23,8 @@ pub(crate) fn render(block: &str) -> Result<String> {
         rows.push_str(&row(case, got));
     }
     Ok(format!(
-        "<div class=\"table-scroll\"><table class=\"checks\">\
+        "<div class=\"table-scroll\" tabindex=\"0\" role=\"region\" aria-label=\"Published checks (the table \
+         scrolls sideways)\"><table class=\"checks\">\
          <caption>{count} published {cases}, computed by Modebench when this page was built</caption>\
          <thead><tr><th scope=\"col\">Case</th><th scope=\"col\">Source</th>\
          <th scope=\"col\" class=\"num\">Published</th><th scope=\"col\" class=\"num\">Modebench</th>\

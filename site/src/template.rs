@@ -40,6 +40,15 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
     } else {
         ""
     };
+    // A page with a calculator offers a jump to it under its title: on a tablet at the bench
+    // the calculator is what the reader came for, and it may sit below several screens of text.
+    let (body, jump) = match body.find("<div class=\"mb-calc\"") {
+        Some(at) => (
+            format!("{}<div id=\"calculator\" class=\"mb-calc\"{}", &body[..at], &body[at + 20..]),
+            "<p class=\"jump\"><a href=\"#calculator\">Go to the calculator</a></p>\n",
+        ),
+        None => (body.to_string(), ""),
+    };
     let summary = if page.summary.is_empty() {
         String::new()
     } else {
@@ -67,7 +76,7 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
 <main id=\"content\" class=\"page page-{slug}\">
 <p class=\"sheet-head\">Modebench calculation sheet</p>
 <h1>{title}</h1>
-{body}</main>
+{jump}{body}</main>
 <footer class=\"site-foot\">
 <p>Modebench gives estimates. Resonance cracks welds and breaks brackets: confirm the frequencies \
 that matter by test, and follow the codes that apply and a qualified engineer.</p>

@@ -131,3 +131,25 @@ export async function watchedPage(context) {
 
 // Words that mean a number went wrong somewhere between the engine and the page.
 export const BROKEN_NUMBER = /\b(NaN|undefined|Infinity)\b/;
+
+// Accessibility: axe-core's serious and critical findings on the page as it stands, one line
+// each (rule, impact, the first elements concerned). The page's context must bypass the
+// Content-Security-Policy (`bypassCSP: true`), since axe is added as a script of the test's own.
+export const AXE_SCRIPT = join(ROOT, "tests", "browser", "node_modules", "axe-core", "axe.min.js");
+
+export async function axeProblems(page) {
+  if (!(await page.evaluate(() => typeof window.axe === "object"))) {
+    await page.addScriptTag({ path: AXE_SCRIPT });
+  }
+  const violations = await page.evaluate(async () => {
+    const result = await window.axe.run(document, { resultTypes: ["violations"] });
+    return result.violations.map((v) => ({
+      id: v.id,
+      impact: v.impact,
+      targets: v.nodes.slice(0, 3).map((n) => n.target.join(" ")),
+    }));
+  });
+  return violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id} (${v.impact}): ${v.targets.join("; ")}`);
+}

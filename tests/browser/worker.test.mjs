@@ -97,7 +97,9 @@ describe("solving off the main thread", () => {
     // The premise: on the main thread, one solve of this model would be a long task by itself.
     const typed = "350000";
     const final = JSON.parse(JSON.stringify(slow));
-    final.attachments[1].stiffness = typed;
+    // A number typed alone takes the unit the field shows, which the editor writes out.
+    const unit = await stiffness.getAttribute("data-unit");
+    final.attachments[1].stiffness = unit ? `${typed} ${unit}` : typed;
     const [reference] = await solveHere(page, [final]);
     assert.ok(reference.ms > 2 * LONG_TASK_MS, `the model solves in ${reference.ms.toFixed(0)} ms: not slow enough to prove anything`);
 

@@ -116,7 +116,7 @@ fn a_broken_field_gets_its_message_beside_it_and_stale_results() {
     let Ok(doc) = doc::read(&broken) else { panic!("the broken scenario is still JSON") };
     let error = modebench::solve_json(&broken).err();
     let live = render::editor_html(&doc, error.as_ref(), Editing::Live);
-    assert!(live.contains("value=\"2.8 kgs\" placeholder=\"kg\" aria-invalid=\"true\">"), "{live}");
+    assert!(live.contains("value=\"2.8 kgs\" placeholder=\"\" aria-invalid=\"true\">"), "{live}");
 }
 
 #[test]
@@ -190,7 +190,10 @@ fn the_editor_shows_a_field_for_every_part_of_the_scenario() {
         assert!(fields.iter().any(|f| f == path), "no field for {path}");
     }
     let html = render::editor_html(&doc, None, Editing::Live);
-    assert!(html.contains("data-field=\"right.rotational\" value=\"0\""), "numbers are shown as written");
+    assert!(
+        html.contains("data-field=\"right.rotational\" data-unit=\"N·m/rad\" value=\"0\""),
+        "numbers are shown as written, in SI units where the system's are SI"
+    );
 }
 
 #[test]

@@ -35,11 +35,14 @@ pub enum WarningCode {
     ResonanceMargin,
     /// Shear deformation and rotary inertia matter.
     ShearMatters,
+    /// A value is implausible for its field or beside another (a diameter larger than the
+    /// beam, a wall under 0.1 mm): most often a unit left off or mistyped.
+    Implausible,
 }
 
 impl WarningCode {
     /// Every code, in the order they are declared.
-    pub const ALL: [WarningCode; 10] = [
+    pub const ALL: [WarningCode; 11] = [
         WarningCode::Accuracy,
         WarningCode::NearBuckling,
         WarningCode::FeDisagrees,
@@ -50,6 +53,7 @@ impl WarningCode {
         WarningCode::ReportPointAtNode,
         WarningCode::ResonanceMargin,
         WarningCode::ShearMatters,
+        WarningCode::Implausible,
     ];
 
     /// The identifier as serialised.
@@ -65,6 +69,7 @@ impl WarningCode {
             WarningCode::ReportPointAtNode => "report-point-at-node",
             WarningCode::ResonanceMargin => "resonance-margin",
             WarningCode::ShearMatters => "shear-matters",
+            WarningCode::Implausible => "implausible",
         }
     }
 }

@@ -110,6 +110,7 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
         .collect();
     let mut warnings = analysis.warnings.clone();
     warnings.extend(comparison.as_ref().and_then(|c| c.warning.clone()));
+    warnings.extend(crate::scenario::plausible::warnings(scenario, &inputs));
     warnings.extend(margins::resonance_warning(
         modes.iter().map(|m| (m.number, m.nearest_excitation.as_ref())),
         &excitations,

@@ -8,6 +8,7 @@ mod derived;
 mod design;
 pub(crate) mod json;
 mod parse;
+pub mod plausible;
 mod read;
 #[cfg(test)]
 mod tests;

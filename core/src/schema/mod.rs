@@ -11,9 +11,11 @@
 pub mod doc;
 mod range;
 mod table;
+mod words;
 
 pub use range::Range;
 pub use table::*;
+pub use words::{field_words, words};
 
 use crate::units::Kind;
 

@@ -299,7 +299,7 @@ pub static EXTRA_MASS_FIELDS: [Field; 4] = [
         )
         .or("none (or `contents_density`)"),
     Field::quantity("contents_density", Kind::Density, Range::UpTo(f64::INFINITY))
-        .label("Contents density (fills the bore)")
+        .label("Contents density (what fills the bore, e.g. water in the pipe)")
         .what("the contents density")
         .help("the density of what fills the bore")
         .or("0"),

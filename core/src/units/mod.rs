@@ -9,16 +9,19 @@
 //! NIST SP 811, and a small grammar, both covered by tests against those definitions.
 //!
 //! # Conventions
-//! - A plain JSON number is already SI. A string without a unit (`"2.5"`) is SI too.
+//! - A plain JSON number is already SI. A string without a unit (`"2.5"`) is SI too. (The
+//!   calculator's editor never stores one: a number typed there without a unit takes the unit
+//!   its field shows, [`bare_unit`], written out with [`with_unit`].)
 //! - `lb` (and `lbm`) is always pound-mass; pound-force is `lbf`. A density in `lb/in³` is
 //!   therefore converted as a mass density, never as lbf·s²/in⁴.
 //! - Frequencies are stored in hertz. A frequency field accepts Hz, kHz, rpm, cpm (cycles per
 //!   minute) and rad/s; the cycle units are accepted nowhere else.
 //! - Angles are dimensionless: `N·m/rad` and `N·m` are both rotational stiffnesses.
 //! - Every conversion applied to a written unit is returned as a [`Conversion`] so that the user
-//!   can see it.
+//!   can see it, its SI value written to one digit more than the number typed carried.
 
 mod display;
+mod field;
 mod kind;
 mod list;
 mod number;
@@ -31,6 +34,7 @@ mod tests;
 mod tests_display;
 
 pub use display::{display_unit, format, significant, DisplayUnit, UnitSystem};
+pub use field::{bare_unit, carried_digits, is_bare_number, with_unit};
 pub use kind::Kind;
 pub use list::{unit_list, UnitInfo};
 pub use number::decimal;
@@ -118,7 +122,8 @@ pub struct Conversion {
     pub si: f64,
     /// The SI unit of `si`, for example "kg/m³".
     pub si_unit: String,
-    /// The whole conversion in words, "0.283 lb/in³ = 7833.4 kg/m³".
+    /// The whole conversion in words, "0.283 lb/in³ = 7833 kg/m³": the SI value to one digit more
+    /// than the number typed carried ([`carried_digits`]), and at least three.
     pub text: String,
 }
 
@@ -182,7 +187,9 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
     let conversion = (factor != 1.0).then(|| {
         let written = format!("{} {}", parsed.number_text, pretty_unit(&parsed.factors));
         let si_unit = kind.si_unit();
-        let text = format!("{written} = {} {si_unit}", display::significant(si, 5)).trim_end().to_string();
+        let digits = field::carried_digits(parsed.number_text) + 1;
+        let shown = display::significant(si, digits.max(3));
+        let text = format!("{written} = {shown} {si_unit}").trim_end().to_string();
         Conversion { written, si, si_unit: si_unit.to_string(), text }
     });
     Ok(Converted { si, conversion })
@@ -267,7 +274,8 @@ fn pretty_unit(factors: &[Factor]) -> String {
             3 => "³",
             _ => "⁴",
         };
-        format!("{}{superscript}", f.symbol)
+        // The unit's usual symbol, whichever spelling was typed: 4.5" is written 4.5 in.
+        format!("{}{superscript}", f.unit.symbols[0])
     };
     let numerator: Vec<String> = factors.iter().filter(|f| f.power > 0).map(power).collect();
     let denominator: String =

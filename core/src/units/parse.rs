@@ -4,7 +4,9 @@
 //! quantity   = number [ws] [units]
 //! number     = [+-] digits [. digits] [(e|E) [+-] digits]     (or . digits)
 //! units      = factor { [ws] ("*" | "·" | "⋅") [ws] factor } { [ws] "/" [ws] factor }
-//! factor     = symbol [ "^" (1|2|3|4) | "¹" | "²" | "³" | "⁴" ]
+//! factor     = symbol [ ["^"] (1|2|3|4) | "¹" | "²" | "³" | "⁴" ]
+//! symbol     = letters | '"' | "'"                       (the inch and foot marks, and their
+//!                                                          curly and prime forms)
 //! ```
 //!
 //! A space between two units is rejected rather than read as a product, because `N m` next to
@@ -138,7 +140,10 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
     let mut factors = Vec::new();
     let mut in_denominator = false;
     loop {
-        let symbol: String = std::iter::from_fn(|| chars.next_if(|c| is_letter(*c))).collect();
+        let symbol: String = match chars.peek() {
+            Some(c) if table::is_mark(*c) => chars.next().map(String::from).unwrap_or_default(),
+            _ => std::iter::from_fn(|| chars.next_if(|c| is_letter(*c))).collect(),
+        };
         if symbol.is_empty() {
             return Err(match chars.peek() {
                 Some(c) => syntax(format!("expected a unit symbol where '{c}' stands")),
@@ -166,6 +171,11 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
             }
             Some('*' | '·' | '⋅') => {}
             Some('/') => in_denominator = true,
+            Some(c) if spaced && c.is_ascii_digit() && unit.dim == table::LENGTH => {
+                return Err(syntax(format!(
+                    "write a length in one unit, as 5.5 ft or 66 in, not two ({spelled} then {c}…)"
+                )));
+            }
             Some(c) if spaced && is_letter(c) => {
                 return Err(syntax(format!(
                     "a space between units is not a product: write {spelled}*{c}… or {spelled}·{c}…"
@@ -177,7 +187,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
     }
 }
 
-/// Reads an optional exponent after a unit symbol: `^2` or a superscript digit.
+/// Reads an optional exponent after a unit symbol: `^2`, `2` or a superscript digit.
 fn parse_power(chars: &mut std::iter::Peekable<std::str::Chars<'_>>, symbol: &str) -> Result<i32, Error> {
     let bad_power = || {
         syntax(format!(
@@ -193,6 +203,11 @@ fn parse_power(chars: &mut std::iter::Peekable<std::str::Chars<'_>>, symbol: &st
                 _ => return Err(bad_power()),
             }
         }
+        // A digit straight after the symbol is a power too, as commonly written: lb/ft3, m2.
+        Some(c @ '1'..='4') => {
+            chars.next();
+            c as i32 - '0' as i32
+        }
         Some(c @ ('¹' | '²' | '³' | '⁴')) => {
             chars.next();
             match c {
@@ -203,11 +218,7 @@ fn parse_power(chars: &mut std::iter::Peekable<std::str::Chars<'_>>, symbol: &st
             }
         }
         Some('⁰' | '⁵'..='⁹' | '⁻') => return Err(bad_power()),
-        Some(c) if c.is_ascii_digit() => {
-            return Err(syntax(format!(
-                "write a power as {symbol}^{c} or with a superscript, not {symbol}{c}"
-            )));
-        }
+        Some('0' | '5'..='9') => return Err(bad_power()),
         _ => return Ok(1),
     };
     // A second digit (`m^22`, `m²³`) would be a power above 4.

@@ -118,13 +118,16 @@ pub(crate) static UNITS: &[Unit] = &[
     plain(&["cm"], "centimetre", LENGTH, 1e-2),
     plain(&["mm"], "millimetre", LENGTH, 1e-3),
     plain(&["µm", "μm", "um"], "micrometre", LENGTH, 1e-6),
-    plain(&["in"], "inch", LENGTH, INCH),
-    plain(&["ft"], "foot", LENGTH, FOOT),
+    // The marks `"` and `'` (and the curly and prime forms a tablet's keyboard puts in their
+    // place) are the common shorthand for inches and feet, as in 4.5" or 24'.
+    plain(&["in", "inch", "inches", "\"", "\u{201d}", "\u{2033}"], "inch", LENGTH, INCH),
+    plain(&["ft", "foot", "feet", "'", "\u{2019}", "\u{2032}"], "foot", LENGTH, FOOT),
     plain(&["kg"], "kilogram", MASS, 1.0),
     plain(&["g"], "gram", MASS, 1e-3),
     plain(&["t"], "tonne", MASS, 1e3),
     special(&["lb", "lbm"], "pound-mass", MASS, POUND, Class::PoundMass),
     plain(&["slug"], "slug (lbf·s²/ft)", MASS, SLUG),
+    plain(&["pcf"], "pound per cubic foot", Dim::new(1, -3, 0), POUND / (FOOT * FOOT * FOOT)),
     plain(&["N"], "newton", FORCE, 1.0),
     plain(&["kN"], "kilonewton", FORCE, 1e3),
     plain(&["MN"], "meganewton", FORCE, 1e6),
@@ -149,9 +152,22 @@ pub(crate) static UNITS: &[Unit] = &[
     plain(&["°F", "degF"], "degree Fahrenheit (temperature change)", TEMPERATURE, FAHRENHEIT_DEGREE),
 ];
 
-/// The unit with this exact (case-sensitive) spelling, and the spelling as stored in the table.
+/// The unit with this spelling, and the spelling as stored in the table. Spellings are
+/// case-sensitive (`mPa` is not `MPa`), except for the cycle units: `RPM`, `Rpm` and `hz` can mean
+/// nothing else, and are commonly written so.
 pub(crate) fn lookup(symbol: &str) -> Option<(&'static Unit, &'static str)> {
-    UNITS.iter().find_map(|unit| unit.symbols.iter().find(|s| **s == symbol).map(|s| (unit, *s)))
+    let exact = UNITS.iter().find_map(|unit| unit.symbols.iter().find(|s| **s == symbol).map(|s| (unit, *s)));
+    exact.or_else(|| {
+        UNITS
+            .iter()
+            .filter(|unit| unit.class == Class::Cycle)
+            .find_map(|unit| unit.symbols.iter().find(|s| s.eq_ignore_ascii_case(symbol)).map(|s| (unit, *s)))
+    })
+}
+
+/// Whether `c` is a unit written as a mark rather than letters: the inch and foot marks.
+pub(crate) fn is_mark(c: char) -> bool {
+    matches!(c, '"' | '\u{201d}' | '\u{2033}' | '\'' | '\u{2019}' | '\u{2032}')
 }
 
 /// Up to four known symbols that look like `symbol`, closest first, for an "unknown unit" hint.

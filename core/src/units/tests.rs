@@ -136,7 +136,7 @@ fn conversions_are_recorded_tidily() {
     let conversion = converted.conversion.expect("a conversion record");
     assert_eq!(conversion.written, "0.283 lb/in³");
     assert_eq!(conversion.si_unit, "kg/m³");
-    assert_eq!(conversion.text, "0.283 lb/in³ = 7833.4 kg/m³");
+    assert_eq!(conversion.text, "0.283 lb/in³ = 7833 kg/m³");
     let rpm = parse("1780 rpm", Kind::Frequency).unwrap().conversion.unwrap();
     assert_eq!(rpm.text, "1780 rpm = 29.667 Hz");
     let mixed = parse("5 lbf*s^2/in", Kind::Mass).unwrap().conversion.unwrap();
@@ -166,7 +166,7 @@ fn errors_name_what_was_expected_and_what_was_given() {
         ("in", Kind::Length, ErrorKind::Syntax, "number is missing"),
         ("-", Kind::Length, ErrorKind::Syntax, "must start with a number"),
         ("*5 m", Kind::Length, ErrorKind::Syntax, "must start with a number"),
-        ("27.2 inch", Kind::Length, ErrorKind::UnknownUnit, "did you mean in"),
+        ("27.2 inhc", Kind::Length, ErrorKind::UnknownUnit, "did you mean in"),
         ("27.2 furlong", Kind::Length, ErrorKind::UnknownUnit, "m, cm, mm, µm, in, ft"),
         ("5 lbs", Kind::Force, ErrorKind::UnknownUnit, "lbf for pound-force"),
         ("5 mpa", Kind::Pressure, ErrorKind::UnknownUnit, "MPa"),
@@ -203,7 +203,8 @@ fn errors_name_what_was_expected_and_what_was_given() {
         ("5 N m", Kind::RotationalStiffness, ErrorKind::Syntax, "space between units is not a product"),
         ("27.2 in abc", Kind::Length, ErrorKind::Syntax, "space between units"),
         ("27.2 in!", Kind::Length, ErrorKind::Syntax, "unexpected '!'"),
-        ("27.2 in 5", Kind::Length, ErrorKind::Syntax, "unexpected '5'"),
+        ("27.2 in 5", Kind::Length, ErrorKind::Syntax, "one unit"),
+        ("27.2 kg 5", Kind::Mass, ErrorKind::Syntax, "unexpected '5'"),
         ("1,000 m", Kind::Length, ErrorKind::Syntax, "','"),
         ("5 *m", Kind::Length, ErrorKind::Syntax, "expected a unit symbol"),
         ("5 m/", Kind::Length, ErrorKind::Syntax, "at the end"),
@@ -212,7 +213,11 @@ fn errors_name_what_was_expected_and_what_was_given() {
         ("5 m^22", Kind::Area, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
         ("5 m²³", Kind::Area, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
         ("5 m⁻¹", Kind::Length, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
-        ("5 m2", Kind::Area, ErrorKind::Syntax, "m^2"),
+        ("5 m5", Kind::Area, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
+        ("5 m0", Kind::Area, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
+        ("5' 6\"", Kind::Length, ErrorKind::Syntax, "one unit, as 5.5 ft or 66 in"),
+        ("5 MPA", Kind::Pressure, ErrorKind::UnknownUnit, "MPa"),
+        ("5 Rad/s", Kind::Frequency, ErrorKind::UnknownUnit, "unknown unit"),
         ("5 kg/m*s", Kind::Pressure, ErrorKind::Syntax, "ambiguous"),
         ("5 m*m*m*m*m*m*m*m*m", Kind::Length, ErrorKind::Syntax, "more than 8 parts"),
         ("1e400 m", Kind::Length, ErrorKind::NotFinite, "too large"),
@@ -264,4 +269,80 @@ fn random_text_never_panics() {
     let long = "m".repeat(100_000);
     assert!(parse(&format!("1 {long}"), Kind::Length).is_err());
     assert!(parse(&"9".repeat(100_000), Kind::Length).is_err());
+}
+
+#[test]
+fn common_spellings_read_as_their_units() {
+    // Each spelling against the exact definition of its unit (NIST SP 811, appendix B): the inch
+    // and foot by name and by their marks (with the curly and prime forms a tablet's keyboard
+    // types), lb/ft3 and pcf as a pound per cubic foot, and the cycle units in any case.
+    let pcf = LB / (FT * FT * FT);
+    let cases: &[(&str, Kind, f64)] = &[
+        ("4.5 inch", Kind::Length, 4.5 * IN),
+        ("4.5 inches", Kind::Length, 4.5 * IN),
+        ("4.5in", Kind::Length, 4.5 * IN),
+        ("4.5\"", Kind::Length, 4.5 * IN),
+        ("4.5 \"", Kind::Length, 4.5 * IN),
+        ("4.5\u{201d}", Kind::Length, 4.5 * IN),
+        ("4.5\u{2033}", Kind::Length, 4.5 * IN),
+        ("24'", Kind::Length, 24.0 * FT),
+        ("24\u{2019}", Kind::Length, 24.0 * FT),
+        ("24\u{2032}", Kind::Length, 24.0 * FT),
+        ("24 ft", Kind::Length, 24.0 * FT),
+        ("24 feet", Kind::Length, 24.0 * FT),
+        ("1 foot", Kind::Length, FT),
+        ("62.4 lb/ft3", Kind::Density, 62.4 * pcf),
+        ("62.4 lb/ft^3", Kind::Density, 62.4 * pcf),
+        ("62.4 pcf", Kind::Density, 62.4 * pcf),
+        ("1000 kg/m3", Kind::Density, 1000.0),
+        ("3 in2", Kind::Area, 3.0 * IN * IN),
+        ("7.5 lb*in2", Kind::RotaryInertia, 7.5 * LB * IN * IN),
+        ("1780 rpm", Kind::Frequency, 1780.0 / 60.0),
+        ("1780 RPM", Kind::Frequency, 1780.0 / 60.0),
+        ("1780 Rpm", Kind::Frequency, 1780.0 / 60.0),
+        ("1780 rPm", Kind::Frequency, 1780.0 / 60.0),
+        ("60 Hz", Kind::Frequency, 60.0),
+        ("60 hz", Kind::Frequency, 60.0),
+        ("60 HZ", Kind::Frequency, 60.0),
+        ("2 khz", Kind::Frequency, 2e3),
+        ("2 KHz", Kind::Frequency, 2e3),
+        ("90 CPM", Kind::Frequency, 1.5),
+    ];
+    for (text, kind, expected) in cases {
+        check(&format!("{text} as {kind:?}"), NIST, *expected, si(text, *kind), EXACT);
+    }
+    check(
+        "1 pcf",
+        "NIST SP 811, B.8: lb/ft³ = 1.601 846 E+01 kg/m³",
+        1.601846e1,
+        si("1 pcf", Kind::Density),
+        1e-6,
+    );
+    // Written out in the usual symbol, whatever spelling was typed.
+    let written = |text: &str, kind| parse(text, kind).unwrap().conversion.unwrap().written;
+    assert_eq!(written("4.5\"", Kind::Length), "4.5 in");
+    assert_eq!(written("24 feet", Kind::Length), "24 ft");
+    assert_eq!(written("62.4 lb/ft3", Kind::Density), "62.4 lb/ft³");
+    assert_eq!(written("1780 RPM", Kind::Frequency), "1780 rpm");
+}
+
+#[test]
+fn converted_values_carry_the_digits_typed_and_one_more() {
+    // 24 ft is exactly 7.3152 m (0.3048 m per foot, NIST SP 811); two digits typed, three shown.
+    let text = |typed: &str, kind| parse(typed, kind).unwrap().conversion.unwrap().text;
+    assert_eq!(text("24 ft", Kind::Length), "24 ft = 7.32 m");
+    assert_eq!(text("24.000 ft", Kind::Length), "24.000 ft = 7.3152 m");
+    assert_eq!(text("4.5 in", Kind::Length), "4.5 in = 0.114 m");
+    assert_eq!(text("0.237 in", Kind::Length), "0.237 in = 0.00602 m");
+    assert_eq!(text("30e6 psi", Kind::Pressure), "30e6 psi = 2.07e11 Pa");
+    assert_eq!(text("1780 rpm", Kind::Frequency), "1780 rpm = 29.667 Hz");
+    // No float noise reaches the text, whatever was typed.
+    let mut rng = Rng::new(0x5eed_0024);
+    for _ in 0..2000 {
+        let typed = format!("{}.{} ft", rng.below(1000), rng.below(1000));
+        let shown = text(&typed, Kind::Length);
+        let number = shown.split(" = ").nth(1).and_then(|s| s.strip_suffix(" m")).unwrap_or("");
+        assert!(number.len() <= 9, "{shown}");
+        assert!(!number.contains("0000000") && !number.contains("9999999"), "{shown}");
+    }
 }

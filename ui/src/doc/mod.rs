@@ -14,6 +14,15 @@ mod tests;
 
 pub use edit::{apply, Edit, List};
 
+/// The edit for `text` typed into the field at `path` that shows `unit` beside it: a number
+/// typed alone takes that unit, written out ("4.5" in a field showing "in" is stored as
+/// "4.5 in"), so that the scenario says what was meant whatever units are chosen later. Anything
+/// else is kept exactly as typed.
+pub fn typed(path: String, text: &str, unit: &str) -> Edit {
+    let text = modebench::units::with_unit(text, unit).unwrap_or_else(|| text.to_string());
+    Edit::Text { path, text }
+}
+
 use modebench::schema;
 use modebench::units::UnitSystem;
 use modebench::{Error, ErrorKind, FieldPath, Report};

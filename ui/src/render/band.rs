@@ -31,11 +31,24 @@ pub(crate) fn fundamental(report: &Report) -> String {
     out.push_str("</dl>");
     if let Some(e) = f.equivalent {
         out.push_str(&format!(
-            "<p class=\"mb-equivalent\">As a single mass on a spring, seen at {}: mass {}, stiffness {}.</p>",
+            "<p class=\"mb-equivalent\">Mode 1 as a single mass on a spring, seen at {}: mass {}, stiffness {}. \
+             Together they give mode 1's frequency; the mass is a figure of the mode at that point, not the weight \
+             the beam carries.</p>",
             quantity(e.position, Kind::Length, system),
             quantity(e.mass, Kind::Mass, system),
             quantity(e.stiffness, Kind::Stiffness, system)
         ));
+        // A mass on a spring (it has both) moves against the beam in mode 1, and the point seen
+        // then moves little for the energy the mode holds: the figure can far exceed every mass
+        // on the beam, which reads as a mistake unless said.
+        if report.beam.attachments.iter().any(|a| a.mass.is_some() && a.stiffness.is_some()) {
+            out.push_str(
+                "<p class=\"mb-equivalent-note\">This case has a mass on a spring. In mode 1 that mass and the \
+                 beam move against each other, so the equivalent mass above can be many times what everything \
+                 on the beam weighs. That is expected, not an error: use it only with the stiffness beside it \
+                 (for instance to size an absorber for this mode), never as a weight.</p>",
+            );
+        }
     }
     out.push_str("</section>");
     out

@@ -5,7 +5,7 @@ use super::escape::escape;
 use super::number::{hz, percent, quantity, rpm, MISSING};
 use modebench::report::{AttachmentKind, EndEcho, EndKind, SegmentReport};
 use modebench::units::{Kind, UnitSystem};
-use modebench::Report;
+use modebench::{schema, FieldPath, Report};
 
 /// A fold-out section, open if the reader left it open.
 fn fold(part: &str, summary: &str, body: &str, open: &[String]) -> String {
@@ -23,7 +23,16 @@ pub(crate) fn echo(report: &Report, open: &[String]) -> String {
         let items: String = report
             .conversions
             .iter()
-            .map(|c| format!("<li><code>{}</code>: {}</li>", escape(&c.path), escape(&c.text)))
+            .map(|c| {
+                // The field in words ("Segment 1, wall"); its path stays a machine's key.
+                let place = FieldPath::parse(&c.path).map_or_else(|| c.path.clone(), |p| schema::words(&p));
+                format!(
+                    "<li data-path=\"{}\"><span class=\"mb-conversion-field\">{}</span>: {}</li>",
+                    escape(&c.path),
+                    escape(&place),
+                    escape(&c.text)
+                )
+            })
             .collect();
         let summary = format!("Unit conversions applied ({})", report.conversions.len());
         out.push_str(&fold(
@@ -62,7 +71,8 @@ fn model(report: &Report) -> String {
         report.fe.dofs
     );
     out.push_str(
-        "<div class=\"mb-table-wrap\"><table class=\"mb-echo\"><thead><tr><th scope=\"col\">Segment</th>\
+        "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Segments as modelled\">\
+         <table class=\"mb-echo\"><thead><tr><th scope=\"col\">Segment</th>\
          <th scope=\"col\">From – to</th><th scope=\"col\">EI</th><th scope=\"col\">Mass per length</th>\
          <th scope=\"col\">κGA</th><th scope=\"col\">Made of</th></tr></thead><tbody>",
     );
@@ -72,7 +82,8 @@ fn model(report: &Report) -> String {
     out.push_str("</tbody></table></div>");
     if !beam.attachments.is_empty() {
         out.push_str(
-            "<div class=\"mb-table-wrap\"><table class=\"mb-echo\"><thead><tr><th scope=\"col\">Attachment</th>\
+            "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Attachments as modelled\">\
+             <table class=\"mb-echo\"><thead><tr><th scope=\"col\">Attachment</th>\
              <th scope=\"col\">At</th><th scope=\"col\">Mass</th><th scope=\"col\">Rotary inertia</th>\
              <th scope=\"col\">Stiffness</th></tr></thead><tbody>",
         );

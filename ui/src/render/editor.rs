@@ -45,8 +45,10 @@ fn write(form: &mut Form<'_>, general: String) -> String {
     out.push_str(&rows::attachments(form));
     out.push_str(&rows::excitations(form));
     out.push_str(
-        "<p class=\"mb-help\">Type each value with its unit, as in 1450 mm, 2.8 kg, 0.283 lb/in³, 30e6 psi, \
-         2.5e6 N/m or 1780 rpm; a number without a unit is read as SI. Springs also accept “rigid”.</p>",
+        "<p class=\"mb-help\">A number typed alone is read in the unit shown beside its field, which follows the \
+         units chosen above (a frequency field keeps rpm once it holds rpm). Any other unit may be typed with the \
+         number, as in 1450 mm, 4.5\", 24 ft, 2.8 kg, 62.4 lb/ft3, 30e6 psi, 2.5e6 N/m or 1780 rpm. Springs also \
+         accept “rigid”.</p>",
     );
     out
 }
@@ -79,7 +81,12 @@ fn setup(form: &mut Form<'_>) -> String {
     body.push_str(&form.text(
         "report_point",
         "Equivalent system of mode 1 at",
-        TextOptions { placeholder: Some("largest deflection"), optional: true, ..TextOptions::default() },
+        TextOptions {
+            kind: Some(modebench::units::Kind::Length),
+            placeholder: Some("largest deflection"),
+            optional: true,
+            ..TextOptions::default()
+        },
     ));
     body.push_str("</div>");
     group("mb-setup", "Set-up", &body)

@@ -57,7 +57,7 @@ fn strip_location(message: &str) -> &str {
 /// The element holding an error message beside a field (or above the editor, when `general`).
 pub fn field_error_html(error: &Error, general: bool) -> String {
     let text = if general && !error.path.is_empty() {
-        format!("{}: {}", error.path, message(error))
+        format!("{}: {}", modebench::schema::words(&error.path), message(error))
     } else {
         message(error)
     };
@@ -66,6 +66,23 @@ pub fn field_error_html(error: &Error, general: bool) -> String {
         escape(&error.path.to_string()),
         escape(&text)
     )
+}
+
+/// The note beside a required field still empty (a new row's, a new shape's): what it needs,
+/// not an error, since nothing wrong has been typed. It is tied to its field like an error.
+pub fn needed_html(error: &Error) -> String {
+    format!(
+        "<span class=\"mb-field-error mb-needed\" data-for=\"{}\">Still to fill in: type a value here to see \
+         the results.</span>",
+        escape(&error.path.to_string())
+    )
+}
+
+/// Whether `error` only says that the field it is placed beside is still empty: its kind is a
+/// missing or unreadable value and the field holds nothing (`typed` is what it holds).
+pub fn is_unfilled(error: &Error, typed: &str) -> bool {
+    use modebench::ErrorKind;
+    matches!(error.kind, ErrorKind::Syntax | ErrorKind::Missing) && typed.trim().is_empty()
 }
 
 #[cfg(test)]

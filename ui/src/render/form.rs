@@ -8,7 +8,7 @@ use super::errors;
 use super::escape::escape;
 use crate::catalog::FieldSpec;
 use crate::doc::path;
-use modebench::units::{display_unit, Kind, UnitSystem};
+use modebench::units::{self, Kind, UnitSystem};
 use modebench::Error;
 use serde_json::Value;
 
@@ -64,10 +64,14 @@ impl<'a> Form<'a> {
     }
 
     /// Records a field and returns its state: the extra attribute and class when it is the
-    /// field in error, and the error element to put beside it.
-    fn enter(&mut self, path: &str) -> Slot {
+    /// field in error, and the error element to put beside it. A text field (`typed` is what it
+    /// holds) still empty is asked for rather than marked wrong.
+    fn enter(&mut self, path: &str, typed: Option<&str>) -> Slot {
         self.fields.push(path.to_string());
         match (self.error, &self.error_at) {
+            (Some(e), Some(at)) if at == path && typed.is_some_and(|t| errors::is_unfilled(e, t)) => {
+                Slot { class: " mb-unfilled", aria: "", error: errors::needed_html(e) }
+            }
             (Some(e), Some(at)) if at == path => Slot {
                 class: " mb-invalid",
                 aria: " aria-invalid=\"true\"",
@@ -77,29 +81,41 @@ impl<'a> Form<'a> {
         }
     }
 
-    /// A text field holding what was typed at `path`.
+    /// A text field holding what was typed at `path`. A quantity's field shows beside it the
+    /// unit a number typed alone takes, and says it in `data-unit` for the widget, which writes
+    /// that unit out when such a number is typed.
     pub(crate) fn text(&mut self, path: &str, label: &str, options: TextOptions<'_>) -> String {
-        let value = path::text(self.doc, path);
+        let stored = path::text(self.doc, path);
+        let unit = options.kind.map_or("", |kind| units::bare_unit(kind, self.system, &stored));
+        let value = match options.kind {
+            Some(kind) => shown_value(stored, kind, unit),
+            None => stored,
+        };
+        let (unit_html, unit_attribute) = if unit.is_empty() {
+            (String::new(), String::new())
+        } else {
+            (
+                format!("<span class=\"mb-unit\">{}</span>", escape(unit)),
+                format!(" data-unit=\"{}\"", escape(unit)),
+            )
+        };
         let placeholder = match (options.placeholder, options.kind) {
             (Some(p), _) => p.to_string(),
-            (None, Some(kind)) => {
-                let unit = display_unit(kind, self.system).symbol;
-                match (options.rigid, options.optional, unit.is_empty()) {
-                    (true, _, _) => format!("{unit} or rigid"),
-                    (false, true, true) => "optional".to_string(),
-                    (false, true, false) => format!("optional, {unit}"),
-                    (false, false, _) => unit.to_string(),
-                }
-            }
+            // The unit is beside the box; the placeholder says only what else the field takes.
+            (None, Some(_)) => match (options.rigid, options.optional) {
+                (true, _) => "a number, or rigid".to_string(),
+                (false, true) => "optional".to_string(),
+                (false, false) => String::new(),
+            },
             (None, None) => String::new(),
         };
         let mode = if options.numeric { "numeric" } else { "text" };
-        let slot = self.enter(path);
+        let slot = self.enter(path, Some(&value));
         if self.editing == Editing::Fixed {
             let (shown, empty) = if value.is_empty() { (&placeholder, " mb-empty") } else { (&value, "") };
             return format!(
-                "<div class=\"mb-field{}\"><span class=\"mb-label\">{}</span><span class=\"mb-input mb-fixed{empty}\" \
-                 data-field=\"{}\">{}</span>{}</div>",
+                "<div class=\"mb-field{}\"><span class=\"mb-label\">{}</span><span class=\"mb-input-row\">\
+                 <span class=\"mb-input mb-fixed{empty}\" data-field=\"{}\">{}</span>{unit_html}</span>{}</div>",
                 slot.class,
                 escape(label),
                 escape(path),
@@ -108,9 +124,10 @@ impl<'a> Form<'a> {
             );
         }
         format!(
-            "<label class=\"mb-field{}\"><span class=\"mb-label\">{}</span><input class=\"mb-input\" type=\"text\" \
-             inputmode=\"{mode}\" autocomplete=\"off\" autocapitalize=\"off\" spellcheck=\"false\" \
-             data-field=\"{}\" value=\"{}\" placeholder=\"{}\"{}>{}</label>",
+            "<label class=\"mb-field{}\"><span class=\"mb-label\">{}</span><span class=\"mb-input-row\">\
+             <input class=\"mb-input\" type=\"text\" inputmode=\"{mode}\" autocomplete=\"off\" autocapitalize=\"off\" \
+             spellcheck=\"false\" data-field=\"{}\"{unit_attribute} value=\"{}\" placeholder=\"{}\"{}>{unit_html}</span>\
+             {}</label>",
             slot.class,
             escape(label),
             escape(path),
@@ -147,7 +164,7 @@ impl<'a> Form<'a> {
         current: &str,
         after: &str,
     ) -> String {
-        let slot = self.enter(path);
+        let slot = self.enter(path, None);
         if self.editing == Editing::Fixed {
             let shown = options.iter().find(|(id, _)| *id == current).map_or(current, |(_, name)| *name);
             return fixed_choice(
@@ -181,7 +198,7 @@ impl<'a> Form<'a> {
     /// A checkbox that adds the part at `path` when ticked and removes it when cleared.
     pub(crate) fn tick(&mut self, path: &str, label: &str) -> String {
         let on = path::get(self.doc, path).is_some();
-        let slot = self.enter(path);
+        let slot = self.enter(path, None);
         if self.editing == Editing::Fixed {
             return format!(
                 "<div class=\"mb-field mb-tick{}\"><span class=\"mb-checkbox mb-fixed\" data-field=\"{}\" \
@@ -214,4 +231,15 @@ pub(crate) fn fixed_choice(class: &str, label: &str, attributes: &str, shown: &s
         escape(label),
         escape(shown)
     )
+}
+
+/// What a quantity's field shows for the value stored: as typed, except a number stored without
+/// a unit (a scenario file's, which is SI) where the field's unit is another: that number is
+/// shown with its SI unit, so that the unit beside the field cannot be taken for its own.
+fn shown_value(stored: String, kind: Kind, unit: &str) -> String {
+    let si = kind.si_unit();
+    match units::with_unit(&stored, si) {
+        Some(with_si) if unit != si => with_si,
+        _ => stored,
+    }
 }

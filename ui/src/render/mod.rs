@@ -17,15 +17,17 @@ mod offer;
 mod plot;
 mod results;
 mod rows;
+mod summary;
 mod symbols;
 
 pub use editor::{editor_html, field_paths};
-pub use errors::{field_error_html, message, placement};
+pub use errors::{field_error_html, is_unfilled, message, needed_html, placement};
 pub use escape::escape;
 pub use form::Editing;
 pub use offer::offer_html;
 pub use plot::plot_svg;
 pub use results::{results_html, results_inner, stale_note, View};
+pub use summary::summary_html;
 
 use crate::doc;
 use modebench::{Error, Report};
@@ -73,8 +75,9 @@ pub fn calculator_inner(
          calculator could not start in this browser (its script or WebAssembly is unavailable), so it cannot be \
          edited. The figures shown are the page's worked example, computed when the page was built.</p>\
          <button type=\"button\" class=\"mb-button mb-restore\" data-action=\"restore\">Restore the page's \
-         example</button></div><div class=\"mb-body\"><div class=\"mb-editor\">{}</div>{}</div>{}",
+         example</button></div><div class=\"mb-body\"><div class=\"mb-editor\">{}</div>{}{}</div>{}",
         editor_html(doc, error, editing),
+        summary_html(report, error.is_some()),
         results_html(report, error.is_some(), view),
         caution_html()
     )

@@ -75,7 +75,8 @@ fn table(report: &Report) -> String {
     let other = report.comparison.map(|t| format!("<th scope=\"col\">{} check</th>", theory_name(t)));
     let has_excitations = !report.excitations.is_empty();
     let mut out = format!(
-        "<h4 class=\"mb-results-title\">Natural frequencies — {}</h4><div class=\"mb-table-wrap\">\
+        "<h4 class=\"mb-results-title\">Natural frequencies — {}</h4><div class=\"mb-table-wrap\" tabindex=\"0\" \
+         role=\"region\" aria-label=\"Natural frequencies (the table scrolls sideways when narrow)\">\
          <table class=\"mb-modes\"><thead><tr><th scope=\"col\">Mode</th><th scope=\"col\">Frequency</th>\
          <th scope=\"col\">Finite-element check</th><th scope=\"col\">Nodes from the left end</th>{}",
         theory_name(report.theory),

@@ -136,8 +136,14 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     }
     if round || has("submerged") {
         out.push_str(
-            &form.tick(&format!("{extra}.submerged"), "Vibrates in water (adds the water it carries)"),
+            "<p class=\"mb-hint\">Contents fill the bore and move with it. Surrounding water is outside the part, \
+             which vibrates in it. A water-filled pipe in air has contents only; tick the box below only if the \
+             part is under water (then both count, once each).</p>",
         );
+        out.push_str(&form.tick(
+            &format!("{extra}.submerged"),
+            "Under water: it vibrates surrounded by water (not what fills it)",
+        ));
         if has("submerged") {
             for spec in &catalog::SUBMERGED_FIELDS {
                 out.push_str(&form.spec(&format!("{extra}.submerged"), spec));
@@ -227,7 +233,11 @@ pub(crate) fn excitations(form: &mut Form<'_>) -> String {
         body.push_str(&form.text(
             &format!("{base}.frequency"),
             "Frequency",
-            TextOptions { placeholder: Some("e.g. 1780 rpm or 60 Hz"), ..TextOptions::default() },
+            TextOptions {
+                kind: Some(modebench::units::Kind::Frequency),
+                placeholder: Some("e.g. 1780 rpm or 60 Hz"),
+                ..TextOptions::default()
+            },
         ));
         body.push_str(&form.text(
             &format!("{base}.up_to"),

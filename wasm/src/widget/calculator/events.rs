@@ -53,7 +53,9 @@ impl Calculator {
             return;
         }
         if let Some(path) = input.get_attribute("data-field") {
-            self.edit(Edit::Text { path, text: input.value() }, None);
+            // A number typed alone takes the unit the field shows beside it.
+            let unit = input.get_attribute("data-unit").unwrap_or_default();
+            self.edit(doc::typed(path, &input.value(), &unit), None);
         }
     }
 
@@ -89,11 +91,13 @@ impl Calculator {
         let list = button.get_attribute("data-list").as_deref().and_then(List::from_key);
         match (button.get_attribute("data-action").as_deref(), list) {
             (Some("add"), Some(list)) => {
-                self.edit(Edit::Add(list), Some(("data-list", list.key().to_string())));
+                self.edit(Edit::Add(list), None);
+                self.focus_after_add(list);
             }
             (Some("remove"), Some(list)) => {
                 if let Some(index) = dom::number(&button, "data-index") {
                     self.edit(Edit::Remove(list, index), None);
+                    self.focus_after_remove(list, index);
                 }
             }
             (Some("restore"), _) => self.restore(),

@@ -7,6 +7,7 @@
 
 mod answers;
 mod events;
+mod focus;
 
 use super::solver::{Callbacks, Solver};
 use super::{dom, storage};
@@ -15,7 +16,8 @@ use crate::render::{self, Editing, View};
 use crate::worker::latest::Purpose;
 use modebench::{Error, Report};
 use serde_json::Value;
-use web_sys::Element;
+use wasm_bindgen::JsCast;
+use web_sys::{Element, HtmlInputElement};
 
 pub(super) struct Calculator {
     root: Element,
@@ -133,6 +135,7 @@ impl Calculator {
             _ => self.built_results = false,
         }
         self.show_offer();
+        self.tie_errors();
     }
 
     /// Keeps the results the page was built with on show: greyed, with the note that they
@@ -141,6 +144,7 @@ impl Calculator {
         let Some(results) = dom::first(&self.root, ".mb-results") else { return };
         let _ = results.remove_attribute("aria-busy");
         let note = dom::first(&results, ".mb-stale-note");
+        self.grey_summary(self.error.is_some());
         if self.error.is_some() {
             let _ = results.class_list().add_1("mb-stale");
             if note.is_none() {
@@ -162,6 +166,7 @@ impl Calculator {
             let error = if marks { self.error.as_ref() } else { None };
             editor.set_inner_html(&render::editor_html(&self.doc, error, Editing::Live));
         }
+        self.tie_errors();
     }
 
     /// Draws the results and moves the error mark, leaving the editor's inputs in place. Before
@@ -184,7 +189,17 @@ impl Calculator {
                 &self.view,
             ));
         }
+        if let Some(summary) = dom::first(&self.root, ".mb-summary") {
+            summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
+        }
         self.mark_error();
+    }
+
+    /// Greys the one-line summary, or shows it in full colour again.
+    fn grey_summary(&self, grey: bool) {
+        if let Some(summary) = dom::first(&self.root, ".mb-summary") {
+            let _ = summary.class_list().toggle_with_force("mb-stale-summary", grey);
+        }
     }
 
     /// Greys the results on show while the scenario being edited is still with the worker.
@@ -193,20 +208,30 @@ impl Calculator {
             let _ = results.class_list().add_1("mb-stale");
             let _ = results.set_attribute("aria-busy", "true");
         }
+        self.grey_summary(true);
     }
 
     fn mark_error(&self) {
         for old in dom::all(&self.root, ".mb-editor .mb-field-error") {
             old.remove();
         }
-        for field in dom::all(&self.root, ".mb-editor .mb-invalid") {
-            let _ = field.class_list().remove_1("mb-invalid");
+        for field in dom::all(&self.root, ".mb-editor .mb-invalid, .mb-editor .mb-unfilled") {
+            let _ = field.class_list().remove_2("mb-invalid", "mb-unfilled");
+        }
+        for input in dom::all(&self.root, ".mb-editor [aria-describedby]") {
+            let _ = input.remove_attribute("aria-describedby");
         }
         for input in dom::all(&self.root, ".mb-editor [aria-invalid]") {
             let _ = input.remove_attribute("aria-invalid");
         }
-        let general = dom::first(&self.root, ".mb-general-errors");
         let Some(error) = &self.error else { return };
+        self.place_error(error);
+        self.tie_errors();
+    }
+
+    /// Puts the message for `error` beside its field, or above the editor.
+    fn place_error(&self, error: &Error) {
+        let general = dom::first(&self.root, ".mb-general-errors");
         let inputs = dom::all(&self.root, ".mb-editor [data-field]");
         let paths: Vec<String> =
             inputs.iter().map(|i| i.get_attribute("data-field").unwrap_or_default()).collect();
@@ -214,10 +239,22 @@ impl Calculator {
         let place = render::placement(&error.path, &refs).and_then(|p| paths.iter().position(|q| q == p));
         match place.and_then(|i| inputs.get(i)) {
             Some(input) => {
-                let _ = input.set_attribute("aria-invalid", "true");
+                // A required field still empty is asked for, not marked wrong.
+                let unfilled = input
+                    .dyn_ref::<HtmlInputElement>()
+                    .filter(|i| i.type_() == "text")
+                    .is_some_and(|i| render::is_unfilled(error, &i.value()));
+                if !unfilled {
+                    let _ = input.set_attribute("aria-invalid", "true");
+                }
                 if let Some(field) = input.closest(".mb-field").ok().flatten() {
-                    let _ = field.class_list().add_1("mb-invalid");
-                    let _ = field.insert_adjacent_html("beforeend", &render::field_error_html(error, false));
+                    let (class, html) = if unfilled {
+                        ("mb-unfilled", render::needed_html(error))
+                    } else {
+                        ("mb-invalid", render::field_error_html(error, false))
+                    };
+                    let _ = field.class_list().add_1(class);
+                    let _ = field.insert_adjacent_html("beforeend", &html);
                 }
             }
             None => {
