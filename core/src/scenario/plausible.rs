@@ -171,3 +171,75 @@ fn si(q: &Quantity, kind: Kind) -> Option<f64> {
 fn warning(message: String) -> Warning {
     Warning { code: WarningCode::Implausible, message }
 }
+
+#[cfg(test)]
+mod tests {
+    use crate::analysis::WarningCode;
+
+    /// The implausible-value warnings of a scenario (a 3 m steel tube, pinned, invented here).
+    fn warned(extra: &str) -> Vec<String> {
+        warned_with_wall("4 mm", extra)
+    }
+
+    fn warned_with_wall(wall: &str, extra: &str) -> Vec<String> {
+        let text = format!(
+            r#"{{"units": "si-mm", "left": "pinned", "right": "pinned", "segments": [{{"length": "3 m",
+                "section": {{"shape": "tube", "outer_diameter": "60 mm", "wall": "{wall}"}},
+                "material": "steel"}}]{extra}}}"#
+        );
+        let report = crate::solve_json(&text).unwrap_or_else(|e| panic!("{e}"));
+        report
+            .warnings
+            .into_iter()
+            .filter(|w| w.code == WarningCode::Implausible)
+            .map(|w| w.message)
+            .collect()
+    }
+
+    #[test]
+    fn plausible_cases_get_no_warning() {
+        assert!(warned("").is_empty());
+        let drives = r#", "excitations": [{"frequency": "1780 rpm"}, {"frequency": "2 kHz"}, {"frequency": "120 Hz"}]"#;
+        assert!(warned(drives).is_empty(), "{:?}", warned(drives));
+        let light = r#", "attachments": [{"type": "mass", "position": "1 m", "mass": "20 kg"}]"#;
+        assert!(warned(light).is_empty());
+    }
+
+    #[test]
+    fn each_rule_names_the_field_and_both_values() {
+        // A support at 1 m leaves a longest span of 2 m, narrower than a 2.5 m bar.
+        let text = r#"{"units": "si-mm", "left": "pinned", "right": "pinned", "segments": [{"length": "3 m",
+            "section": {"shape": "round", "diameter": "2500 mm"}, "material": "steel"}],
+            "attachments": [{"type": "support", "position": "1 m"}]}"#;
+        let found = crate::scenario::Scenario::from_json(text)
+            .and_then(|s| Ok(super::warnings(&s, &s.to_model()?)))
+            .unwrap_or_else(|e| panic!("{e}"));
+        assert_eq!(found.len(), 1, "{found:?}");
+        assert_eq!(
+            found[0].message,
+            "Segment 1, diameter: 2500 mm is larger than the longest span between supports (2000 mm); \
+             check the units of both."
+        );
+        // 100 t on a tube of about 5.5 kg/m over 3 m: far more than a thousand times its mass.
+        let heavy = warned(r#", "attachments": [{"type": "mass", "position": "1 m", "mass": "1e5 kg"}]"#);
+        assert_eq!(heavy.len(), 1, "{heavy:?}");
+        assert!(
+            heavy[0].starts_with("Attachment 1, mass: 100000 kg is more than a thousand times"),
+            "{heavy:?}"
+        );
+        let thin = warned_with_wall("0.05 mm", "");
+        assert_eq!(
+            thin,
+            vec!["Segment 1, wall: 0.05 mm is under 0.1 mm, thinner than any tube or plate is made, beside an \
+                  outside diameter of 60 mm; check its unit."
+                .to_string()]
+        );
+        let fast = warned(r#", "excitations": [{"frequency": "1780"}]"#);
+        assert_eq!(
+            fast,
+            vec!["Excitation 1, frequency: 1780 Hz is 106800 rpm, faster than almost any machine runs; if 1780 \
+                  is a speed in rpm, write it with rpm."
+                .to_string()]
+        );
+    }
+}
