@@ -9,6 +9,7 @@
 
 pub mod bar;
 pub mod export;
+pub mod sheet;
 
 #[cfg(test)]
 mod tests;

@@ -224,3 +224,28 @@ fn a_scenario_or_a_results_file_opens_as_its_case() {
     assert!(scenario_from_file("[1, 2]").unwrap_err().contains("JSON object"));
     assert!(scenario_from_file("{ nope").unwrap_err().starts_with("the file is not a scenario"));
 }
+
+#[test]
+fn the_sheet_names_the_case_dates_it_and_leaves_blanks_to_fill() {
+    let mut cases = Cases::load(None, &example());
+    cases.keep(&titled("Bracket <rev>"), 0);
+    cases.set_record("checker", "J. Checker");
+    let html = sheet::head_html(cases.open_case(), true, "2026-12-02");
+    assert!(html.contains("<h2 class=\"mb-sheet-title\">Bracket &lt;rev&gt;</h2>"), "{html}");
+    assert!(html.contains("<dt>Date</dt><dd>2026-12-02</dd>"));
+    assert!(html.contains("<dt>Checked by</dt><dd>J. Checker</dd>"));
+    assert!(html.contains("<dt>Prepared by</dt><dd><span class=\"mb-sheet-blank\"></span></dd>"));
+    assert!(html.contains("reader's own"));
+    let example_sheet = sheet::head_html(cases.open_case(), false, "2026-12-02");
+    assert!(example_sheet.contains("worked example"));
+}
+
+#[test]
+fn the_sheet_draws_every_mode() {
+    let report = doc::solve(&example()).unwrap();
+    let html = sheet::shapes_html(&report);
+    assert_eq!(html.matches("<svg ").count(), report.modes.len());
+    for m in &report.modes {
+        assert!(html.contains(&format!("<figcaption>Mode {}: ", m.number)), "{html}");
+    }
+}

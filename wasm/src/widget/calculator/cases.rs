@@ -5,7 +5,7 @@
 use super::Calculator;
 use crate::doc::text;
 use crate::widget::{dom, storage};
-use modebench_ui::cases::{bar, export};
+use modebench_ui::cases::{bar, export, sheet};
 use wasm_bindgen::JsCast;
 use web_sys::HtmlInputElement;
 
@@ -18,8 +18,10 @@ impl Calculator {
 
     /// Draws the case bar under the calculator's head afresh, its fold-outs as they were.
     pub(super) fn show_cases(&mut self) {
-        self.keep_open_sections();
+        // A redraw of the whole calculator has removed the bar already; what was open then is in
+        // the view.
         if let Some(old) = dom::first(&self.root, ".mb-cases") {
+            self.keep_open_sections();
             old.remove();
         }
         let Some(head) = dom::first(&self.root, ".mb-head") else { return };
@@ -32,12 +34,40 @@ impl Calculator {
         }
     }
 
+    /// Draws what the printed sheet adds (shown in print only): the case's title, the date and
+    /// the calculation record above the calculator, every mode's shape under the results; and
+    /// marks the root `data-own-case` when the case is not the page's example, so that print
+    /// leaves out the page's words about its example.
+    pub(super) fn show_sheet(&self) {
+        let own = self.doc != self.example;
+        let _ = self.root.toggle_attribute_with_force("data-own-case", own);
+        for old in dom::all(&self.root, ".mb-sheet, .mb-sheet-shapes") {
+            old.remove();
+        }
+        let today = js_sys::Date::new_0();
+        let date =
+            format!("{:04}-{:02}-{:02}", today.get_full_year(), today.get_month() + 1, today.get_date());
+        let mut case = self.cases.open_case().clone();
+        case.scenario = self.doc.clone();
+        if let Some(head) = dom::first(&self.root, ".mb-head") {
+            let _ = head.insert_adjacent_html("afterend", &sheet::head_html(&case, own, &date));
+        }
+        let shapes = self.last.as_ref().filter(|_| self.error.is_none()).map(sheet::shapes_html);
+        if let (Some(shapes), Some(results)) = (shapes, dom::first(&self.root, ".mb-results")) {
+            let _ = results.insert_adjacent_html("beforeend", &shapes);
+        }
+    }
+
     /// Redraws only the case list's names, after the title was typed (the title's field keeps
     /// its focus and caret).
     pub(super) fn show_case_names(&self) {
         if let Some(list) = dom::first(&self.root, ".mb-case-list") {
             list.set_inner_html(&bar::options_html(&self.cases));
         }
+        if let Some(title) = dom::first(&self.root, ".mb-head .mb-title") {
+            title.set_text_content(Some(&modebench_ui::cases::title_of(&self.doc)));
+        }
+        self.show_sheet();
     }
 
     fn say(&mut self, note: &str) {

@@ -67,6 +67,7 @@ impl Calculator {
         if let Some(key) = input.get_attribute("data-record") {
             self.cases.set_record(&key, &input.value());
             self.store();
+            self.show_sheet();
         } else if let Some(path) = input.get_attribute("data-field") {
             self.edit(Edit::Text { path, text: input.value() }, None);
         }

@@ -116,6 +116,7 @@ impl Calculator {
         }
         self.show_offer();
         self.show_cases();
+        self.show_sheet();
         self.show_solving();
         self.open_incoming();
     }
@@ -174,6 +175,7 @@ impl Calculator {
         }
         self.show_offer();
         self.show_cases();
+        self.show_sheet();
     }
 
     /// Keeps the results the page was built with on show: greyed, with the note that they
@@ -226,6 +228,7 @@ impl Calculator {
             ));
         }
         self.mark_error();
+        self.show_sheet();
     }
 
     /// Greys the results on show while the scenario being edited is still with the worker.
