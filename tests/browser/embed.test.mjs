@@ -35,9 +35,11 @@ before(async () => {
   host = mkdtempSync(join(tmpdir(), "modebench-embed-"));
   cpSync(DIST, join(host, "modebench"), { recursive: true });
   mkdirSync(join(host, "docs"));
+  writeFileSync(join(host, "index.html"), "<p>Internal documents</p>");
   writeFileSync(
     join(host, "docs", "bracket.html"),
-    `<!doctype html><html lang="en"><title>Bracket review</title><h1>Bracket review</h1>
+    `<!doctype html><html lang="en"><title>Bracket review</title>
+<link rel="icon" href="../modebench/assets/mark.svg"><h1>Bracket review</h1>
 <iframe src="../modebench/embed.html#calc=1&case=${caseData(CASE)}" title="Modebench calculator" width="1000" height="900"></iframe>
 `,
   );
