@@ -32,6 +32,8 @@ async function settled(page) {
 // What print shows: every visible heading with the text of the section it heads, and the rest.
 async function printed(page) {
   await page.emulateMedia({ media: "print" });
+  // Every mode's shape is drawn as print begins.
+  await page.waitForSelector(".mb-sheet-shape svg", { state: "attached", timeout: 5000 });
   return page.evaluate(() => {
     const visible = (e) => e.getClientRects().length > 0 && getComputedStyle(e).visibility !== "hidden";
     const headings = [...document.querySelectorAll("main h1, main h2, main h3, main h4, main summary")]

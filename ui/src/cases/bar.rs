@@ -40,7 +40,7 @@ pub fn bar_html(cases: &Cases, note: &str) -> String {
         .map(|(key, label)| {
             let value = case.record.get(*key).and_then(Value::as_str).unwrap_or("");
             format!(
-                "<label class=\"mb-field\"><span class=\"mb-label\">{label}</span><input type=\"text\" \
+                "<label class=\"mb-field\"><span class=\"mb-label\">{label}</span><input class=\"mb-input\" type=\"text\" \
                  data-record=\"{key}\" value=\"{}\" autocomplete=\"off\"></label>",
                 escape(value)
             )
@@ -49,9 +49,9 @@ pub fn bar_html(cases: &Cases, note: &str) -> String {
     format!(
         "<div class=\"mb-cases\" role=\"group\" aria-label=\"Your cases\">\
          <div class=\"mb-grid mb-case-pick\">\
-         <label class=\"mb-field\"><span class=\"mb-label\">Case</span><select class=\"mb-case-list\" \
+         <label class=\"mb-field\"><span class=\"mb-label\">Case</span><select class=\"mb-select mb-case-list\" \
          data-control=\"case\">{options}</select></label>\
-         <label class=\"mb-field\"><span class=\"mb-label\">Title of this case</span><input type=\"text\" \
+         <label class=\"mb-field\"><span class=\"mb-label\">Title of this case</span><input class=\"mb-input\" type=\"text\" \
          data-field=\"title\" value=\"{title}\" autocomplete=\"off\"></label></div>\
          <div class=\"mb-case-actions\">\
          <button type=\"button\" class=\"mb-button\" data-action=\"case-blank\">New blank case</button>\
@@ -69,7 +69,7 @@ pub fn bar_html(cases: &Cases, note: &str) -> String {
          <button type=\"button\" class=\"mb-button\" data-action=\"results-csv\">Download the results (CSV)</button>\
          <button type=\"button\" class=\"mb-button\" data-action=\"results-json\">Download the results (JSON)</button>\
          </div><label class=\"mb-field mb-share-field\"><span class=\"mb-label\">Link to this case</span>\
-         <input type=\"text\" class=\"mb-share-link\" readonly value=\"\"></label></details>\
+         <input type=\"text\" class=\"mb-input mb-share-link\" readonly value=\"\"></label></details>\
          <details class=\"mb-fold mb-record\" data-part=\"record\"><summary>Calculation record (printed with the \
          sheet)</summary><div class=\"mb-grid\">{record}</div></details>\
          <p class=\"mb-case-note\" role=\"status\">{note}</p></div>",

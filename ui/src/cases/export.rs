@@ -13,11 +13,13 @@ pub fn scenario_file(scenario: &Value) -> String {
     out
 }
 
-/// A file name from the case's title: lower case, words joined by hyphens, and `extension`.
+/// A file name from the case's title: its ASCII letters and digits in lower case, words joined by
+/// hyphens, and `extension` (ASCII only, which every file system and mail client takes, and
+/// which keeps Unicode's case tables out of the page's engine).
 pub fn file_name(scenario: &Value, suffix: &str, extension: &str) -> String {
-    let title = super::title_of(scenario).to_lowercase();
+    let title = super::title_of(scenario).to_ascii_lowercase();
     let mut name = String::new();
-    for word in title.split(|c: char| !c.is_alphanumeric()).filter(|w| !w.is_empty()) {
+    for word in title.split(|c: char| !c.is_ascii_alphanumeric()).filter(|w| !w.is_empty()) {
         if name.len() + word.len() > 60 {
             break;
         }

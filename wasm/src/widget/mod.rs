@@ -71,6 +71,14 @@ fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64,
     if let Ok(mut c) = calculator.try_borrow_mut() {
         c.go_live(callbacks, replies);
     }
+    // Every mode's shape is drawn for print only, as the page is printed or print is previewed.
+    let print = callback(&calculator, |c, _: JsValue| c.on_print());
+    if let Some(window) = web_sys::window() {
+        let _ = window.add_event_listener_with_callback("beforeprint", &print);
+        if let Ok(Some(media)) = window.match_media("print") {
+            let _ = media.add_event_listener_with_callback("change", &print);
+        }
+    }
     let listener = callback(&calculator, |c, event: Event| c.handle(&event));
     let attached = ["input", "change", "click"]
         .iter()

@@ -44,9 +44,6 @@ impl Calculator {
                 self.answer = Some(answer);
                 if redraw && !edited {
                     self.draw_results();
-                } else if !edited {
-                    // The results on show stay; the printed sheet's shapes come from this report.
-                    self.show_sheet();
                 }
             }
             Err(error) if !edited => {

@@ -34,23 +34,43 @@ impl Calculator {
         }
     }
 
-    /// Draws what the printed sheet adds (shown in print only): the case's title, the date and
-    /// the calculation record above the calculator, every mode's shape under the results; and
+    /// Draws what the printed sheet adds above the calculator (shown in print only): the case's
+    /// title, the date and the calculation record; and
     /// marks the root `data-own-case` when the case is not the page's example, so that print
     /// leaves out the page's words about its example.
-    pub(super) fn show_sheet(&self) {
+    ///
+    /// Nothing is touched when the sheet on show is already this one: a change under the
+    /// calculator's root makes the browser restyle all of it, which on a model with hundreds of
+    /// rows takes longer than a keystroke may.
+    pub(super) fn show_sheet(&mut self) {
         let own = self.doc != self.example;
-        let _ = self.root.toggle_attribute_with_force("data-own-case", own);
-        for old in dom::all(&self.root, ".mb-sheet, .mb-sheet-shapes") {
-            old.remove();
+        if self.root.has_attribute("data-own-case") != own {
+            let _ = self.root.toggle_attribute_with_force("data-own-case", own);
         }
         let today = js_sys::Date::new_0();
         let date =
             format!("{:04}-{:02}-{:02}", today.get_full_year(), today.get_month() + 1, today.get_date());
-        let mut case = self.cases.open_case().clone();
-        case.scenario = self.doc.clone();
+        let case = self.cases.open_case();
+        let html = sheet::head_html(case, own, &date);
+        let shown = dom::first(&self.root, ".mb-sheet");
+        if shown.is_some() && html == self.sheet {
+            return;
+        }
+        if let Some(old) = shown {
+            old.remove();
+        }
         if let Some(head) = dom::first(&self.root, ".mb-head") {
-            let _ = head.insert_adjacent_html("afterend", &sheet::head_html(&case, own, &date));
+            let _ = head.insert_adjacent_html("afterend", &html);
+        }
+        self.sheet = html;
+    }
+
+    /// Draws every mode's shape for the printed sheet, as the page is about to be printed: a
+    /// large model's twenty shapes take longer to draw than a keystroke may, so they are not
+    /// drawn with every answer (the results' redraw removes them again).
+    pub(in crate::widget) fn on_print(&mut self) {
+        for old in dom::all(&self.root, ".mb-sheet-shapes") {
+            old.remove();
         }
         let shapes = self.last.as_ref().filter(|_| self.error.is_none()).map(sheet::shapes_html);
         if let (Some(shapes), Some(results)) = (shapes, dom::first(&self.root, ".mb-results")) {
@@ -60,7 +80,7 @@ impl Calculator {
 
     /// Redraws only the case list's names, after the title was typed (the title's field keeps
     /// its focus and caret).
-    pub(super) fn show_case_names(&self) {
+    pub(super) fn show_case_names(&mut self) {
         if let Some(list) = dom::first(&self.root, ".mb-case-list") {
             list.set_inner_html(&bar::options_html(&self.cases));
         }

@@ -62,6 +62,8 @@ pub(super) struct Calculator {
     answer: Option<String>,
     /// What the case bar's status line says.
     note: String,
+    /// The printed sheet's head as last drawn.
+    sheet: String,
 }
 
 impl Calculator {
@@ -93,6 +95,7 @@ impl Calculator {
             replies: None,
             answer: None,
             note: String::new(),
+            sheet: String::new(),
         };
         c.load_example();
         c
