@@ -21,13 +21,20 @@ const parsed =
     : Promise.resolve();
 
 async function boot() {
-  const engine = await import("./modebench_page.js");
+  const [engine, io] = await Promise.all([import("./modebench_page.js"), import("./case-io.js")]);
   // The glue fetches and compiles the engine (the page has it preloaded), compiling from the
   // downloaded bytes when a host sends .wasm with a type other than application/wasm.
   await engine.default();
   await parsed;
+  // A case opened from a link (its part after "#") is read before the calculators start, and
+  // the link's case is taken off the address once a calculator holds it, so that a reload
+  // shows the reader's edits rather than the link's case again.
+  const incoming = await io.incomingCase(window.location);
   // Resolved against this script, so the site works under any sub-path of a host.
-  engine.mountAll(new URL("solve-worker.js", import.meta.url).href);
+  engine.mountAll(new URL("solve-worker.js", import.meta.url).href, io.caseIo(incoming));
+  if (incoming) {
+    history.replaceState(null, "", window.location.pathname + window.location.search);
+  }
 }
 
 try {

@@ -7,7 +7,9 @@ use std::path::Path;
 use anyhow::{bail, Context, Result};
 
 use crate::args::BuildOptions;
+use crate::embed;
 use crate::markdown;
+use crate::offline;
 use crate::page;
 use crate::template::{self, Frame};
 use crate::verify;
@@ -65,7 +67,11 @@ pub(crate) fn build(options: &BuildOptions) -> Result<Summary> {
         let path = options.out.join(page.file_name());
         std::fs::write(&path, html).with_context(|| format!("writing {}", path.display()))?;
     }
+    let path = options.out.join(embed::FILE);
+    std::fs::write(&path, embed::document(root, engine)?)
+        .with_context(|| format!("writing {}", path.display()))?;
     verify::site(&options.out)?;
+    offline::write_worker(&options.out)?;
     Ok(Summary { pages: pages.len(), out: options.out.display().to_string(), engine })
 }
 

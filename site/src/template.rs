@@ -63,9 +63,11 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
 <meta http-equiv=\"Content-Security-Policy\" content=\"{CSP}\">
 <title>{head_title}</title>
 {summary}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
+<link rel=\"manifest\" href=\"assets/manifest.webmanifest\">
 <link rel=\"stylesheet\" href=\"assets/site.css\">
 {widget_css}<link rel=\"stylesheet\" href=\"assets/print.css\" media=\"print\">
-{boot}</head>
+{boot}<script type=\"module\" src=\"assets/offline.js\"></script>
+</head>
 <body>
 <a class=\"skip\" href=\"#content\">Skip to the page</a>
 <header class=\"site-head\">

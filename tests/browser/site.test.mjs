@@ -219,7 +219,9 @@ describe("the site as files", () => {
           title: visible("h1"),
           sheet: visible(".sheet-head"),
           calculatorShown: visible(".mb-calc"),
-          caution: visible('blockquote[class^="markdown-alert-"]'),
+          // The page's own cautions, or (on the embed page, which has no text of its own) the
+          // calculator's.
+          caution: visible('blockquote[class^="markdown-alert-"], .mb-caution'),
           navigation: visible(".site-head, .site-nav, .site-foot"),
           buttons: visible("button"),
         };

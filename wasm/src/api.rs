@@ -139,11 +139,14 @@ pub fn list_units() -> Result<JsValue, JsValue> {
 /// Starts every calculator on the page (`.mb-calc[data-modebench]`) that is not live yet and
 /// returns how many were started. `worker` is the URL of the solving worker's script
 /// (`solve-worker.js`, which loads the `solver` build beside it); without it, the script is
-/// looked for at `assets/solve-worker.js` from the page.
+/// looked for at `assets/solve-worker.js` from the page. `io` is what the calculators ask of the
+/// browser to share and save cases (`assets/case-io.js`: `link`, `download`, `pickFile` and the
+/// `incoming` case of a link); without it they keep cases but cannot share or save them.
 #[cfg(feature = "page")]
 #[wasm_bindgen(js_name = mountAll)]
-pub fn mount_all(worker: Option<String>) -> usize {
-    crate::widget::mount_all(worker.as_deref().unwrap_or("assets/solve-worker.js"))
+pub fn mount_all(worker: Option<String>, io: Option<js_sys::Object>) -> usize {
+    let io = io.map(JsValue::from).unwrap_or(JsValue::UNDEFINED);
+    crate::widget::mount_all(worker.as_deref().unwrap_or("assets/solve-worker.js"), &io)
 }
 
 /// Solves a scenario given as JSON text and returns the answer as JSON text: `{"report": …}`

@@ -4,6 +4,7 @@
 
 mod calculator;
 mod dom;
+mod io;
 mod solver;
 mod storage;
 
@@ -16,8 +17,9 @@ use wasm_bindgen::JsCast;
 use web_sys::{Event, MessageEvent};
 
 /// Starts every calculator that is not live yet, each with a worker running the script at
-/// `worker_url`; returns how many were started.
-pub(crate) fn mount_all(worker_url: &str) -> usize {
+/// `worker_url`, sharing and saving cases through `io` (see [`io::Io`]); returns how many were
+/// started.
+pub(crate) fn mount_all(worker_url: &str, io: &JsValue) -> usize {
     let Some(document) = web_sys::window().and_then(|w| w.document()) else { return 0 };
     let Ok(roots) = document.query_selector_all(".mb-calc[data-modebench]") else { return 0 };
     let budget = solver::budget_ms();
@@ -26,7 +28,7 @@ pub(crate) fn mount_all(worker_url: &str) -> usize {
         if root.get_attribute("data-live").as_deref() == Some("true") {
             continue;
         }
-        if mount(root, index, worker_url, budget) {
+        if mount(root, index, worker_url, budget, io::Io::new(io)) {
             started += 1;
         }
     }
@@ -54,16 +56,28 @@ fn callback<A: FromWasmAbi + 'static>(calculator: &Shared, act: fn(&mut Calculat
 }
 
 /// Takes over one calculator: draws its controls, starts its worker and listens.
-fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64) -> bool {
-    let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index, worker_url, budget_ms)));
+fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64, io: io::Io) -> bool {
+    let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index, worker_url, budget_ms, io)));
     let callbacks = solver::Callbacks {
         message: callback(&calculator, |c, event: MessageEvent| c.on_answer(&event)),
         error: callback(&calculator, |c, _: JsValue| c.on_worker_error()),
         deadline: callback(&calculator, |c, _: JsValue| c.on_deadline()),
         slow: callback(&calculator, |c, _: JsValue| c.on_slow()),
     };
+    let replies = calculator::Replies {
+        linked: callback(&calculator, |c, link: JsValue| c.on_link(link.as_string())),
+        opened: callback(&calculator, |c, text: JsValue| c.on_file(text.as_string())),
+    };
     if let Ok(mut c) = calculator.try_borrow_mut() {
-        c.go_live(callbacks);
+        c.go_live(callbacks, replies);
+    }
+    // Every mode's shape is drawn for print only, as the page is printed or print is previewed.
+    let print = callback(&calculator, |c, _: JsValue| c.on_print());
+    if let Some(window) = web_sys::window() {
+        let _ = window.add_event_listener_with_callback("beforeprint", &print);
+        if let Ok(Some(media)) = window.match_media("print") {
+            let _ = media.add_event_listener_with_callback("change", &print);
+        }
     }
     let listener = callback(&calculator, |c, event: Event| c.handle(&event));
     let attached = ["input", "change", "click"]

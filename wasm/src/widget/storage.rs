@@ -1,7 +1,8 @@
 //! Keeping the reader's edits in `localStorage`, so that nothing typed is lost on reload.
 //!
-//! The scenario is stored as JSON with every field's text exactly as typed, invalid input
-//! included. A stored case that could not be solved within the budget when the page opened is
+//! The reader's cases are stored as JSON with every field's text exactly as typed, invalid input
+//! included, in the form `modebench_ui::cases::Cases::to_stored` writes (which reads the older
+//! single-scenario form too). A stored case that could not be solved within the budget when the page opened is
 //! also copied aside (under the key with `:set-aside` added), so that editing the page's example
 //! meanwhile does not overwrite it; the calculator offers it back. Storage that is missing, full
 //! or refused (private browsing) is silently skipped: the calculator works, it just forgets on
@@ -19,9 +20,17 @@ fn storage() -> Option<web_sys::Storage> {
     web_sys::window()?.local_storage().ok().flatten()
 }
 
-/// The stored scenario and the mode shown, if any.
-pub(super) fn load(key: &str) -> Option<(Value, usize)> {
-    read(key)
+/// What is stored under `key`, read as JSON, if anything.
+pub(super) fn load_value(key: &str) -> Option<Value> {
+    let text = storage()?.get_item(key).ok().flatten()?;
+    crate::doc::text::read(&text).ok()
+}
+
+/// Stores a JSON value under `key`.
+pub(super) fn save_value(key: &str, value: &Value) {
+    if let Some(s) = storage() {
+        let _ = s.set_item(key, &crate::doc::text::write(value));
+    }
 }
 
 /// The case set aside, if any.
@@ -44,15 +53,14 @@ fn set_aside_key(key: &str) -> String {
 }
 
 fn read(key: &str) -> Option<(Value, usize)> {
-    let text = storage()?.get_item(key).ok().flatten()?;
-    let stored = crate::doc::text::read(&text).ok()?;
+    let stored = load_value(key)?;
     let doc = stored.get("scenario")?.clone();
     let mode = stored.get("mode").and_then(Value::as_u64).unwrap_or(0) as usize;
     doc.is_object().then_some((doc, mode))
 }
 
-/// Stores the scenario as typed and the mode shown.
-pub(super) fn save(key: &str, doc: &Value, mode: usize) {
+/// Stores the scenario as typed and the mode shown (the form a set-aside case keeps).
+fn save(key: &str, doc: &Value, mode: usize) {
     if let Some(s) = storage() {
         let mut stored = serde_json::Map::new();
         stored.insert("version".into(), Value::from(1u64));
@@ -63,8 +71,8 @@ pub(super) fn save(key: &str, doc: &Value, mode: usize) {
     }
 }
 
-/// Forgets the stored edits.
-pub(super) fn clear(key: &str) {
+/// Forgets what is stored under `key`.
+fn clear(key: &str) {
     if let Some(s) = storage() {
         let _ = s.remove_item(key);
     }

@@ -23,10 +23,10 @@ impl Calculator {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(message::read(&answer));
+                self.confirmed(message::read(&answer), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(message::read(&answer)),
-            Verdict::Current(Purpose::Edit) => self.solved(message::read(&answer)),
+            Verdict::Current(Purpose::Restore) => self.restored(message::read(&answer), answer),
+            Verdict::Current(Purpose::Edit) => self.solved(message::read(&answer), answer),
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }
@@ -34,13 +34,14 @@ impl Calculator {
 
     /// The page's example, solved in this browser: if the results on show are exactly these,
     /// nothing is redrawn; otherwise (or if a mode was chosen meanwhile) they are replaced.
-    fn confirmed(&mut self, outcome: Result<Report, Error>) {
+    fn confirmed(&mut self, outcome: Result<Report, Error>, answer: String) {
         // An edit made since then is the reader's newest input; its answer decides what shows.
         let edited = self.edited_at.is_some();
         match outcome {
             Ok(report) => {
                 let redraw = !self.shows(&report) || self.view.mode != 0;
                 self.last = Some(report);
+                self.answer = Some(answer);
                 if redraw && !edited {
                     self.draw_results();
                 }
@@ -55,13 +56,14 @@ impl Calculator {
 
     /// The reader's stored case, solved within the budget: it replaces the example on show
     /// (greyed under its error if it has one).
-    fn restored(&mut self, outcome: Result<Report, Error>) {
+    fn restored(&mut self, outcome: Result<Report, Error>, answer: String) {
         let Some((doc, mode)) = self.saved.take() else { return };
         self.doc = doc;
         self.view.mode = mode;
         match outcome {
             Ok(report) => {
                 self.last = Some(report);
+                self.answer = Some(answer);
                 self.error = None;
             }
             Err(error) => self.error = Some(error),
@@ -70,10 +72,11 @@ impl Calculator {
     }
 
     /// The newest edit, solved: its results, or its error beside its field.
-    fn solved(&mut self, outcome: Result<Report, Error>) {
+    fn solved(&mut self, outcome: Result<Report, Error>, answer: String) {
         match outcome {
             Ok(report) => {
                 self.last = Some(report);
+                self.answer = Some(answer);
                 self.error = None;
             }
             Err(error) => self.error = Some(error),

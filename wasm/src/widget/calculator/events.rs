@@ -7,6 +7,7 @@ use crate::doc::{self, text, Edit, List};
 use crate::render::View;
 use crate::widget::{dom, storage};
 use crate::worker::latest::Purpose;
+use modebench_ui::cases;
 use wasm_bindgen::JsCast;
 use web_sys::{Element, Event, HtmlInputElement, HtmlSelectElement};
 
@@ -26,12 +27,23 @@ impl Calculator {
     fn edit(&mut self, edit: Edit, focus: Option<(&'static str, String)>) {
         self.edited_at = Some(dom::now());
         self.keep_saved_case();
+        let undoable = cases::undo_words(&edit);
+        if let Some(what) = &undoable {
+            self.cases.record(what);
+        }
         // Edits build on the report on show: a new row takes sensible values from it.
         doc::apply(&mut self.doc, &edit, self.last.as_ref());
-        storage::save(&self.key, &self.doc, self.view.mode);
+        self.store();
         if edit.is_structural() {
             self.draw_editor(false);
             self.refocus(focus);
+        }
+        if undoable.is_some() {
+            self.note.clear();
+            self.show_cases();
+        }
+        if matches!(&edit, Edit::Text { path, .. } if path == "title") {
+            self.show_case_names();
         }
         self.solver.submit(Purpose::Edit, text::write(&self.doc));
         self.show_solving();
@@ -52,7 +64,11 @@ impl Calculator {
         if input.type_() != "text" {
             return;
         }
-        if let Some(path) = input.get_attribute("data-field") {
+        if let Some(key) = input.get_attribute("data-record") {
+            self.cases.set_record(&key, &input.value());
+            self.store();
+            self.show_sheet();
+        } else if let Some(path) = input.get_attribute("data-field") {
             // A number typed alone takes the unit the field shows beside it.
             let unit = input.get_attribute("data-unit").unwrap_or_default();
             self.edit(doc::typed(path, &input.value(), &unit), None);
@@ -65,6 +81,10 @@ impl Calculator {
             if let Some(path) = select.get_attribute("data-field") {
                 let focus = Some(("data-field", path.clone()));
                 self.edit(Edit::Choose { path, value }, focus);
+            } else if select.get_attribute("data-control").as_deref() == Some("case") {
+                if let Ok(id) = value.parse() {
+                    self.open_case(id);
+                }
             } else if select.get_attribute("data-control").as_deref() == Some("segment-by") {
                 if let Some(index) = dom::number(select, "data-index") {
                     self.edit(Edit::SegmentBy { index, by: value }, None);
@@ -102,6 +122,7 @@ impl Calculator {
             }
             (Some("restore"), _) => self.restore(),
             (Some("reopen"), _) => self.reopen(),
+            (Some(action), _) => self.case_action(action),
             _ => {}
         }
     }
@@ -112,7 +133,7 @@ impl Calculator {
         self.view.mode = mode;
         // While the stored case waits to be shown, the example on show is not stored over it.
         if self.saved.is_none() {
-            storage::save(&self.key, &self.doc, mode);
+            self.store();
         }
         if self.last.is_some() || self.error.is_some() {
             self.draw_results();
@@ -120,14 +141,16 @@ impl Calculator {
         }
     }
 
-    /// Forgets the reader's edits and shows the page's example again.
+    /// Shows the page's example again in place of the open case; one undo puts the case back.
     fn restore(&mut self) {
         self.edited_at = Some(dom::now());
         self.keep_saved_case();
-        storage::clear(&self.key);
+        self.cases.restore_example(&self.example);
+        self.note = "The page's example is back in this case; “Undo” puts your values back.".into();
         self.error = None;
         self.view = View::default();
         self.load_example();
+        self.store();
         self.draw_all();
         self.refocus(Some(("data-action", "restore".to_string())));
         self.start_over();
@@ -142,10 +165,10 @@ impl Calculator {
         };
         self.edited_at = Some(dom::now());
         self.saved = None;
-        storage::save(&self.key, &doc, mode);
         storage::clear_set_aside(&self.key);
         self.doc = doc;
         self.view.mode = mode;
+        self.store();
         self.error = None;
         self.draw_all();
         self.refocus(Some(("data-action", "restore".to_string())));
@@ -154,7 +177,7 @@ impl Calculator {
 
     /// Hands a scenario that replaced the one on show to the worker; the results on show are
     /// greyed until its answer comes, as they belong to the other one.
-    fn start_over(&mut self) {
+    pub(super) fn start_over(&mut self) {
         if self.error.is_none() {
             self.mark_waiting();
             self.solver.submit(Purpose::Edit, text::write(&self.doc));

@@ -3,21 +3,33 @@
 //! stores, draws and marks errors, so the page stays responsive whatever the model. Typing
 //! redraws only the results, the plot and the error marks, so the input keeps its focus and
 //! caret; structural edits redraw the editor too. What happens on each event is in [`events`],
-//! what happens on each answer from the worker in [`answers`].
+//! what happens on each answer from the worker in [`answers`], what is done to the reader's cases
+//! (and their links and files) in [`cases`].
 
 mod answers;
+mod cases;
 mod events;
 mod focus;
 
+use super::io::Io;
 use super::solver::{Callbacks, Solver};
 use super::{dom, storage};
 use crate::doc::{self, text};
 use crate::render::{self, Editing, View};
 use crate::worker::latest::Purpose;
 use modebench::{Error, Report};
+use modebench_ui::cases::Cases;
 use serde_json::Value;
 use wasm_bindgen::JsCast;
 use web_sys::{Element, HtmlInputElement};
+
+/// The callbacks that take the page script's replies about links and files.
+pub(in crate::widget) struct Replies {
+    /// Takes a link made for the open case.
+    pub(in crate::widget) linked: js_sys::Function,
+    /// Takes the text of a file the reader picked.
+    pub(in crate::widget) opened: js_sys::Function,
+}
 
 pub(super) struct Calculator {
     root: Element,
@@ -39,13 +51,33 @@ pub(super) struct Calculator {
     /// Whether the results on show are still those the page was built with: no report has
     /// come yet to draw in their place (the worker may not have answered, or not in time).
     built_results: bool,
+    /// The reader's cases on this calculator, the open one being what the editor holds.
+    cases: Cases,
+    /// The page's example as read, for new cases and "Restore the page's example".
+    example: Value,
+    /// The calculator's place on the page, from 0.
+    index: usize,
+    /// The page script's helpers for links and files, and the callbacks for their replies.
+    io: Io,
+    replies: Option<Replies>,
+    /// The worker's answer for the report on show, as it wrote it, for the results' JSON file.
+    answer: Option<String>,
+    /// What the case bar's status line says.
+    note: String,
+    /// The printed sheet's head as last drawn.
+    sheet: String,
 }
 
 impl Calculator {
-    pub(super) fn new(root: Element, index: usize, worker_url: &str, budget_ms: f64) -> Self {
+    pub(super) fn new(root: Element, index: usize, worker_url: &str, budget_ms: f64, io: Io) -> Self {
         let original = root.get_attribute("data-modebench").unwrap_or_default();
         let key = storage::key(index);
-        let saved = storage::load(&key);
+        let example = doc::read(&original).unwrap_or_else(|_| Value::Object(serde_json::Map::new()));
+        let stored = storage::load_value(&key);
+        let cases = Cases::load(stored.as_ref(), &example);
+        // The open case is tried once the example is on show, unless it is the example itself.
+        let open = cases.open_case();
+        let saved = (open.scenario != example || open.mode != 0).then(|| (open.scenario.clone(), open.mode));
         let mut c = Calculator {
             root,
             original,
@@ -58,6 +90,14 @@ impl Calculator {
             edited_at: None,
             saved,
             built_results: true,
+            cases,
+            example,
+            index,
+            io,
+            replies: None,
+            answer: None,
+            note: String::new(),
+            sheet: String::new(),
         };
         c.load_example();
         c
@@ -66,8 +106,9 @@ impl Calculator {
     /// Takes over the calculator: draws the editor's controls at once in place of the fixed
     /// values the page was built with, and starts the worker on the page's example (to confirm
     /// the results on show) and then on the reader's stored case, if any.
-    pub(super) fn go_live(&mut self, callbacks: Callbacks) {
+    pub(super) fn go_live(&mut self, callbacks: Callbacks, replies: Replies) {
         self.solver.connect(callbacks);
+        self.replies = Some(replies);
         if self.error.is_some() {
             // The page's own scenario cannot be read; say so at once.
             self.draw_all();
@@ -79,7 +120,10 @@ impl Calculator {
             self.solver.submit(Purpose::Restore, text::write(doc));
         }
         self.show_offer();
+        self.show_cases();
+        self.show_sheet();
         self.show_solving();
+        self.open_incoming();
     }
 
     fn load_example(&mut self) {
@@ -136,6 +180,8 @@ impl Calculator {
         }
         self.show_offer();
         self.tie_errors();
+        self.show_cases();
+        self.show_sheet();
     }
 
     /// Keeps the results the page was built with on show: greyed, with the note that they
@@ -193,6 +239,7 @@ impl Calculator {
             summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
         }
         self.mark_error();
+        self.show_sheet();
     }
 
     /// Greys the one-line summary, or shows it in full colour again.

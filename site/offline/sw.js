@@ -1,0 +1,60 @@
+// The site's service worker: keeps every file of the site in the browser's cache on the first
+// visit, so that reloads and every page work with no network. Written into the site's root by
+// the builder, which fills in VERSION (a digest of every file it built) and FILES (every file,
+// relative to the root), so that a rebuilt site has a new worker that replaces the old cache.
+//
+// A module worker from the site's own folder, under the pages' policy. Everything is resolved
+// against this script's own address, so the site works under any sub-path of a host; two sites
+// under two sub-paths of one host keep separate caches.
+
+const VERSION = "@VERSION@";
+const FILES = @FILES@;
+
+const ROOT = new URL("./", self.location.href);
+const PREFIX = `modebench ${ROOT.pathname} `;
+const CACHE = PREFIX + VERSION;
+
+self.addEventListener("install", (event) => {
+  event.waitUntil(
+    (async () => {
+      const cache = await caches.open(CACHE);
+      // Fetched past the HTTP cache, so that the new version's files are the ones kept.
+      await cache.addAll(FILES.map((file) => new Request(new URL(file, ROOT), { cache: "reload" })));
+      await self.skipWaiting();
+    })(),
+  );
+});
+
+self.addEventListener("activate", (event) => {
+  event.waitUntil(
+    (async () => {
+      for (const name of await caches.keys()) {
+        if (name.startsWith(PREFIX) && name !== CACHE) {
+          await caches.delete(name);
+        }
+      }
+      await self.clients.claim();
+    })(),
+  );
+});
+
+self.addEventListener("fetch", (event) => {
+  const request = event.request;
+  const url = new URL(request.url);
+  if (request.method !== "GET" || url.origin !== ROOT.origin || !url.pathname.startsWith(ROOT.pathname)) {
+    return;
+  }
+  event.respondWith(answer(request, url));
+});
+
+// The kept copy of a file of this version, else the network. The site's folder itself is its
+// home page.
+async function answer(request, url) {
+  const cache = await caches.open(CACHE);
+  const key = url.pathname.endsWith("/") ? new URL("index.html", url) : url;
+  const kept = await cache.match(key.href, { ignoreSearch: true });
+  if (kept) {
+    return kept;
+  }
+  return fetch(request);
+}
