@@ -337,17 +337,25 @@ fn least_squares(
     let p = to_p(&z);
     let values: Vec<f64> = unknowns.iter().map(|u| p[u.input]).collect();
     let mut notes = Vec::new();
-    if !condition.is_finite() || condition > 1e4 {
+    if !condition.is_finite() {
+        notes.push(
+            "the two inputs move the measured modes in the same proportion (the fit is singular): the \
+             measurements cannot tell them apart, and other pairs fit as well"
+                .to_string(),
+        );
+    } else if condition > 1e4 {
         notes.push(format!(
             "the two inputs move the measured modes in nearly the same proportion (condition number {condition:.1e}): \
              the measurements cannot tell them apart, and other pairs fit as well"
         ));
     }
-    for (u, v) in unknowns.iter().zip(&values) {
+    for (i, (u, v)) in unknowns.iter().zip(&values).enumerate() {
         if (*v - u.low).abs() <= 1e-9 * u.low.abs().max(1e-300) || (*v - u.high).abs() <= 1e-9 * u.high.abs()
         {
             notes.push(format!(
-                "a fitted value lies at the end of its range ({v:.6e}): the best fit may lie outside it"
+                "fitted value {} lies at the end of its range: the best fit may lie outside it, or the model lacks \
+                 something",
+                i + 1
             ));
         }
     }

@@ -308,11 +308,36 @@ fn spring(v: f64) -> Value {
 /// The first `modes` elastic natural frequencies (Hz) of a scenario with the inputs at `paths`
 /// set to `values`.
 pub fn frequencies(doc: &Value, paths: &[FieldPath], values: &[f64]) -> Result<Vec<f64>> {
-    let mut trial = doc.clone();
-    for (path, v) in paths.iter().zip(values) {
-        set(&mut trial, path, *v)?;
+    Evaluator::new(doc, paths).frequencies(values)
+}
+
+/// The frequencies of a scenario as functions of some of its inputs, each solve started from the
+/// frequencies of the one before: the design tools try values close to each other (a central
+/// difference, the next point of a sweep, a bisection), and the root finder that is handed
+/// nearby frequencies isolates them in a fraction of the work. Its answers are the same roots,
+/// found by the same count and polished to the same tolerance.
+pub struct Evaluator<'a> {
+    doc: &'a Value,
+    paths: &'a [FieldPath],
+    hints: std::cell::RefCell<Vec<f64>>,
+}
+
+impl<'a> Evaluator<'a> {
+    /// The evaluator of the inputs at `paths` of `doc`.
+    pub fn new(doc: &'a Value, paths: &'a [FieldPath]) -> Evaluator<'a> {
+        Evaluator { doc, paths, hints: std::cell::RefCell::new(Vec::new()) }
     }
-    let inputs = Scenario::from_value(&trial)?.to_model()?;
-    let omegas = crate::exact::frequencies(&inputs.model, inputs.options.modes)?;
-    Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
+
+    /// The elastic frequencies (Hz) with the inputs set to `values`.
+    pub fn frequencies(&self, values: &[f64]) -> Result<Vec<f64>> {
+        let mut trial = self.doc.clone();
+        for (path, v) in self.paths.iter().zip(values) {
+            set(&mut trial, path, *v)?;
+        }
+        let inputs = Scenario::from_value(&trial)?.to_model()?;
+        let hints = self.hints.borrow().clone();
+        let omegas = crate::exact::frequencies_with_hints(&inputs.model, inputs.options.modes, &hints)?;
+        self.hints.replace(omegas.clone());
+        Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
+    }
 }

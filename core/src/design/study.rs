@@ -69,7 +69,8 @@ pub fn study(scenario: &Scenario, solved: &Solved<'_>) -> Result<Design> {
     let all = inputs::all(&doc);
     let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(&doc, &paths, p);
+    let evaluator = inputs::Evaluator::new(&doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     if let Ok(s) = sensitivities(&f, &values) {
         design.inputs = all.iter().map(echo).collect();
         design.sensitivities = s
@@ -147,7 +148,8 @@ fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mu
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = chosen.iter().map(|i| i.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let b = bands(&f, &values, &spreads)?;
     design.bands = b
         .iter()
@@ -234,7 +236,8 @@ fn calibration(scenario: &Scenario, doc: &Value, measured: &[Measured], design: 
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|c| c.0.path.clone()).collect();
     let p0: Vec<f64> = chosen.iter().map(|c| c.0.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let unknowns: Vec<Unknown> =
         chosen.iter().enumerate().map(|(i, c)| Unknown { input: i, low: c.1, high: c.2 }).collect();
     let mut report = CalibrationReport {
@@ -276,7 +279,8 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
     }
     let drives: Vec<Drive> = solved.orders.iter().map(|o| o.drive).collect();
     let path = [input.path.clone()];
-    let f = |p: &[f64]| inputs::frequencies(doc, &path, p);
+    let evaluator = inputs::Evaluator::new(doc, &path);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let clear_today =
         solved.elastic_hz.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, solved.margin)));
     let mut report = ResizeReport {

@@ -180,6 +180,8 @@ mod tests {
             include_str!("../../../docs/scenarios/fan-floor-beam-us.json"),
             include_str!("../../../docs/scenarios/filled-pipe-span.json"),
             include_str!("../../../docs/scenarios/absorber-on-platform-beam.json"),
+            include_str!("../../../docs/scenarios/boom-root-calibration.json"),
+            include_str!("../../../docs/scenarios/floor-beam-variable-fan.json"),
         ];
         for text in scenarios {
             let Ok(report) = super::super::solve_json(text) else { panic!("{text}") };

@@ -44,6 +44,7 @@ fn write(form: &mut Form<'_>, general: String) -> String {
     out.push_str(&rows::segments(form));
     out.push_str(&rows::attachments(form));
     out.push_str(&rows::excitations(form));
+    out.push_str(&super::design_rows::design(form));
     out.push_str(
         "<p class=\"mb-help\">Type each value with its unit, as in 1450 mm, 2.8 kg, 0.283 lb/in³, 30e6 psi, \
          2.5e6 N/m or 1780 rpm; a number without a unit is read as SI. Springs also accept “rigid”.</p>",

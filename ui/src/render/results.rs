@@ -3,7 +3,7 @@
 
 use super::escape::escape;
 use super::number::{self, hz, percent, quantity, rpm, signed_percent};
-use super::{band, echo, plot};
+use super::{band, design, echo, map, plot};
 use modebench::report::ModeReport;
 use modebench::units::Kind;
 use modebench::{Report, Theory};
@@ -42,6 +42,8 @@ pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> Strin
     let mode = chosen_mode(report, view.mode);
     out.push_str(&table(report));
     out.push_str(&warnings(report));
+    out.push_str(&map::map_section(report));
+    out.push_str(&design::design_html(report));
     out.push_str(&band::fundamental(report));
     out.push_str(&plot_area(report, mode));
     out.push_str(&echo::echo(report, &view.open));

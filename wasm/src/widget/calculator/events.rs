@@ -96,6 +96,9 @@ impl Calculator {
                     self.edit(Edit::Remove(list, index), None);
                 }
             }
+            (Some("apply-fit"), _) => self.apply_design(true),
+            (Some("apply-resize"), _) => self.apply_design(false),
+            (Some("undo"), _) => self.undo(),
             (Some("restore"), _) => self.restore(),
             (Some("reopen"), _) => self.reopen(),
             _ => {}
@@ -114,6 +117,34 @@ impl Calculator {
             self.draw_results();
             self.refocus(Some(("data-show-mode", mode.to_string())));
         }
+    }
+
+    /// Writes what the design study proposed (the calibration's fitted values, or the resizing's
+    /// nearest feasible value) into the case as one step that "Undo" takes back.
+    fn apply_design(&mut self, fit: bool) {
+        let Some(report) = self.last.as_ref() else { return };
+        let proposal = if fit {
+            doc::design::fit_changes(&self.doc, report)
+        } else {
+            doc::design::resize_changes(&self.doc, report)
+        };
+        let Some((changes, what)) = proposal else { return };
+        self.history.record(&self.doc, what);
+        self.edit(Edit::Apply(changes), None);
+        self.show_undo();
+        self.refocus(Some(("data-action", "undo".to_string())));
+    }
+
+    /// Takes the newest recorded step back.
+    fn undo(&mut self) {
+        let Some(step) = self.history.undo() else { return };
+        self.edited_at = Some(dom::now());
+        self.doc = step.before;
+        storage::save(&self.key, &self.doc, self.view.mode);
+        self.error = None;
+        self.draw_all();
+        self.start_over();
+        self.show_undo();
     }
 
     /// Forgets the reader's edits and shows the page's example again.

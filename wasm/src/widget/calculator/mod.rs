@@ -37,6 +37,8 @@ pub(super) struct Calculator {
     /// Whether the results on show are still those the page was built with: no report has
     /// come yet to draw in their place (the worker may not have answered, or not in time).
     built_results: bool,
+    /// The steps that "Undo" takes back (a fit or a size applied).
+    history: doc::history::History,
 }
 
 impl Calculator {
@@ -56,6 +58,7 @@ impl Calculator {
             edited_at: None,
             saved,
             built_results: true,
+            history: doc::history::History::default(),
         };
         c.load_example();
         c
@@ -240,6 +243,27 @@ impl Calculator {
             }
             (false, Some(offer)) => offer.remove(),
             _ => {}
+        }
+    }
+
+    /// Shows the undo control under the calculator's head while a step can be taken back, with
+    /// what it would undo, and removes it otherwise.
+    fn show_undo(&self) {
+        let shown = dom::first(&self.root, ".mb-undo-bar");
+        match (self.history.last(), shown) {
+            (Some(step), shown) => {
+                let html = render::undo_html(&step.what);
+                match shown {
+                    Some(bar) => bar.set_outer_html(&html),
+                    None => {
+                        if let Some(head) = dom::first(&self.root, ".mb-head") {
+                            let _ = head.insert_adjacent_html("afterend", &html);
+                        }
+                    }
+                }
+            }
+            (None, Some(bar)) => bar.remove(),
+            (None, None) => {}
         }
     }
 
