@@ -341,3 +341,34 @@ impl<'a> Evaluator<'a> {
         Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use serde_json::json;
+
+    #[test]
+    fn values_go_where_the_scenario_reads_them() {
+        let mut doc = json!({
+            "left": "pinned", "right": "free",
+            "segments": [{ "length": "1.2 m", "section": { "shape": "round", "diameter": "20 mm" }, "material": "steel" }],
+        });
+        let at = |text: &str| FieldPath::parse(text).unwrap_or_default();
+        // A pinned end is translation rigid and rotation free; a preset's modulus is its own.
+        assert_eq!(input_at(&doc, &at("left.rotational")).map(|i| i.value), Ok(0.0));
+        assert_eq!(input_at(&doc, &at("left.translational")).map(|i| i.value), Ok(f64::INFINITY));
+        let e = input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value).unwrap_or(0.0);
+        assert_eq!(Some(e), crate::material::preset("steel").map(|m| m.youngs_modulus));
+        assert_eq!(input_at(&doc, &at("segments[0].section.diameter")).map(|i| i.value), Ok(0.02));
+        // Writing turns them into springs and properties the reader takes back as written.
+        assert!(set(&mut doc, &at("left.rotational"), 5e3).is_ok());
+        assert!(set(&mut doc, &at("segments[0].material.youngs_modulus"), 1.9e11).is_ok());
+        assert_eq!(doc["left"], json!({ "type": "elastic", "translational": "rigid", "rotational": 5e3 }));
+        assert_eq!(input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value), Ok(1.9e11));
+        assert!(Scenario::from_value(&doc).and_then(|s| s.to_model()).is_ok());
+        // What is not a numeric input of the beam is refused with its path.
+        let e = input_at(&doc, &at("segments[0].section.shape")).err().map(|e| e.path.to_string());
+        assert_eq!(e.as_deref(), Some("segments[0].section.shape"));
+        assert!(input_at(&doc, &at("margin")).is_err());
+    }
+}
