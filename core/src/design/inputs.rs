@@ -185,6 +185,17 @@ fn default_value(doc: &Value, path: &FieldPath, field: &Field) -> Result<f64> {
 /// Every numeric input of the beam that the scenario writes (and a preset material's modulus and
 /// density), finite and above zero: the inputs whose logarithmic derivatives mean something.
 pub fn all(doc: &Value) -> Vec<Input> {
+    paths(doc)
+        .iter()
+        .filter_map(|(p, _)| input_at(doc, p).ok())
+        .filter(|i| i.value.is_finite() && i.value > 0.0)
+        .collect()
+}
+
+/// The paths of the numeric inputs of the beam that the scenario writes (and a preset
+/// material's modulus and density), with their fields, without reading their values: what an
+/// editor offers to choose from (the page's engine does without the unit reader).
+pub fn paths(doc: &Value) -> Vec<(FieldPath, &'static Field)> {
     let mut paths = Vec::new();
     let count = |name: &str| doc.get(name).and_then(Value::as_array).map_or(0, Vec::len);
     for i in 0..count("segments") {
@@ -218,11 +229,7 @@ pub fn all(doc: &Value) -> Vec<Input> {
             paths.extend(object_keys(a).into_iter().map(|k| base.key(&k)));
         }
     }
-    paths
-        .iter()
-        .filter_map(|p| input_at(doc, p).ok())
-        .filter(|i| i.value.is_finite() && i.value > 0.0)
-        .collect()
+    paths.into_iter().filter_map(|p| field_at(doc, &p).map(|f| (p, f))).collect()
 }
 
 fn object_keys(v: &Value) -> Vec<String> {

@@ -85,14 +85,21 @@ pub fn apply_changes(doc: &mut Value, changes: &[Change]) -> bool {
 /// The numeric inputs of a case that a design request may name, with words for a list:
 /// ("segments[0].section.wall", "Segment 1: Wall").
 pub fn input_choices(doc: &Value) -> Vec<(String, String)> {
-    inputs::all(doc)
+    inputs::paths(doc)
         .into_iter()
-        .map(|i| {
-            let path = i.path.to_string();
-            let words = format!("{}: {}", owner(&path), i.field.label);
+        .map(|(p, field)| {
+            let path = p.to_string();
+            let words = format!("{}: {}", owner(&path), field.label);
             (path, words)
         })
         .collect()
+}
+
+/// An input's value and kind as the last report read them (the page's engine does not read
+/// units itself); `None` before a report, or for an input the report does not list.
+fn reported(last: Option<&Report>, path: &str) -> Option<(f64, Kind)> {
+    let input = last?.design.inputs.iter().find(|i| i.path == path)?;
+    Some((input.value?, input.kind))
 }
 
 /// Who an input belongs to, in words: "Segment 1", "Attachment 2", "Left end".
@@ -119,7 +126,7 @@ pub fn owner(path: &str) -> String {
 /// quarter to four times the first input's value.
 pub fn new_row(doc: &Value, list: super::List, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
-    let first = inputs::all(doc).into_iter().next();
+    let first = last.and_then(|r| r.design.inputs.first());
     let mut row = serde_json::Map::new();
     let text = |s: String| Value::String(s);
     match list {
@@ -132,14 +139,16 @@ pub fn new_row(doc: &Value, list: super::List, last: Option<&Report>) -> Value {
         }
         super::List::Calibrate => {
             if let Some(i) = first {
-                row.insert("field".into(), text(i.path.to_string()));
-                row.insert("from".into(), text(text_of(i.value / 4.0, i.field.kind, system)));
-                row.insert("to".into(), text(text_of(i.value * 4.0, i.field.kind, system)));
+                row.insert("field".into(), text(i.path.clone()));
+                if let Some(v) = i.value {
+                    row.insert("from".into(), text(text_of(v / 4.0, i.kind, system)));
+                    row.insert("to".into(), text(text_of(v * 4.0, i.kind, system)));
+                }
             }
         }
         _ => {
             if let Some(i) = first {
-                row.insert("field".into(), text(i.path.to_string()));
+                row.insert("field".into(), text(i.path.clone()));
             }
             row.insert("plus_minus".into(), text("5 %".into()));
         }
@@ -150,7 +159,7 @@ pub fn new_row(doc: &Value, list: super::List, last: Option<&Report>) -> Value {
 /// Chose the input a design request names: an end in a tolerance ranges from pinned to
 /// clamped; any other input keeps the request's spread (± 5 % for a tolerance that had an
 /// end's names) and, for a range, starts from a quarter to four times its value.
-pub fn choose_input(doc: &mut Value, parent: &str, value: &str) {
+pub fn choose_input(doc: &mut Value, parent: &str, value: &str, last: Option<&Report>) {
     let field = format!("{parent}.field");
     path::set(doc, &field, Value::String(value.to_string()));
     let is_tolerance = parent.starts_with("tolerances");
@@ -173,29 +182,23 @@ pub fn choose_input(doc: &mut Value, parent: &str, value: &str) {
         path::set(doc, &format!("{parent}.plus_minus"), Value::String("5 %".into()));
         return;
     }
-    let Some(input) = FieldPath::parse(value).and_then(|p| inputs::input_at(doc, &p).ok()) else { return };
-    if !is_tolerance && input.value.is_finite() && input.value > 0.0 {
-        path::set(
-            doc,
-            &format!("{parent}.from"),
-            Value::String(text_of(input.value / 4.0, input.field.kind, system)),
-        );
-        path::set(
-            doc,
-            &format!("{parent}.to"),
-            Value::String(text_of(input.value * 4.0, input.field.kind, system)),
-        );
+    let Some((v, kind)) = reported(last, value) else { return };
+    if !is_tolerance && v.is_finite() && v > 0.0 {
+        path::set(doc, &format!("{parent}.from"), Value::String(text_of(v / 4.0, kind, system)));
+        path::set(doc, &format!("{parent}.to"), Value::String(text_of(v * 4.0, kind, system)));
     }
 }
 
 /// A new resizing request: the first input, from half to twice its value.
-pub fn new_resize(doc: &Value) -> Value {
+pub fn new_resize(doc: &Value, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
     let mut row = serde_json::Map::new();
-    if let Some(i) = inputs::all(doc).into_iter().next() {
-        row.insert("field".into(), Value::String(i.path.to_string()));
-        row.insert("from".into(), Value::String(text_of(i.value / 2.0, i.field.kind, system)));
-        row.insert("to".into(), Value::String(text_of(i.value * 2.0, i.field.kind, system)));
+    if let Some(i) = last.and_then(|r| r.design.inputs.first()) {
+        row.insert("field".into(), Value::String(i.path.clone()));
+        if let Some(v) = i.value {
+            row.insert("from".into(), Value::String(text_of(v / 2.0, i.kind, system)));
+            row.insert("to".into(), Value::String(text_of(v * 2.0, i.kind, system)));
+        }
     }
     Value::Object(row)
 }

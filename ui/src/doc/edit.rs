@@ -108,10 +108,10 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
     let system = super::unit_system(doc);
     match edit {
         Edit::Text { path, text } => set_text(doc, path, text),
-        Edit::Choose { path, value } => choose(doc, path, value, system),
+        Edit::Choose { path, value } => choose(doc, path, value, system, last),
         Edit::Tick { path: p, on: true } if p == "resize" => {
             if path::get(doc, p).is_none() {
-                let row = super::design::new_resize(doc);
+                let row = super::design::new_resize(doc, last);
                 path::set(doc, p, row);
             }
         }
@@ -169,7 +169,7 @@ fn set_text(doc: &mut Value, path: &str, text: &str) {
     path::set(doc, path, value);
 }
 
-fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
+fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem, last: Option<&Report>) {
     let (parent, key) = split_key(path);
     match key {
         "left" | "right" if parent.is_empty() => {
@@ -184,7 +184,7 @@ fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
         "type" => retype(doc, parent, value, system),
         "shape" => reshape(doc, parent, value),
         "material" => material(doc, path, value, system),
-        "field" => super::design::choose_input(doc, parent, value),
+        "field" => super::design::choose_input(doc, parent, value, last),
         _ => {
             path::set(doc, path, Value::String(value.to_string()));
         }
