@@ -45,9 +45,8 @@ pub struct Solved<'a> {
 }
 
 /// Runs the design study of a scenario.
-pub fn study(scenario: &Scenario, solved: &Solved<'_>) -> Result<Design> {
-    let doc = serde_json::to_value(scenario)
-        .map_err(|e| Error::new(ErrorKind::Model, format!("the scenario could not be copied: {e}")))?;
+pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<Design> {
+    let doc = doc.clone();
     let drives = solved
         .orders
         .iter()

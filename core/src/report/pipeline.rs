@@ -8,7 +8,7 @@ use crate::scenario::Scenario;
 
 /// Reads, checks and solves a scenario given as parsed JSON.
 pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
-    solve(&Scenario::from_value(value)?)
+    solve_with(&Scenario::from_value(value)?, value)
 }
 
 /// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
@@ -27,11 +27,20 @@ pub fn frequencies_value(value: &serde_json::Value) -> Result<Vec<f64>> {
 
 /// Reads, checks and solves a scenario given as JSON text.
 pub fn solve_json(text: &str) -> Result<Report> {
-    solve(&Scenario::from_json(text)?)
+    solve_value(&crate::scenario::text::read(text)?)
 }
 
 /// Reads, checks and solves a scenario.
 pub fn solve(scenario: &Scenario) -> Result<Report> {
+    let doc = serde_json::to_value(scenario)
+        .map_err(|e| Error::new(ErrorKind::Model, format!("the scenario could not be copied: {e}")))?;
+    solve_with(scenario, &doc)
+}
+
+/// Solves a scenario read from `doc`, the JSON it was read from, which the design study writes
+/// trial values into (the browser's worker solves from JSON, so it never writes a scenario back
+/// out to JSON).
+fn solve_with(scenario: &Scenario, doc: &serde_json::Value) -> Result<Report> {
     let inputs = scenario.to_model()?;
     let model = &inputs.model;
     let analysis = analysis::analyse(model, &inputs.options)?;
@@ -51,6 +60,7 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
     let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
     let design = crate::design::study(
         scenario,
+        doc,
         &crate::design::study::Solved {
             elastic_hz: &elastic_hz,
             rigid: analysis.rigid_body_modes,
