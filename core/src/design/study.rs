@@ -32,6 +32,11 @@ fn echo(input: &Input) -> InputEcho {
     }
 }
 
+/// The most inputs × modes whose sensitivities are found on every solve: the budgeted case (20
+/// inputs, 10 modes) with room to spare; a model of hundreds of attachments would otherwise make
+/// every edit wait for thousands of solves.
+const MOST_SENSITIVITIES: usize = 400;
+
 /// What the study needs of the solved scenario.
 pub struct Solved<'a> {
     /// The elastic frequencies, Hz.
@@ -70,7 +75,16 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
     let evaluator = inputs::Evaluator::new(&doc, &paths);
     let f = |p: &[f64]| evaluator.frequencies(p);
-    if let Ok(s) = sensitivities(&f, &values) {
+    let work = all.len() * solved.elastic_hz.len();
+    if work > MOST_SENSITIVITIES {
+        design.notes.push(format!(
+            "What moves each mode is left out: {} inputs and {} modes would take {} extra solves on every edit. \
+             Fewer modes, or fewer attachments (lump the small ones), bring it back.",
+            all.len(),
+            solved.elastic_hz.len(),
+            2 * all.len()
+        ));
+    } else if let Ok(s) = sensitivities(&f, &values) {
         design.inputs = all.iter().map(echo).collect();
         design.sensitivities = s
             .into_iter()

@@ -157,7 +157,7 @@ fields! {
 
 // The design study.
 fields! {
-    Design { inputs, sensitivities, tolerances, bands, measured, calibration, resize, drives }
+    Design { inputs, sensitivities, tolerances, bands, measured, calibration, resize, drives, notes }
     InputEcho { path, label, kind, value }
     ModeSensitivity { mode, per_input }
     ToleranceEcho { input, plus_minus, low, high }

@@ -52,7 +52,7 @@ fn value(v: Option<f64>, input: &InputEcho, system: UnitSystem) -> String {
 
 /// The whole design section, or nothing when the report has nothing to show there.
 pub(crate) fn design_html(report: &Report) -> String {
-    let mut out = String::new();
+    let mut out = notes(&report.design.notes);
     out.push_str(&moves(report));
     out.push_str(&bands(report));
     out.push_str(&calibration(report));

@@ -84,8 +84,7 @@ fn table(report: &Report) -> String {
     );
     if has_excitations {
         out.push_str(&format!(
-            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (f − f<sub>e</sub>)/f<sub>e</sub> \
-             (want ≥ {} either side)</th>",
+            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (want ≥ {})</th>",
             percent(report.margin, 3)
         ));
     }
@@ -192,7 +191,7 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
                 let side = match s.separation {
                     v if v < 0.0 => "below",
                     v if v > 0.0 => "above",
-                    _ => "inside the range",
+                    _ => "inside",
                 };
                 let band = s
                     .band_separation
