@@ -36,7 +36,7 @@ pub mod report;
 pub mod scenario;
 
 pub use report::{
-    frequencies_value, solve, solve_json, solve_value, solve_value_with_hints, solve_with_hints, Report,
+    frequencies_value, solve, solve_json, solve_value, solve_value_with_hints, Report,
 };
 pub use scenario::Scenario;
 mod sort;

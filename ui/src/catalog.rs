@@ -23,7 +23,7 @@ pub(crate) fn chosen(
 
 /// Every field the schema describes, choices' fields included.
 fn every_field() -> impl Iterator<Item = &'static Field> {
-    let lists: [&'static [Field]; 10] = [
+    let lists: [&'static [Field]; 14] = [
         &schema::AXIAL_FIELDS,
         &schema::SCENARIO,
         &schema::SEGMENT,
@@ -33,6 +33,10 @@ fn every_field() -> impl Iterator<Item = &'static Field> {
         &SUBMERGED_FIELDS,
         &schema::ATTACHMENT_FIELDS,
         &schema::EXCITATION_FIELDS,
+        &schema::TOLERANCE_FIELDS,
+        &schema::MEASURED_FIELDS,
+        &schema::CALIBRATE_FIELDS,
+        &schema::RESIZE_FIELDS,
         &[],
     ];
     let choices = SHAPES.iter().chain(&ATTACHMENTS).chain(&ENDS).flat_map(|c| c.fields.iter());

@@ -49,3 +49,65 @@ fn solving_and_drawing_an_example_is_quick() {
         }
     }
 }
+
+/// The design tools in WebAssembly, on a stepped floor beam given by properties with two masses
+/// and an elastic end (20 numeric inputs, 10 modes): what moves each mode (budget 20 ms) and a
+/// 200-point resizing sweep with its edges refined (budget 200 ms). Printed; checked only when
+/// asked for, on an optimised build, as above.
+#[wasm_bindgen_test]
+fn the_design_tools_are_quick_enough_for_the_worker() {
+    use modebench::design::{inputs, margin::Drive, resize, sensitivity};
+    use modebench::FieldPath;
+    let Ok(doc) = doc::read(
+        r#"{ "modes": 10, "left": { "type": "elastic", "translational": 5e7, "rotational": 2e5 }, "right": "pinned",
+        "segments": [
+          { "length": 1.5, "flexural_rigidity": 4e6, "mass_per_length": 40 },
+          { "length": 2.0, "flexural_rigidity": 2.5e6, "mass_per_length": 32 },
+          { "length": 1.5, "flexural_rigidity": 4e6, "mass_per_length": 40 },
+          { "length": 1.0, "flexural_rigidity": 3e6, "mass_per_length": 36 } ],
+        "attachments": [
+          { "type": "mass", "position": 1.3, "mass": 30, "rotary_inertia": 0.4 },
+          { "type": "mass", "position": 4.0, "mass": 20, "rotary_inertia": 0.2 } ] }"#,
+    ) else {
+        panic!("the bench scenario is JSON")
+    };
+    let all = inputs::all(&doc);
+    assert_eq!(all.len(), 20);
+    let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
+    let values: Vec<f64> = all.iter().map(|i| i.value).collect();
+    let runs = if cfg!(debug_assertions) { 1 } else { 7 };
+    let mut times = Vec::new();
+    for _ in 0..runs {
+        let evaluator = inputs::Evaluator::new(&doc, &paths);
+        let start = js_sys::Date::now();
+        let s = sensitivity::sensitivities(&|p: &[f64]| evaluator.frequencies(p), &values);
+        times.push(js_sys::Date::now() - start);
+        assert!(s.is_ok());
+    }
+    let sensitivities = median(&mut times);
+    let ei = [FieldPath::item("segments", 1).key("flexural_rigidity")];
+    let drives = [Drive::Band { low_hz: 10.0, high_hz: 30.0 }, Drive::Line { hz: 100.0 }];
+    let mut times = Vec::new();
+    for _ in 0..runs.min(3) {
+        let evaluator = inputs::Evaluator::new(&doc, &ei);
+        let start = js_sys::Date::now();
+        let r = resize::resize(
+            &|p: &[f64]| evaluator.frequencies(p),
+            &[2.5e6],
+            0,
+            (5e5, 2e7),
+            &drives,
+            0.15,
+            200,
+        );
+        times.push(js_sys::Date::now() - start);
+        assert!(r.is_ok());
+    }
+    let sweep = median(&mut times);
+    console_log!(
+        "design: sensitivities of 10 modes to 20 inputs {sensitivities:.1} ms; 200-point sweep {sweep:.1} ms"
+    );
+    if option_env!("MODEBENCH_CHECK_TIMING") == Some("1") && !cfg!(debug_assertions) {
+        assert!(sensitivities < 20.0 && sweep < 200.0, "{sensitivities} ms, {sweep} ms");
+    }
+}

@@ -185,6 +185,17 @@ fn default_value(doc: &Value, path: &FieldPath, field: &Field) -> Result<f64> {
 /// Every numeric input of the beam that the scenario writes (and a preset material's modulus and
 /// density), finite and above zero: the inputs whose logarithmic derivatives mean something.
 pub fn all(doc: &Value) -> Vec<Input> {
+    paths(doc)
+        .iter()
+        .filter_map(|(p, _)| input_at(doc, p).ok())
+        .filter(|i| i.value.is_finite() && i.value > 0.0)
+        .collect()
+}
+
+/// The paths of the numeric inputs of the beam that the scenario writes (and a preset
+/// material's modulus and density), with their fields, without reading their values: what an
+/// editor offers to choose from (the page's engine does without the unit reader).
+pub fn paths(doc: &Value) -> Vec<(FieldPath, &'static Field)> {
     let mut paths = Vec::new();
     let count = |name: &str| doc.get(name).and_then(Value::as_array).map_or(0, Vec::len);
     for i in 0..count("segments") {
@@ -218,11 +229,7 @@ pub fn all(doc: &Value) -> Vec<Input> {
             paths.extend(object_keys(a).into_iter().map(|k| base.key(&k)));
         }
     }
-    paths
-        .iter()
-        .filter_map(|p| input_at(doc, p).ok())
-        .filter(|i| i.value.is_finite() && i.value > 0.0)
-        .collect()
+    paths.into_iter().filter_map(|p| field_at(doc, &p).map(|f| (p, f))).collect()
 }
 
 fn object_keys(v: &Value) -> Vec<String> {
@@ -308,11 +315,67 @@ fn spring(v: f64) -> Value {
 /// The first `modes` elastic natural frequencies (Hz) of a scenario with the inputs at `paths`
 /// set to `values`.
 pub fn frequencies(doc: &Value, paths: &[FieldPath], values: &[f64]) -> Result<Vec<f64>> {
-    let mut trial = doc.clone();
-    for (path, v) in paths.iter().zip(values) {
-        set(&mut trial, path, *v)?;
+    Evaluator::new(doc, paths).frequencies(values)
+}
+
+/// The frequencies of a scenario as functions of some of its inputs, each solve started from the
+/// frequencies of the one before: the design tools try values close to each other (a central
+/// difference, the next point of a sweep, a bisection), and the root finder that is handed
+/// nearby frequencies isolates them in a fraction of the work. Its answers are the same roots,
+/// found by the same count and polished to the same tolerance.
+pub struct Evaluator<'a> {
+    doc: &'a Value,
+    paths: &'a [FieldPath],
+    hints: std::cell::RefCell<Vec<f64>>,
+}
+
+impl<'a> Evaluator<'a> {
+    /// The evaluator of the inputs at `paths` of `doc`.
+    pub fn new(doc: &'a Value, paths: &'a [FieldPath]) -> Evaluator<'a> {
+        Evaluator { doc, paths, hints: std::cell::RefCell::new(Vec::new()) }
     }
-    let inputs = Scenario::from_value(&trial)?.to_model()?;
-    let omegas = crate::exact::frequencies(&inputs.model, inputs.options.modes)?;
-    Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
+
+    /// The elastic frequencies (Hz) with the inputs set to `values`.
+    pub fn frequencies(&self, values: &[f64]) -> Result<Vec<f64>> {
+        let mut trial = self.doc.clone();
+        for (path, v) in self.paths.iter().zip(values) {
+            set(&mut trial, path, *v)?;
+        }
+        let inputs = Scenario::from_value(&trial)?.to_model()?;
+        let hints = self.hints.borrow().clone();
+        let omegas = crate::exact::frequencies_with_hints(&inputs.model, inputs.options.modes, &hints)?;
+        self.hints.replace(omegas.clone());
+        Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use serde_json::json;
+
+    #[test]
+    fn values_go_where_the_scenario_reads_them() {
+        let mut doc = json!({
+            "left": "pinned", "right": "free",
+            "segments": [{ "length": "1.2 m", "section": { "shape": "round", "diameter": "20 mm" }, "material": "steel" }],
+        });
+        let at = |text: &str| FieldPath::parse(text).unwrap_or_default();
+        // A pinned end is translation rigid and rotation free; a preset's modulus is its own.
+        assert_eq!(input_at(&doc, &at("left.rotational")).map(|i| i.value), Ok(0.0));
+        assert_eq!(input_at(&doc, &at("left.translational")).map(|i| i.value), Ok(f64::INFINITY));
+        let e = input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value).unwrap_or(0.0);
+        assert_eq!(Some(e), crate::material::preset("steel").map(|m| m.youngs_modulus));
+        assert_eq!(input_at(&doc, &at("segments[0].section.diameter")).map(|i| i.value), Ok(0.02));
+        // Writing turns them into springs and properties the reader takes back as written.
+        assert!(set(&mut doc, &at("left.rotational"), 5e3).is_ok());
+        assert!(set(&mut doc, &at("segments[0].material.youngs_modulus"), 1.9e11).is_ok());
+        assert_eq!(doc["left"], json!({ "type": "elastic", "translational": "rigid", "rotational": 5e3 }));
+        assert_eq!(input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value), Ok(1.9e11));
+        assert!(Scenario::from_value(&doc).and_then(|s| s.to_model()).is_ok());
+        // What is not a numeric input of the beam is refused with its path.
+        let e = input_at(&doc, &at("segments[0].section.shape")).err().map(|e| e.path.to_string());
+        assert_eq!(e.as_deref(), Some("segments[0].section.shape"));
+        assert!(input_at(&doc, &at("margin")).is_err());
+    }
 }

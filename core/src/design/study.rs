@@ -32,6 +32,11 @@ fn echo(input: &Input) -> InputEcho {
     }
 }
 
+/// The most inputs × modes whose sensitivities are found on every solve: the budgeted case (20
+/// inputs, 10 modes) with room to spare; a model of hundreds of attachments would otherwise make
+/// every edit wait for thousands of solves.
+const MOST_SENSITIVITIES: usize = 400;
+
 /// What the study needs of the solved scenario.
 pub struct Solved<'a> {
     /// The elastic frequencies, Hz.
@@ -45,9 +50,8 @@ pub struct Solved<'a> {
 }
 
 /// Runs the design study of a scenario.
-pub fn study(scenario: &Scenario, solved: &Solved<'_>) -> Result<Design> {
-    let doc = serde_json::to_value(scenario)
-        .map_err(|e| Error::new(ErrorKind::Model, format!("the scenario could not be copied: {e}")))?;
+pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<Design> {
+    let doc = doc.clone();
     let drives = solved
         .orders
         .iter()
@@ -69,8 +73,18 @@ pub fn study(scenario: &Scenario, solved: &Solved<'_>) -> Result<Design> {
     let all = inputs::all(&doc);
     let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(&doc, &paths, p);
-    if let Ok(s) = sensitivities(&f, &values) {
+    let evaluator = inputs::Evaluator::new(&doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
+    let work = all.len() * solved.elastic_hz.len();
+    if work > MOST_SENSITIVITIES {
+        design.notes.push(format!(
+            "What moves each mode is left out: {} inputs and {} modes would take {} extra solves on every edit. \
+             Fewer modes, or fewer attachments (lump the small ones), bring it back.",
+            all.len(),
+            solved.elastic_hz.len(),
+            2 * all.len()
+        ));
+    } else if let Ok(s) = sensitivities(&f, &values) {
         design.inputs = all.iter().map(echo).collect();
         design.sensitivities = s
             .into_iter()
@@ -147,7 +161,8 @@ fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mu
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = chosen.iter().map(|i| i.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let b = bands(&f, &values, &spreads)?;
     design.bands = b
         .iter()
@@ -234,7 +249,8 @@ fn calibration(scenario: &Scenario, doc: &Value, measured: &[Measured], design: 
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|c| c.0.path.clone()).collect();
     let p0: Vec<f64> = chosen.iter().map(|c| c.0.value).collect();
-    let f = |p: &[f64]| inputs::frequencies(doc, &paths, p);
+    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let unknowns: Vec<Unknown> =
         chosen.iter().enumerate().map(|(i, c)| Unknown { input: i, low: c.1, high: c.2 }).collect();
     let mut report = CalibrationReport {
@@ -276,7 +292,8 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
     }
     let drives: Vec<Drive> = solved.orders.iter().map(|o| o.drive).collect();
     let path = [input.path.clone()];
-    let f = |p: &[f64]| inputs::frequencies(doc, &path, p);
+    let evaluator = inputs::Evaluator::new(doc, &path);
+    let f = |p: &[f64]| evaluator.frequencies(p);
     let clear_today =
         solved.elastic_hz.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, solved.margin)));
     let mut report = ResizeReport {

@@ -26,6 +26,8 @@ pub struct Design {
     pub resize: Option<ResizeReport>,
     /// Every order of every excitation: where it drives and what the margin forbids.
     pub drives: Vec<DriveEcho>,
+    /// What the engineer should know about the study (what was left out, and why).
+    pub notes: Vec<String>,
 }
 
 /// A numeric input.

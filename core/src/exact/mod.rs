@@ -92,12 +92,14 @@ pub fn modes_with_hints(model: &Model, elastic: usize, hints: &[f64]) -> Result<
 
 /// The first `elastic` natural angular frequencies (rad/s) above the rigid-body modes, ascending,
 /// without mode shapes. A repeated frequency appears once per multiplicity.
+#[inline(never)]
 pub fn frequencies(model: &Model, elastic: usize) -> Result<Vec<f64>> {
     Ok(roots_of(model, elastic)?.iter().map(|r| r.omega).collect())
 }
 
 /// As [`frequencies`], probing `hints` first: frequencies near the ones sought (another theory's
 /// or an earlier solve's) save most of the work of isolating them; poor ones cost a probe each.
+#[inline(never)]
 pub fn frequencies_with_hints(model: &Model, elastic: usize, hints: &[f64]) -> Result<Vec<f64>> {
     Ok(search(model, elastic, hints)?.0.iter().map(|r| r.omega).collect())
 }

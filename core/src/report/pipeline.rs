@@ -8,7 +8,7 @@ use crate::scenario::Scenario;
 
 /// Reads, checks and solves a scenario given as parsed JSON.
 pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
-    solve(&Scenario::from_value(value)?)
+    solve_with(&Scenario::from_value(value)?, value, &[])
 }
 
 /// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
@@ -27,12 +27,14 @@ pub fn frequencies_value(value: &serde_json::Value) -> Result<Vec<f64>> {
 
 /// Reads, checks and solves a scenario given as JSON text.
 pub fn solve_json(text: &str) -> Result<Report> {
-    solve(&Scenario::from_json(text)?)
+    solve_value(&crate::scenario::text::read(text)?)
 }
 
 /// Reads, checks and solves a scenario.
 pub fn solve(scenario: &Scenario) -> Result<Report> {
-    solve_with_hints(scenario, &[])
+    let doc = serde_json::to_value(scenario)
+        .map_err(|e| Error::new(ErrorKind::Model, format!("the scenario could not be copied: {e}")))?;
+    solve_with(scenario, &doc, &[])
 }
 
 /// Reads, checks and solves a scenario given as parsed JSON, starting the search from the
@@ -40,11 +42,13 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
 /// The results are those of [`solve_value`] to within the root search's tolerance, whatever the
 /// hints: every frequency is still isolated by the count.
 pub fn solve_value_with_hints(value: &serde_json::Value, hints_hz: &[f64]) -> Result<Report> {
-    solve_with_hints(&Scenario::from_value(value)?, hints_hz)
+    solve_with(&Scenario::from_value(value)?, value, hints_hz)
 }
 
-/// As [`solve`], with hints (Hz) as for [`solve_value_with_hints`].
-pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report> {
+/// Solves a scenario read from `doc`, the JSON it was read from, which the design study writes
+/// trial values into (the browser's worker solves from JSON, so it never writes a scenario back
+/// out to JSON), starting from hints (Hz) as for [`solve_value_with_hints`].
+fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) -> Result<Report> {
     let inputs = scenario.to_model()?;
     let model = &inputs.model;
     let hints: Vec<f64> = hints_hz.iter().map(|f| f * std::f64::consts::TAU).collect();
@@ -65,6 +69,7 @@ pub fn solve_with_hints(scenario: &Scenario, hints_hz: &[f64]) -> Result<Report>
     let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
     let design = crate::design::study(
         scenario,
+        doc,
         &crate::design::study::Solved {
             elastic_hz: &elastic_hz,
             rigid: analysis.rigid_body_modes,

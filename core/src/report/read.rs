@@ -157,7 +157,7 @@ fields! {
 
 // The design study.
 fields! {
-    Design { inputs, sensitivities, tolerances, bands, measured, calibration, resize, drives }
+    Design { inputs, sensitivities, tolerances, bands, measured, calibration, resize, drives, notes }
     InputEcho { path, label, kind, value }
     ModeSensitivity { mode, per_input }
     ToleranceEcho { input, plus_minus, low, high }
@@ -182,6 +182,8 @@ mod tests {
             include_str!("../../../docs/scenarios/absorber-on-platform-beam.json"),
             include_str!("../../../docs/scenarios/pump-discharge-valve-us.json"),
             include_str!("../../../docs/scenarios/hot-line-between-anchors.json"),
+            include_str!("../../../docs/scenarios/boom-root-calibration.json"),
+            include_str!("../../../docs/scenarios/floor-beam-variable-fan.json"),
         ];
         for text in scenarios {
             let Ok(report) = super::super::solve_json(text) else { panic!("{text}") };

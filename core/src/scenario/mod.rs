@@ -185,7 +185,8 @@ impl Scenario {
         Scenario::from_value(&text::read(text)?)
     }
 
-    /// Reads a scenario from parsed JSON.
+    /// Reads a scenario from parsed JSON (never inlined, as `to_model`).
+    #[inline(never)]
     pub fn from_value(value: &serde_json::Value) -> Result<Scenario> {
         parse::scenario(&json::Node::root(value))
     }

@@ -106,6 +106,9 @@ impl Reader {
 
 impl Scenario {
     /// Reads every value, checks the model, and returns it with the options and an echo.
+    /// Never inlined: the solve and the design study's trials both call it, and the worker's
+    /// engine, built for speed, would otherwise carry the whole reader twice.
+    #[inline(never)]
     pub fn to_model(&self) -> Result<Inputs> {
         let mut r = Reader::default();
         let mut segments = Vec::with_capacity(self.segments.len());

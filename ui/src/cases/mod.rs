@@ -301,6 +301,9 @@ pub fn undo_words(edit: &Edit) -> Option<String> {
                 List::Segments => "segment",
                 List::Attachments => "attachment",
                 List::Excitations => "excitation",
+                List::Tolerances => "tolerance",
+                List::Measured => "measured frequency",
+                List::Calibrate => "calibrated input",
             };
             Some(format!("remove {row} {}", index + 1))
         }
@@ -311,6 +314,7 @@ pub fn undo_words(edit: &Edit) -> Option<String> {
             matches!(key, "type" | "shape" | "material" | "left" | "right")
                 .then(|| format!("change “{}”", words(path)))
         }
-        Edit::Text { .. } | Edit::Add(_) | Edit::Tick { on: true, .. } => None,
+        // A fit or a size applied is recorded, with its own words, where it is applied.
+        Edit::Text { .. } | Edit::Add(_) | Edit::Tick { on: true, .. } | Edit::Apply(_) => None,
     }
 }

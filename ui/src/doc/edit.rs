@@ -19,6 +19,12 @@ pub enum List {
     Attachments,
     /// `excitations`.
     Excitations,
+    /// `tolerances`.
+    Tolerances,
+    /// `measured`.
+    Measured,
+    /// `calibrate`.
+    Calibrate,
 }
 
 impl List {
@@ -28,12 +34,24 @@ impl List {
             List::Segments => "segments",
             List::Attachments => "attachments",
             List::Excitations => "excitations",
+            List::Tolerances => "tolerances",
+            List::Measured => "measured",
+            List::Calibrate => "calibrate",
         }
     }
 
     /// The list for a scenario key.
     pub fn from_key(key: &str) -> Option<List> {
-        [List::Segments, List::Attachments, List::Excitations].into_iter().find(|l| l.key() == key)
+        [
+            List::Segments,
+            List::Attachments,
+            List::Excitations,
+            List::Tolerances,
+            List::Measured,
+            List::Calibrate,
+        ]
+        .into_iter()
+        .find(|l| l.key() == key)
     }
 }
 
@@ -72,6 +90,8 @@ pub enum Edit {
     Add(List),
     /// Removed a row.
     Remove(List, usize),
+    /// Wrote values the design study proposed (a fit, a size), as one step.
+    Apply(Vec<super::design::Change>),
 }
 
 impl Edit {
@@ -88,7 +108,13 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
     let system = super::unit_system(doc);
     match edit {
         Edit::Text { path, text } => set_text(doc, path, text),
-        Edit::Choose { path, value } => choose(doc, path, value, system),
+        Edit::Choose { path, value } => choose(doc, path, value, system, last),
+        Edit::Tick { path: p, on: true } if p == "resize" => {
+            if path::get(doc, p).is_none() {
+                let row = super::design::new_resize(doc, last);
+                path::set(doc, p, row);
+            }
+        }
         Edit::Tick { path: p, on: true } => {
             if path::get(doc, p).is_none() {
                 path::set(doc, p, Value::Object(Map::new()));
@@ -98,6 +124,9 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
             path::remove(doc, p);
         }
         Edit::SegmentBy { index, by } => segment_by(doc, *index, by, system, last),
+        Edit::Apply(changes) => {
+            super::design::apply_changes(doc, changes);
+        }
         Edit::Add(list) => add(doc, *list, system, last),
         Edit::Remove(list, index) => {
             // A beam keeps at least one segment; the editor offers no remove button then.
@@ -140,7 +169,7 @@ fn set_text(doc: &mut Value, path: &str, text: &str) {
     path::set(doc, path, value);
 }
 
-fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
+fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem, last: Option<&Report>) {
     let (parent, key) = split_key(path);
     match key {
         "left" | "right" if parent.is_empty() => {
@@ -157,6 +186,7 @@ fn choose(doc: &mut Value, path: &str, value: &str, system: UnitSystem) {
         "nominal_size" | "schedule" => pipe_size(doc, parent, key, value),
         "contents" => contents(doc, parent, value),
         "material" => material(doc, path, value, system),
+        "field" => super::design::choose_input(doc, parent, value, last),
         _ => {
             path::set(doc, path, Value::String(value.to_string()));
         }
@@ -340,6 +370,7 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
             text_object(&[("type", "mass"), ("position", &middle.unwrap_or_default()), ("mass", d.mass)])
         }
         List::Excitations => text_object(&[("label", ""), ("frequency", d.frequency)]),
+        List::Tolerances | List::Measured | List::Calibrate => super::design::new_row(doc, list, last),
     };
     if let Some(object) = doc.as_object_mut() {
         let rows = object.entry(list.key()).or_insert_with(|| Value::Array(Vec::new()));

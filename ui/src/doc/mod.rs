@@ -4,6 +4,7 @@
 //! because what is typed may not parse yet; core reads the text and says what is wrong, with the
 //! field path the editor uses to put the message beside the field.
 
+pub mod design;
 mod edit;
 pub mod history;
 pub mod path;
@@ -62,6 +63,12 @@ fn check_whole_numbers(doc: &Value) -> Result<(), Error> {
         (0..count)
             .map(|i| (FieldPath::item("excitations", i).key(schema::HARMONICS.name), &schema::HARMONICS)),
     );
+    // The design requests' whole numbers: a measured mode's number and a resizing's points.
+    let measured = doc.get("measured").and_then(Value::as_array).map_or(0, Vec::len);
+    let [mode, _] = &schema::MEASURED_FIELDS;
+    fields.extend((0..measured).map(|i| (FieldPath::item("measured", i).key(mode.name), mode)));
+    let points = &schema::RESIZE_FIELDS[3];
+    fields.push((FieldPath::root().key("resize").key(points.name), points));
     for (place, field) in fields {
         if let Some(Value::String(text)) = path::get(doc, &place.to_string()) {
             let message = format!("{} must be {}", field.what, field.allowed());

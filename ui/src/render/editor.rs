@@ -44,6 +44,7 @@ fn write(form: &mut Form<'_>, general: String) -> String {
     out.push_str(&rows::segments(form));
     out.push_str(&rows::attachments(form));
     out.push_str(&rows::excitations(form));
+    out.push_str(&super::design_rows::design(form));
     out.push_str(
         "<p class=\"mb-help\">A number typed alone is read in the unit shown beside its field, which follows the \
          units chosen above (a frequency field keeps rpm once it holds rpm). Any other unit may be typed with the \

@@ -7,11 +7,14 @@
 //! without a guard, so "NaN", "inf" and "undefined" never reach the page.
 
 mod band;
+mod design;
+mod design_rows;
 mod echo;
 mod editor;
 mod errors;
 mod escape;
 mod form;
+mod map;
 mod number;
 mod offer;
 mod plot;
@@ -80,6 +83,15 @@ pub fn calculator_inner(
         summary_html(report, error.is_some()),
         results_html(report, error.is_some(), view),
         caution_html()
+    )
+}
+
+/// The control that takes back the newest recorded step ("Undo: use the fitted value").
+pub fn undo_html(what: &str) -> String {
+    format!(
+        "<p class=\"mb-undo-bar\" role=\"status\"><button type=\"button\" class=\"mb-button mb-undo\" \
+         data-action=\"undo\">Undo: {}</button></p>",
+        escape(what)
     )
 }
 

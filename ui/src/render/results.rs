@@ -3,7 +3,7 @@
 
 use super::escape::escape;
 use super::number::{self, hz, percent, quantity, rpm, signed_percent};
-use super::{band, echo, plot};
+use super::{band, design, echo, map, plot};
 use modebench::report::ModeReport;
 use modebench::units::Kind;
 use modebench::{Report, Theory};
@@ -42,6 +42,8 @@ pub fn results_inner(report: Option<&Report>, stale: bool, view: &View) -> Strin
     let mode = chosen_mode(report, view.mode);
     out.push_str(&table(report));
     out.push_str(&warnings(report));
+    out.push_str(&map::map_section(report));
+    out.push_str(&design::design_html(report));
     out.push_str(&band::fundamental(report));
     out.push_str(&buckling(report));
     out.push_str(&plot_area(report, mode));
@@ -84,8 +86,7 @@ fn table(report: &Report) -> String {
     );
     if has_excitations {
         out.push_str(&format!(
-            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (f − f<sub>e</sub>)/f<sub>e</sub> \
-             (want ≥ {} either side)</th>",
+            "<th scope=\"col\">Nearest excitation</th><th scope=\"col\">Separation (want ≥ {})</th>",
             percent(report.margin, 3)
         ));
     }
@@ -192,7 +193,7 @@ fn row(report: &Report, m: &ModeReport, system: modebench::units::UnitSystem, ex
                 let side = match s.separation {
                     v if v < 0.0 => "below",
                     v if v > 0.0 => "above",
-                    _ => "inside the range",
+                    _ => "inside",
                 };
                 let band = s
                     .band_separation

@@ -126,7 +126,7 @@ impl Calculator {
 
     /// While the stored case waits to be shown the editor holds the example, which must not be
     /// kept over it.
-    fn store_unless_waiting(&mut self) {
+    pub(super) fn store_unless_waiting(&mut self) {
         if self.saved.is_none() {
             self.store();
         }

@@ -120,9 +120,14 @@ impl Calculator {
                     self.focus_after_remove(list, index);
                 }
             }
+            (Some("apply-fit"), _) => self.apply_design(true),
+            (Some("apply-resize"), _) => self.apply_design(false),
             (Some("restore"), _) => self.restore(),
             (Some("reopen"), _) => self.reopen(),
-            (Some(action), _) => self.case_action(action),
+            (Some(action), _) => {
+                self.case_action(action);
+                self.show_undo();
+            }
             _ => {}
         }
     }
@@ -139,6 +144,24 @@ impl Calculator {
             self.draw_results();
             self.refocus(Some(("data-show-mode", mode.to_string())));
         }
+    }
+
+    /// Writes what the design study proposed (the calibration's fitted values, or the resizing's
+    /// nearest feasible value) into the case as one step that "Undo" takes back.
+    fn apply_design(&mut self, fit: bool) {
+        let Some(report) = self.last.as_ref() else { return };
+        let proposal = if fit {
+            doc::design::fit_changes(&self.doc, report)
+        } else {
+            doc::design::resize_changes(&self.doc, report)
+        };
+        let Some((changes, what)) = proposal else { return };
+        // One step in the case's own history, so that the case bar's "Undo" takes it back too.
+        self.store_unless_waiting();
+        self.cases.record(&what);
+        self.edit(Edit::Apply(changes), None);
+        self.show_undo();
+        self.refocus(Some(("data-action", "undo".to_string())));
     }
 
     /// Shows the page's example again in place of the open case; one undo puts the case back.

@@ -327,6 +327,27 @@ impl Calculator {
         }
     }
 
+    /// Shows the undo control under the calculator's head while a step can be taken back, with
+    /// what it would undo, and removes it otherwise.
+    fn show_undo(&self) {
+        let shown = dom::first(&self.root, ".mb-undo-bar");
+        match (self.cases.undo_label(), shown) {
+            (Some(what), shown) => {
+                let html = render::undo_html(what);
+                match shown {
+                    Some(bar) => bar.set_outer_html(&html),
+                    None => {
+                        if let Some(head) = dom::first(&self.root, ".mb-head") {
+                            let _ = head.insert_adjacent_html("afterend", &html);
+                        }
+                    }
+                }
+            }
+            (None, Some(bar)) => bar.remove(),
+            (None, None) => {}
+        }
+    }
+
     /// Marks the root with `data-solving` while a scenario is with the worker or waits for it,
     /// for tests and style alike.
     fn show_solving(&self) {

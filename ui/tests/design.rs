@@ -1,0 +1,83 @@
+//! The design results and edits, natively: the frequency map and the design sections are drawn
+//! from the report, a calibration's fit and a resizing's proposal are written into the case in
+//! its units as one step that re-solves as proposed, and the undo history takes the step back.
+#![cfg(not(target_arch = "wasm32"))]
+
+use modebench_ui::doc::{self, design, history::History, Edit};
+use modebench_ui::render::{self, Editing};
+
+const BOOM: &str = include_str!("../../docs/scenarios/boom-root-calibration.json");
+const FLOOR: &str = include_str!("../../docs/scenarios/floor-beam-variable-fan.json");
+
+#[test]
+fn the_results_show_the_map_what_moves_each_mode_and_the_fit() {
+    let html = render::widget_html(BOOM);
+    for part in [
+        "class=\"mb-map\"",
+        "What moves each mode most",
+        "class=\"mb-calibration\"",
+        "data-action=\"apply-fit\"",
+    ] {
+        assert!(html.contains(part), "no {part}");
+    }
+    // One row per elastic mode on the map, and a cross for each measured mode.
+    assert_eq!(html.matches("class=\"mb-map-row\"").count(), 3);
+    assert_eq!(html.matches("class=\"mb-map-measured\"").count(), 2);
+    let html = render::widget_html(FLOOR);
+    assert!(html.contains("class=\"mb-sweep\"") && html.contains("data-action=\"apply-resize\""));
+    // Mode 1's band reaches into the fan's range: drawn in the warning colour.
+    assert!(html.contains("mb-map-mode mb-map-close"));
+    assert!(html.contains("Separation is (f − f<sub>e</sub>)/f<sub>e</sub>"));
+}
+
+#[test]
+fn the_editor_offers_every_design_request() {
+    let Ok(doc) = doc::read(FLOOR) else { panic!("JSON") };
+    let fields = render::field_paths(&doc);
+    for path in ["tolerances[0].field", "tolerances[1].plus_minus", "resize", "resize.field", "resize.points"]
+    {
+        assert!(fields.iter().any(|f| f == path), "no field for {path}");
+    }
+    let Ok(doc) = doc::read(BOOM) else { panic!("JSON") };
+    let fields = render::field_paths(&doc);
+    for path in ["measured[1].frequency", "calibrate[0].field", "calibrate[1].to"] {
+        assert!(fields.iter().any(|f| f == path), "no field for {path}");
+    }
+    let html = render::editor_html(&doc, None, Editing::Live);
+    assert!(html.contains("Left end: Rotational spring"), "the inputs are offered in words");
+}
+
+#[test]
+fn a_fit_applied_reproduces_the_measurements_and_undoes_in_one_step() {
+    let Ok(mut doc) = doc::read(BOOM) else { panic!("JSON") };
+    let before = doc.clone();
+    let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    let Some((changes, what)) = design::fit_changes(&doc, &report) else { panic!("a fit") };
+    assert_eq!(changes[0].path, "left.rotational");
+    assert!(changes[0].text.ends_with("N·mm/rad"), "in the case's units: {}", changes[0].text);
+    let mut history = History::default();
+    history.record(&doc, what);
+    doc::apply(&mut doc, &Edit::Apply(changes), Some(&report));
+    let after = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    // Written to six figures, the fit reproduces the measurements to about 1e-5.
+    for m in &report.design.measured {
+        let Some(mode) = after.modes.iter().find(|x| x.number == m.mode) else { panic!("mode {}", m.mode) };
+        assert!((mode.frequency_hz / m.measured_hz - 1.0).abs() < 1e-5, "mode {}", m.mode);
+    }
+    assert_eq!(history.undo().map(|s| s.before), Some(before));
+}
+
+#[test]
+fn a_proposed_size_applied_clears_every_margin_as_the_sweep_said() {
+    let Ok(mut doc) = doc::read(FLOOR) else { panic!("JSON") };
+    let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    let Some((changes, _)) = design::resize_changes(&doc, &report) else { panic!("a proposal") };
+    assert!(changes[0].text.ends_with(" in"), "{}", changes[0].text);
+    doc::apply(&mut doc, &Edit::Apply(changes), Some(&report));
+    let after = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    // The resizing judges the nominal frequencies: each clears the margin.
+    for m in after.modes.iter().filter(|m| !m.rigid_body) {
+        let s = m.nearest_excitation.as_ref().map_or(1.0, |s| s.margin);
+        assert!(s >= after.margin, "mode {} is {s} from an excitation", m.number);
+    }
+}
