@@ -168,3 +168,33 @@ pub fn wav(samples: &[f32], channels: u16, rate: u32, float: bool) -> Vec<u8> {
     }
     out
 }
+
+/// A WAV file of integer PCM of `bits` (8, 16, 24 or 32) bits: 8-bit unsigned, the others
+/// signed little-endian, as the format has it.
+pub fn wav_int(samples: &[f32], channels: u16, rate: u32, bits: u16) -> Vec<u8> {
+    let bytes_per = (bits / 8) as usize;
+    let data_len = (samples.len() * bytes_per) as u32;
+    let mut out = Vec::with_capacity(44 + data_len as usize);
+    out.extend_from_slice(b"RIFF");
+    out.extend_from_slice(&(36 + data_len).to_le_bytes());
+    out.extend_from_slice(b"WAVEfmt ");
+    out.extend_from_slice(&16u32.to_le_bytes());
+    out.extend_from_slice(&1u16.to_le_bytes());
+    out.extend_from_slice(&channels.to_le_bytes());
+    out.extend_from_slice(&rate.to_le_bytes());
+    out.extend_from_slice(&(rate * channels as u32 * bytes_per as u32).to_le_bytes());
+    out.extend_from_slice(&(channels * bytes_per as u16).to_le_bytes());
+    out.extend_from_slice(&bits.to_le_bytes());
+    out.extend_from_slice(b"data");
+    out.extend_from_slice(&data_len.to_le_bytes());
+    let full = (1i64 << (bits - 1)) - 1;
+    for &s in samples {
+        let v = (s.clamp(-1.0, 1.0) as f64 * full as f64).round() as i64;
+        if bits == 8 {
+            out.push((v + 128) as u8);
+        } else {
+            out.extend_from_slice(&v.to_le_bytes()[..bytes_per]);
+        }
+    }
+    out
+}

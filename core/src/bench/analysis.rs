@@ -287,7 +287,7 @@ fn run(
                 .map(|q| (q - p.position).abs())
                 .fold(f64::INFINITY, f64::min);
             let k =
-                (6.0 * p.half_width.max(1.0)).round().clamp(6.0, 2000.0).min((0.45 * gap).floor()).max(3.0)
+                (6.0 * p.half_width.max(1.0)).round().clamp(6.0, 1000.0).min((0.45 * gap).floor()).max(3.0)
                     as usize;
             (kc.saturating_sub(k).max(1), (kc + k).min(m / 2 - 1))
         })

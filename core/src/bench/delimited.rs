@@ -77,11 +77,8 @@ pub fn read(text: &str, channel: usize) -> Result<Table, Error> {
     }
     let body = &text[body_start..];
     let sample_line = body.lines().find(|l| !l.trim().is_empty()).unwrap_or("");
-    let delimiter = [b';', b'\t', b',']
-        .into_iter()
-        .max_by_key(|d| sample_line.bytes().filter(|b| b == d).count())
-        .unwrap_or(b',');
-    let delimiter = if sample_line.bytes().any(|b| b == delimiter) { delimiter } else { b',' };
+    // A tab or a semicolon separates when present (a comma beside one is a decimal comma).
+    let delimiter = [b'\t', b';'].into_iter().find(|d| sample_line.bytes().any(|b| b == *d)).unwrap_or(b',');
     let decimal_comma = delimiter != b',' && body.lines().take(50).any(|l| l.contains(','));
     let mut reader = csv::ReaderBuilder::new()
         .delimiter(delimiter)
@@ -185,7 +182,8 @@ pub fn read(text: &str, channel: usize) -> Result<Table, Error> {
                 Some(_) | None => Err(syntax(
                     line,
                     format!("column {}{name}: \"{}\" is not a finite number", c + 1, echo(field)),
-                )),
+                )
+                .with_value(field)),
             }
         };
         values.push(cell(column)? as f32);

@@ -23,6 +23,10 @@ pub struct WavSource<'a> {
 
 fn format_error(e: hound::Error) -> Error {
     let what = match e {
+        hound::Error::FormatError("inconsistent fmt chunk") => {
+            "the WAV file is malformed: its format chunk's sample rate, channels and bit depth disagree"
+                .to_string()
+        }
         hound::Error::FormatError(m) => format!("the WAV file is malformed: {m}"),
         hound::Error::TooWide => "the WAV file's samples are wider than 32 bits".to_string(),
         hound::Error::UnfinishedSample => "the WAV file ends in the middle of a sample".to_string(),

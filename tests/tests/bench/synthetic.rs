@@ -165,7 +165,7 @@ fn check(case: &str, record: &Record, tally: &mut Tally) -> (f64, f64) {
 
 #[test]
 fn random_ring_downs_give_their_modes_frequencies_and_damping() {
-    let mut rng = Rng::new(0x7a9_2026);
+    let mut rng = Rng::new(0x7a92026);
     let limits =
         Limits { modes: 5, taps: 5, zeta: (0.001, 0.05), snr_db: (20.0, 60.0), seconds: (0.5, 10.0) };
     let (mut wf, mut wz) = (0.0f64, 0.0f64);
