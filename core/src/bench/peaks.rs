@@ -73,9 +73,13 @@ pub fn find(db: &[f64], floor_db: &[f64], range: std::ops::Range<usize>) -> Vec<
     peaks
 }
 
+/// How far the prominence's search walks each way, bins.
+const REACH: usize = 8192;
+
 /// The height of bin `k` over the higher of the two lowest points between it and the nearest
-/// higher bin on each side (or the ends `lo..hi`).
+/// higher bin on each side (or the ends `lo..hi`, or [`REACH`] bins away).
 fn prominence(db: &[f64], k: usize, lo: usize, hi: usize) -> f64 {
+    let (lo, hi) = (lo.max(k.saturating_sub(REACH)), hi.min(k + REACH));
     let top = db[k];
     let mut left = top;
     let mut i = k;

@@ -189,3 +189,37 @@ fn random_ring_downs_give_their_modes_frequencies_and_damping() {
         tally.allowance
     );
 }
+
+#[test]
+fn a_double_hit_is_found_and_left_out_of_the_average() {
+    // Three taps; the second bounces back 20 ms later: a fresh ring-down and a sharp click (a
+    // hard bounce, its click 10 dB and more over the ring in Teager–Kaiser energy, which is what
+    // the detector looks for; a softer bounce goes unnoticed and its tap is kept).
+    let modes = [ringdown::Mode { hz: 640.0, zeta: 0.01, amplitude: 0.5, phase: 0.4 }];
+    let taps = [(0.2, 1.0), (0.9, 1.0), (0.92, 0.6), (1.6, 0.9)];
+    let mut record = ringdown::record(&mut Rng::new(77), 16_000.0, 2.3, &modes, &taps, 2e-4, true);
+    let mut rng = Rng::new(79);
+    let at = (0.92 * 16_000.0f64).ceil() as usize;
+    for j in 0..5 {
+        record.samples[at + j] += (0.8 * ringdown::gaussian(&mut rng)) as f32;
+    }
+    let report = analyse(&record);
+    let flagged: Vec<bool> =
+        report.taps.iter().map(|t| t.note.as_deref().is_some_and(|n| n.contains("double hit"))).collect();
+    assert_eq!(flagged, [false, true, false], "{:?}", report.taps);
+    assert_eq!(report.taps.iter().filter(|t| t.used).count(), 2);
+    assert!(report.warnings.iter().any(|w| w.kind == "double-hit"), "{:?}", report.warnings);
+    let p = &report.peaks[0];
+    assert!((p.frequency_hz / modes[0].damped_hz() - 1.0).abs() < 5e-4 && report.peaks.len() == 1);
+}
+
+#[test]
+fn a_clipped_record_is_flagged() {
+    let modes = [ringdown::Mode { hz: 440.0, zeta: 0.005, amplitude: 1.6, phase: 0.0 }];
+    let mut record = ringdown::record(&mut Rng::new(78), 16_000.0, 1.5, &modes, &[(0.2, 1.0)], 1e-3, true);
+    for s in &mut record.samples {
+        *s = s.clamp(-1.0, 1.0);
+    }
+    let report = analyse(&record);
+    assert!(report.warnings.iter().any(|w| w.kind == "clipping"), "{:?}", report.warnings);
+}
