@@ -181,6 +181,13 @@ fn run(
 ) -> Result<BenchReport, Error> {
     let rate = source.rate_hz();
     let range_hz = range(options, rate, &mut notes)?;
+    if options.source == super::SourceKind::Motion {
+        notes.push(format!(
+            "the motion sensor delivered {} samples a second: modes up to about {} Hz can be read from it",
+            number(rate.round()),
+            number((warnings::NEAR_NYQUIST * rate).round())
+        ));
+    }
     let mut env = Envelope::new(rate);
     let frames = source.scan(&mut |chunk: &[f32]| env.push(chunk))?;
     env.finish();

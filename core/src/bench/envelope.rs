@@ -2,7 +2,7 @@
 //! pass: the mean square (for taps and the noise floor), the mean Teager–Kaiser energy (for the
 //! sharp click of an impact, and so for double hits), and what shows clipping.
 //!
-//! The Teager–Kaiser energy x[n]² − x[n−1]·x[n+1] of a sinusoid A·cos(Ωn + φ) is A²·sin²Ω
+//! The Teager–Kaiser energy `x[n]² − x[n−1]·x[n+1]` of a sinusoid A·cos(Ωn + φ) is A²·sin²Ω
 //! whatever its phase (Kaiser, ICASSP 1990 — from memory; checked in the tests below), so it
 //! follows an impact's broadband click without the ripple of a low carrier, and weighs a ring
 //! at low frequency lightly.

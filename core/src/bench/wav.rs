@@ -9,7 +9,7 @@ use super::source::Source;
 use crate::error::{echo, number};
 use crate::{Error, ErrorKind, FieldPath};
 
-/// A WAV file's one channel as a [`Source`].
+/// A WAV file's one channel, read from the start as often as the analysis asks.
 pub struct WavSource<'a> {
     bytes: &'a [u8],
     spec: hound::WavSpec,

@@ -2,7 +2,9 @@
 //! files a recorder or a hand edit leaves behind, each refused with a clear message (the
 //! messages' general checks are the robustness suite's).
 
-use modebench::bench::{analyse_csv, analyse_file, analyse_wav, BenchOptions, BenchReport};
+use modebench::bench::{
+    analyse_csv, analyse_file, analyse_timed, analyse_wav, BenchOptions, BenchReport, SourceKind,
+};
 use modebench_tests::random::Rng;
 use modebench_tests::ringdown::{self, Mode, Record};
 
@@ -169,4 +171,37 @@ fn long_silence_is_refused_and_an_overlong_record_is_too() {
     header[4..8].copy_from_slice(&(36 + long).to_le_bytes());
     let e = analyse_file(&header, &BenchOptions::default()).unwrap_err().to_string();
     assert!(e.contains("30 minutes"), "{e}");
+}
+
+#[test]
+fn motion_sensor_events_are_resampled_by_their_timestamps() {
+    // A tablet fixed to a slow part: events about 60 a second, their times wandering by up to
+    // 20 % of a step, a 4.2 Hz mode (ζ 2 %) struck twice.
+    let mode = Mode { hz: 4.2, zeta: 0.02, amplitude: 3.0, phase: 0.0 };
+    let mut rng = Rng::new(21);
+    let (mut times, mut values) = (Vec::new(), Vec::new());
+    let mut t = 0.0;
+    while t < 30.0 {
+        let mut v = 0.02 * ringdown::gaussian(&mut rng);
+        for t0 in [3.0, 16.0] {
+            if t >= t0 {
+                let tt = t - t0;
+                v += mode.amplitude
+                    * (-mode.sigma() * tt).exp()
+                    * (2.0 * std::f64::consts::PI * mode.damped_hz() * tt).cos();
+            }
+        }
+        times.push(t);
+        values.push(v as f32);
+        t += (1.0 + 0.2 * (rng.unit() - 0.5)) / 60.0;
+    }
+    let options = BenchOptions { source: SourceKind::Motion, ..BenchOptions::default() };
+    let report = analyse_timed(&times, &values, &options).unwrap();
+    assert!(report.warnings.iter().any(|w| w.kind == "resampled"), "{:?}", report.warnings);
+    assert!(report.notes.iter().any(|n| n.contains("modes up to about")), "{:?}", report.notes);
+    assert_eq!(report.peaks.len(), 1, "{:?}", report.peaks);
+    // Linear interpolation of a wandering clock: within 0.5 % here.
+    assert!((report.peaks[0].frequency_hz / mode.damped_hz() - 1.0).abs() < 5e-3, "{:?}", report.peaks);
+    let e = analyse_timed(&[0.0, 0.1, 0.1], &[0.0; 3], &options).unwrap_err().to_string();
+    assert!(e.contains("do not increase"), "{e}");
 }
