@@ -253,7 +253,19 @@ fn run(
     let m = fft_length(longest);
     let bin_hz = rate / m as f64;
     let lo_b = ((range_hz[0] / bin_hz).ceil() as usize).max(1);
-    let hi_b = ((range_hz[1] / bin_hz).floor() as usize).min(m / 2 - 1).max(lo_b + 3);
+    let hi_b = ((range_hz[1] / bin_hz).floor() as usize).min(m / 2 - 1);
+    if hi_b < lo_b + 3 {
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!(
+                "the range {}–{} Hz is narrower than four bins of this record's spectrum ({} Hz apart): widen it",
+                number(range_hz[0]),
+                number(range_hz[1]),
+                number(bin_hz)
+            ),
+        )
+        .at(FieldPath::root().key("range")));
+    }
     let width = hi_b - lo_b + 1;
 
     // The averaged, tapered power spectrum; each tap's, coarsely, for the consistency figure.

@@ -37,6 +37,25 @@ pub(crate) fn uniform(times: &[f64], values: &[f32], what: &str) -> Result<Unifo
     }
     let span = times[n - 1] - times[0];
     let count = (span / step).floor() as usize + 1;
+    // A gap of many steps cannot be filled by interpolation (and would take unbounded memory).
+    if count > 2 * n + 1024 {
+        let (at, gap) = times[..n].windows(2).map(|w| w[1] - w[0]).enumerate().fold((0, 0.0), |a, (i, g)| {
+            if g > a.1 {
+                (i, g)
+            } else {
+                a
+            }
+        });
+        return Err(Error::new(
+            ErrorKind::OutOfRange,
+            format!(
+                "{what}: a gap of {} s after sample {} where the steps are {} s: record without gaps, or cut the file there",
+                number(gap),
+                at + 1,
+                number(step)
+            ),
+        ));
+    }
     let mut samples = Vec::with_capacity(count);
     let mut j = 0;
     for i in 0..count {
@@ -79,5 +98,10 @@ mod tests {
             let t = times[0] + i as f64 / u.rate_hz;
             assert!((*v as f64 - 2.0 * t).abs() < 1e-5, "{i}: {v} vs {}", 2.0 * t);
         }
+        // A gap of a thousand steps is refused, not filled.
+        let mut times: Vec<f64> = (0..100).map(|i| i as f64 * 0.01).collect();
+        times[99] = 1e9;
+        let e = uniform(&times, &values, "time").err().unwrap().to_string();
+        assert!(e.contains("gap"), "{e}");
     }
 }
