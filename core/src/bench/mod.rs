@@ -14,7 +14,8 @@
 //!    squares (the primary frequency and damping ratio); [`damping`] adds the half-power
 //!    bandwidth as a cross-check.
 //! 5. [`matching`] pairs the peaks with the predicted modes; [`analysis`] assembles the result
-//!    and its warnings ([`types`]).
+//!    and its warnings ([`types`]). [`added_mass`] adds a sensor fixed to the part to the model,
+//!    so that the prediction is of the part as tested.
 //!
 //! # Conventions
 //! - Samples are `f32` as recorded (WAV integer samples scaled to ±1 of full scale); arithmetic
@@ -24,6 +25,7 @@
 //!   the peaks read on the same scale. The FFT is unnormalised forward (`X_k = Σ x_n e^{-2πikn/M}`).
 //! - A damping ratio is a fraction of critical damping (0.01 = 1 %).
 
+pub mod added_mass;
 pub mod analysis;
 pub mod damping;
 pub mod delimited;

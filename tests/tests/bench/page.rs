@@ -100,3 +100,28 @@ fn the_worked_pages_recording_is_current_and_reads_as_the_page_says() {
         assert!(page.contains(&predicted), "the page should quote mode {}'s predicted {predicted}", m.mode);
     }
 }
+
+#[test]
+fn a_tablet_fixed_to_the_head_lowers_mode_1_as_its_modal_mass_says() {
+    // Mode 1 of the boom is nearly a mass on a spring at the tip, where its shape is largest
+    // (1): adding ΔM there gives f' ≈ f·√(M/(M + ΔM)) with M the mode's generalized mass
+    // normalised to that point (the single-degree-of-freedom equivalent; first order in the
+    // shape's change, so within 1 % for a tablet of 0.5 kg on 3.6 kg here).
+    let text = std::fs::read_to_string(root().join("docs/scenarios/sensor-boom.json")).unwrap();
+    let value: serde_json::Value = serde_json::from_str(&text).unwrap();
+    let before = modebench::solve_json(&text).unwrap();
+    let with = modebench::bench::added_mass::with_sensor_mass(&value, 0.5, 1.45).unwrap();
+    let after = modebench::solve_json(&with.to_string()).unwrap();
+    let (f, m) = (before.modes[0].frequency_hz, before.modes[0].generalized_mass);
+    let expected = f * (m / (m + 0.5)).sqrt();
+    modebench_tests::check(
+        "boom mode 1 with a 0.5 kg tablet at the head",
+        "single-degree-of-freedom equivalent at the tip (Rayleigh's quotient, first order)",
+        expected,
+        after.modes[0].frequency_hz,
+        0.01,
+    );
+    assert!(after.modes[0].frequency_hz < f);
+    let e = modebench::bench::added_mass::with_sensor_mass(&value, -1.0, 1.0).unwrap_err().to_string();
+    assert!(e.contains("sensor_mass") && e.contains("above 0 kg"), "{e}");
+}
