@@ -26,6 +26,8 @@ mod roots;
 pub use model::{Attachment, End, Model, ModelParts, Segment, Theory};
 pub mod analysis;
 pub mod axial;
+#[cfg(feature = "bench")]
+pub mod bench;
 pub mod bounds;
 pub mod design;
 pub mod exact;

@@ -5,6 +5,7 @@ pub mod fuzz;
 pub mod published;
 pub mod random;
 pub mod reference;
+pub mod ringdown;
 
 /// Compares `got` with a sourced `expected` value within a relative tolerance and, on failure,
 /// panics with the case, the source, both values and the tolerance.
