@@ -244,7 +244,7 @@ fn resizing(report: &Report) -> String {
             out.push_str(&format!(
                 "<p class=\"mb-note\">The feasible value nearest today's ({}) is <strong class=\"mb-nearest-value\">{}</strong>, \
                  at the edge of its range: round it into the range and re-solve before relying on it.</p>\
-                 <p><button type=\"button\" class=\"mb-button mb-apply\" data-action=\"apply-resize\">Use {} in the \
+                 <p><button type=\"button\" class=\"mb-button mb-apply\" data-action=\"apply-resize\">Put {} into the \
                  model</button></p>",
                 r.input.value.map_or("rigid".to_string(), &q),
                 q(v),
@@ -316,28 +316,39 @@ fn sweep_svg(report: &Report, r: &ResizeReport) -> String {
     }
     let modes = r.hz.iter().map(Vec::len).min().unwrap_or(0);
     for k in 0..modes {
-        let points: Vec<String> =
-            r.x.iter().zip(&r.hz).map(|(x, f)| format!("{},{}", n(xs(*x)), n(ys(f[k])))).collect();
-        out.push_str(&format!(
-            "<polyline class=\"mb-sweep-mode\" data-mode-index=\"{k}\" points=\"{}\" fill=\"none\" stroke=\"#2d6a8f\" \
-             stroke-width=\"2\"/>",
-            points.join(" ")
-        ));
+        // A mode above the plot is left out there, not drawn along its top edge.
+        let mut runs: Vec<Vec<String>> = vec![Vec::new()];
+        for (x, f) in r.x.iter().zip(&r.hz) {
+            if f[k] <= ymax * 1.05 {
+                if let Some(run) = runs.last_mut() {
+                    run.push(format!("{},{}", n(xs(*x)), n(ys(f[k]))));
+                }
+            } else if runs.last().is_some_and(|run| !run.is_empty()) {
+                runs.push(Vec::new());
+            }
+        }
+        for run in runs.iter().filter(|run| run.len() > 1) {
+            out.push_str(&format!(
+                "<polyline class=\"mb-sweep-mode\" data-mode-index=\"{k}\" points=\"{}\" fill=\"none\" \
+                 stroke=\"#2d6a8f\" stroke-width=\"2\"/>",
+                run.join(" ")
+            ));
+        }
     }
-    let mut marker = |v: f64, class: &str, colour: &str, words: &str| {
+    let mut marker = |v: f64, class: &str, colour: &str, words: &str, lift: f64| {
         if v.is_finite() && v >= r.low && v <= r.high {
             out.push_str(&format!(
                 "<line class=\"{class}\" x1=\"{0}\" x2=\"{0}\" y1=\"{Y1}\" y2=\"{Y0}\" stroke=\"{colour}\" \
                  stroke-width=\"2\" stroke-dasharray=\"5 4\"/><text x=\"{0}\" y=\"{1}\" text-anchor=\"middle\" \
                  fill=\"{colour}\">{words}</text>",
                 n(xs(v)),
-                n(Y1 - 8.0)
+                n(Y1 - 8.0 - lift)
             ));
         }
     };
-    marker(r.input.value.unwrap_or(f64::NAN), "mb-sweep-now", INK, "today");
+    marker(r.input.value.unwrap_or(f64::NAN), "mb-sweep-now", INK, "today", 0.0);
     if !r.clear_today {
-        marker(r.nearest.unwrap_or(f64::NAN), "mb-sweep-nearest", "#1f7a3a", "proposed");
+        marker(r.nearest.unwrap_or(f64::NAN), "mb-sweep-nearest", "#1f7a3a", "proposed", 12.0);
     }
     let system = report.units;
     out.push_str(&format!(

@@ -48,7 +48,10 @@ fn optional(placeholder: &str) -> TextOptions<'_> {
 /// The design group of the editor.
 pub(crate) fn design(form: &mut Form<'_>) -> String {
     let doc = form.doc;
-    let choices = input_choices(doc);
+    // Listing the inputs walks the whole scenario: only when a request needs the list.
+    let needed =
+        ["tolerances", "calibrate"].iter().any(|k| !rows(doc, k).is_empty()) || doc.get("resize").is_some();
+    let choices = if needed { input_choices(doc) } else { Vec::new() };
     let mut body = String::from(
         "<p class=\"mb-help\">Optional. Tolerances give each mode a band, judged against the margin at its edges; \
          measured frequencies appear beside the computed ones and on the frequency map, and can calibrate one or two \

@@ -120,6 +120,13 @@ pub(crate) fn map_svg(report: &Report) -> String {
             .filter(|l| !l.is_empty())
             .map_or(format!("Excitation {}", z.excitation + 1), str::to_string);
         let name = if z.order == 1.0 { name } else { format!("{name} × {}", sig(z.order, 4)) };
+        // The full name is in the title; the row's label is cut to fit left of the axis.
+        let full = name.clone();
+        let name = if name.chars().count() > 22 {
+            format!("{}…", name.chars().take(21).collect::<String>().trim_end())
+        } else {
+            name
+        };
         let (a, b) = (x(z.low_hz), x(z.high_hz));
         let driven = if z.high_hz > z.low_hz {
             format!("{} to {}", hz(z.low_hz), hz(z.high_hz))
@@ -127,7 +134,7 @@ pub(crate) fn map_svg(report: &Report) -> String {
             hz(z.low_hz)
         };
         out.push_str(&format!(
-            "<g class=\"mb-map-drive\"><title>{0}: {driven}; the margin keeps modes out of {1} to {2}</title>\
+            "<g class=\"mb-map-drive\"><title>{8}: {driven}; the margin keeps modes out of {1} to {2}</title>\
              <text x=\"{3}\" y=\"{4}\" text-anchor=\"end\" fill=\"{DRIVE}\">{0}</text>\
              <rect x=\"{5}\" y=\"{6}\" width=\"{7}\" height=\"10\" fill=\"{DRIVE}\"/></g>",
             escape(&name),
@@ -137,7 +144,8 @@ pub(crate) fn map_svg(report: &Report) -> String {
             n(y + 13.0),
             n(a - 1.0),
             n(y + 5.0),
-            n((b - a).max(2.0))
+            n((b - a).max(2.0)),
+            escape(&full)
         ));
         y += ROW;
     }
