@@ -124,8 +124,8 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     out.push_str(&material_fields(form, base, segment));
     let extra = format!("{base}.extra_mass");
     let has = |key: &str| segment.get("extra_mass").and_then(|e| e.get(key)).is_some();
-    let hollow = matches!(shape_id, "tube" | "rectangular-tube" | "custom");
-    let round = matches!(shape_id, "tube" | "round");
+    let hollow = matches!(shape_id, "tube" | "pipe" | "rectangular-tube" | "custom");
+    let round = matches!(shape_id, "tube" | "pipe" | "round");
     if hollow || has("contents") {
         out.push_str(&contents_field(form, &extra, segment));
     }
