@@ -19,6 +19,7 @@ pub fn tables() -> Vec<(&'static str, String)> {
         ("attachments", choices(&super::ATTACHMENTS, "type")),
         ("excitation", fields(&super::EXCITATION_FIELDS)),
         ("axial", fields(&super::AXIAL_FIELDS)),
+        ("material-record", fields(&super::MATERIAL_RECORD_FIELDS)),
     ]
 }
 
@@ -112,8 +113,9 @@ mod tests {
 
     #[test]
     fn every_field_has_words() {
-        let lists: [&[Field]; 9] = [
+        let lists: [&[Field]; 10] = [
             &super::super::AXIAL_FIELDS,
+            &super::super::MATERIAL_RECORD_FIELDS,
             &super::super::SCENARIO,
             &super::super::SEGMENT,
             &super::super::PROPERTY_FIELDS,
