@@ -121,10 +121,24 @@ impl ModeShape {
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
-    // Each natural span is cut in two, so that every span has a station free to take the
-    // iteration's loads: a span held at both ends (a clamped–clamped beam with nothing on it)
-    // would otherwise take them all on its supports and respond with nothing.
-    let system = System::new(model, Layout::new(model, &|_| 2)?);
+    // The iteration loads the stations; a span whose two ends are held in both deflection and
+    // rotation (a clamped–clamped beam with nothing on it) would take them all on its supports
+    // and respond with nothing, so such a span gets a free station at its middle. Others are
+    // left whole, which keeps the shapes' samples (and the report) as small as they were.
+    let plain = Layout::new(model, &|_| 1)?;
+    let held = |s: &crate::layout::Station| s.w.is_none() && s.theta.is_none();
+    let locked: Vec<usize> = plain
+        .spans
+        .iter()
+        .filter(|s| held(&plain.stations[s.left]) && held(&plain.stations[s.left + 1]))
+        .map(|s| s.left)
+        .collect();
+    let layout = if locked.is_empty() {
+        plain
+    } else {
+        Layout::new(model, &|s| if locked.contains(&s.left) { 2 } else { 1 })?
+    };
+    let system = System::new(model, layout);
     let pieces = sweep::pieces(&system, omega)?;
     let mut out: Vec<ModeShape> = Vec::with_capacity(count);
     if omega == 0.0 {
