@@ -121,23 +121,13 @@ impl ModeShape {
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
-    // The iteration loads the stations; a span whose two ends are held in both deflection and
-    // rotation (a clamped–clamped beam with nothing on it) would take them all on its supports
-    // and respond with nothing, so such a span gets a free station at its middle. Others are
-    // left whole, which keeps the shapes' samples (and the report) as small as they were.
+    // The iteration loads the stations; on a beam with no station free to move (a clamped–
+    // clamped beam with nothing on it) the supports would take every load and the response be
+    // nothing, so each span then gets a free station at its middle. Otherwise spans are left
+    // whole, which keeps the shapes' samples (and the report) as small as they were.
     let plain = Layout::new(model, &|_| 1)?;
-    let held = |s: &crate::layout::Station| s.w.is_none() && s.theta.is_none();
-    let locked: Vec<usize> = plain
-        .spans
-        .iter()
-        .filter(|s| held(&plain.stations[s.left]) && held(&plain.stations[s.left + 1]))
-        .map(|s| s.left)
-        .collect();
-    let layout = if locked.is_empty() {
-        plain
-    } else {
-        Layout::new(model, &|s| if locked.contains(&s.left) { 2 } else { 1 })?
-    };
+    let held = plain.stations.iter().all(|s| s.w.is_none() && s.theta.is_none() && s.sprung.is_empty());
+    let layout = if held { Layout::new(model, &|_| 2)? } else { plain };
     let system = System::new(model, layout);
     let pieces = sweep::pieces(&system, omega)?;
     let mut out: Vec<ModeShape> = Vec::with_capacity(count);
