@@ -167,6 +167,12 @@ pub enum MaterialInput {
         poisson: Option<Quantity>,
         /// Shear modulus G; E/(2(1+ν)) when omitted. Give it for anisotropic materials.
         shear_modulus: Option<Quantity>,
+        /// The preset these properties were recorded from, when the editor recorded one.
+        #[serde(skip_serializing_if = "Option::is_none")]
+        preset: Option<String>,
+        /// Coefficient of thermal expansion; none when omitted (no temperature change then).
+        #[serde(skip_serializing_if = "Option::is_none")]
+        thermal_expansion: Option<Quantity>,
     },
 }
 
@@ -214,8 +220,41 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
                 conversions: Vec::new(),
             })
         }
-        MaterialInput::Custom { youngs_modulus, density, poisson, shear_modulus } => {
-            resolve_custom(youngs_modulus, density, poisson.as_ref(), shear_modulus.as_ref())
+        MaterialInput::Custom {
+            youngs_modulus,
+            density,
+            poisson,
+            shear_modulus,
+            preset,
+            thermal_expansion,
+        } => {
+            let mut m = resolve_custom(youngs_modulus, density, poisson.as_ref(), shear_modulus.as_ref())?;
+            if let Some(q) = thermal_expansion {
+                let mut conversions = Vec::new();
+                let alpha = units::convert_field(
+                    q,
+                    Kind::ThermalExpansion,
+                    &"thermal_expansion".into(),
+                    &mut conversions,
+                )?;
+                let field = &crate::schema::MATERIAL_RECORD_FIELDS[1];
+                if let Some((kind, message)) = field.range.refuse(alpha, field.what, field.unit(), false) {
+                    return Err(Error::new(kind, message)
+                        .at(field.name)
+                        .with_value(q)
+                        .with_si(alpha, field.unit()));
+                }
+                m.thermal_expansion = Some(alpha);
+                m.conversions.extend(conversions);
+            }
+            // The recorded values are what is computed with; the preset only names them.
+            if let Some(id) = preset {
+                m.name = match self::preset(id.trim()) {
+                    Some(p) => format!("{} (as recorded)", p.name),
+                    None => format!("{} (as recorded)", echo(id)),
+                };
+            }
+            Ok(m)
         }
     }
 }

@@ -5,12 +5,12 @@
 //! format; this module only adds what the editor asks of it. The JS API returns this catalogue
 //! so that pages can build on it.
 
-pub use modebench::schema::AXIAL_FIELDS;
 use modebench::schema::{self, Field, Range};
 pub use modebench::schema::{
     find, Choice, Field as FieldSpec, Form, ATTACHMENTS, ENDS, EXTRA_MASS_FIELDS, MATERIAL_FIELDS,
     PROPERTY_FIELDS, SHAPES, SUBMERGED_FIELDS, THEORIES, UNIT_SYSTEMS,
 };
+pub use modebench::schema::{AXIAL_FIELDS, MATERIAL_RECORD_FIELDS};
 
 /// The choice a scenario object names under `key` (an attachment's `type`, a section's `shape`).
 pub(crate) fn chosen(
@@ -23,8 +23,9 @@ pub(crate) fn chosen(
 
 /// Every field the schema describes, choices' fields included.
 fn every_field() -> impl Iterator<Item = &'static Field> {
-    let lists: [&'static [Field]; 14] = [
+    let lists: [&'static [Field]; 15] = [
         &schema::AXIAL_FIELDS,
+        &schema::MATERIAL_RECORD_FIELDS,
         &schema::SCENARIO,
         &schema::SEGMENT,
         &PROPERTY_FIELDS,

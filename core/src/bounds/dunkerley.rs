@@ -9,6 +9,11 @@
 //! holds for every model with no rigid-body mode, shear-flexible ones included, since every part
 //! is positive semi-definite whatever the theory.
 //!
+//! An axial force enters through the loaded beam's own frequency and flexibilities (the exact
+//! beam-column members). The argument needs the stiffness, with the force's geometric part,
+//! to be positive definite: true for any tension and for compression below the buckling load,
+//! the only case analysed (a buckled beam is refused), so the sum stays a lower bound there.
+//!
 //! The flexibilities are exact (two static sweeps, [`crate::exact::statics`]), so the bound is
 //! one to rounding; they take memory and time linear in the number of masses.
 

@@ -121,10 +121,14 @@ impl ModeShape {
 
 /// `count` mass-orthogonal shapes at the natural frequency ω.
 pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<ModeShape>> {
-    // Each natural span is cut in two, so that every span has a station free to take the
-    // iteration's loads: a span held at both ends (a clamped–clamped beam with nothing on it)
-    // would otherwise take them all on its supports and respond with nothing.
-    let system = System::new(model, Layout::new(model, &|_| 2)?);
+    // The iteration loads the stations; on a beam with no station free to move (a clamped–
+    // clamped beam with nothing on it) the supports would take every load and the response be
+    // nothing, so each span then gets a free station at its middle. Otherwise spans are left
+    // whole, which keeps the shapes' samples (and the report) as small as they were.
+    let plain = Layout::new(model, &|_| 1)?;
+    let held = plain.stations.iter().all(|s| s.w.is_none() && s.theta.is_none() && s.sprung.is_empty());
+    let layout = if held { Layout::new(model, &|_| 2)? } else { plain };
+    let system = System::new(model, layout);
     let pieces = sweep::pieces(&system, omega)?;
     let mut out: Vec<ModeShape> = Vec::with_capacity(count);
     if omega == 0.0 {

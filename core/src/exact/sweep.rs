@@ -43,6 +43,22 @@ pub(crate) fn pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
         let n = member.sweep_pieces(reference).ok_or_else(|| too_short_in_shear(reference, span.segment))?;
         total = total.saturating_add(n);
         if total > MAX_PIECES {
+            if let Member::Column(c) = member {
+                // Pieces are cut so that |P|·h²/EI ≤ 1 (see `member::column`): when that is what
+                // asks for them, the force is what to check.
+                if c.load_parameter() >= c.lambda(reference) / crate::member::SWEEP_LAMBDA {
+                    return Err(Error::new(
+                        ErrorKind::Model,
+                        format!(
+                            "this segment's axial force is too large beside its bending stiffness to compute \
+                             (|P|·L²/EI = {} over a span): check the force's unit; a member this taut is a \
+                             string, whose frequencies are (n/2L)·√(P/m)",
+                            crate::error::number(c.load_parameter().powi(2))
+                        ),
+                    )
+                    .at(crate::path::FieldPath::item("segments", span.segment).key("axial_force")));
+                }
+            }
             return Err(Error::new(
                 ErrorKind::Model,
                 format!(

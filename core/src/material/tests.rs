@@ -101,6 +101,8 @@ fn bad_materials_are_rejected_with_the_field_named() {
         density: rho.into(),
         poisson: nu.map(Quantity::from),
         shear_modulus: g.map(Quantity::from),
+        preset: None,
+        thermal_expansion: None,
     };
     let cases = [
         (custom("-200 GPa", "7850", None, None), ErrorKind::OutOfRange, "youngs_modulus"),

@@ -195,13 +195,19 @@ pub(crate) fn material(n: &Node<'_>) -> Result<MaterialInput> {
     if n.is_text() {
         return Ok(MaterialInput::Preset(n.text("a material")?.to_string()));
     }
-    n.fields("a material (a preset name, or an object)", &schema::keys(&[&schema::MATERIAL_FIELDS]))?;
+    n.fields(
+        "a material (a preset name, or an object)",
+        &schema::keys(&[&schema::MATERIAL_FIELDS, &schema::MATERIAL_RECORD_FIELDS]),
+    )?;
     let [e, rho, nu, g] = &schema::MATERIAL_FIELDS;
+    let [preset, alpha] = &schema::MATERIAL_RECORD_FIELDS;
     Ok(MaterialInput::Custom {
         youngs_modulus: n.require_quantity(e.name, e.what)?,
         density: n.require_quantity(rho.name, rho.what)?,
         poisson: n.quantity_at(nu.name)?,
         shear_modulus: n.quantity_at(g.name)?,
+        preset: n.text_at(preset.name)?,
+        thermal_expansion: n.quantity_at(alpha.name)?,
     })
 }
 

@@ -244,7 +244,8 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<Re
                     return Err(Error::new(
                         ErrorKind::Conflict,
                         "a temperature change needs the material's thermal expansion: choose a preset material \
-                         (each gives its α), or give the force −E·A·α·ΔT as the axial force",
+                         (each gives its α), give the material's `thermal_expansion`, or give the force \
+                         −E·A·α·ΔT as the axial force",
                     )
                     .at(field)
                     .with_value(q));

@@ -140,3 +140,23 @@ fn contents_by_name_give_their_density_unless_one_is_recorded() {
     );
     assert!(e.message.contains("glycol-mix"), "{e}");
 }
+
+#[test]
+fn extreme_axial_forces_end_in_a_result_or_a_clear_message() {
+    // The largest tension and compression the format allows, on a light beam: either solved,
+    // every number finite, or refused with a message (never a panic or a NaN).
+    for force in ["1e12 N", "-1e12 N", "1e6 N", "-1e-9 N"] {
+        let scenario = json!({
+            "left": "pinned", "right": "clamped", "modes": 3,
+            "segments": [{ "length": "0.5 m", "flexural_rigidity": "2 N*m^2", "mass_per_length": "0.1 kg/m",
+                           "axial_force": force }]
+        });
+        match crate::solve_json(&scenario.to_string()) {
+            Ok(report) => assert!(report.is_finite(), "{force}"),
+            Err(e) => {
+                assert!(!e.message.is_empty() && !e.message.contains("NaN"), "{force}: {e}");
+                assert!(e.message.contains("buckled") || e.path == "segments[0].axial_force", "{force}: {e}");
+            }
+        }
+    }
+}

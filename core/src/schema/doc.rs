@@ -23,6 +23,7 @@ pub fn tables() -> Vec<(&'static str, String)> {
         ("measured", fields(&super::MEASURED_FIELDS)),
         ("calibrate", fields(&super::CALIBRATE_FIELDS)),
         ("resize", fields(&super::RESIZE_FIELDS)),
+        ("material-record", fields(&super::MATERIAL_RECORD_FIELDS)),
     ]
 }
 
@@ -118,8 +119,9 @@ mod tests {
 
     #[test]
     fn every_field_has_words() {
-        let lists: [&[Field]; 13] = [
+        let lists: [&[Field]; 14] = [
             &super::super::AXIAL_FIELDS,
+            &super::super::MATERIAL_RECORD_FIELDS,
             &super::super::SCENARIO,
             &super::super::SEGMENT,
             &super::super::PROPERTY_FIELDS,

@@ -461,7 +461,7 @@ pub const TEMPERATURE_CHANGE: Field =
         .help(
             "a rise (positive) or fall since the ends were fixed, with both ends held axially, e.g. \
              `\"80 °C\"` or `\"144 °F\"` (a change, not a reading); adds −E·A·α·ΔT to the axial force; \
-             needs a section and a preset material (for α)",
+             needs a section and a material that gives α (a preset, or `thermal_expansion`)",
         )
         .or("0");
 
@@ -594,4 +594,19 @@ pub static RESIZE_FIELDS: [Field; 4] = [
         .what("the number of points")
         .help("values of the input solved across the range")
         .or("200"),
+];
+
+/// What a material chosen as a preset records beside its properties, so that a saved case keeps
+/// the values the preset gave (a material object holds these with the fields of a custom one).
+pub static MATERIAL_RECORD_FIELDS: [Field; 2] = [
+    Field::of("preset", Form::Name)
+        .label("Recorded from")
+        .what("the preset recorded")
+        .help("the preset the properties were recorded from, as `\"steel\"`: its name is shown")
+        .or("none (a custom material)"),
+    Field::quantity("thermal_expansion", Kind::ThermalExpansion, Range::UpTo(1e-3))
+        .label("Thermal expansion α")
+        .what("a coefficient of thermal expansion")
+        .help("α along the member, e.g. `\"12e-6 /K\"` or `\"6.5e-6 /°F\"`; needed for a temperature change")
+        .or("none (no temperature change)"),
 ];

@@ -63,6 +63,8 @@ pub fn display_unit(kind: Kind, system: UnitSystem) -> DisplayUnit {
         (Kind::Ratio, _) => unit("", 1.0),
         (Kind::TemperatureChange, Si | SiMm) => unit("K", 1.0),
         (Kind::TemperatureChange, UsInch | UsFoot) => unit("°F", FAHRENHEIT_DEGREE),
+        (Kind::ThermalExpansion, Si | SiMm) => unit("/K", 1.0),
+        (Kind::ThermalExpansion, UsInch | UsFoot) => unit("/°F", 1.0 / FAHRENHEIT_DEGREE),
         (Kind::Mass, Si | SiMm) => unit("kg", 1.0),
         (Kind::Mass, UsInch | UsFoot) => unit("lb", POUND),
         (Kind::Force | Kind::ShearRigidity, Si | SiMm) => unit("N", 1.0),

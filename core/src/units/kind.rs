@@ -40,11 +40,13 @@ pub enum Kind {
     Ratio,
     /// A change of temperature, K (°C and °F read as changes, not as readings on a scale).
     TemperatureChange,
+    /// A coefficient of thermal expansion, 1/K (strain per degree).
+    ThermalExpansion,
 }
 
 impl Kind {
     /// Every kind, in the order used to name an unexpected dimension.
-    pub const ALL: [Kind; 17] = [
+    pub const ALL: [Kind; 18] = [
         Kind::Length,
         Kind::Mass,
         Kind::Force,
@@ -62,6 +64,7 @@ impl Kind {
         Kind::Frequency,
         Kind::Ratio,
         Kind::TemperatureChange,
+        Kind::ThermalExpansion,
     ];
 
     /// The dimension as exponents of mass, length and time; a frequency counts as 1/s.
@@ -83,6 +86,7 @@ impl Kind {
             Kind::Frequency => table::PER_TIME,
             Kind::Ratio => table::NONE,
             Kind::TemperatureChange => table::TEMPERATURE,
+            Kind::ThermalExpansion => table::TEMPERATURE.pow(-1),
         }
     }
 
@@ -106,6 +110,7 @@ impl Kind {
             Kind::Frequency => "frequency",
             Kind::Ratio => "ratio",
             Kind::TemperatureChange => "temperature-change",
+            Kind::ThermalExpansion => "thermal-expansion",
         }
     }
 
@@ -133,6 +138,7 @@ impl Kind {
             Kind::Frequency => "Hz",
             Kind::Ratio => "",
             Kind::TemperatureChange => "K",
+            Kind::ThermalExpansion => "/K",
         }
     }
 
@@ -156,6 +162,7 @@ impl Kind {
             Kind::Frequency => "a frequency",
             Kind::Ratio => "a dimensionless ratio",
             Kind::TemperatureChange => "a temperature change",
+            Kind::ThermalExpansion => "a coefficient of thermal expansion (per degree)",
         }
     }
 }

@@ -3,7 +3,7 @@
 //! ```text
 //! quantity   = number [ws] [units]
 //! number     = [+-] digits [. digits] [(e|E) [+-] digits]     (or . digits)
-//! units      = factor { [ws] ("*" | "·" | "⋅") [ws] factor } { [ws] "/" [ws] factor }
+//! units      = ["/" [ws]] factor { [ws] ("*" | "·" | "⋅") [ws] factor } { [ws] "/" [ws] factor }
 //! factor     = symbol [ ["^"] (1|2|3|4) | "¹" | "²" | "³" | "⁴" ]
 //! symbol     = letters | '"' | "'"                       (the inch and foot marks, and their
 //!                                                          curly and prime forms)
@@ -138,7 +138,9 @@ fn is_space(c: char) -> bool {
 fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
     let mut chars = s.chars().peekable();
     let mut factors = Vec::new();
-    let mut in_denominator = false;
+    // A leading '/' is a unit of one over something: "12e-6 /K", a coefficient per degree.
+    let mut in_denominator = chars.next_if_eq(&'/').is_some();
+    while chars.next_if(|c| is_space(*c)).is_some() {}
     loop {
         let symbol: String = match chars.peek() {
             Some(c) if table::is_mark(*c) => chars.next().map(String::from).unwrap_or_default(),

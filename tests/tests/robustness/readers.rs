@@ -105,6 +105,8 @@ fn random_inputs_give_errors_or_finite_values() {
                 density: quantity(&mut rng),
                 poisson: maybe(&mut rng),
                 shear_modulus: maybe(&mut rng),
+                preset: None,
+                thermal_expansion: maybe(&mut rng),
             },
         };
         let resolved = resolve(&material);

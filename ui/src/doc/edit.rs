@@ -154,6 +154,12 @@ fn type_of<'a>(doc: &'a Value, path: &str) -> Option<&'a str> {
 
 fn set_text(doc: &mut Value, path: &str, text: &str) {
     let (parent, key) = split_key(path);
+    // A recorded material's value typed over is no longer the preset's: it loses its name.
+    let recorded =
+        parent.ends_with(".material") && path::get(doc, parent).is_some_and(|m| m.get("preset").is_some());
+    if recorded {
+        path::remove(doc, &format!("{parent}.preset"));
+    }
     let optional = catalog::is_optional(key, type_of(doc, parent));
     let trimmed = text.trim();
     if trimmed.is_empty() && optional {
@@ -295,17 +301,25 @@ fn reshape(doc: &mut Value, path: &str, id: &str) {
     path::set(doc, path, Value::Object(object));
 }
 
-/// Picks a preset, or turns the material into custom properties that start from the preset.
+/// Picks a preset, recording the values it gives beside its name so that a saved case keeps
+/// them, or turns the material into custom properties that start from the preset.
 fn material(doc: &mut Value, path: &str, id: &str, system: UnitSystem) {
     if id != "custom" {
-        path::set(doc, path, Value::String(id.to_string()));
+        let value = match modebench::material::preset(id) {
+            Some(m) => recorded(m),
+            None => Value::String(id.to_string()),
+        };
+        path::set(doc, path, value);
         return;
     }
-    let current = path::get(doc, path);
-    if current.is_some_and(Value::is_object) {
+    let current = path::get(doc, path).cloned();
+    if let Some(Value::Object(mut object)) = current {
+        // A recorded preset becomes custom by losing its name; its values stay.
+        object.remove("preset");
+        path::set(doc, path, Value::Object(object));
         return;
     }
-    let preset = current.and_then(Value::as_str).and_then(modebench::material::preset);
+    let preset = current.as_ref().and_then(Value::as_str).and_then(modebench::material::preset);
     let (e, rho) = match preset {
         Some(m) => (
             units::format(m.youngs_modulus, Kind::Pressure, system),
@@ -313,7 +327,28 @@ fn material(doc: &mut Value, path: &str, id: &str, system: UnitSystem) {
         ),
         None => (String::new(), String::new()),
     };
-    path::set(doc, path, text_object(&[("youngs_modulus", &e), ("density", &rho)]));
+    let mut object = text_object(&[("youngs_modulus", &e), ("density", &rho)]);
+    if let (Some(m), Some(map)) = (preset, object.as_object_mut()) {
+        map.insert(
+            "thermal_expansion".into(),
+            units::format(m.thermal_expansion, Kind::ThermalExpansion, system).into(),
+        );
+    }
+    path::set(doc, path, object);
+}
+
+/// A preset material with the values it gives, in SI as the table has them.
+fn recorded(m: &modebench::material::Material) -> Value {
+    let mut map = Map::new();
+    map.insert("preset".into(), m.id.into());
+    map.insert("youngs_modulus".into(), format!("{} GPa", m.youngs_modulus / 1e9).into());
+    map.insert("density".into(), format!("{} kg/m^3", m.density).into());
+    map.insert("poisson".into(), Value::from(m.poisson));
+    if let Some(g) = m.shear_modulus_override {
+        map.insert("shear_modulus".into(), format!("{} GPa", g / 1e9).into());
+    }
+    map.insert("thermal_expansion".into(), format!("{:e} /K", m.thermal_expansion).into());
+    Value::Object(map)
 }
 
 fn segment_by(doc: &mut Value, index: usize, by: &str, system: UnitSystem, last: Option<&Report>) {
@@ -331,7 +366,9 @@ fn segment_by(doc: &mut Value, index: usize, by: &str, system: UnitSystem, last:
                 "section".into(),
                 text_object(&[("shape", "rectangle"), ("width", d.width), ("depth", d.depth)]),
             );
-            object.insert("material".into(), Value::String("steel".into()));
+            let steel =
+                modebench::material::preset("steel").map_or_else(|| Value::String("steel".into()), recorded);
+            object.insert("material".into(), steel);
         }
         "properties" if by_section => {
             // Keep the same beam: start from the properties the section and material gave.

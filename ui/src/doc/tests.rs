@@ -105,7 +105,7 @@ fn switching_a_segment_to_properties_keeps_the_same_beam() {
     // a part in a thousand.
     assert!((f(&after) / f(&before) - 1.0).abs() < 1e-3, "{} vs {}", f(&after), f(&before));
     apply(&mut doc, &Edit::SegmentBy { index: 0, by: "section".into() }, None);
-    assert_eq!(doc["segments"][0]["material"], json!("steel"));
+    assert_eq!(doc["segments"][0]["material"]["preset"], json!("steel"));
     assert!(solve(&doc).is_ok());
 }
 
@@ -115,7 +115,7 @@ fn custom_material_starts_from_the_preset() {
     apply(&mut doc, &choose("segments[0].material", "custom"), None);
     assert_eq!(
         doc["segments"][0]["material"],
-        json!({ "youngs_modulus": "68900 MPa", "density": "2700 kg/m³" })
+        json!({ "youngs_modulus": "68900 MPa", "density": "2700 kg/m³", "thermal_expansion": "2.36e-5 /K" })
     );
     assert!(solve(&doc).is_ok());
 }
@@ -201,4 +201,36 @@ fn an_axial_force_typed_in_the_editor_reaches_the_report() {
     // Emptied, the optional field goes.
     apply(&mut doc, &text("segments[0].axial_force", ""), None);
     assert!(doc["segments"][0].get("axial_force").is_none());
+}
+
+#[test]
+fn a_preset_material_is_recorded_with_its_values() {
+    let mut doc = boom();
+    apply(&mut doc, &choose("segments[0].material", "stainless-304"), None);
+    // The preset's values (supplier data sheets for 304, with the presets), as the table has them.
+    assert_eq!(
+        doc["segments"][0]["material"],
+        json!({ "preset": "stainless-304", "youngs_modulus": "193 GPa", "density": "8000 kg/m^3",
+                "poisson": 0.29, "thermal_expansion": "1.73e-5 /K" })
+    );
+    let recorded = solve(&doc).expect("solves");
+    doc["segments"][0]["material"] = json!("stainless-304");
+    let by_name = solve(&doc).expect("solves");
+    let f = |r: &modebench::Report| r.modes[0].frequency_hz;
+    assert!((f(&recorded) / f(&by_name) - 1.0).abs() < 1e-12);
+    assert_eq!(recorded.beam.segments[0].echo.material.as_deref(), Some("Stainless steel 304 (as recorded)"));
+    // Typing over a recorded value makes the material custom.
+    apply(&mut doc, &choose("segments[0].material", "steel"), None);
+    apply(&mut doc, &text("segments[0].material.density", "7800 kg/m^3"), None);
+    assert!(doc["segments"][0]["material"].get("preset").is_none());
+    // A recorded α serves a temperature change, in °F as well.
+    doc["segments"][0]["material"]["thermal_expansion"] = json!("6.667e-6 /°F");
+    doc["segments"][0]["temperature_change"] = json!("18 °F");
+    doc["right"] = json!("pinned");
+    let hot = solve(&doc).expect("solves");
+    let p = hot.beam.segments[0].echo.thermal_force.expect("thermal");
+    // −E·A·α·ΔT with α = 6.667e-6 /°F = 1.2e-5 /K and ΔT = 18 °F = 10 K (1 °F = 5/9 K).
+    let area = std::f64::consts::PI * (0.06f64.powi(2) - 0.052f64.powi(2)) / 4.0;
+    let want = -200e9 * area * 6.667e-6 * 1.8 * 10.0;
+    assert!((p / want - 1.0).abs() < 1e-9, "{p} vs {want}");
 }

@@ -124,8 +124,8 @@ fn section_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     out.push_str(&material_fields(form, base, segment));
     let extra = format!("{base}.extra_mass");
     let has = |key: &str| segment.get("extra_mass").and_then(|e| e.get(key)).is_some();
-    let hollow = matches!(shape_id, "tube" | "rectangular-tube" | "custom");
-    let round = matches!(shape_id, "tube" | "round");
+    let hollow = matches!(shape_id, "tube" | "pipe" | "rectangular-tube" | "custom");
+    let round = matches!(shape_id, "tube" | "pipe" | "round");
     if hollow || has("contents") {
         out.push_str(&contents_field(form, &extra, segment));
     }
@@ -160,13 +160,14 @@ fn material_fields(form: &mut Form<'_>, base: &str, segment: &Value) -> String {
     let material = segment.get("material");
     let current = match material {
         Some(Value::String(id)) => id.clone(),
-        Some(Value::Object(_)) => "custom".to_string(),
+        // A preset recorded with its values shows as the preset, its values below it.
+        Some(Value::Object(o)) => o.get("preset").and_then(Value::as_str).unwrap_or("custom").to_string(),
         _ => String::new(),
     };
     let path = format!("{base}.material");
     let mut out = form.select(&path, "Material", &options, &current, "");
-    if current == "custom" {
-        for spec in &catalog::MATERIAL_FIELDS {
+    if material.is_some_and(Value::is_object) {
+        for spec in catalog::MATERIAL_FIELDS.iter().chain(&catalog::MATERIAL_RECORD_FIELDS) {
             out.push_str(&form.spec(&path, spec));
         }
     }
