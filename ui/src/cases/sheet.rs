@@ -51,10 +51,10 @@ pub fn shapes_html(report: &Report) -> String {
         .iter()
         .map(|m| {
             format!(
-                "<figure class=\"mb-sheet-shape\">{}<figcaption>Mode {}: {}</figcaption></figure>",
+                "<figure class=\"mb-sheet-shape\">{}<figcaption>Mode {}: {} Hz</figcaption></figure>",
                 plot_svg(report, m.number),
                 m.number,
-                format!("{} Hz", modebench::units::significant(m.frequency_hz, 4))
+                modebench::units::significant(m.frequency_hz, 4)
             )
         })
         .collect();
