@@ -164,7 +164,7 @@ fn moderate_contrast(report: &modebench::Report) -> bool {
 }
 
 /// The documented example scenarios, perturbed by the generator.
-fn examples() -> Vec<Value> {
+pub fn examples() -> Vec<Value> {
     let dir = concat!(env!("CARGO_MANIFEST_DIR"), "/../docs/scenarios");
     let mut paths: Vec<_> = std::fs::read_dir(dir)
         .expect("docs/scenarios exists")
