@@ -173,19 +173,16 @@ pub fn frequencies_with_nodes(
         .points
         .iter()
         .filter(|p| p.xi > 0.0 && p.xi < 1.0)
-        .filter_map(|p| {
+        .map(|p| {
             let e = &discrete.mesh.elements[p.element];
-            let attachment = model.attachments().iter().position(|a| {
-                a.position() == p.x && !matches!(a, crate::model::Attachment::Support { .. })
-            })?;
-            Some(Interior {
-                attachment,
+            Interior {
+                attachment: p.attachment,
                 position: p.x,
                 a: p.xi * e.element.length,
                 b: (1.0 - p.xi) * e.element.length,
                 flexural_rigidity: e.element.ei,
                 shear_rigidity: e.element.kga,
-            })
+            }
         })
         .collect();
     Ok(FeSolution {
