@@ -176,6 +176,9 @@ pub(crate) fn find(
              (a segment, spring or support far softer or stiffer than the rest)",
         ));
     }
+    // Two roots of a close pair may come out swapped by less than that, within the polish's
+    // tolerance: list them ascending.
+    roots.sort_by(|a, b| a.omega.total_cmp(&b.omega));
     Ok((roots, search.work))
 }
 

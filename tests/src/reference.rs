@@ -85,3 +85,25 @@ pub fn model_json(id: &str, model: &modebench::Model, count: usize) -> serde_jso
         "count": count,
     })
 }
+
+/// A model in the input format of `tests/python/timoshenko_roots.py` (segments with their shear
+/// rigidity, `null` for a slender one, and rotary inertia), with frequencies (rad/s) to check.
+pub fn transfer_matrix_json(id: &str, model: &modebench::Model, omegas: &[f64]) -> serde_json::Value {
+    let mut m = model_json(id, model, omegas.len());
+    let shear = model.theory() == modebench::Theory::Timoshenko;
+    m["segments"] = model
+        .segments()
+        .iter()
+        .map(|s| {
+            serde_json::json!([
+                s.length,
+                s.flexural_rigidity,
+                s.mass_per_length,
+                s.shear_rigidity.filter(|_| shear),
+                s.rotary_inertia_per_length
+            ])
+        })
+        .collect();
+    m["omegas"] = serde_json::json!(omegas);
+    m
+}

@@ -115,3 +115,48 @@ fn banded_fe_solver_matches_scipy_on_the_same_matrices() {
         }
     }
 }
+
+#[test]
+fn a_near_mechanism_of_very_different_segments_is_told_apart_from_a_lost_mode() {
+    // A guided–free beam whose first segment, a hair-thin tube, is 1e8 times more flexible than
+    // the next, then a short heavy bar and a long I-beam: the whole beam rocks on the tube in a
+    // mode near 1e-4 Hz. The finite-element check loses that mode to rounding and lists it
+    // twice, which shifts every later mode of its list; the exact method is right.
+    let scenario = r#"{"left":"guided","modes":16,"right":"free","units":"us-inch","segments":[
+        {"length":"0.06388033961465897 ft",
+         "material":{"density":"6651.99626261817 kg/m^3","youngs_modulus":"143.9130290590764 GPa"},
+         "section":{"outer_diameter":"0.00015499181683997264 m","shape":"tube","wall":"0.0003459875255531784 in"}},
+        {"flexural_rigidity":"168.17579425082843 N·m²","length":"0.11766898921492856 m",
+         "mass_per_length":"0.20066365440535336 kg/m"},
+        {"flexural_rigidity":"138874.83974062404 N·m²","length":"0.05227396372254941 m",
+         "mass_per_length":"329.2170717461562 kg/m"},
+        {"length":"403.4341152398349 cm","material":"stainless-304",
+         "section":{"depth":0.1434344988630106,"flange_thickness":"1.0897246025037495 cm",
+                    "flange_width":"126.4106078923698 mm","shape":"i-beam","web_thickness":"0.8088515091373912 cm"}}]}"#;
+    let report = modebench::solve_json(scenario).expect("solves");
+    let disagreement: Vec<&str> = report
+        .warnings
+        .iter()
+        .filter(|w| w.code.id() == "fe-disagrees")
+        .map(|w| w.message.as_str())
+        .collect();
+    assert_eq!(disagreement.len(), 1, "{:?}", report.warnings);
+    assert!(
+        disagreement[0].contains("finite-element check gives mode 2's frequency twice")
+            && disagreement[0].contains("segments 1 and 2")
+            && !disagreement[0].to_lowercase().contains("trust the exact"),
+        "{}",
+        disagreement[0]
+    );
+    let model = modebench::Scenario::from_json(scenario).and_then(|s| s.to_model()).expect("valid").model;
+    let omegas = exact::frequencies(&model, 4).expect("solves");
+    let mut model_json = reference::transfer_matrix_json("rocking", &model, &omegas);
+    model_json["between"] = serde_json::json!(10);
+    let input = serde_json::json!({ "models": [model_json] });
+    let Some(out) = reference::run("timoshenko_roots.py", &["mpmath"], &input.to_string()) else { return };
+    let out: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+    // The transfer-matrix determinant at 40 digits changes sign within 1e-9 of each of the exact
+    // method's first four frequencies and at no sampled point between them
+    // (tests/python/timoshenko_roots.py).
+    assert_eq!(out["rocking"]["problems"], serde_json::json!([]), "{out}");
+}

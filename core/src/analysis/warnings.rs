@@ -93,3 +93,138 @@ pub(super) fn merged_points(model: &Model) -> Option<Warning> {
         ),
     })
 }
+
+/// How one mode's finite-element check compares with its exact value.
+pub(super) struct Compared {
+    /// Mode number.
+    pub(super) number: usize,
+    /// The exact frequency, rad/s.
+    pub(super) exact: f64,
+    /// How many exact frequencies coincide at it.
+    pub(super) multiplicity: usize,
+    /// The finite-element frequency, rad/s.
+    pub(super) fe: f64,
+    /// The check's estimate of its own error: mesh, attachments inside elements, round-off.
+    pub(super) error: f64,
+    /// Of that, round-off's part alone.
+    pub(super) round_off: f64,
+    /// The exact value's own estimate (Rayleigh's quotient of its shape).
+    pub(super) accuracy: f64,
+}
+
+impl Compared {
+    /// (FE − exact)/exact.
+    fn difference(&self) -> f64 {
+        (self.fe - self.exact) / self.exact
+    }
+}
+
+/// Bending stiffnesses of neighbouring segments this far apart are past what double precision
+/// resolves side by side in either method (common practice, no source: stiffness terms enter
+/// the matrices cubed against the segment length, so 1e8 leaves few digits for the modes).
+const STIFFNESS_CONTRAST: f64 = 1e8;
+
+/// Two frequencies of one list this close count as one listed twice.
+const SAME: f64 = 1e-9;
+
+/// The note on the finite-element check against the exact values, if one is due, naming the
+/// column at fault where the evidence does:
+///
+/// - a frequency that one list gives twice and the other once is a mode the first lost to
+///   rounding and filled with a copy (a duplicate shifts every later mode of its list by one);
+/// - consistent-mass elements are a Rayleigh–Ritz model of the same beam, so each of their
+///   frequencies lies at or above the true one (the inclusion principle; e.g. Bathe, *Finite
+///   Element Procedures*, from memory) up to round-off: a check below the exact value by more
+///   than its round-off shows the exact value at fault;
+/// - a check above the exact value by more than its estimates explain shows the check at fault,
+///   when the exact values up to there pass their own check (Rayleigh's quotient of each shape
+///   within 1e-9); otherwise neither is advised.
+pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<Warning> {
+    let pair = |v: &[f64], i: usize| i + 1 < v.len() && (v[i + 1] - v[i]).abs() <= SAME * v[i].abs();
+    let exact: Vec<f64> = modes.iter().map(|m| m.exact).collect();
+    let fe: Vec<f64> = modes.iter().map(|m| m.fe).collect();
+    let cause = contrast_cause(model);
+    for i in 0..modes.len() {
+        let (in_exact, in_fe) = (pair(&exact, i) && modes[i].multiplicity == 1, pair(&fe, i));
+        if in_exact != in_fe {
+            let (twice, once) = if in_fe {
+                ("finite-element check", "exact method")
+            } else {
+                ("exact method", "finite-element check")
+            };
+            return Some(Warning {
+                code: WarningCode::FeDisagrees,
+                message: format!(
+                    "The {twice} gives mode {}'s frequency twice where the {once} finds it once: it has lost a mode \
+                     to rounding{cause}, and its later modes may be misplaced. Do not rely on the {twice}'s column \
+                     from mode {} on; check the inputs.",
+                    modes[i].number,
+                    modes[i].number + 1
+                ),
+            });
+        }
+    }
+    let below = modes.iter().find(|m| m.difference() < -(10.0 * (m.round_off + m.accuracy) + 1e-9));
+    if let Some(m) = below {
+        return Some(Warning {
+            code: WarningCode::FeDisagrees,
+            message: format!(
+                "The finite-element check puts mode {} {:.1e} below the exact value, more than its rounding \
+                 explains ({:.0e}); elements of this kind cannot lie below the true frequency, so the exact method \
+                 has missed or misplaced a mode here{cause}. Do not rely on either column from mode {} on; check \
+                 the inputs.",
+                m.number,
+                -m.difference(),
+                m.round_off,
+                m.number
+            ),
+        });
+    }
+    // The estimates are of order, not bounds: a factor 10 of margin.
+    let at = modes.iter().position(|m| m.difference() > 10.0 * (m.error + m.accuracy) + 1e-12)?;
+    let m = &modes[at];
+    let certified = modes[..=at].iter().all(|m| m.accuracy <= super::TRUSTED);
+    let advice = match certified {
+        true => format!(
+            "Elements of this kind can only err upwards, and the exact value's own check (Rayleigh's quotient of the \
+             mode shape) agrees to {:.0e}: trust the exact value, and please report this model.",
+            m.accuracy
+        ),
+        false => format!(
+            "The exact values up to there do not all pass their own check (Rayleigh's quotient of the mode shape) \
+             either{cause}: do not rely on either column from mode {} on; check the inputs.",
+            m.number
+        ),
+    };
+    Some(Warning {
+        code: WarningCode::FeDisagrees,
+        message: format!(
+            "The finite-element check of mode {} lies {:.1e} above the exact value, more than its mesh and rounding \
+             explain ({:.0e}). {advice}",
+            m.number,
+            m.difference(),
+            m.error
+        ),
+    })
+}
+
+/// Words naming the likely cause of lost modes: segments of very different stiffness side by
+/// side (empty when there are none).
+fn contrast_cause(model: &Model) -> String {
+    let segments = model.segments();
+    let worst = (1..segments.len())
+        .map(|i| {
+            let (a, b) = (segments[i - 1].flexural_rigidity, segments[i].flexural_rigidity);
+            (i, a.max(b) / a.min(b))
+        })
+        .max_by(|x, y| x.1.total_cmp(&y.1));
+    match worst {
+        Some((i, ratio)) if ratio > STIFFNESS_CONTRAST => format!(
+            " (segments {} and {} differ in bending stiffness by a factor of {ratio:.0e}, more than double \
+             precision resolves side by side)",
+            i,
+            i + 1
+        ),
+        _ => String::new(),
+    }
+}

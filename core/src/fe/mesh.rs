@@ -47,6 +47,8 @@ pub(crate) struct Point {
     pub(crate) element: usize,
     pub(crate) xi: f64,
     pub(crate) x: f64,
+    /// Index of the attachment in the model (several may share a position).
+    pub(crate) attachment: usize,
     pub(crate) kind: PointKind,
 }
 
@@ -273,7 +275,7 @@ fn build(model: &Model, xs: Vec<f64>, tolerance: f64) -> Result<FeMesh> {
             }
             Attachment::Support { .. } => continue,
         };
-        points.push(Point { element, xi, x, kind });
+        points.push(Point { element, xi, x, attachment: index, kind });
     }
     let mut dofs = 0;
     let mut next = || {

@@ -96,6 +96,8 @@ pub struct Interior {
     pub b: f64,
     /// The element's bending stiffness EI, N·m².
     pub flexural_rigidity: f64,
+    /// The element's shear rigidity κGA, N; infinite for a slender element.
+    pub shear_rigidity: f64,
 }
 
 impl Interior {
@@ -104,7 +106,13 @@ impl Interior {
     /// only as its end values dictate, so it misses the compliance of its span clamped at both
     /// ends under a load at this point: the inverse of the two clamped pieces' end stiffnesses
     /// added, EI·[12/a³ + 12/b³, 6/b² − 6/a²; 6/b² − 6/a², 4/a + 4/b] (the standard slender
-    /// element's stiffness). Against the mode's energy ω²·T (T its generalised mass in the same
+    /// element's stiffness), and in a shear-flexible element also the two pieces' shear
+    /// compliance under the force, a·b/((a + b)·κGA) (the two pieces' shear stiffnesses κGA/a
+    /// and κGA/b in parallel; added to the bending part it is the clamped–clamped Timoshenko
+    /// beam's exact deflection at midspan, FL³/192EI + FL/4κGA, e.g. Roark's formulas, from
+    /// memory). Near a node the shear part dominates: a heavy mass a short way inside an element
+    /// of a thin rod bounces on that shear compliance in a mode of its own, which the element
+    /// cannot show. Against the mode's energy ω²·T (T its generalised mass in the same
     /// normalisation as F and C) that is δω/ω ≈ (F, C)·compliance·(F, C)/(2ω²T).
     pub fn error(&self, force: f64, moment: f64, omega: f64, generalized_mass: f64) -> f64 {
         let (a, b, ei) = (self.a, self.b, self.flexural_rigidity);
@@ -113,9 +121,13 @@ impl Interior {
             [ei * (6.0 / (b * b) - 6.0 / (a * a)), ei * (4.0 / a + 4.0 / b)],
         ];
         let det = k[0][0] * k[1][1] - k[0][1] * k[1][0];
-        let work =
+        let bending =
             (k[1][1] * force * force - 2.0 * k[0][1] * force * moment + k[0][0] * moment * moment) / det;
-        work / (2.0 * omega * omega * generalized_mass)
+        let shear = match self.shear_rigidity.is_finite() {
+            true => a * b / ((a + b) * self.shear_rigidity) * force * force,
+            false => 0.0,
+        };
+        (bending + shear) / (2.0 * omega * omega * generalized_mass)
     }
 }
 
@@ -127,7 +139,19 @@ pub fn frequencies(model: &Model, elastic: usize, mesh: Mesh) -> Result<FeSoluti
 /// As [`frequencies`], given the exact frequencies (rad/s) the finite-element ones lie just above:
 /// the search brackets each root from there, which saves most of the bisection.
 pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]) -> Result<FeSolution> {
-    let discrete = Discrete::new(model, mesh, &[])?;
+    frequencies_with_nodes(model, elastic, mesh, exact, &[])
+}
+
+/// As [`frequencies_near`], with nodes also at `nodes` (m): attachments there act on a node of
+/// their own rather than inside an element, whatever the mesh's spacing.
+pub fn frequencies_with_nodes(
+    model: &Model,
+    elastic: usize,
+    mesh: Mesh,
+    exact: &[f64],
+    nodes: &[f64],
+) -> Result<FeSolution> {
+    let discrete = Discrete::new(model, mesh, nodes)?;
     let rigid = model.rigid_body_modes();
     let available = discrete.mesh.dofs.saturating_sub(rigid);
     if available < elastic {
@@ -149,18 +173,16 @@ pub fn frequencies_near(model: &Model, elastic: usize, mesh: Mesh, exact: &[f64]
         .points
         .iter()
         .filter(|p| p.xi > 0.0 && p.xi < 1.0)
-        .filter_map(|p| {
+        .map(|p| {
             let e = &discrete.mesh.elements[p.element];
-            let attachment = model.attachments().iter().position(|a| {
-                a.position() == p.x && !matches!(a, crate::model::Attachment::Support { .. })
-            })?;
-            Some(Interior {
-                attachment,
+            Interior {
+                attachment: p.attachment,
                 position: p.x,
                 a: p.xi * e.element.length,
                 b: (1.0 - p.xi) * e.element.length,
                 flexural_rigidity: e.element.ei,
-            })
+                shear_rigidity: e.element.kga,
+            }
         })
         .collect();
     Ok(FeSolution {
