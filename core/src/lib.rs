@@ -37,8 +37,6 @@ pub use analysis::{analyse, Analysis, Options};
 pub mod report;
 pub mod scenario;
 
-pub use report::{
-    frequencies_value, solve, solve_json, solve_value, solve_value_with_hints, Report,
-};
+pub use report::{frequencies_value, solve, solve_json, solve_value, solve_value_with_hints, Report};
 pub use scenario::Scenario;
 mod sort;

@@ -14,8 +14,6 @@ pub mod types;
 
 pub use crate::analysis::Separation;
 pub use crate::model::{AttachmentKind, EndKind};
-pub use pipeline::{
-    frequencies_value, solve, solve_json, solve_value, solve_value_with_hints,
-};
+pub use pipeline::{frequencies_value, solve, solve_json, solve_value, solve_value_with_hints};
 pub use read::{report_from_json, FromJson};
 pub use types::*;
