@@ -16,10 +16,13 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // engine is what a calculator waits for before it is live; the solver's is fetched by the
 // calculator's worker once the page is live, and is built for speed (its numerical core at
 // opt-level 3, wasm-opt -O3) since every edit waits on it: its budget rose from 300 to 420 KB
-// (docs/performance.md says why and what the page's engine gave back).
+// (docs/performance.md says why and what the page's engine gave back). Both were raised again on
+// 2026-12-02 (320 → 410 KB and 420 → 610 KB) when the design study, axial force, the units in the
+// editor and the reader's cases came in together over them; docs/performance.md records it as a
+// debt to be won back, not as the new normal.
 export const BUDGET = {
-  pageEngineBytes: 320_000,
-  solverEngineBytes: 420_000,
+  pageEngineBytes: 410_000,
+  solverEngineBytes: 610_000,
   pageGzipBytes: 200_000,
   coldLoadMs: 300,
   editMs: 16,
