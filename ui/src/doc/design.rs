@@ -83,7 +83,7 @@ pub fn apply_changes(doc: &mut Value, changes: &[Change]) -> bool {
 }
 
 /// The numeric inputs of a case that a design request may name, with words for a list:
-/// ("segments[0].section.wall", "Segment 1: Wall").
+/// (`"segments[0].section.wall"`, `"Segment 1: Wall"`).
 pub fn input_choices(doc: &Value) -> Vec<(String, String)> {
     inputs::paths(doc)
         .into_iter()
