@@ -18,8 +18,20 @@ self.addEventListener("install", (event) => {
   event.waitUntil(
     (async () => {
       const cache = await caches.open(CACHE);
-      // Fetched past the HTTP cache, so that the new version's files are the ones kept.
-      await cache.addAll(FILES.map((file) => new Request(new URL(file, ROOT), { cache: "reload" })));
+      // Fetched past the HTTP cache, so that the new version's files are the ones kept; one at a
+      // time, each tried up to three times, so that a small server that turns away a burst of
+      // requests does not leave the site uncached.
+      for (const file of FILES) {
+        const request = new Request(new URL(file, ROOT), { cache: "reload" });
+        let response = null;
+        for (let attempt = 0; attempt < 3 && !(response && response.ok); attempt += 1) {
+          response = await fetch(request).catch(() => null);
+        }
+        if (!response || !response.ok) {
+          throw new Error(`the site could not be kept for offline use: ${file} did not load`);
+        }
+        await cache.put(request, response);
+      }
       await self.skipWaiting();
     })(),
   );

@@ -70,8 +70,10 @@ describe("design work on the page", () => {
     assert.ok(Math.abs((await hz(page, 2)) / 98.6 - 1) < 1e-5, `mode 2 at ${await hz(page, 2)} Hz`);
     const rotational = await page.locator('[data-field="left.rotational"]').inputValue();
     assert.match(rotational, /N·mm\/rad$/, "written in the case's units");
-    const undo = page.locator('[data-action="undo"]');
+    // The bar under the head names the step; the case bar's own Undo takes it back as well.
+    const undo = page.locator('button.mb-undo[data-action="undo"]');
     assert.match(await undo.textContent(), /Undo: use the fitted values/);
+    assert.equal(await page.locator('.mb-cases [data-action="undo"]').isDisabled(), false);
     const fitted = await hz(page, 1);
     await undo.click();
     await changed(page, 1, fitted);

@@ -160,6 +160,8 @@ impl Calculator {
         self.store_unless_waiting();
         self.cases.record(&what);
         self.edit(Edit::Apply(changes), None);
+        // The case bar's own "Undo" takes the step back too; redraw it so that it says so.
+        self.show_cases();
         self.show_undo();
         self.refocus(Some(("data-action", "undo".to_string())));
     }
