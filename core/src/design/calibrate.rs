@@ -14,6 +14,9 @@
 //! engine for a system of two. The Jacobian's condition number (its singular values are the
 //! square roots of the eigenvalues of the 2 × 2 JᵀJ, in closed form) says whether the
 //! measurements can tell the two inputs apart.
+//!
+//! A few lines past 400: the one-unknown root solve and the two-unknown fit share their checks
+//! of the range and of the conditioning, kept beside both.
 
 use super::Frequencies;
 use crate::error::{Error, ErrorKind, Result};

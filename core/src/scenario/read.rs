@@ -1,5 +1,9 @@
 //! Reading a scenario into a validated model: every value with its unit, every field checked,
 //! every conversion recorded for display.
+//!
+//! Longer than 400 lines on purpose: each part of the scenario is read by one function here, and
+//! they share the reader's conversion log and path handling, which are easier to keep consistent
+//! in one place.
 
 use super::derived::{self, SectionOrigin};
 use super::{AttachmentInput, EndInput, ExcitationInput, Scenario, SegmentInput};
