@@ -79,8 +79,27 @@ export async function startSite(dir = DIST) {
     });
     server.on("exit", (code) => failed(new Error(`the site server stopped (exit ${code}): ${seen}`)));
   });
-  return { url, stop: () => server.kill() };
+  // Neither the server nor its output keeps this test file's process alive: a test that fails
+  // before its `stop()` must not leave the file (and the whole run) waiting forever.
+  server.unref();
+  server.stdout.unref();
+  servers.add(server);
+  return {
+    url,
+    stop: () => {
+      servers.delete(server);
+      server.kill();
+    },
+  };
 }
+
+// Every server this file started, stopped when its process ends.
+const servers = new Set();
+process.on("exit", () => {
+  for (const server of servers) {
+    server.kill();
+  }
+});
 
 export async function launch() {
   return chromium.launch({

@@ -54,8 +54,9 @@ pub(crate) fn run(project: &Project) -> Result<()> {
     let server = Background::start(&site)?;
     let dir = project.browser_tests();
     let files = browser_test_files(&dir)?;
+    // A test that waits forever fails after five minutes instead of holding CI to its limit.
     run::status(
-        run::cmd("node", ["--test", "--test-concurrency=1"])
+        run::cmd("node", ["--test", "--test-concurrency=1", "--test-timeout=300000"])
             .args(&files)
             .current_dir(&dir)
             .env("MODEBENCH_URL", &server.url)
