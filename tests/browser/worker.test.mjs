@@ -16,6 +16,11 @@ const OFFER = '.mb-calc [data-action="reopen"]';
 // The Long Tasks API reports every task of the main thread that runs longer than this, ms; a
 // frame that long is a visible stall (the RAIL model's 50 ms, common practice).
 const LONG_TASK_MS = 50;
+// The worker starts each solve from the previous answer, so a frequency reached along another
+// path of edits agrees with a fresh solve to round-off, not always to the last bit; the engine
+// promises 1e-12 relative, and two results that close are the same answer.
+const SAME = 1e-12;
+const same = (a, b) => Math.abs(a - b) <= SAME * Math.abs(b);
 
 let site;
 let browser;
@@ -112,14 +117,23 @@ describe("solving off the main thread", () => {
     await stiffness.click();
     await stiffness.press("Control+A");
     await stiffness.pressSequentially(typed, { delay: 80 });
-    // The newest keystroke's answer is the last drawn: the reference frequency, to the bit.
+    // The newest keystroke's answer is the last drawn: the reference frequency, to round-off.
     await page.waitForFunction(
-      ([selector, hz]) => Number(document.querySelector(selector)?.dataset.hz) === hz,
-      [MODE_1, reference.hz],
+      ([selector, hz, tolerance]) =>
+        Math.abs(Number(document.querySelector(selector)?.dataset.hz) - hz) <= tolerance * hz,
+      [MODE_1, reference.hz, SAME],
       { timeout: 60_000 },
     );
+    // No task of the main thread while typing came near one solve of the model: the solving was
+    // elsewhere. (Drawing twenty modes can itself pass the long-task mark on a loaded machine, so
+    // the mark is measured against the solve, timed on this same machine a moment before.)
     const longTasks = await page.evaluate(() => window.__longTasks);
-    assert.deepEqual(longTasks, [], `main-thread tasks over ${LONG_TASK_MS} ms while typing`);
+    const limit = Math.max(LONG_TASK_MS, reference.ms / 2);
+    assert.deepEqual(
+      longTasks.filter((ms) => ms >= limit),
+      [],
+      `main-thread tasks while typing: ${longTasks} ms; one solve takes ${reference.ms.toFixed(0)} ms`,
+    );
     // The control: the same observer does see one solve of this model on the main thread.
     await solveHere(page, [final]);
     await page.waitForFunction(() => window.__longTasks.length > 0, null, { timeout: 5000 });
@@ -142,7 +156,7 @@ describe("solving off the main thread", () => {
     // Two edits in one go: the first reaches the worker, the second waits; the first answer is
     // then out of date and must not be drawn, even for a moment.
     const drawn = await page.evaluate(
-      ([selector, field, done]) =>
+      ([selector, field, done, tolerance]) =>
         new Promise((resolve) => {
           const seen = [];
           const root = document.querySelector(".mb-calc");
@@ -151,7 +165,7 @@ describe("solving off the main thread", () => {
             if (seen.at(-1) !== hz) {
               seen.push(hz);
             }
-            if (hz === done) {
+            if (Math.abs(hz - done) <= tolerance * done) {
               // Wait a little longer in case anything else is drawn after it.
               setTimeout(() => resolve(seen), 500);
             }
@@ -164,10 +178,10 @@ describe("solving off the main thread", () => {
           }
           setTimeout(() => resolve(seen), 10_000);
         }),
-      [MODE_1, TIP_MASS, lighter.hz],
+      [MODE_1, TIP_MASS, lighter.hz, SAME],
     );
-    assert.deepEqual(drawn.filter((hz) => hz === heavier.hz), [], `the overtaken result was drawn: ${drawn}`);
-    assert.equal(drawn.at(-1), lighter.hz, `drawn in turn: ${drawn}`);
+    assert.deepEqual(drawn.filter((hz) => same(hz, heavier.hz)), [], `the overtaken result was drawn: ${drawn}`);
+    assert.ok(same(drawn.at(-1), lighter.hz), `drawn in turn: ${drawn}; expected last ${lighter.hz}`);
     assert.deepEqual(problems, []);
     await context.close();
   });
