@@ -8,7 +8,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
 import { deflateRawSync } from "node:zlib";
-import { DIST, launch, startSite, watchedPage } from "./support.mjs";
+import { DIST, closeAll, launch, startSite, watchedPage } from "./support.mjs";
 
 // A simply supported uniform beam: f₁ = (π/2)·√(EI/(m·L⁴)), textbook Euler–Bernoulli.
 const CASE = {
@@ -47,8 +47,7 @@ before(async () => {
 });
 
 after(async () => {
-  await browser?.close();
-  site?.stop();
+  await closeAll();
   rmSync(host, { recursive: true, force: true });
 });
 

@@ -11,7 +11,7 @@ import { cpSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, ROOT, launch, pages, startSite, watchedPage } from "./support.mjs";
+import { DIST, ROOT, closeAll, launch, pages, startSite, watchedPage } from "./support.mjs";
 
 let browser;
 
@@ -19,9 +19,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-});
+after(closeAll);
 
 // Visits a page and waits until the service worker controls it and has kept every file.
 async function firstVisit(context, url) {

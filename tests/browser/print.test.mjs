@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { closeAll, launch, openLive, settled, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const WATER = '[data-field="segments[0].extra_mass.submerged"]';
@@ -18,16 +18,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
-
-async function settled(page) {
-  await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, {
-    timeout: 10_000,
-  });
-}
+after(closeAll);
 
 // What print shows: every visible heading with the text of the section it heads, and the rest.
 async function printed(page) {
@@ -62,11 +53,7 @@ async function printed(page) {
 
 describe("the printed sheet", () => {
   test("a case of the reader's own prints as its own calculation record, with nothing empty", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page, problems } = await watchedPage(context);
-    await page.goto(site.url + BOOM);
-    await page.waitForSelector(".mb-cases");
-    await settled(page);
+    const { context, page, problems } = await openLive(browser, site.url + BOOM, { ready: ".mb-cases" });
 
     // The example, printed: the page's title and its notes on the example, every mode drawn.
     let sheet = await printed(page);

@@ -11,6 +11,13 @@ use crate::project::{path_str, Project};
 use crate::run;
 use crate::server::Background;
 
+/// Node's limit on each browser test, so that a test waiting on a page that never answers fails
+/// instead of holding CI: generous, as the slowest test (the offline rebuild, which builds the
+/// site again) takes under a minute on a loaded two-core machine. Each file's `after` hook
+/// closes its browser and servers whether its tests passed or not (`closeAll` in
+/// `tests/browser/support.mjs`).
+const BROWSER_TEST_TIMEOUT: &str = "--test-timeout=180000";
+
 /// Runs every check; stops at the first failure.
 pub(crate) fn run(project: &Project) -> Result<()> {
     run::step("Formatting");
@@ -55,7 +62,7 @@ pub(crate) fn run(project: &Project) -> Result<()> {
     let dir = project.browser_tests();
     let files = browser_test_files(&dir)?;
     run::status(
-        run::cmd("node", ["--test", "--test-concurrency=1"])
+        run::cmd("node", ["--test", "--test-concurrency=1", BROWSER_TEST_TIMEOUT])
             .args(&files)
             .current_dir(&dir)
             .env("MODEBENCH_URL", &server.url)
