@@ -7,7 +7,7 @@
 // process exits is killed: no test file can keep CI waiting on a child it left behind.
 
 import { spawn } from "node:child_process";
-import { readdirSync } from "node:fs";
+import { readFileSync, readdirSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { chromium } from "playwright-core";
@@ -195,6 +195,55 @@ export async function openLive(browser, url, { context, contextOptions = {}, rea
     await settled(page);
   }
   return { context: used, page, problems, external: own?.external ?? [] };
+}
+
+// Waits until `predicate`, run in the page or frame `target` with `arg`, returns something truthy
+// (it may be async), and returns that. Playwright's own `waitForFunction` does not wait for the
+// promise an async predicate returns, and so would take any async predicate as met at once.
+export async function waitInPage(target, predicate, arg, { timeout = 30_000, interval = 200, what = "the condition" } = {}) {
+  const deadline = Date.now() + timeout;
+  let last;
+  for (;;) {
+    last = await target.evaluate(predicate, arg);
+    if (last) {
+      return last;
+    }
+    if (Date.now() > deadline) {
+      throw new Error(`${what} was not met within ${timeout} ms`);
+    }
+    await new Promise((done) => setTimeout(done, interval));
+  }
+}
+
+// What the built site's service worker keeps: its version and its files, read from `sw.js`.
+export function offlineSite(dist = DIST) {
+  const worker = readFileSync(join(dist, "sw.js"), "utf8");
+  const version = worker.match(/const VERSION = "([0-9a-f]+)";/)[1];
+  const files = JSON.parse(worker.match(/const FILES = (\[.*\]);/)[1]);
+  return { version, files };
+}
+
+// Waits until the site's service worker controls `target` (a page or frame), has settled (no
+// worker installing or waiting), and its cache is the only one and holds every file of the
+// version built in `dist`; returns the URLs kept, relative to the worker's folder.
+export async function untilKept(target, dist = DIST) {
+  const { version, files } = offlineSite(dist);
+  return waitInPage(
+    target,
+    async ({ version, count }) => {
+      const registration = await navigator.serviceWorker.getRegistration();
+      const settled = registration?.active?.state === "activated" && !registration.installing && !registration.waiting;
+      const names = await caches.keys();
+      if (!navigator.serviceWorker.controller || !settled || names.length !== 1 || !names[0].endsWith(` ${version}`)) {
+        return null;
+      }
+      const root = new URL("./", registration.active.scriptURL).href;
+      const kept = (await (await caches.open(names[0])).keys()).map((r) => r.url.slice(root.length));
+      return kept.length >= count ? kept.sort() : null;
+    },
+    { version, count: files.length },
+    { what: `the service worker keeping the ${files.length} files of version ${version}` },
+  );
 }
 
 // Words that mean a number went wrong somewhere between the engine and the page.
