@@ -1,7 +1,7 @@
 //! `cargo xtask test`: exactly what CI runs, in the order that fails fastest — formatting,
 //! lints, docs, native tests, the invariants that the core and the UI build for WebAssembly and
 //! that each crate depends only on what it may (no web crate outside the binding), the
-//! binding's tests in Node, the site build, and the browser tests.
+//! binding's tests in Node, the site build with the single file, and the browser tests.
 
 use anyhow::{bail, Result};
 
@@ -56,6 +56,8 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 
     engine::build(project)?;
     let site = project.build_site()?;
+    engine::bind_for_single_file(project)?;
+    site.write_single_file(project)?;
 
     run::step("Browser tests (headless Chromium)");
     let server = Background::start(&site)?;
@@ -67,6 +69,7 @@ pub(crate) fn run(project: &Project) -> Result<()> {
             .current_dir(&dir)
             .env("MODEBENCH_URL", &server.url)
             .env("MODEBENCH_DIST", &site.dist)
+            .env("MODEBENCH_SINGLE_FILE", project.single_file())
             .env("MODEBENCH_SITE_BIN", path_str(&site.program)?),
     )?;
     drop(server);
