@@ -19,18 +19,27 @@ self.addEventListener("install", (event) => {
     (async () => {
       const cache = await caches.open(CACHE);
       // Fetched past the HTTP cache, so that the new version's files are the ones kept; one at a
-      // time, each tried up to three times, so that a small server that turns away a burst of
-      // requests does not leave the site uncached.
-      for (const file of FILES) {
-        const request = new Request(new URL(file, ROOT), { cache: "reload" });
-        let response = null;
-        for (let attempt = 0; attempt < 3 && !(response && response.ok); attempt += 1) {
-          response = await fetch(request).catch(() => null);
+      // time, each tried up to three times a moment apart, so that a small server that turns
+      // away a burst of requests does not leave the site uncached. A version that cannot be kept
+      // whole is not kept at all: the worker fails to install, and the next visit tries again.
+      try {
+        for (const file of FILES) {
+          const request = new Request(new URL(file, ROOT), { cache: "reload" });
+          let response = null;
+          for (let attempt = 0; attempt < 3 && !(response && response.ok); attempt += 1) {
+            if (attempt > 0) {
+              await new Promise((resolve) => setTimeout(resolve, 250 * attempt));
+            }
+            response = await fetch(request).catch(() => null);
+          }
+          if (!response || !response.ok) {
+            throw new Error(`the site could not be kept for offline use: ${file} did not load`);
+          }
+          await cache.put(request, response);
         }
-        if (!response || !response.ok) {
-          throw new Error(`the site could not be kept for offline use: ${file} did not load`);
-        }
-        await cache.put(request, response);
+      } catch (error) {
+        await caches.delete(CACHE);
+        throw error;
       }
       await self.skipWaiting();
     })(),
@@ -60,11 +69,11 @@ self.addEventListener("fetch", (event) => {
 });
 
 // The kept copy of a file of this version, else the network. The site's folder itself is its
-// home page.
+// home page. The cache is looked up by name, never opened: opening would create it again, empty,
+// should this worker answer a last request after a newer version has deleted it.
 async function answer(request, url) {
-  const cache = await caches.open(CACHE);
   const key = url.pathname.endsWith("/") ? new URL("index.html", url) : url;
-  const kept = await cache.match(key.href, { ignoreSearch: true });
+  const kept = await caches.match(key.href, { cacheName: CACHE, ignoreSearch: true });
   if (kept) {
     return kept;
   }

@@ -1,5 +1,5 @@
-//! The command line: `build [--out DIR]` and `serve [--dir DIR] [--port N]`, read without a parser
-//! crate because there are only four options.
+//! The command line: `build`, `single` and `serve` with their few options, read without a parser
+//! crate because there are so few.
 
 use std::path::PathBuf;
 
@@ -12,6 +12,11 @@ usage:
       Writes the whole site to DIR (default: dist). --root is the repository (default: found
       from the current folder); --wasm is the folder with the browser engine built by
       `cargo xtask build` (default: ROOT/build/wasm).
+  modebench-site single [--out FILE] [--root DIR] [--wasm DIR]
+      Writes one HTML file with one calculator and both engines inside it, which works opened
+      from disk (default: build/single/modebench-calculator.html). --wasm is the folder with the
+      engines bound for `no-modules` by `cargo xtask build --single-file` (default:
+      ROOT/build/wasm-single).
   modebench-site serve [--dir DIR] [--port N]
       Serves a built site on http://127.0.0.1:N/ (default: dist on port 8080; 0 picks a free
       port). Build first: serve never builds.";
@@ -20,19 +25,21 @@ usage:
 pub(crate) enum Command {
     /// Build the site.
     Build(BuildOptions),
+    /// Write the single-file build.
+    Single(BuildOptions),
     /// Serve a built site.
     Serve(ServeOptions),
     /// Print the usage.
     Help,
 }
 
-/// Options of `build`.
+/// Options of `build` and `single`.
 pub(crate) struct BuildOptions {
     /// The repository root (holds `site/pages`).
     pub(crate) root: PathBuf,
     /// Where the site is written.
     pub(crate) out: PathBuf,
-    /// The wasm-bindgen output to copy into `assets/`.
+    /// The wasm-bindgen output to copy into `assets/` (`build`) or to embed (`single`).
     pub(crate) wasm: PathBuf,
 }
 
@@ -59,23 +66,32 @@ impl Command {
             pairs.push((flag, value));
         }
         match verb.as_str() {
-            "build" => {
+            "build" | "single" => {
+                let single = verb == "single";
                 let mut root = None;
-                let mut out = PathBuf::from("dist");
+                let mut out = None;
                 let mut wasm = None;
                 for (flag, value) in pairs {
                     match flag.as_str() {
                         "--root" => root = Some(PathBuf::from(value)),
-                        "--out" => out = PathBuf::from(value),
+                        "--out" => out = Some(PathBuf::from(value)),
                         "--wasm" => wasm = Some(PathBuf::from(value)),
-                        _ => bail!("build does not know {flag}\n{USAGE}"),
+                        _ => bail!("{verb} does not know {flag}\n{USAGE}"),
                     }
                 }
                 let root = match root {
                     Some(root) => root,
                     None => find_root()?,
                 };
+                if single {
+                    let wasm = wasm.unwrap_or_else(|| root.join("build").join("wasm-single"));
+                    let out = out.unwrap_or_else(|| {
+                        root.join("build").join("single").join("modebench-calculator.html")
+                    });
+                    return Ok(Command::Single(BuildOptions { root, out, wasm }));
+                }
                 let wasm = wasm.unwrap_or_else(|| root.join("build").join("wasm"));
+                let out = out.unwrap_or_else(|| PathBuf::from("dist"));
                 Ok(Command::Build(BuildOptions { root, out, wasm }))
             }
             "serve" => {
@@ -134,5 +150,6 @@ mod tests {
         assert!(parse("serve --dir").is_err());
         assert!(parse("publish").is_err());
         assert!(parse("build --root . --colour red").is_err());
+        assert!(parse("single --root . --port 1").is_err());
     }
 }

@@ -2,7 +2,8 @@
 //!
 //! `modebench-site build` turns the Markdown pages in `site/pages/` into a `dist/` folder that
 //! works from any static host and any sub-path; `modebench-site serve` only serves a folder that
-//! was built before, on 127.0.0.1.
+//! was built before, on 127.0.0.1; `modebench-site single` writes one HTML file with a calculator
+//! and its engines inside, for use from disk.
 
 mod args;
 mod builder;
@@ -15,6 +16,7 @@ mod offline;
 mod page;
 mod page_list;
 mod serve;
+mod single;
 mod template;
 mod verify;
 
@@ -25,6 +27,14 @@ fn main() -> ExitCode {
         args::Command::Build(options) => builder::build(&options).map(|report| {
             println!("{report}");
         }),
+        args::Command::Single(options) => {
+            single::write(&options.root, &options.wasm, &options.out).map(|bytes| {
+                println!(
+                    "Wrote {} ({bytes} bytes): one calculator that works opened from disk",
+                    options.out.display()
+                );
+            })
+        }
         args::Command::Serve(options) => serve::serve(&options),
         args::Command::Help => {
             println!("{}", args::USAGE);

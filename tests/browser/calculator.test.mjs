@@ -4,7 +4,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, isolatedContext, launch, pages, startSite, watchedPage } from "./support.mjs";
+import { BROKEN_NUMBER, closeAll, isolatedContext, launch, openLive, pages, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -22,17 +22,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
-
-async function openLive(context, file) {
-  const { page, problems } = await watchedPage(context);
-  await page.goto(site.url + file);
-  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-  return { page, problems };
-}
+after(closeAll);
 
 async function mode1(page) {
   return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
@@ -70,8 +60,7 @@ describe("the live calculator", () => {
         return;
       }
       assert.ok(prerendered.length > 0, "the prerendered page shows frequencies");
-      const { context } = await isolatedContext(browser);
-      const { page, problems } = await openLive(context, file);
+      const { context, page, problems } = await openLive(browser, site.url + file, { settle: false });
       const live = await page.$$eval("td[data-hz]", (cells) => cells.map((c) => Number(c.dataset.hz)));
       assert.equal(live.length, prerendered.length);
       live.forEach((hz, i) => {
@@ -101,8 +90,7 @@ describe("the live calculator", () => {
     const fixedHeight = await editorHeight(built);
     await still.close();
 
-    const { context } = await isolatedContext(browser);
-    const { page, problems } = await openLive(context, BOOM);
+    const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
     const live = page.locator(".mb-calc").first();
     assert.ok((await live.locator("input").count()) > 10, "the engine drew the controls");
     assert.equal(await live.locator(".mb-fixed").count(), 0, "no fixed value is left");
@@ -158,8 +146,7 @@ describe("the live calculator", () => {
   });
 
   test("choosing a mode as soon as the calculator is live draws that mode's shape", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page, problems } = await openLive(context, BOOM);
+    const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
     const caption = () => page.locator(".mb-calc svg.mb-plot title").first().textContent();
     assert.match(await caption(), /^Mode 1: /);
     await page.locator('.mb-calc [data-show-mode="3"]').first().click();
@@ -172,8 +159,7 @@ describe("the live calculator", () => {
   });
 
   test("a heavier camera head lowers the first frequency; a lighter one raises it", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page } = await openLive(context, BOOM);
+    const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     const start = await mode1(page);
     await typeAndWait(page, TIP_MASS, "4.2 kg");
     const heavier = await mode1(page);
@@ -192,8 +178,7 @@ describe("the live calculator", () => {
     ["heavy", "no number"],
   ]) {
     test(`${why} ("${typed}") is named beside the field, and no broken number appears`, async () => {
-      const { context } = await isolatedContext(browser);
-      const { page, problems } = await openLive(context, BOOM);
+      const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
       const lastGood = await mode1(page);
       await page.locator(TIP_MASS).fill(typed);
       const error = page.locator('.mb-field-error[data-for="attachments[0].mass"]');
@@ -208,8 +193,7 @@ describe("the live calculator", () => {
   }
 
   test("a reload keeps what was typed", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page } = await openLive(context, BOOM);
+    const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     await typeAndWait(page, TIP_MASS, "3.1 kg");
     const edited = await mode1(page);
     await page.reload();

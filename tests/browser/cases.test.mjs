@@ -6,7 +6,7 @@ import { readFile, mkdtemp, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { closeAll, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -21,24 +21,11 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
+after(closeAll);
 
-async function openLive(context, file) {
-  const { page, problems } = await watchedPage(context);
-  await page.goto(site.url + file);
-  await page.waitForSelector(".mb-cases", { timeout: 10_000 });
-  await settled(page);
-  return { page, problems };
-}
-
-// Waits until the calculator's worker has answered everything handed to it.
-async function settled(page) {
-  await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, {
-    timeout: 10_000,
-  });
+// The sensor boom's calculator, live, its case bar drawn and its worker's answers in.
+function openBoom(options = {}) {
+  return openLive(browser, site.url + BOOM, { ready: ".mb-cases", ...options });
 }
 
 async function caseNames(page) {
@@ -68,8 +55,7 @@ async function editCase(page) {
 
 describe("cases", () => {
   test("cases survive a reload, and undo brings back a deleted case and the restored example's values", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page, problems } = await openLive(context, BOOM);
+    const { context, page, problems } = await openBoom();
     const example = await caseNames(page);
     assert.equal(example.length, 1);
     await editCase(page);
@@ -114,8 +100,7 @@ describe("cases", () => {
   });
 
   test("a link carries the case exactly, and opens it in another browser", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page } = await openLive(context, BOOM);
+    const { context, page } = await openBoom();
     await editCase(page);
     const sent = await openCase(page);
     const hz = await mode1(page);
@@ -147,8 +132,7 @@ describe("cases", () => {
 
   test("a scenario file and the results files round-trip the case", async () => {
     const dir = await mkdtemp(join(tmpdir(), "modebench-cases-"));
-    const { context } = await isolatedContext(browser, { acceptDownloads: true });
-    const { page } = await openLive(context, BOOM);
+    const { context, page } = await openBoom({ contextOptions: { acceptDownloads: true } });
     await editCase(page);
     const sent = await openCase(page);
     await page.click(".mb-share > summary");
@@ -175,8 +159,8 @@ describe("cases", () => {
     await context.close();
 
     // In a browser that has never seen it, the file opens as a case of its own.
-    const other = await isolatedContext(browser);
-    const { page: fresh, problems } = await openLive(other.context, BOOM);
+    const other = await openBoom();
+    const { page: fresh, problems } = other;
     await fresh.click(".mb-share > summary");
     const [chooser] = await Promise.all([fresh.waitForEvent("filechooser"), fresh.click('[data-action="open-file"]')]);
     await chooser.setFiles(scenario.path);

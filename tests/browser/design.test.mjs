@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { BROKEN_NUMBER, closeAll, launch, openLive, startSite } from "./support.mjs";
 
 const ROOT = "calibrating-a-bolted-root.html";
 const FLOOR = "floor-beam-variable-speed-fan.html";
@@ -19,21 +19,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
-
-async function openLive(file) {
-  const { context } = await isolatedContext(browser);
-  const { page, problems } = await watchedPage(context);
-  await page.goto(site.url + file);
-  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-  await page.waitForFunction(() => !document.querySelector(".mb-calc")?.hasAttribute("data-solving"), null, {
-    timeout: 10_000,
-  });
-  return { context, page, problems };
-}
+after(closeAll);
 
 async function hz(page, n) {
   return Number(await page.locator(MODE(n)).first().getAttribute("data-hz"));
@@ -58,7 +44,7 @@ async function assertNoBrokenNumbers(page) {
 
 describe("design work on the page", () => {
   test("a calibration is applied in one step, reproduces the measurements, and is undone", async () => {
-    const { context, page, problems } = await openLive(ROOT);
+    const { context, page, problems } = await openLive(browser, site.url + ROOT);
     assert.equal(await page.locator("svg.mb-map").count(), 1, "the frequency map is drawn");
     assert.equal(await page.locator("svg.mb-map .mb-map-measured").count(), 2, "both measurements are on it");
     assert.ok((await page.locator(".mb-moves-table tr[data-moves-mode]").count()) >= 3, "what moves each mode");
@@ -85,7 +71,7 @@ describe("design work on the page", () => {
   });
 
   test("a resizing proposal is applied and every nominal margin then holds", async () => {
-    const { context, page, problems } = await openLive(FLOOR);
+    const { context, page, problems } = await openLive(browser, site.url + FLOOR);
     assert.equal(await page.locator("svg.mb-sweep").count(), 1, "the sweep is plotted");
     assert.ok((await page.locator("svg.mb-sweep .mb-sweep-forbidden").count()) >= 2, "forbidden bands shaded");
     const before = await hz(page, 1);
@@ -101,7 +87,7 @@ describe("design work on the page", () => {
   });
 
   test("a speed range typed in the editor is judged from its nearer end, with its sign", async () => {
-    const { context, page, problems } = await openLive(FLOOR);
+    const { context, page, problems } = await openLive(browser, site.url + FLOOR);
     const before = await page.locator('table.mb-modes tr[data-mode="1"] td.mb-separation').getAttribute("data-separation");
     // 600–900 rpm is 10–15 Hz; mode 1 lies just above it. Up to 1200 rpm (20 Hz) puts it inside.
     await page.locator('[data-field="excitations[0].up_to"]').fill("1200 rpm");

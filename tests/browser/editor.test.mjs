@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { TABLETS, axeProblems, isolatedContext, launch, pages, startSite, watchedPage } from "./support.mjs";
+import { TABLETS, axeProblems, closeAll, launch, openLive, pages, settled, startSite } from "./support.mjs";
 
 const FAN = "fan-floor-beam.html"; // a US-inch case: 16 ft I-beam, a 540 lb fan at 6.5 ft
 const BOOM = "sensor-boom.html";
@@ -19,26 +19,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
-
-async function openLive(file, options = {}) {
-  const { context } = await isolatedContext(browser, options);
-  const { page, problems } = await watchedPage(context);
-  await page.goto(site.url + file);
-  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-  await settled(page);
-  return { context, page, problems };
-}
-
-// Waits until no scenario is with the calculator's worker.
-async function settled(page) {
-  await page.waitForFunction(() => !document.querySelector(".mb-calc")?.hasAttribute("data-solving"), null, {
-    timeout: 10_000,
-  });
-}
+after(closeAll);
 
 async function mode1(page) {
   return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
@@ -52,7 +33,7 @@ async function type(page, selector, text) {
 
 describe("units in the editor", () => {
   test("in US inch, a position typed without a unit reads as inches", async () => {
-    const { context, page, problems } = await openLive(FAN);
+    const { context, page, problems } = await openLive(browser, site.url + FAN);
     const position = '[data-field="attachments[0].position"]';
     assert.equal(await page.locator(position).getAttribute("data-unit"), "in");
     const shown = page.locator(`.mb-field:has(${position}) .mb-unit`);
@@ -75,7 +56,7 @@ describe("units in the editor", () => {
   });
 
   test("a wall thinner than 0.1 mm is warned about, naming both values", async () => {
-    const { context, page, problems } = await openLive(FAN);
+    const { context, page, problems } = await openLive(browser, site.url + FAN);
     await type(page, '[data-field="segments[0].section.flange_thickness"]', "0.002");
     const warning = page.locator('.mb-warning[data-code="implausible"]');
     await warning.first().waitFor({ state: "visible", timeout: 5000 });
@@ -91,7 +72,7 @@ describe("at the bench", () => {
   for (const tablet of TABLETS) {
     test(`at ${tablet.width}×${tablet.height}, the modes stay in view while a field at the top of the editor changes`, async () => {
       const viewport = { width: tablet.width, height: tablet.height };
-      const { context, page, problems } = await openLive(FAN, { viewport, hasTouch: true });
+      const { context, page, problems } = await openLive(browser, site.url + FAN, { contextOptions: { viewport, hasTouch: true } });
       await page.locator(".jump a").click();
       const depth = '[data-field="segments[0].section.depth"]';
       await page.locator(depth).scrollIntoViewIfNeeded();
@@ -114,7 +95,7 @@ describe("at the bench", () => {
 describe("focus after adding and removing rows", () => {
   for (const list of ["attachments", "segments", "excitations"]) {
     test(`${list}: Add focuses the new row's first field; Remove the next row, then the Add button`, async () => {
-      const { context, page, problems } = await openLive(FAN);
+      const { context, page, problems } = await openLive(browser, site.url + FAN);
       const rows = () => page.locator(`[data-row^="${list}["]`).count();
       const before = await rows();
       const add = page.locator(`[data-action="add"][data-list="${list}"]`);
@@ -169,13 +150,11 @@ describe("accessibility (axe-core)", () => {
     for (const tablet of TABLETS) {
       test(`${file} at ${tablet.width}×${tablet.height}: no serious or critical problem`, async () => {
         const viewport = { width: tablet.width, height: tablet.height };
-        const { context } = await isolatedContext(browser, { bypassCSP: true, viewport, hasTouch: true });
-        const { page } = await watchedPage(context);
-        await page.goto(site.url + file);
-        if ((await page.locator(".mb-calc").count()) > 0) {
-          await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-          await settled(page);
-        }
+        const calculators = /class="mb-calc"/.test(await (await fetch(site.url + file)).text());
+        const { context, page } = await openLive(browser, site.url + file, {
+          contextOptions: { bypassCSP: true, viewport, hasTouch: true },
+          ready: calculators ? '.mb-calc[data-live="true"]' : "main",
+        });
         assert.deepEqual(await axeProblems(page), []);
         await context.close();
       });
@@ -183,11 +162,7 @@ describe("accessibility (axe-core)", () => {
   }
 
   test("with an input error showing, the error is tied to its field and nothing serious is found", async () => {
-    const { context } = await isolatedContext(browser, { bypassCSP: true });
-    const { page } = await watchedPage(context);
-    await page.goto(site.url + BOOM);
-    await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-    await settled(page);
+    const { context, page } = await openLive(browser, site.url + BOOM, { contextOptions: { bypassCSP: true } });
     const mass = '[data-field="attachments[0].mass"]';
     await page.locator(mass).fill("-3 kg");
     const error = page.locator('.mb-field-error[data-for="attachments[0].mass"]');

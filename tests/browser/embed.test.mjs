@@ -8,7 +8,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
 import { deflateRawSync } from "node:zlib";
-import { DIST, launch, startSite, watchedPage } from "./support.mjs";
+import { DIST, closeAll, launch, offlineSite, startSite, untilKept, watchedPage } from "./support.mjs";
 
 // A simply supported uniform beam: f₁ = (π/2)·√(EI/(m·L⁴)), textbook Euler–Bernoulli.
 const CASE = {
@@ -47,8 +47,7 @@ before(async () => {
 });
 
 after(async () => {
-  await browser?.close();
-  site?.stop();
+  await closeAll();
   rmSync(host, { recursive: true, force: true });
 });
 
@@ -75,11 +74,7 @@ describe("the embed page", () => {
     assert.equal(await frame.locator(".site-nav").count(), 0, "the frame is the calculator alone");
 
     // Once the frame has been shown, the site keeps itself; the frame works with no network.
-    await live.waitForFunction(
-      async () => navigator.serviceWorker.controller !== null && (await caches.keys()).length === 1,
-      null,
-      { timeout: 30_000, polling: 200 },
-    );
+    assert.deepEqual(await untilKept(live), offlineSite().files);
     await context.setOffline(true);
     await page.goto(site.url + `modebench/embed.html#calc=1&case=${caseData(CASE)}`);
     assert.ok(Math.abs((await frameComputes(page.mainFrame())) - F1) <= 1e-6 * F1);

@@ -3,7 +3,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { isolatedContext, launch, startSite } from "./support.mjs";
+import { closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
@@ -16,10 +16,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
+after(closeAll);
 
 // Which of the two notes in the calculator's head can be seen.
 async function notes(page) {
@@ -65,10 +62,7 @@ describe("a calculator without its engine", () => {
   });
 
   test("once live, neither note shows", async () => {
-    const { context } = await isolatedContext(browser);
-    const page = await context.newPage();
-    await page.goto(site.url + BOOM);
-    await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+    const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     assert.deepEqual(await notes(page), { loading: false, unavailable: false });
     await context.close();
   });

@@ -4,8 +4,12 @@
 // printed without its section.
 
 import assert from "node:assert/strict";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { closeAll, launch, openLive, settled, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const WATER = '[data-field="segments[0].extra_mass.submerged"]';
@@ -18,16 +22,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
-
-async function settled(page) {
-  await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, {
-    timeout: 10_000,
-  });
-}
+after(closeAll);
 
 // What print shows: every visible heading with the text of the section it heads, and the rest.
 async function printed(page) {
@@ -60,13 +55,27 @@ async function printed(page) {
   });
 }
 
+// The text of each page of a PDF, by poppler's pdftotext (pages end with a form feed).
+function pdfText(pdf) {
+  const dir = mkdtempSync(join(tmpdir(), "modebench-print-"));
+  try {
+    const file = join(dir, "sheet.pdf");
+    writeFileSync(file, pdf);
+    let text;
+    try {
+      text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
+    } catch (error) {
+      throw new Error(`pdftotext could not read the printed sheet (poppler-utils; \`cargo xtask tools\` installs it): ${error.message}`);
+    }
+    return text.split("\f").slice(0, -1);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
 describe("the printed sheet", () => {
   test("a case of the reader's own prints as its own calculation record, with nothing empty", async () => {
-    const { context } = await isolatedContext(browser);
-    const { page, problems } = await watchedPage(context);
-    await page.goto(site.url + BOOM);
-    await page.waitForSelector(".mb-cases");
-    await settled(page);
+    const { context, page, problems } = await openLive(browser, site.url + BOOM, { ready: ".mb-cases" });
 
     // The example, printed: the page's title and its notes on the example, every mode drawn.
     let sheet = await printed(page);
@@ -103,6 +112,15 @@ describe("the printed sheet", () => {
     assert.equal(pdf.subarray(0, 5).toString(), "%PDF-");
     const pages = pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? [];
     assert.ok(pages.length >= 2, `${pages.length} pages`);
+    // Every page is numbered "Page n of N" and names the sheet at its foot, as read by poppler's
+    // pdftotext (a reader other than the browser that printed it; `cargo xtask tools` installs
+    // it), page by page.
+    const text = pdfText(pdf);
+    assert.equal(text.length, pages.length, "pdftotext reads as many pages");
+    text.forEach((page, i) => {
+      assert.match(page, new RegExp(`Page ${i + 1} of ${pages.length}\\b`), `page ${i + 1}: ${page.slice(-300)}`);
+      assert.match(page, /Modebench calculation sheet/, `page ${i + 1}`);
+    });
     assert.deepEqual(problems, []);
     await context.close();
   });

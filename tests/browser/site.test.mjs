@@ -12,6 +12,7 @@ import {
   ENGINES,
   SCREENSHOTS,
   TABLETS,
+  closeAll,
   isolatedContext,
   launch,
   pages,
@@ -32,10 +33,7 @@ before(async () => {
   mkdirSync(SCREENSHOTS, { recursive: true });
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
+after(closeAll);
 
 // Waits until the calculators on a page have gone live, if they will; pages keep their
 // prerendered results when the engine is missing, so this never fails on its own.

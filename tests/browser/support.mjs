@@ -1,8 +1,13 @@
 // Shared set-up of the browser tests: the built site served on 127.0.0.1, headless Chromium,
-// and watchers for console errors and for any request that would leave this machine.
+// watchers for console errors and for any request that would leave this machine, and the opening
+// of a live calculator that most tests start from.
+//
+// Every site server and browser started here is remembered, so that `closeAll` (each test file's
+// `after` hook) ends them even when a test failed half-way, and a server still running when the
+// process exits is killed: no test file can keep CI waiting on a child it left behind.
 
 import { spawn } from "node:child_process";
-import { readdirSync } from "node:fs";
+import { readFileSync, readdirSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { chromium } from "playwright-core";
@@ -66,6 +71,8 @@ export async function startSite(dir = DIST) {
     ? [process.env.MODEBENCH_SITE_BIN, args]
     : ["cargo", ["run", "-q", "-p", "modebench-site", "--", ...args]];
   const server = spawn(command[0], command[1], { cwd: ROOT, stdio: ["ignore", "pipe", "inherit"] });
+  servers.add(server);
+  server.on("exit", () => servers.delete(server));
   const url = await new Promise((found, failed) => {
     let seen = "";
     const timer = setTimeout(() => failed(new Error(`the site server did not start: ${seen}`)), 120_000);
@@ -79,29 +86,44 @@ export async function startSite(dir = DIST) {
     });
     server.on("exit", (code) => failed(new Error(`the site server stopped (exit ${code}): ${seen}`)));
   });
-  // Neither the server nor its output keeps this test file's process alive: a test that fails
-  // before its `stop()` must not leave the file (and the whole run) waiting forever.
+  // Neither the server nor its output keeps this process alive; the exit hook below ends it.
   server.unref();
   server.stdout.unref();
-  servers.add(server);
-  return {
-    url,
-    stop: () => {
-      servers.delete(server);
-      server.kill();
-    },
-  };
+  return { url, stop: () => server.kill() };
 }
 
-// Every server this file started, stopped when its process ends.
+// What this process started and has not ended yet.
 const servers = new Set();
-process.on("exit", () => {
+const browsers = new Set();
+
+process.once("exit", () => {
   for (const server of servers) {
     server.kill();
   }
 });
 
+// Ends every browser and site server this process started: each test file's `after` hook, which
+// runs whether its tests passed or not. A browser that does not close within ten seconds is
+// left to the exit hook's end of the process.
+export async function closeAll() {
+  const closing = [...browsers].map((browser) =>
+    Promise.race([browser.close().catch(() => {}), new Promise((done) => setTimeout(done, 10_000).unref())]),
+  );
+  browsers.clear();
+  for (const server of servers) {
+    server.kill();
+  }
+  await Promise.all(closing);
+}
+
 export async function launch() {
+  const browser = await launchChromium();
+  browsers.add(browser);
+  browser.on("disconnected", () => browsers.delete(browser));
+  return browser;
+}
+
+function launchChromium() {
   return chromium.launch({
     executablePath: process.env.CHROMIUM ?? "/usr/bin/chromium",
     args: [
@@ -149,6 +171,79 @@ export async function watchedPage(context) {
     }
   });
   return { page, problems };
+}
+
+// Waits until no calculator on the page has a scenario with its worker (the root carries
+// `data-solving` until the answer is drawn).
+export async function settled(page, timeout = 10_000) {
+  await page.waitForFunction(() => ![...document.querySelectorAll(".mb-calc")].some((c) => c.hasAttribute("data-solving")), null, {
+    timeout,
+  });
+}
+
+// Opens `url` in a new page and waits until its calculator is live and, unless `settle` is
+// false, until its worker has answered. The page opens in `context` when given, else in a new
+// isolated context made with `contextOptions`. Returns the context, the page and the problems
+// `watchedPage` collects.
+export async function openLive(browser, url, { context, contextOptions = {}, ready = '.mb-calc[data-live="true"]', settle = true } = {}) {
+  const own = context ? null : await isolatedContext(browser, contextOptions);
+  const used = context ?? own.context;
+  const { page, problems } = await watchedPage(used);
+  await page.goto(url);
+  await page.waitForSelector(ready, { timeout: 10_000 });
+  if (settle) {
+    await settled(page);
+  }
+  return { context: used, page, problems, external: own?.external ?? [] };
+}
+
+// Waits until `predicate`, run in the page or frame `target` with `arg`, returns something truthy
+// (it may be async), and returns that. Playwright's own `waitForFunction` does not wait for the
+// promise an async predicate returns, and so would take any async predicate as met at once.
+export async function waitInPage(target, predicate, arg, { timeout = 30_000, interval = 200, what = "the condition" } = {}) {
+  const deadline = Date.now() + timeout;
+  let last;
+  for (;;) {
+    last = await target.evaluate(predicate, arg);
+    if (last) {
+      return last;
+    }
+    if (Date.now() > deadline) {
+      throw new Error(`${what} was not met within ${timeout} ms`);
+    }
+    await new Promise((done) => setTimeout(done, interval));
+  }
+}
+
+// What the built site's service worker keeps: its version and its files, read from `sw.js`.
+export function offlineSite(dist = DIST) {
+  const worker = readFileSync(join(dist, "sw.js"), "utf8");
+  const version = worker.match(/const VERSION = "([0-9a-f]+)";/)[1];
+  const files = JSON.parse(worker.match(/const FILES = (\[.*\]);/)[1]);
+  return { version, files };
+}
+
+// Waits until the site's service worker controls `target` (a page or frame), has settled (no
+// worker installing or waiting), and its cache is the only one and holds every file of the
+// version built in `dist`; returns the URLs kept, relative to the worker's folder.
+export async function untilKept(target, dist = DIST) {
+  const { version, files } = offlineSite(dist);
+  return waitInPage(
+    target,
+    async ({ version, count }) => {
+      const registration = await navigator.serviceWorker.getRegistration();
+      const settled = registration?.active?.state === "activated" && !registration.installing && !registration.waiting;
+      const names = await caches.keys();
+      if (!navigator.serviceWorker.controller || !settled || names.length !== 1 || !names[0].endsWith(` ${version}`)) {
+        return null;
+      }
+      const root = new URL("./", registration.active.scriptURL).href;
+      const kept = (await (await caches.open(names[0])).keys()).map((r) => r.url.slice(root.length));
+      return kept.length >= count ? kept.sort() : null;
+    },
+    { version, count: files.length },
+    { what: `the service worker keeping the ${files.length} files of version ${version}` },
+  );
 }
 
 // Words that mean a number went wrong somewhere between the engine and the page.

@@ -7,7 +7,7 @@ import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { DIST, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -30,10 +30,7 @@ before(async () => {
   browser = await launch();
 });
 
-after(async () => {
-  await browser?.close();
-  site?.stop();
-});
+after(closeAll);
 
 // The page's example with `changes` applied to it.
 function boomWith(changes) {

@@ -1,7 +1,7 @@
 //! `cargo xtask test`: exactly what CI runs, in the order that fails fastest — formatting,
 //! lints, docs, native tests, the invariants that the core and the UI build for WebAssembly and
 //! that each crate depends only on what it may (no web crate outside the binding), the
-//! binding's tests in Node, the site build, and the browser tests.
+//! binding's tests in Node, the site build with the single file, and the browser tests.
 
 use anyhow::{bail, Result};
 
@@ -10,6 +10,13 @@ use crate::layers;
 use crate::project::{path_str, Project};
 use crate::run;
 use crate::server::Background;
+
+/// Node's limit on each browser test, so that a test waiting on a page that never answers fails
+/// instead of holding CI: generous, as the slowest test (the offline rebuild, which builds the
+/// site again) takes under a minute on a loaded two-core machine. Each file's `after` hook
+/// closes its browser and servers whether its tests passed or not (`closeAll` in
+/// `tests/browser/support.mjs`).
+const BROWSER_TEST_TIMEOUT: &str = "--test-timeout=180000";
 
 /// Runs every check; stops at the first failure.
 pub(crate) fn run(project: &Project) -> Result<()> {
@@ -49,18 +56,20 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 
     engine::build(project)?;
     let site = project.build_site()?;
+    engine::bind_for_single_file(project)?;
+    site.write_single_file(project)?;
 
     run::step("Browser tests (headless Chromium)");
     let server = Background::start(&site)?;
     let dir = project.browser_tests();
     let files = browser_test_files(&dir)?;
-    // A test that waits forever fails after five minutes instead of holding CI to its limit.
     run::status(
-        run::cmd("node", ["--test", "--test-concurrency=1", "--test-timeout=300000"])
+        run::cmd("node", ["--test", "--test-concurrency=1", BROWSER_TEST_TIMEOUT])
             .args(&files)
             .current_dir(&dir)
             .env("MODEBENCH_URL", &server.url)
             .env("MODEBENCH_DIST", &site.dist)
+            .env("MODEBENCH_SINGLE_FILE", project.single_file())
             .env("MODEBENCH_SITE_BIN", path_str(&site.program)?),
     )?;
     drop(server);

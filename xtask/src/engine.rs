@@ -57,6 +57,36 @@ pub(crate) fn build(project: &Project) -> Result<()> {
     Ok(())
 }
 
+/// Binds both engines, as [`build`] left them optimised, a second time for wasm-bindgen's
+/// `no-modules` target into [`Project::single_engine_dir`]: glue that defines one global and so
+/// can sit inside the single-file build's inline script (`modebench-site single`).
+pub(crate) fn bind_for_single_file(project: &Project) -> Result<()> {
+    let out = project.single_engine_dir();
+    if out.exists() {
+        std::fs::remove_dir_all(&out).with_context(|| format!("emptying {}", out.display()))?;
+    }
+    let scratch = project.root.join("build").join("wasm-opt");
+    for engine in &ENGINES {
+        run::step(&format!("Bind {} for the single-file build (no-modules)", engine.name));
+        run::status(
+            run::cmd(
+                "wasm-bindgen",
+                [
+                    "--target",
+                    "no-modules",
+                    "--no-typescript",
+                    "--out-name",
+                    engine.name,
+                    "--out-dir",
+                    path_str(&out)?,
+                ],
+            )
+            .arg(scratch.join(format!("{}.wasm", engine.name))),
+        )?;
+    }
+    Ok(())
+}
+
 /// Builds one engine.
 ///
 /// wasm-opt runs on the compiler's output, before wasm-bindgen: the wasm-opt in Debian 12

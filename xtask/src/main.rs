@@ -21,6 +21,8 @@ const USAGE: &str = "\
 usage: cargo xtask <command>
   serve   build the engine and the site, then serve it on http://127.0.0.1:8080/
   build   build the engine (WebAssembly) and the site into dist/
+          --single-file: also one HTML file with a calculator and its engine inside, that
+          works opened from disk: build/single/modebench-calculator.html
   test    everything CI runs: formatting, lints, docs, native and WebAssembly tests,
           the site build and the browser tests
   bench   the engine benchmarks and the browser budgets
@@ -47,9 +49,18 @@ fn dispatch() -> Result<()> {
             server::serve_forever(&project, &site, 8080)
         }
         "build" => {
+            let single = match std::env::args().nth(2).as_deref() {
+                None => false,
+                Some("--single-file") => true,
+                Some(other) => bail!("build takes only --single-file (got {other:?})\n{USAGE}"),
+            };
             tools::ensure(&project, tools::Needs::ENGINE)?;
             engine::build(&project)?;
-            project.build_site()?;
+            let site = project.build_site()?;
+            if single {
+                engine::bind_for_single_file(&project)?;
+                site.write_single_file(&project)?;
+            }
             Ok(())
         }
         "test" | "ci" => {

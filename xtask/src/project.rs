@@ -44,6 +44,16 @@ impl Project {
         self.root.join("build").join("wasm")
     }
 
+    /// Where the engines bound for the single-file build go.
+    pub(crate) fn single_engine_dir(&self) -> PathBuf {
+        self.root.join("build").join("wasm-single")
+    }
+
+    /// The single-file build.
+    pub(crate) fn single_file(&self) -> PathBuf {
+        self.root.join("build").join("single").join("modebench-calculator.html")
+    }
+
     /// The built site.
     pub(crate) fn dist(&self) -> PathBuf {
         self.root.join("dist")
@@ -80,6 +90,23 @@ impl Project {
                 .current_dir(&self.root),
         )?;
         Ok(Site { program, dist })
+    }
+}
+
+impl Site {
+    /// Writes the single-file build with the engines bound for it.
+    pub(crate) fn write_single_file(&self, project: &Project) -> Result<()> {
+        run::step("Build the single file");
+        run::status(
+            run::cmd(
+                path_str(&self.program)?,
+                ["single", "--out", path_str(&project.single_file())?, "--wasm"],
+            )
+            .arg(project.single_engine_dir())
+            .arg("--root")
+            .arg(&project.root)
+            .current_dir(&project.root),
+        )
     }
 }
 

@@ -1,6 +1,7 @@
 //! Installs what the commands need and is missing, saying what it installs: the WebAssembly
 //! target, wasm-bindgen-cli at the version in `Cargo.lock`, the Python reference libraries,
-//! Chromium, and the browser-test packages.
+//! Chromium, poppler's `pdftotext` (the print test reads the printed sheet with it), and the
+//! browser-test packages.
 
 use anyhow::{bail, Context, Result};
 
@@ -38,6 +39,7 @@ pub(crate) fn ensure(project: &Project, needs: Needs) -> Result<()> {
     }
     if needs.browser {
         chromium()?;
+        pdftotext()?;
         npm(project)?;
     }
     Ok(())
@@ -136,6 +138,16 @@ fn chromium() -> Result<()> {
         return Ok(());
     }
     apt_install("chromium", "/usr/bin/chromium")
+}
+
+/// The print test reads the text of the printed PDF with poppler's `pdftotext`, a reader that
+/// is not Chromium's own.
+fn pdftotext() -> Result<()> {
+    if run::exists("/usr/bin/pdftotext") {
+        println!("ok: pdftotext");
+        return Ok(());
+    }
+    apt_install("poppler-utils", "/usr/bin/pdftotext")
 }
 
 /// Installs a Debian package, which can be done only as root.
