@@ -82,7 +82,8 @@ export async function startSite(dir = DIST) {
   return { url, stop: () => server.kill() };
 }
 
-export async function launch() {
+// Headless Chromium; `extra` adds switches (the tap-test panel's tests give it a fake microphone).
+export async function launch(extra = []) {
   return chromium.launch({
     executablePath: process.env.CHROMIUM ?? "/usr/bin/chromium",
     args: [
@@ -94,6 +95,7 @@ export async function launch() {
       "--disable-background-networking",
       "--disable-component-update",
       "--disable-sync",
+      ...extra,
     ],
   });
 }
