@@ -6,37 +6,31 @@ use super::{analyse, Recording};
 use crate::worker::message;
 use serde_json::Value;
 
-/// A record of `taps` taps, each exciting decaying sinusoids at the given damped frequencies (Hz)
-/// with damping ratio `zeta`, over a little seeded noise (a linear congruential generator, so the
-/// record is the same on every run).
+/// A record of `taps` taps 2 s apart, each adding decaying sinusoids at the given damped
+/// frequencies (Hz) with damping ratio `zeta` to what still rings, over a little seeded noise (a
+/// linear congruential generator, so the record is the same on every run).
 fn ring_downs(modes: &[f64], zeta: f64, rate: f64, taps: usize) -> Vec<f32> {
-    let per_tap = (1.5 * rate) as usize;
-    let lead = (0.3 * rate) as usize;
+    let spacing = 2.0;
+    let lead = 0.3;
+    let total = ((lead + spacing * taps as f64) * rate) as usize;
     let mut seed: u64 = 0x5eed_1234;
     let mut noise = move || {
         seed = seed.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
         ((seed >> 33) as f64 / (1u64 << 31) as f64 - 0.5) * 2e-4
     };
-    let mut out = Vec::with_capacity(lead + taps * per_tap);
-    for _ in 0..lead {
-        out.push(noise() as f32);
-    }
-    for _ in 0..taps {
-        for n in 0..per_tap {
-            let t = n as f64 / rate;
-            let signal: f64 = modes
-                .iter()
-                .enumerate()
-                .map(|(k, f)| {
-                    let wd = 2.0 * std::f64::consts::PI * f;
-                    let wn = wd / (1.0 - zeta * zeta).sqrt();
-                    0.3 / (k + 1) as f64 * (-zeta * wn * t).exp() * (wd * t + 0.4 * k as f64).sin()
-                })
-                .sum();
-            out.push((signal + noise()) as f32);
+    let mut out: Vec<f64> = (0..total).map(|_| noise()).collect();
+    for tap in 0..taps {
+        let start = ((lead + spacing * tap as f64) * rate) as usize;
+        for (n, x) in out.iter_mut().enumerate().skip(start) {
+            let t = (n - start) as f64 / rate;
+            for (k, f) in modes.iter().enumerate() {
+                let wd = 2.0 * std::f64::consts::PI * f;
+                let wn = wd / (1.0 - zeta * zeta).sqrt();
+                *x += 0.3 / (k + 1) as f64 * (-zeta * wn * t).exp() * (wd * t + 0.4 * k as f64).sin();
+            }
         }
     }
-    out
+    out.into_iter().map(|x| x as f32).collect()
 }
 
 fn answer(text: &str) -> Value {
@@ -55,7 +49,7 @@ fn the_peaks_of_a_synthetic_record_are_its_frequencies_and_match_the_prediction(
     let report = message::read(&solved).unwrap();
     let predicted: Vec<f64> = report.modes.iter().map(|m| m.frequency_hz).collect();
     assert!((predicted[0] - 17.69).abs() < 0.05, "{predicted:?}");
-    let zeta = 0.01;
+    let zeta: f64 = 0.02;
     // The part rings at the model's frequencies, damped: f_d = f √(1 − ζ²) (a fact of the
     // damped oscillator's equation).
     let damped: Vec<f64> = predicted.iter().map(|f| f * (1.0 - zeta * zeta).sqrt()).collect();
