@@ -19,10 +19,13 @@ import { BROKEN_NUMBER, isolatedContext, launch, startSite, watchedPage } from "
 
 const PAGE = "sensor-boom.html";
 const MODE = (n) => `table.mb-modes tr[data-mode="${n}"] td[data-hz]`;
-// The core's own checks of synthetic records hold frequencies to 0.05 %; the microphone's path
-// adds Chromium's resampling of the fake device's file, so it is held to 0.1 %.
+// The core's own checks of synthetic records hold frequencies to 0.05 %. The microphone's path
+// adds the resampler between the fake capture device's clock and the audio context's, which
+// keeps the two in step by varying its ratio slightly: on this machine it moved a 1250 Hz mode by
+// 0.2 % and a 440 Hz one by 0.03 %, so that path is held to 0.5 % (a real microphone's
+// frequencies are those of the tablet's one clock).
 const FILE_TOLERANCE = 5e-4;
-const MICROPHONE_TOLERANCE = 1e-3;
+const MICROPHONE_TOLERANCE = 5e-3;
 
 // A seeded generator (mulberry32, common practice, no source), so every run hears the same record.
 function generator(seed) {
@@ -37,19 +40,19 @@ function generator(seed) {
 }
 
 // `seconds` of samples at `rate`: a tap at each of `taps` (s) rings the modes ({hz, zeta, amplitude}
-// with hz the damped frequency) over uniform noise of the given amplitude.
+// with hz the damped frequency) over uniform noise of the given amplitude. An impulse starts each
+// mode from rest, so its response starts at zero: A e^(−ζωt) sin(ω_d t).
 function ringDown({ rate, seconds, modes, taps, noise, seed }) {
   const random = generator(seed);
-  const phases = modes.map(() => 2 * Math.PI * random());
   const samples = new Float64Array(Math.round(rate * seconds));
   for (let n = 0; n < samples.length; n++) samples[n] = noise * (2 * random() - 1);
   for (const start of taps) {
     for (let n = Math.round(start * rate); n < samples.length; n++) {
       const t = n / rate - start;
-      modes.forEach((m, k) => {
+      modes.forEach((m) => {
         const wd = 2 * Math.PI * m.hz;
         const wn = wd / Math.sqrt(1 - m.zeta * m.zeta);
-        samples[n] += m.amplitude * Math.exp(-m.zeta * wn * t) * Math.sin(wd * t + phases[k]);
+        samples[n] += m.amplitude * Math.exp(-m.zeta * wn * t) * Math.sin(wd * t);
       });
     }
   }
@@ -200,15 +203,16 @@ describe("the tap-test panel", () => {
     const { page, problems } = await openPanel(context);
     const f1 = await predicted(page, 1);
     const f2 = await predicted(page, 2);
-    // The part as modelled, damped 1 %: what it rings at is f√(1 − ζ²).
-    const zeta = 0.01;
+    // The part as modelled, damped 2 %: what it rings at is f√(1 − ζ²). The taps are 3 s apart,
+    // over four decay times of mode 1, as the worked tap-test page asks.
+    const zeta = 0.02;
     const damped = [f1, f2].map((f) => f * Math.sqrt(1 - zeta * zeta));
     const rate = 8000;
     const samples = ringDown({
       rate,
-      seconds: 6,
+      seconds: 9.3,
       modes: damped.map((hz, k) => ({ hz, zeta, amplitude: 0.4 / (k + 1) })),
-      taps: [0.3, 2.2, 4.1],
+      taps: [0.3, 3.3, 6.3],
       noise: 5e-4,
       seed: 23,
     });
@@ -229,22 +233,33 @@ describe("the tap-test panel", () => {
     assert.match(await page.locator(".mb-calc").innerText(), /measured/i);
     assert.match(await page.locator("button.mb-undo").textContent(), /use the tap test's frequencies/);
 
-    // A reload keeps them with the case.
+    const measuredRow = '[data-field="measured[0].frequency"]';
+    const gone = () => page.waitForFunction((sel) => !document.querySelector(sel), measuredRow, { timeout: 10_000 });
+    const back = () => page.waitForSelector(measuredRow, { timeout: 10_000 });
+
+    // "Undo" takes the step back; kept again, a reload keeps them with the case.
+    await page.locator("button.mb-undo").click();
+    await gone();
+    await page.locator('[data-bench-action="keep"]').click();
+    await back();
     await page.reload();
     await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
-    await page.waitForSelector('[data-field="measured[0].frequency"]', { timeout: 10_000 });
-    const reloaded = Number((await page.locator('[data-field="measured[0].frequency"]').inputValue()).replace(/\s*Hz$/, ""));
+    await back();
+    const reloaded = Number((await page.locator(measuredRow).inputValue()).replace(/\s*Hz$/, ""));
     assert.equal(reloaded, kept);
 
-    // Undo (the case bar's) takes them back.
-    await page.locator('.mb-cases [data-action="undo"]').click();
-    await page.waitForFunction(() => !document.querySelector('[data-field="measured[0].frequency"]'), null, { timeout: 10_000 });
+    // The panel clears them, and "Undo" brings them back.
+    await page.locator(".mb-bench > summary").first().click();
+    await page.locator('[data-bench-action="clear"]').click();
+    await gone();
+    assert.match(await page.locator("button.mb-undo").textContent(), /clear the measured frequencies/);
+    await page.locator("button.mb-undo").click();
+    await back();
 
     // A CSV of an accelerometer: a time column and one signal column, mode 1 only, at 500 Hz.
     const csvRate = 500;
     const slow = ringDown({ rate: csvRate, seconds: 12, modes: [{ hz: damped[0], zeta, amplitude: 2 }], taps: [0.5, 4.5, 8.5], noise: 2e-3, seed: 31 });
     const csv = ["time_s,accel_m_s2", ...Array.from(slow, (v, i) => `${(i / csvRate).toFixed(6)},${v.toFixed(6)}`)].join("\n");
-    await page.locator(".mb-bench > summary").first().click();
     await page.locator("[data-bench-file]").setInputFiles({ name: "logger.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
     assertListed(await listed(page), [damped[0]], FILE_TOLERANCE, "CSV file");
 

@@ -21,7 +21,7 @@ const SPAN_DB: f64 = 90.0;
 
 /// Everything the panel shows after an analysis. `predicted` says whether a prediction was at
 /// hand, so that an empty match says why.
-pub fn results_html(report: &BenchReport, predicted: bool) -> String {
+pub(super) fn results_html(report: &BenchReport, predicted: bool) -> String {
     let mut html = String::new();
     let used = report.taps.iter().filter(|t| t.used).count();
     let _ = write!(
