@@ -316,6 +316,10 @@ pub fn undo_words(edit: &Edit) -> Option<String> {
         }
         // A fit or a size applied, or a tap test's frequencies kept, is recorded, with its own
         // words, where it is applied.
-        Edit::Text { .. } | Edit::Add(_) | Edit::Tick { on: true, .. } | Edit::Apply(_) | Edit::Measured(_) => None,
+        Edit::Text { .. }
+        | Edit::Add(_)
+        | Edit::Tick { on: true, .. }
+        | Edit::Apply(_)
+        | Edit::Measured(_) => None,
     }
 }

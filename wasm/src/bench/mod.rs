@@ -92,7 +92,8 @@ fn words(error: &Error) -> String {
 
 /// Reads the panel's options.
 fn asked(text: &str) -> Result<Asked, String> {
-    let value: Value = serde_json::from_str(text).map_err(|e| format!("The panel's options are not JSON: {e}"))?;
+    let value: Value =
+        serde_json::from_str(text).map_err(|e| format!("The panel's options are not JSON: {e}"))?;
     let mut options = BenchOptions::default();
     options.source = match value.get("source").and_then(Value::as_str).unwrap_or("file") {
         "microphone" => SourceKind::Microphone,

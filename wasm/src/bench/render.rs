@@ -35,9 +35,7 @@ pub(super) fn results_html(report: &BenchReport, predicted: bool) -> String {
         significant(report.range_hz[0], 3),
         significant(report.range_hz[1], 4),
         significant(report.resolution_hz, 3),
-        report
-            .consistency
-            .map_or(String::new(), |c| format!("; the taps agree to {}", significant(c, 2))),
+        report.consistency.map_or(String::new(), |c| format!("; the taps agree to {}", significant(c, 2))),
     );
     html.push_str(&spectrum_svg(report));
     html.push_str(&peaks_table(report, predicted));
@@ -71,7 +69,8 @@ fn spectrum_svg(report: &BenchReport) -> String {
     let hi = report.range_hz[1].max(lo * 1.01);
     let inside = |hz: f64| hz >= lo && hz <= hi;
     let levels = s.hz.iter().zip(s.db.iter().zip(&s.floor_db)).filter(|(h, _)| inside(**h));
-    let (top, bottom) = levels.fold((f64::MIN, f64::MAX), |(t, b), (_, (d, f))| (t.max(*d), b.min(d.min(*f))));
+    let (top, bottom) =
+        levels.fold((f64::MIN, f64::MAX), |(t, b), (_, (d, f))| (t.max(*d), b.min(d.min(*f))));
     if top < bottom {
         return "<p class=\"mb-note\">The spectrum has no points in the range searched.</p>".to_string();
     }
@@ -102,7 +101,12 @@ fn spectrum_svg(report: &BenchReport) -> String {
             WIDTH - RIGHT
         );
         if (db / 20.0).fract().abs() < 1e-9 {
-            let _ = write!(svg, "<text class=\"mb-bench-tick\" x=\"{:.1}\" y=\"{:.1}\" text-anchor=\"end\">{db}</text>", LEFT - 4.0, y + 4.0);
+            let _ = write!(
+                svg,
+                "<text class=\"mb-bench-tick\" x=\"{:.1}\" y=\"{:.1}\" text-anchor=\"end\">{db}</text>",
+                LEFT - 4.0,
+                y + 4.0
+            );
         }
         db += 10.0;
     }
@@ -155,12 +159,11 @@ fn spectrum_svg(report: &BenchReport) -> String {
         if !inside(p.frequency_hz) {
             continue;
         }
-        let near = s
-            .hz
-            .iter()
-            .zip(&s.db)
-            .min_by(|a, b| (a.0 - p.spectral_hz).abs().total_cmp(&(b.0 - p.spectral_hz).abs()))
-            .map_or(bottom_db, |(_, d)| *d);
+        let near =
+            s.hz.iter()
+                .zip(&s.db)
+                .min_by(|a, b| (a.0 - p.spectral_hz).abs().total_cmp(&(b.0 - p.spectral_hz).abs()))
+                .map_or(bottom_db, |(_, d)| *d);
         let _ = write!(
             svg,
             "<circle class=\"mb-bench-peak\" cx=\"{:.1}\" cy=\"{:.1}\" r=\"4\"><title>Peak {}: {} Hz</title></circle>",
@@ -193,7 +196,9 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
             _ => "<td>—</td><td>—</td><td>—</td>".to_string(),
         };
         let half = match &p.half_power_note {
-            Some(note) => format!("<span title=\"{}\">{} *</span>", escape(note), percent(p.damping_half_power)),
+            Some(note) => {
+                format!("<span title=\"{}\">{} *</span>", escape(note), percent(p.damping_half_power))
+            }
             None => percent(p.damping_half_power),
         };
         let _ = write!(
@@ -212,7 +217,9 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
         .peaks
         .iter()
         .enumerate()
-        .filter_map(|(i, p)| p.half_power_note.as_ref().map(|n| format!("<li>Peak {}: {}</li>", i + 1, escape(n))))
+        .filter_map(|(i, p)| {
+            p.half_power_note.as_ref().map(|n| format!("<li>Peak {}: {}</li>", i + 1, escape(n)))
+        })
         .collect();
     let notes = if notes.is_empty() {
         String::new()
@@ -240,7 +247,12 @@ fn unmatched(report: &BenchReport) -> String {
         .filter(|m| m.peak.is_none())
         .map(|m| {
             let why = m.note.as_deref().unwrap_or("no peak near it");
-            format!("<li>Mode {} (predicted {} Hz): {}</li>", m.mode, significant(m.predicted_hz, 5), escape(why))
+            format!(
+                "<li>Mode {} (predicted {} Hz): {}</li>",
+                m.mode,
+                significant(m.predicted_hz, 5),
+                escape(why)
+            )
         })
         .collect();
     if items.is_empty() {
@@ -257,7 +269,9 @@ fn warnings(report: &BenchReport) -> String {
         .collect();
     items.extend(report.notes.iter().map(|n| format!("<li data-note>{}</li>", escape(n))));
     items.extend(report.taps.iter().filter_map(|t| {
-        t.note.as_ref().map(|n| format!("<li data-note>Tap at {} s: {}</li>", significant(t.time_s, 3), escape(n)))
+        t.note
+            .as_ref()
+            .map(|n| format!("<li data-note>Tap at {} s: {}</li>", significant(t.time_s, 3), escape(n)))
     }));
     if items.is_empty() {
         return String::new();

@@ -95,7 +95,11 @@ fn without_a_prediction_the_table_says_so_and_offers_nothing_to_keep() {
 fn bad_options_and_bad_recordings_are_answered_with_a_message() {
     let wav = [b"RIFF".as_slice(), &[0u8; 8]].concat();
     for (recording, options, expected) in [
-        (Recording::File(b"time,a\n0,1\n"), r#"{"channel": "two"}"#, "Channel: \"two\" is not a channel number"),
+        (
+            Recording::File(b"time,a\n0,1\n"),
+            r#"{"channel": "two"}"#,
+            "Channel: \"two\" is not a channel number",
+        ),
         (Recording::File(b"time,a\n0,1\n"), r#"{"channel": "0"}"#, "Channel: \"0\""),
         (Recording::File(b"x"), r#"{"source": "radio"}"#, "Source: \"radio\""),
         (Recording::File(&wav), "{}", "WAV"),
