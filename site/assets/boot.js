@@ -7,7 +7,8 @@
 // calculator solves in a Web Worker running `solve-worker.js` beside this script, which loads
 // the solver engine (`modebench_solver`), so that no model, however slow, can freeze the page.
 // `globalThis.modebenchSolveBudgetMs`, when set before this script runs, replaces the time a
-// solve may take before the worker is stopped (3000 ms); the browser tests use it.
+// solve may take before the worker is stopped (3000 ms); the browser tests use it. Once the
+// calculators are live, `bench-panel.js` adds a tap-test panel under each.
 //
 // The engine is imported dynamically so that a page whose engine cannot load (an old browser,
 // a host that will not serve it, a copy of the site without the engine) keeps
@@ -35,6 +36,11 @@ async function boot() {
   if (incoming) {
     history.replaceState(null, "", window.location.pathname + window.location.search);
   }
+  // The tap-test panel under each calculator; its engine loads only when a panel is opened.
+  // A panel that cannot start leaves the calculators as they are.
+  import("./bench-panel.js")
+    .then((bench) => bench.attachPanels())
+    .catch((error) => console.warn("Modebench: the tap-test panel could not start.", error));
 }
 
 try {

@@ -18,9 +18,16 @@ use crate::verify;
 const MARKER: &str = ".modebench-site";
 
 /// The engine files made by wasm-bindgen, copied into `assets/`: the page's own engine, and the
-/// solver that `assets/solve-worker.js` runs in each calculator's Web Worker.
-pub(crate) const ENGINE_FILES: [&str; 4] =
-    ["modebench_page.js", "modebench_page_bg.wasm", "modebench_solver.js", "modebench_solver_bg.wasm"];
+/// solver that `assets/solve-worker.js` runs in each calculator's Web Worker, and the tap test's
+/// engine that `assets/bench-worker.js` runs once a tap-test panel is opened.
+pub(crate) const ENGINE_FILES: [&str; 6] = [
+    "modebench_page.js",
+    "modebench_page_bg.wasm",
+    "modebench_solver.js",
+    "modebench_solver_bg.wasm",
+    "modebench_bench.js",
+    "modebench_bench_bg.wasm",
+];
 
 /// What a build wrote.
 pub(crate) struct Summary {

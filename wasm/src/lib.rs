@@ -8,13 +8,17 @@
 //!   build exports depends on its features: `page` the widget (`mountAll`), which never solves on
 //!   the page's main thread; `solver` the worker's entry point (`solveScenario`); `api` (the
 //!   default) adds `solve`, `parseQuantity`, `listSections`, `listMaterials` and `listUnits` for
-//!   integrators.
+//!   integrators; `bench` the tap-test panel's engine ([`bench`]: `analyseFile`, `analyseSamples`,
+//!   `analyseTimed`), loaded by the bench worker only when the reader opens the panel.
 //!
 //! This crate holds no formula: every number it shows comes from the `modebench` core.
 
 pub use modebench_ui::{catalog, doc, render};
 
 pub mod worker;
+
+#[cfg(feature = "bench")]
+pub mod bench;
 
 #[cfg(target_arch = "wasm32")]
 pub mod api;

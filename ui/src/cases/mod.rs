@@ -314,7 +314,12 @@ pub fn undo_words(edit: &Edit) -> Option<String> {
             matches!(key, "type" | "shape" | "material" | "left" | "right")
                 .then(|| format!("change “{}”", words(path)))
         }
-        // A fit or a size applied is recorded, with its own words, where it is applied.
-        Edit::Text { .. } | Edit::Add(_) | Edit::Tick { on: true, .. } | Edit::Apply(_) => None,
+        // A fit or a size applied, or a tap test's frequencies kept, is recorded, with its own
+        // words, where it is applied.
+        Edit::Text { .. }
+        | Edit::Add(_)
+        | Edit::Tick { on: true, .. }
+        | Edit::Apply(_)
+        | Edit::Measured(_) => None,
     }
 }

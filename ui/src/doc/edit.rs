@@ -92,6 +92,9 @@ pub enum Edit {
     Remove(List, usize),
     /// Wrote values the design study proposed (a fit, a size), as one step.
     Apply(Vec<super::design::Change>),
+    /// Replaced the `measured` list with a tap test's rows (`{"mode": 2, "frequency": "14.2
+    /// Hz"}`), as one step; no rows clear it.
+    Measured(Vec<Value>),
 }
 
 impl Edit {
@@ -126,6 +129,12 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
         Edit::SegmentBy { index, by } => segment_by(doc, *index, by, system, last),
         Edit::Apply(changes) => {
             super::design::apply_changes(doc, changes);
+        }
+        Edit::Measured(rows) if rows.is_empty() => {
+            path::remove(doc, List::Measured.key());
+        }
+        Edit::Measured(rows) => {
+            path::set(doc, List::Measured.key(), Value::Array(rows.clone()));
         }
         Edit::Add(list) => add(doc, *list, system, last),
         Edit::Remove(list, index) => {

@@ -234,3 +234,19 @@ fn a_preset_material_is_recorded_with_its_values() {
     let want = -200e9 * area * 6.667e-6 * 1.8 * 10.0;
     assert!((p / want - 1.0).abs() < 1e-9, "{p} vs {want}");
 }
+
+#[test]
+fn a_tap_tests_frequencies_replace_the_measured_list_and_solve_as_measured() {
+    let mut doc = boom();
+    apply(&mut doc, &Edit::Add(List::Measured), None);
+    let rows = vec![json!({"mode": 1, "frequency": "9.5 Hz"}), json!({"mode": 2, "frequency": "61.2 Hz"})];
+    apply(&mut doc, &Edit::Measured(rows.clone()), None);
+    assert_eq!(doc["measured"], Value::Array(rows));
+    // The core reads them as the measured frequencies (its design study lists each beside its
+    // mode; the format is docs/scenario-format.md's `measured`).
+    let report = solve(&doc).unwrap();
+    let measured: Vec<f64> = report.design.measured.iter().map(|m| m.measured_hz).collect();
+    assert_eq!(measured, [9.5, 61.2]);
+    apply(&mut doc, &Edit::Measured(Vec::new()), None);
+    assert!(doc.get("measured").is_none(), "no rows clear the list");
+}

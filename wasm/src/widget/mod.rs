@@ -80,7 +80,9 @@ fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64,
         }
     }
     let listener = callback(&calculator, |c, event: Event| c.handle(&event));
-    let attached = ["input", "change", "click"]
+    // `modebench-measured` is the tap-test panel's: the frequencies it measured, to keep in the
+    // case (see `Calculator::on_measured`).
+    let attached = ["input", "change", "click", calculator::MEASURED_EVENT]
         .iter()
         .all(|kind| root.add_event_listener_with_callback(kind, &listener).is_ok());
     attached && root.set_attribute("data-live", "true").is_ok()

@@ -18,6 +18,7 @@ impl Calculator {
             "input" => self.on_input(&target),
             "change" => self.on_change(&target),
             "click" => self.on_click(&target),
+            super::MEASURED_EVENT => self.on_measured(event),
             _ => {}
         }
     }
@@ -164,6 +165,28 @@ impl Calculator {
         self.show_cases();
         self.show_undo();
         self.refocus(Some(("data-action", "undo".to_string())));
+    }
+
+    /// Keeps a tap test's measured frequencies in the case: the panel sends them in a
+    /// `modebench-measured` event whose detail is the JSON text of the `measured` list's rows
+    /// (none to clear it). They replace the list as one step that "Undo" takes back, and are
+    /// solved, stored and printed like any measured frequency typed in the editor.
+    fn on_measured(&mut self, event: &Event) {
+        let Some(text) = event.dyn_ref::<web_sys::CustomEvent>().and_then(|e| e.detail().as_string()) else {
+            return;
+        };
+        // The editor's own reader: serde_json's parser would add some 40 KB to the page's engine.
+        let Ok(serde_json::Value::Array(rows)) = text::read_exact(&text) else { return };
+        let what = if rows.is_empty() {
+            "clear the measured frequencies".to_string()
+        } else {
+            format!("use the tap test's frequenc{}", if rows.len() == 1 { "y" } else { "ies" })
+        };
+        self.store_unless_waiting();
+        self.cases.record(&what);
+        self.edit(Edit::Measured(rows), None);
+        self.show_cases();
+        self.show_undo();
     }
 
     /// Shows the page's example again in place of the open case; one undo puts the case back.

@@ -23,6 +23,9 @@ use serde_json::Value;
 use wasm_bindgen::JsCast;
 use web_sys::{Element, HtmlInputElement};
 
+/// The event by which the tap-test panel hands the calculator the frequencies it measured.
+pub(in crate::widget) const MEASURED_EVENT: &str = "modebench-measured";
+
 /// The callbacks that take the page script's replies about links and files.
 pub(in crate::widget) struct Replies {
     /// Takes a link made for the open case.

@@ -1,0 +1,114 @@
+//! The panel's engine natively: a synthetic ring-down of known modes analysed and matched with a
+//! solved scenario, the rows it offers for the case's measured list, and the messages for bad
+//! options and bad recordings.
+
+use super::{analyse, Recording};
+use crate::worker::message;
+use serde_json::Value;
+
+/// A record of `taps` taps 2 s apart, each adding decaying sinusoids at the given damped
+/// frequencies (Hz) with damping ratio `zeta` to what still rings, over a little seeded noise (a
+/// linear congruential generator, so the record is the same on every run).
+fn ring_downs(modes: &[f64], zeta: f64, rate: f64, taps: usize) -> Vec<f32> {
+    let spacing = 2.0;
+    let lead = 0.3;
+    let total = ((lead + spacing * taps as f64) * rate) as usize;
+    let mut seed: u64 = 0x5eed_1234;
+    let mut noise = move || {
+        seed = seed.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+        ((seed >> 33) as f64 / (1u64 << 31) as f64 - 0.5) * 2e-4
+    };
+    let mut out: Vec<f64> = (0..total).map(|_| noise()).collect();
+    for tap in 0..taps {
+        let start = ((lead + spacing * tap as f64) * rate) as usize;
+        for (n, x) in out.iter_mut().enumerate().skip(start) {
+            let t = (n - start) as f64 / rate;
+            for (k, f) in modes.iter().enumerate() {
+                let wd = 2.0 * std::f64::consts::PI * f;
+                let wn = wd / (1.0 - zeta * zeta).sqrt();
+                *x += 0.3 / (k + 1) as f64 * (-zeta * wn * t).exp() * (wd * t + 0.4 * k as f64).sin();
+            }
+        }
+    }
+    out.into_iter().map(|x| x as f32).collect()
+}
+
+fn answer(text: &str) -> Value {
+    serde_json::from_str(text).unwrap()
+}
+
+/// A cantilever of 1 m, EI = 1000 N·m², m = 1 kg/m: modes 1 and 2 at 17.7 and 110.9 Hz
+/// (1.8751² and 4.6941² × √(EI/m)/(2πL²); Blevins, *Formulas for Natural Frequency and Mode
+/// Shape*, table 8-1 — from memory). The solver's own values are used for the match.
+const CANTILEVER: &str = r#"{"left": "clamped", "right": "free", "modes": 2,
+    "segments": [{"length": "1 m", "flexural_rigidity": "1000 N*m^2", "mass_per_length": "1 kg/m"}]}"#;
+
+#[test]
+fn the_peaks_of_a_synthetic_record_are_its_frequencies_and_match_the_prediction() {
+    let solved = message::solve(CANTILEVER);
+    let report = message::read(&solved).unwrap();
+    let predicted: Vec<f64> = report.modes.iter().map(|m| m.frequency_hz).collect();
+    assert!((predicted[0] - 17.69).abs() < 0.05, "{predicted:?}");
+    let zeta: f64 = 0.02;
+    // The part rings at the model's frequencies, damped: f_d = f √(1 − ζ²) (a fact of the
+    // damped oscillator's equation).
+    let damped: Vec<f64> = predicted.iter().map(|f| f * (1.0 - zeta * zeta).sqrt()).collect();
+    let rate = 8000.0;
+    let samples = ring_downs(&damped, zeta, rate, 3);
+    let options = serde_json::json!({ "source": "file", "answer": solved }).to_string();
+    let out = answer(&analyse(Recording::Samples(&samples, rate), &options));
+    assert_eq!(out["ok"], true, "{out}");
+    let peaks: Vec<f64> = out["peaks"].as_array().unwrap().iter().map(|p| p.as_f64().unwrap()).collect();
+    assert_eq!(peaks.len(), 2, "{peaks:?}");
+    for (got, want) in peaks.iter().zip(&damped) {
+        // The core's own check of synthetic records holds frequencies to 0.05 %.
+        assert!((got / want - 1.0).abs() < 5e-4, "peak {got} Hz, signal {want} Hz");
+    }
+    let measured = out["measured"].as_array().unwrap();
+    assert_eq!(measured.len(), 2, "{out}");
+    for (row, (number, f)) in measured.iter().zip(report.modes.iter().map(|m| (m.number, m.frequency_hz))) {
+        assert_eq!(row["mode"], number);
+        let text = row["frequency"].as_str().unwrap();
+        let hz: f64 = text.strip_suffix(" Hz").unwrap().parse().unwrap();
+        // The measured undamped frequency is the model's, within the fit's accuracy and the
+        // five figures written.
+        assert!((hz / f - 1.0).abs() < 1e-3, "{text} against {f} Hz");
+    }
+    let html = out["html"].as_str().unwrap();
+    assert!(html.contains("<svg class=\"mb-bench-plot\""), "{html}");
+    assert_eq!(html.matches("class=\"mb-bench-predicted\"").count(), 2, "both predicted modes are marked");
+    assert_eq!(html.matches("<tr data-peak=").count(), 2);
+    assert!(!html.contains("NaN") && !html.contains("inf"), "{html}");
+    assert!(!html.contains(" style="), "the page's policy blocks inline styles");
+}
+
+#[test]
+fn without_a_prediction_the_table_says_so_and_offers_nothing_to_keep() {
+    let samples = ring_downs(&[440.0], 0.005, 44100.0, 2);
+    let out = answer(&analyse(Recording::Samples(&samples, 44100.0), r#"{"source": "microphone"}"#));
+    assert_eq!(out["ok"], true, "{out}");
+    assert_eq!(out["measured"].as_array().unwrap().len(), 0);
+    assert!(out["html"].as_str().unwrap().contains("No predicted modes to match"));
+}
+
+#[test]
+fn bad_options_and_bad_recordings_are_answered_with_a_message() {
+    let wav = [b"RIFF".as_slice(), &[0u8; 8]].concat();
+    for (recording, options, expected) in [
+        (
+            Recording::File(b"time,a\n0,1\n"),
+            r#"{"channel": "two"}"#,
+            "Channel: \"two\" is not a channel number",
+        ),
+        (Recording::File(b"time,a\n0,1\n"), r#"{"channel": "0"}"#, "Channel: \"0\""),
+        (Recording::File(b"x"), r#"{"source": "radio"}"#, "Source: \"radio\""),
+        (Recording::File(&wav), "{}", "WAV"),
+        (Recording::Samples(&[0.0; 10], 0.0), "{}", "sample rate"),
+        (Recording::Timed(&[0.0, 0.0], &[1.0, 2.0]), "{}", "do not increase"),
+    ] {
+        let out = answer(&analyse(recording, options));
+        assert_eq!(out["ok"], false, "{out}");
+        let message = out["message"].as_str().unwrap();
+        assert!(message.contains(expected), "{message} should say {expected}");
+    }
+}
