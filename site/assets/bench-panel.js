@@ -276,8 +276,9 @@ class Panel {
     const times = [];
     const values = [];
     const listener = (event) => {
-      const a = event.acceleration ?? event.accelerationIncludingGravity;
-      const z = a?.z;
+      // Across the screen's plane (the tablet lies on the part); gravity, where included, is a
+      // constant that the analysis's spectrum does not mistake for a mode.
+      const z = event.acceleration?.z ?? event.accelerationIncludingGravity?.z;
       if (typeof z !== "number" || !Number.isFinite(z)) return;
       times.push(event.timeStamp / 1000);
       values.push(z);

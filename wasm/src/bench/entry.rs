@@ -7,18 +7,18 @@ use wasm_bindgen::prelude::*;
 
 /// Analyses a file's bytes (WAV or CSV).
 #[wasm_bindgen(js_name = analyseFile)]
-pub(crate) fn analyse_file(bytes: &[u8], options: &str) -> String {
+pub fn analyse_file(bytes: &[u8], options: &str) -> String {
     analyse(Recording::File(bytes), options)
 }
 
 /// Analyses samples taken at `rate_hz`.
 #[wasm_bindgen(js_name = analyseSamples)]
-pub(crate) fn analyse_samples(samples: &[f32], rate_hz: f64, options: &str) -> String {
+pub fn analyse_samples(samples: &[f32], rate_hz: f64, options: &str) -> String {
     analyse(Recording::Samples(samples, rate_hz), options)
 }
 
 /// Analyses values taken at the given times (s).
 #[wasm_bindgen(js_name = analyseTimed)]
-pub(crate) fn analyse_timed(times: &[f64], values: &[f32], options: &str) -> String {
+pub fn analyse_timed(times: &[f64], values: &[f32], options: &str) -> String {
     analyse(Recording::Timed(times, values), options)
 }

@@ -13,7 +13,7 @@
 //!   [Hz, …], "taps": n, "rate_hz": …}` or `{"ok": false, "message": …}`.
 
 #[cfg(target_arch = "wasm32")]
-mod entry;
+pub mod entry;
 mod render;
 
 use crate::worker::message;
@@ -94,13 +94,13 @@ fn words(error: &Error) -> String {
 fn asked(text: &str) -> Result<Asked, String> {
     let value: Value =
         serde_json::from_str(text).map_err(|e| format!("The panel's options are not JSON: {e}"))?;
-    let mut options = BenchOptions::default();
-    options.source = match value.get("source").and_then(Value::as_str).unwrap_or("file") {
+    let source = match value.get("source").and_then(Value::as_str).unwrap_or("file") {
         "microphone" => SourceKind::Microphone,
         "motion" => SourceKind::Motion,
         "file" => SourceKind::File,
         other => return Err(format!("Source: \"{other}\" is not one of microphone, motion, file.")),
     };
+    let mut options = BenchOptions { source, ..BenchOptions::default() };
     if let Some(typed) = value.get("channel").and_then(Value::as_str).filter(|t| !t.trim().is_empty()) {
         options.channel = channel(typed)?;
     }
