@@ -232,7 +232,7 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
         "<p class=\"mb-note\">No predicted modes to match: the calculator has no results yet.</p>"
     };
     format!(
-        "<div class=\"mb-table-wrap\"><table class=\"mb-bench-peaks\"><caption>Measured peaks</caption><thead><tr>\
+        "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Measured peaks\"><table class=\"mb-bench-peaks\"><caption>Measured peaks</caption><thead><tr>\
          <th scope=\"col\">Peak</th><th scope=\"col\">Frequency, Hz</th><th scope=\"col\">Damping (fit)</th>\
          <th scope=\"col\">Damping (half-power)</th><th scope=\"col\">Fit quality (0–1)</th>\
          <th scope=\"col\">Over floor, dB</th><th scope=\"col\">Mode</th><th scope=\"col\">Predicted, Hz</th>\
