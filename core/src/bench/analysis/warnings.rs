@@ -54,8 +54,8 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn(
             "double-hit",
             format!(
-                "{} tap(s) struck twice (at {} s){}: let the hammer or knuckle bounce off at once",
-                doubles.len(),
+                "{} struck twice (at {} s){}: let the hammer or knuckle bounce off at once",
+                taps(doubles.len()),
                 doubles.iter().map(|t| number((t * 100.0).round() / 100.0)).collect::<Vec<_>>().join(", "),
                 if all {
                     "; every tap did, so they were analysed all the same"
@@ -69,7 +69,10 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
     if still > 0 {
         out.push(warn(
             "still-ringing",
-            format!("{still} tap(s) came while the part still rang from the one before: wait for the ring to die away between taps"),
+            format!(
+                "{} while the part still rang from the one before: wait for the ring to die away between taps",
+                if still == 1 { "one tap came".to_string() } else { format!("{still} taps came") }
+            ),
         ));
     }
     let weak: Vec<&Tap> = c.taps.iter().filter(|t| t.level_db < WEAK_DB).collect();
@@ -77,9 +80,13 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn(
             "weak-tap",
             format!(
-                "{} tap(s) rose less than {WEAK_DB} dB over the noise floor: tap harder or bring the sensor closer, \
+                "{} less than {WEAK_DB} dB over the noise floor: tap harder or bring the sensor closer, \
                  or weak modes stay hidden",
-                weak.len()
+                if weak.len() == 1 {
+                    "one tap rose".to_string()
+                } else {
+                    format!("{} taps rose", weak.len())
+                }
             ),
         ));
     }
@@ -95,8 +102,8 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn(
             "taps-limited",
             format!(
-                "{} tap(s) were left out to keep the analysis within its memory; record fewer taps",
-                c.left_out
+                "{} left out to keep the analysis within its memory; record fewer taps",
+                if c.left_out == 1 { "one tap was".to_string() } else { format!("{} taps were", c.left_out) }
             ),
         ));
     }
@@ -129,9 +136,10 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn(
             "low-frequency",
             format!(
-                "{} lie(s) below about {MICROPHONE_LOW_HZ} Hz, where a microphone hears little: confirm with an \
+                "{} {} below about {MICROPHONE_LOW_HZ} Hz, where a microphone hears little: confirm with an \
                  accelerometer or the motion sensor",
-                list(&low)
+                list(&low),
+                lie(low.len())
             ),
         ));
     }
@@ -141,9 +149,10 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn(
             "near-nyquist",
             format!(
-                "{} lie(s) near half the sample rate ({} Hz): a mode above it would show here folded back; \
+                "{} {} near half the sample rate ({} Hz): a mode above it would show here folded back; \
                  record at a higher rate to be sure",
                 list(&high),
+                lie(high.len()),
                 number(c.rate_hz / 2.0)
             ),
         ));
@@ -167,4 +176,22 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
         out.push(warn("resampled", note.clone()));
     }
     out
+}
+
+/// The verb for a list of `n` frequencies.
+fn lie(n: usize) -> &'static str {
+    if n == 1 {
+        "lies"
+    } else {
+        "lie"
+    }
+}
+
+/// "one tap" or "3 taps".
+fn taps(n: usize) -> String {
+    if n == 1 {
+        "one tap".to_string()
+    } else {
+        format!("{n} taps")
+    }
 }
