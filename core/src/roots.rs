@@ -178,7 +178,8 @@ pub(crate) fn find(
     }
     // Two roots of a close pair may come out swapped by less than that, within the polish's
     // tolerance: list them ascending.
-    roots.sort_by(|a, b| a.omega.total_cmp(&b.omega));
+    let omegas: Vec<f64> = roots.iter().map(|r| r.omega).collect();
+    let roots = crate::sort::order(&omegas).into_iter().map(|i| roots[i]).collect();
     Ok((roots, search.work))
 }
 

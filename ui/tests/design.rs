@@ -71,8 +71,15 @@ fn a_fit_applied_reproduces_the_measurements_and_undoes_in_one_step() {
 fn a_proposed_size_applied_clears_every_margin_as_the_sweep_said() {
     let Ok(mut doc) = doc::read(FLOOR) else { panic!("JSON") };
     let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
-    let Some((changes, _)) = design::resize_changes(&doc, &report) else { panic!("a proposal") };
+    let Some((changes, what)) = design::resize_changes(&doc, &report) else { panic!("a proposal") };
     assert!(changes[0].text.ends_with(" in"), "{}", changes[0].text);
+    // The undo's words name the input as the report does, its first letter lowered only.
+    let Some(resize) = report.design.resize.as_ref() else { panic!("a resizing") };
+    let label = &resize.input.label;
+    assert_eq!(
+        what,
+        format!("set {}{} to {}", label[..1].to_ascii_lowercase(), &label[1..], changes[0].text)
+    );
     doc::apply(&mut doc, &Edit::Apply(changes), Some(&report));
     let after = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
     // The resizing judges the nominal frequencies: each clears the margin.

@@ -77,9 +77,9 @@ impl WarningCode {
 /// A note when two attachments lie closer than the engine tells apart and count as one point.
 pub(super) fn merged_points(model: &Model) -> Option<Warning> {
     let tolerance = crate::model::SAME_POINT * model.length();
-    let mut at: Vec<(f64, usize)> =
-        model.attachments().iter().enumerate().map(|(i, a)| (a.position(), i)).collect();
-    at.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let positions: Vec<f64> = model.attachments().iter().map(|a| a.position()).collect();
+    let at: Vec<(f64, usize)> =
+        crate::sort::order(&positions).into_iter().map(|i| (positions[i], i)).collect();
     let pair = at.windows(2).find(|w| w[1].0 > w[0].0 && w[1].0 - w[0].0 <= tolerance)?;
     let (first, second) = (pair[0].1.min(pair[1].1), pair[0].1.max(pair[1].1));
     Some(Warning {

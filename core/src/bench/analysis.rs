@@ -283,8 +283,10 @@ fn run(
         for (p, q) in power.iter_mut().zip(&tap_power) {
             *p += q;
         }
-        let db: Vec<f64> = tap_power.iter().map(|p| 10.0 * p.max(1e-300).log10()).collect();
-        per_tap.push(spectrum::decimate(&db, &db, 0, 1.0, CONSISTENCY_POINTS).1);
+        // Decimated first, in power: the largest bin of each stretch is the largest in dB too,
+        // and the logarithm is then taken of 512 values instead of every bin.
+        let top = spectrum::decimate(&tap_power, &tap_power, 0, 1.0, CONSISTENCY_POINTS).1;
+        per_tap.push(top.iter().map(|p| 10.0 * p.max(1e-300).log10()).collect());
     }
     let count = segments.len().max(1) as f64;
     let scale = (2.0 * count / sum_w.max(1e-300)).powi(2);

@@ -67,13 +67,39 @@ fn expm1(z: C64) -> C64 {
     C64::new(z.re.exp_m1() * z.im.cos() - 2.0 * half * half, z.re.exp() * z.im.sin())
 }
 
-/// G(z) = (e^{Nz} − 1)/(e^z − 1) and its derivative.
-fn kernel(z: C64, n: f64) -> (C64, C64) {
-    let a = expm1(z * n);
-    let b = expm1(z);
+/// G(z) = (e^{Nz} − 1)/(e^z − 1) and its derivative, from a = e^{Nz} − 1 and b = e^z − 1.
+fn kernel(a: C64, b: C64, n: f64) -> (C64, C64) {
     let g = a / b;
     let dg = ((a + 1.0) * n * b - a * (b + 1.0)) / (b * b);
     (g, dg)
+}
+
+/// A bin's fixed factors: at z = s − iθ with s = −σ ± iω, e^z = e^s·r and e^{Nz} = e^{Ns}·r_N
+/// with r = e^{−iθ} and r_N = e^{−iNθ}. Each e^z − 1 is then (e^s − 1)·r + (r − 1), which keeps
+/// the accuracy of `expm1` near z = 0 while the transcendental functions are taken once per
+/// trial parameters instead of at every bin (most of the fit's time before).
+#[derive(Clone, Copy)]
+struct Bin {
+    /// r − 1.
+    r1: C64,
+    /// r_N − 1.
+    rn1: C64,
+}
+
+impl Bin {
+    /// Bin `k` of an `m`-point DFT of `n` samples. N·k is reduced modulo m in integers, so the
+    /// phase N·θ is not taken of a large argument.
+    fn new(k: usize, m: usize, n: usize) -> Bin {
+        let two_pi = 2.0 * std::f64::consts::PI;
+        let theta = two_pi * k as f64 / m as f64;
+        let wrapped = ((n as u128 * k as u128) % m as u128) as f64;
+        Bin { r1: expm1(C64::new(0.0, -theta)), rn1: expm1(C64::new(0.0, -two_pi * wrapped / m as f64)) }
+    }
+
+    /// (e^{Nz} − 1, e^z − 1) from e^s − 1 and e^{Ns} − 1.
+    fn at(&self, e1: C64, en1: C64) -> (C64, C64) {
+        (en1 * (self.rn1 + 1.0) + self.rn1, e1 * (self.r1 + 1.0) + self.r1)
+    }
 }
 
 /// Fits the band starting from ω₀ and σ₀ (rad per sample). `None` when the fit does not settle
@@ -98,14 +124,23 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
     if energy <= 0.0 {
         return None;
     }
+    let fixed: Vec<Bin> = bins.iter().map(|&k| Bin::new(k, band.m, band.n)).collect();
     let i = C64::new(0.0, 1.0);
-    // The model's columns (∂m/∂p) and value at parameters p.
-    let columns = |p: &SVector<f64, 10>, k: usize| -> ([C64; 10], C64) {
+    // e^s − 1 and e^{Ns} − 1 for s = −σ + iω (the positive frequency) and −σ − iω (its image).
+    let exps = |p: &SVector<f64, 10>| -> [C64; 4] {
+        let (s, t) = (C64::new(-p[0], p[1]), C64::new(-p[0], -p[1]));
+        [expm1(s), expm1(s * n), expm1(t), expm1(t * n)]
+    };
+    // The model's columns (∂m/∂p) and value at parameters p, at the `j`-th bin of the band.
+    let columns = |p: &SVector<f64, 10>, e: &[C64; 4], j: usize| -> ([C64; 10], C64) {
+        let k = bins[j];
         let c = C64::new(p[2], p[3]);
         let u = (k as f64 - kc) / half.max(1.0);
         let q = if CURVED { u * u } else { 0.0 };
-        let (g, dg) = kernel(C64::new(-p[0], p[1] - theta(k)), n);
-        let (h, dh) = kernel(C64::new(-p[0], -p[1] - theta(k)), n);
+        let (a, b) = fixed[j].at(e[0], e[1]);
+        let (g, dg) = kernel(a, b, n);
+        let (a, b) = fixed[j].at(e[2], e[3]);
+        let (h, dh) = kernel(a, b, n);
         let cols = [
             -(c * dg + c.conj() * dh),
             i * c * dg - i * c.conj() * dh,
@@ -123,14 +158,16 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
         (cols, value)
     };
     let cost = |p: &SVector<f64, 10>| -> f64 {
-        bins.iter().zip(&data).map(|(&k, x)| (x - columns(p, k).1).norm_sqr()).sum()
+        let e = exps(p);
+        data.iter().enumerate().map(|(j, x)| (x - columns(p, &e, j).1).norm_sqr()).sum()
     };
     // Normal equations of the linearised problem over the parameters `free`.
     let normal = |p: &SVector<f64, 10>, free: usize| -> (SMatrix<f64, 10, 10>, SVector<f64, 10>) {
         let mut a = SMatrix::<f64, 10, 10>::zeros();
         let mut g = SVector::<f64, 10>::zeros();
-        for (&k, x) in bins.iter().zip(&data) {
-            let (cols, value) = columns(p, k);
+        let e = exps(p);
+        for (j, x) in data.iter().enumerate() {
+            let (cols, value) = columns(p, &e, j);
             let r = x - value;
             for j in 10 - free..10 {
                 g[j] += (cols[j].conj() * r).re;
@@ -185,13 +222,14 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
     }
     let (lo, hi) = (theta(band.lo), theta(band.hi));
     let c = C64::new(p[2], p[3]);
+    let e = exps(&p);
     let explained: f64 = stride as f64
-        * bins
+        * fixed
             .iter()
-            .map(|&k| {
-                let (g, _) = kernel(C64::new(-p[0], p[1] - theta(k)), n);
-                let (h, _) = kernel(C64::new(-p[0], -p[1] - theta(k)), n);
-                (c * g + c.conj() * h).norm_sqr()
+            .map(|b| {
+                let (a, d) = b.at(e[0], e[1]);
+                let (a2, d2) = b.at(e[2], e[3]);
+                (c * (a / d) + c.conj() * (a2 / d2)).norm_sqr()
             })
             .sum::<f64>();
     // The ring-down's share of the band against the noise left per degree of freedom: a

@@ -16,13 +16,15 @@ use realfft::RealFftPlanner;
 const BH: [f64; 4] = [0.35875, 0.48829, 0.14128, 0.01168];
 
 /// The falling half of a 4-term Blackman–Harris window of length 2n: 1 at the first sample,
-/// near 0 at the last.
+/// near 0 at the last. One cosine per sample: cos 2x = 2c² − 1 and cos 3x = c(4c² − 3) with
+/// c = cos x (Chebyshev's polynomials), as the window is taken for every sample of every tap.
 pub fn falling_window(n: usize) -> Vec<f64> {
     let m = (2 * n) as f64;
     (0..n)
         .map(|i| {
-            let x = 2.0 * std::f64::consts::PI * (n + i) as f64 / m;
-            BH[0] - BH[1] * x.cos() + BH[2] * (2.0 * x).cos() - BH[3] * (3.0 * x).cos()
+            let c = (2.0 * std::f64::consts::PI * (n + i) as f64 / m).cos();
+            let c2 = c * c;
+            BH[0] - BH[1] * c + BH[2] * (2.0 * c2 - 1.0) - BH[3] * c * (4.0 * c2 - 3.0)
         })
         .collect()
 }
@@ -180,6 +182,21 @@ mod tests {
                 );
             }
         }
+    }
+
+    #[test]
+    fn the_window_is_the_four_term_sum_of_cosines() {
+        // The textbook form, a0 − a1·cos x + a2·cos 2x − a3·cos 3x (Harris 1978, from memory),
+        // against the one-cosine form used: equal to round-off at every sample.
+        for n in [1usize, 7, 1000] {
+            let w = falling_window(n);
+            for (i, v) in w.iter().enumerate() {
+                let x = 2.0 * std::f64::consts::PI * (n + i) as f64 / (2 * n) as f64;
+                let direct = BH[0] - BH[1] * x.cos() + BH[2] * (2.0 * x).cos() - BH[3] * (3.0 * x).cos();
+                assert!((v - direct).abs() < 1e-15, "n {n}, sample {i}: {v} vs {direct}");
+            }
+        }
+        assert!((falling_window(1000)[0] - 1.0).abs() < 1e-12);
     }
 
     #[test]

@@ -181,7 +181,8 @@ fn one(frequencies: &Frequencies<'_>, p0: &[f64], u: Unknown, m: Measured) -> Re
         ));
     }
     let current = p0[u.input];
-    roots.sort_by(|a, b| (a - current).abs().total_cmp(&(b - current).abs()));
+    let distances: Vec<f64> = roots.iter().map(|r| (r - current).abs()).collect();
+    let roots: Vec<f64> = crate::sort::order(&distances).into_iter().map(|i| roots[i]).collect();
     let value = roots[0];
     let mut notes = Vec::new();
     if roots.len() > 1 {

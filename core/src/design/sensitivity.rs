@@ -51,9 +51,7 @@ pub fn sensitivities(frequencies: &Frequencies<'_>, p0: &[f64]) -> Result<Vec<Ve
 
 /// For one mode, the inputs that move it most: (input, ∂ln f/∂ln p), largest first.
 pub fn strongest(row: &[Option<f64>], count: usize) -> Vec<(usize, f64)> {
-    let mut ranked: Vec<(usize, f64)> =
-        row.iter().enumerate().filter_map(|(j, s)| s.map(|s| (j, s))).collect();
-    ranked.sort_by(|a, b| b.1.abs().total_cmp(&a.1.abs()));
-    ranked.truncate(count);
-    ranked
+    let given: Vec<(usize, f64)> = row.iter().enumerate().filter_map(|(j, s)| s.map(|s| (j, s))).collect();
+    let keys: Vec<f64> = given.iter().map(|g| -g.1.abs()).collect();
+    crate::sort::order(&keys).into_iter().take(count).map(|i| given[i]).collect()
 }

@@ -126,9 +126,9 @@ fn explain(model: &Model, e: crate::error::Error) -> crate::error::Error {
     if e.kind != crate::error::ErrorKind::NoConvergence {
         return e;
     }
-    let mut at: Vec<(f64, usize)> =
-        model.attachments().iter().enumerate().map(|(i, a)| (a.position(), i)).collect();
-    at.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let positions: Vec<f64> = model.attachments().iter().map(|a| a.position()).collect();
+    let at: Vec<(f64, usize)> =
+        crate::sort::order(&positions).into_iter().map(|i| (positions[i], i)).collect();
     let closest = at
         .windows(2)
         .filter(|w| w[1].0 > w[0].0)

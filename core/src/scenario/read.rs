@@ -432,7 +432,7 @@ fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Res
         }
         (Some(orders), None) => {
             let mut orders = orders.clone();
-            orders.sort_by(f64::total_cmp);
+            crate::sort::floats(&mut orders);
             orders.dedup();
             orders
         }

@@ -62,7 +62,14 @@ pub fn resize_changes(doc: &Value, report: &Report) -> Option<(Vec<Change>, Stri
     let v = if nearest - a < b - nearest { nearest + step } else { nearest - step };
     let system = super::unit_system(doc);
     let text = text_of(v, r.input.kind, system);
-    let what = format!("set {} to {text}", r.input.label.to_lowercase());
+    // Only the label's capital first letter is lowered, in ASCII: a symbol in it ("modulus E")
+    // keeps its case, and `str::to_lowercase` would bring Unicode's case tables (some 16 KB)
+    // into the page's engine.
+    let mut label = r.input.label.clone();
+    if label.is_char_boundary(1) {
+        label[..1].make_ascii_lowercase();
+    }
+    let what = format!("set {label} to {text}");
     Some((vec![Change { path: r.input.path.clone(), si: v, text }], what))
 }
 
