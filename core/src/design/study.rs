@@ -13,8 +13,8 @@ use super::inputs::{self, Input};
 use super::margin::Drive;
 use super::requests::{end_range, range_of, ranged, ratio, relocate};
 use super::resize;
-use super::sensitivity::sensitivities;
-use super::tolerance::{bands, Spread};
+use super::sensitivity::{through_shapes, SolvedMode};
+use super::tolerance::{bands, bands_from, Spread};
 use crate::analysis::margins::Order;
 use crate::error::{Error, ErrorKind, Result};
 use crate::path::FieldPath;
@@ -47,6 +47,10 @@ pub struct Solved<'a> {
     pub orders: &'a [Order],
     /// The margin wanted.
     pub margin: f64,
+    /// The model solved.
+    pub model: &'a crate::model::Model,
+    /// Its elastic modes, with their shapes.
+    pub modes: &'a [SolvedMode<'a>],
 }
 
 /// Runs the design study of a scenario.
@@ -73,8 +77,9 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
     let all = inputs::all(&doc);
     let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
-    let evaluator = inputs::Evaluator::new(&doc, &paths);
-    let f = |p: &[f64]| evaluator.frequencies(p);
+    let evaluator = inputs::Evaluator::new(&doc, &paths).with_hints(solved.elastic_hz);
+    let model_at = |p: &[f64]| evaluator.read(p).map(|i| i.model);
+    let solve = |m: &crate::model::Model| evaluator.solve(m, solved.modes.len());
     let work = all.len() * solved.elastic_hz.len();
     if work > MOST_SENSITIVITIES {
         design.notes.push(format!(
@@ -84,7 +89,7 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
             solved.elastic_hz.len(),
             2 * all.len()
         ));
-    } else if let Ok(s) = sensitivities(&f, &values) {
+    } else if let Ok(s) = through_shapes(solved.model, solved.modes, &model_at, &solve, &values) {
         design.inputs = all.iter().map(echo).collect();
         design.sensitivities = s
             .into_iter()
@@ -161,9 +166,22 @@ fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mu
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = chosen.iter().map(|i| i.value).collect();
-    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let evaluator = inputs::Evaluator::new(doc, &paths).with_hints(solved.elastic_hz);
     let f = |p: &[f64]| evaluator.frequencies(p);
-    let b = bands(&f, &values, &spreads)?;
+    // The sensitivities found for every input serve the band when they cover these inputs.
+    let columns: Option<Vec<usize>> =
+        paths.iter().map(|p| design.inputs.iter().position(|i| i.path == p.to_string())).collect();
+    let b = match columns {
+        Some(columns) if design.sensitivities.len() == solved.elastic_hz.len() => {
+            let s: Vec<Vec<Option<f64>>> = design
+                .sensitivities
+                .iter()
+                .map(|row| columns.iter().map(|&j| row.per_input[j]).collect())
+                .collect();
+            bands_from(&f, &values, &spreads, solved.elastic_hz, &s)?
+        }
+        _ => bands(&f, &values, &spreads)?,
+    };
     design.bands = b
         .iter()
         .enumerate()

@@ -45,6 +45,18 @@ pub struct Band {
 pub fn bands(frequencies: &Frequencies<'_>, p0: &[f64], spreads: &[Option<Spread>]) -> Result<Vec<Band>> {
     let f0 = frequencies(p0)?;
     let s = sensitivities(frequencies, p0)?;
+    bands_from(frequencies, p0, spreads, &f0, &s)
+}
+
+/// As [`bands`], given the frequencies at `p0` and their sensitivities to the inputs (∂ln fₖ/∂ln
+/// pⱼ, as [`sensitivities`] gives them), found already.
+pub fn bands_from(
+    frequencies: &Frequencies<'_>,
+    p0: &[f64],
+    spreads: &[Option<Spread>],
+    f0: &[f64],
+    s: &[Vec<Option<f64>>],
+) -> Result<Vec<Band>> {
     // The two ends of each input's range, and for each mode which end raises it.
     let ends: Vec<Option<(f64, f64)>> = p0
         .iter()

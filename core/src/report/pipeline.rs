@@ -8,7 +8,7 @@ use crate::scenario::Scenario;
 
 /// Reads, checks and solves a scenario given as parsed JSON.
 pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
-    solve_with(&Scenario::from_value(value)?, value, &[])
+    solve_value_with_hints(value, &[])
 }
 
 /// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
@@ -67,6 +67,16 @@ fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) ->
         .collect();
     let orders = margins::orders(&excitations);
     let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
+    let elastic: Vec<crate::design::sensitivity::SolvedMode<'_>> = analysis
+        .modes
+        .iter()
+        .filter(|m| !m.rigid_body)
+        .map(|m| crate::design::sensitivity::SolvedMode {
+            omega: m.omega,
+            multiplicity: m.multiplicity,
+            shape: &m.shape,
+        })
+        .collect();
     let design = crate::design::study(
         scenario,
         doc,
@@ -75,6 +85,8 @@ fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) ->
             rigid: analysis.rigid_body_modes,
             orders: &orders,
             margin: inputs.margin,
+            model,
+            modes: &elastic,
         },
     )?;
     let modes: Vec<ModeReport> = analysis
