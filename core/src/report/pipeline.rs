@@ -42,7 +42,10 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
 /// The results are those of [`solve_value`] to within the root search's tolerance, whatever the
 /// hints: every frequency is still isolated by the count.
 pub fn solve_value_with_hints(value: &serde_json::Value, hints_hz: &[f64]) -> Result<Report> {
-    solve_with(&Scenario::from_value(value)?, value, hints_hz)
+    // The design study writes trial values into the scenario with each tolerance typed beside
+    // its value already split off.
+    let value = crate::scenario::tolerant::normalise(value)?;
+    solve_with(&Scenario::from_value(&value)?, &value, hints_hz)
 }
 
 /// Solves a scenario read from `doc`, the JSON it was read from, which the design study writes

@@ -268,3 +268,28 @@ fn sensitivities_through_the_shapes_agree_with_central_differences_on_the_solver
         }
     }
 }
+
+#[test]
+fn a_tolerance_typed_with_its_value_is_the_tolerance_written_apart() {
+    // "4 mm ± 12.5 %" and "2.8 ± 0.2 kg" in the fields mean what the same tolerances mean under
+    // `tolerances` (the format's definition): the same echo, the same bands, bit for bit.
+    let mut apart = boom("2.5e4 N*m/rad", "2.8 kg");
+    // (Those typed are listed in the order of the scenario's keys: attachments before segments.)
+    apart["tolerances"] = json!([
+        { "field": "attachments[0].mass", "plus_minus": 0.2 / 2.8 },
+        { "field": "segments[0].section.wall", "plus_minus": "12.5 %" },
+    ]);
+    let mut typed = boom("2.5e4 N*m/rad", "2.8 ± 0.2 kg");
+    typed["segments"][0]["section"]["wall"] = json!("4 mm ± 12.5 %");
+    let (a, t) = (solve(&apart), solve(&typed));
+    assert_eq!(elastic_hz(&a), elastic_hz(&t));
+    assert_eq!(a.design.bands, t.design.bands);
+    assert_eq!(a.design.tolerances, t.design.tolerances);
+    assert_eq!(t.design.tolerances.len(), 2);
+    // The mass's band edges are the ends of 2.6 to 3.0 kg.
+    let mass = &t.design.tolerances[0];
+    assert!(
+        mass.low.is_some_and(|v| (v - 2.6).abs() < 1e-12)
+            && mass.high.is_some_and(|v| (v - 3.0).abs() < 1e-12)
+    );
+}
