@@ -14,7 +14,7 @@ use super::margin::Drive;
 use super::requests::{end_range, range_of, ranged, ratio, relocate};
 use super::resize;
 use super::sensitivity::{through_shapes, SolvedMode};
-use super::tolerance::{bands, bands_from, Spread};
+use super::tolerance::{bands, bands_from, Band, Spread};
 use crate::analysis::margins::Order;
 use crate::error::{Error, ErrorKind, Result};
 use crate::path::FieldPath;
@@ -97,16 +97,24 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
             .map(|(k, per_input)| ModeSensitivity { mode: solved.rigid + k + 1, per_input })
             .collect();
     }
-    tolerances(scenario, &doc, solved, &mut design)?;
+    let tolerated = tolerances(scenario, &doc, solved, &mut design)?;
     let measured = measured(scenario, solved, &mut design)?;
     calibration(scenario, &doc, &measured, &mut design)?;
-    resizing(scenario, &doc, solved, &mut design)?;
+    resizing(scenario, &doc, solved, &tolerated, &mut design)?;
     Ok(design)
 }
 
-fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+/// The inputs that carry tolerances, with their spreads.
+type Tolerated = Vec<(Input, Spread)>;
+
+fn tolerances(
+    scenario: &Scenario,
+    doc: &Value,
+    solved: &Solved<'_>,
+    design: &mut Design,
+) -> Result<Tolerated> {
     if scenario.tolerances.is_empty() {
-        return Ok(());
+        return Ok(Vec::new());
     }
     let mut chosen: Vec<Input> = Vec::new();
     let mut spreads = Vec::new();
@@ -187,7 +195,7 @@ fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mu
         .enumerate()
         .map(|(k, b)| ModeBand { mode: solved.rigid + k + 1, low_hz: b.low, high_hz: b.high })
         .collect();
-    Ok(())
+    Ok(chosen.into_iter().zip(spreads.into_iter().flatten()).collect())
 }
 
 fn measured(scenario: &Scenario, solved: &Solved<'_>, design: &mut Design) -> Result<Vec<Measured>> {
@@ -297,7 +305,13 @@ fn calibration(scenario: &Scenario, doc: &Value, measured: &[Measured], design: 
     Ok(())
 }
 
-fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+fn resizing(
+    scenario: &Scenario,
+    doc: &Value,
+    solved: &Solved<'_>,
+    tolerated: &Tolerated,
+    design: &mut Design,
+) -> Result<()> {
     let Some(r) = &scenario.resize else { return Ok(()) };
     crate::model::whole(&crate::schema::RESIZE_FIELDS[3], r.points)
         .map_err(|e| e.at(FieldPath::root().key("resize").key("points")))?;
@@ -309,11 +323,41 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
             .at(FieldPath::root().key("resize").key("to")));
     }
     let drives: Vec<Drive> = solved.orders.iter().map(|o| o.drive).collect();
-    let path = [input.path.clone()];
-    let evaluator = inputs::Evaluator::new(doc, &path);
+    // The input resized first, then every other input with a tolerance: each value tried is
+    // judged on the bands the tolerances give there. The resized input's own tolerance follows
+    // it when it is ± a fraction; a range of its own has no meaning while it moves.
+    let mut paths = vec![input.path.clone()];
+    let mut values = vec![input.value];
+    let mut spreads: Vec<Option<Spread>> = vec![None];
+    for (other, spread) in tolerated {
+        if other.path == input.path {
+            if let Spread::Relative { .. } = spread {
+                spreads[0] = Some(*spread);
+            } else {
+                design.notes.push(format!(
+                    "The range given as the tolerance of {} is left out while resizing it.",
+                    input.field.label
+                ));
+            }
+            continue;
+        }
+        paths.push(other.path.clone());
+        values.push(other.value);
+        spreads.push(Some(*spread));
+    }
+    let evaluator = inputs::Evaluator::new(doc, &paths).with_hints(solved.elastic_hz);
     let f = |p: &[f64]| evaluator.frequencies(p);
-    let clear_today =
-        solved.elastic_hz.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, solved.margin)));
+    let within = |p: &[f64]| bands(&f, p, &spreads);
+    let today: Vec<Band> = match design.bands.len() {
+        0 => solved.elastic_hz.iter().map(|&f| Band { nominal: f, low: f, high: f }).collect(),
+        _ => design
+            .bands
+            .iter()
+            .zip(solved.elastic_hz)
+            .map(|(b, &f)| Band { nominal: f, low: b.low_hz, high: b.high_hz })
+            .collect(),
+    };
+    let clear_today = resize::clear(&today, &drives, solved.margin);
     let mut report = ResizeReport {
         input: echo(&input),
         low,
@@ -334,13 +378,21 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
             .at("excitations"),
         );
     } else {
-        match resize::resize(&f, &[input.value], 0, (low, high), &drives, solved.margin, r.points) {
+        let found = if tolerated.is_empty() {
+            resize::resize(&f, &values, 0, (low, high), &drives, solved.margin, r.points)
+        } else {
+            resize::resize_within(&within, &values, 0, (low, high), &drives, solved.margin, r.points)
+        };
+        match found {
             Ok(found) => {
                 if found.intervals.is_empty() {
                     report.problem = Some(Error::new(
                         ErrorKind::Model,
-                        "no value in this range clears every mode from every excitation by the margin; widen the \
-                         range, resize another input, or change the margin after checking what your code asks",
+                        format!(
+                            "no value in this range clears every mode{} from every excitation by the margin; widen \
+                             the range, resize another input, or change the margin after checking what your code asks",
+                            if tolerated.is_empty() { "" } else { "'s tolerance band" }
+                        ),
                     ));
                 }
                 report.intervals = found.intervals;

@@ -293,3 +293,53 @@ fn a_tolerance_typed_with_its_value_is_the_tolerance_written_apart() {
             && mass.high.is_some_and(|v| (v - 3.0).abs() < 1e-12)
     );
 }
+
+#[test]
+fn resizing_within_tolerance_bands_reports_intervals_whose_edges_re_solve_on_the_bands() {
+    // The floor beam and drives above, with the steel's modulus ± 5 %, the fan's mass ± 10 % and
+    // the depth ± 2 % (which moves with the depth tried): the intervals are where every mode's
+    // band keeps the margin, judged as the report judges a band (on its nearer edge). So at each
+    // interval's ends and middle the scenario re-solved with its tolerances clears every margin,
+    // and just outside an end a margin fails; and each interval lies inside one found without
+    // the tolerances (a band holds its nominal frequency).
+    let mut doc: Value =
+        serde_json::from_str(include_str!("../../../docs/scenarios/fan-floor-beam-us.json")).expect("JSON");
+    doc["excitations"] = json!([
+        { "label": "fan", "frequency": "600 rpm", "up_to": "900 rpm" },
+        { "label": "motor, twice line frequency", "frequency": "60 Hz", "orders": [2] },
+    ]);
+    doc["margin"] = json!("15 %");
+    doc["tolerances"] = json!([
+        { "field": "segments[0].material.youngs_modulus", "plus_minus": "5 %" },
+        { "field": "attachments[0].mass", "plus_minus": "10 %" },
+        { "field": "segments[0].section.depth", "plus_minus": "2 %" },
+    ]);
+    let tolerant = doc.clone();
+    let at = |depth: f64| {
+        let mut d = tolerant.clone();
+        d["segments"][0]["section"]["depth"] = json!(depth);
+        d
+    };
+    doc["resize"] =
+        json!({ "field": "segments[0].section.depth", "from": "6 in", "to": "20 in", "points": 60 });
+    let r = solve(&doc).design.resize.expect("a resizing");
+    assert!(r.problem.is_none() && !r.intervals.is_empty(), "{r:?}");
+    let nudge = 1e-4 * (r.high - r.low);
+    for &(a, b) in &r.intervals {
+        assert!(clear(&at(a)) && clear(&at(b)) && clear(&at(0.5 * (a + b))), "[{a}, {b}]");
+        if a > r.low {
+            assert!(!clear(&at(a - nudge)), "just below {a} a margin must fail");
+        }
+        if b < r.high {
+            assert!(!clear(&at(b + nudge)), "just above {b} a margin must fail");
+        }
+    }
+    assert!(clear(&at(r.nearest.expect("a feasible value"))));
+    let mut nominal = doc.clone();
+    nominal.as_object_mut().map(|m| m.remove("tolerances"));
+    let without = solve(&nominal).design.resize.expect("a resizing").intervals;
+    for &(a, b) in &r.intervals {
+        assert!(without.iter().any(|&(c, d)| c <= a && b <= d), "[{a}, {b}] is not within {without:?}");
+    }
+    assert!(r.intervals != without, "the bands must narrow what is feasible");
+}
