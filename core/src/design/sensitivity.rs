@@ -61,6 +61,9 @@ pub fn sensitivities(frequencies: &Frequencies<'_>, p0: &[f64]) -> Result<Vec<Ve
     Ok(out)
 }
 
+/// The frequencies on one side of a step, when the model there was read and solved.
+type Sides = Option<Vec<f64>>;
+
 /// A solved elastic mode, as the derivative through its shape needs it.
 #[derive(Clone, Copy, Debug)]
 pub struct SolvedMode<'a> {
@@ -105,7 +108,7 @@ pub fn through_shapes(
             (Some(d), None) => (d, model, 1.0),
             (None, None) => continue,
         };
-        let mut solved: Option<(Option<Vec<f64>>, Option<Vec<f64>>)> = None;
+        let mut solved: Option<(Sides, Sides)> = None;
         for (k, row) in out.iter_mut().enumerate() {
             let exact = gradients[k].as_ref().and_then(|g| g.change(from, to));
             let s = match exact {
