@@ -88,7 +88,7 @@ describe("design work on the page", () => {
   });
 
   test("a resizing proposal within the bands is applied, every margin then holds, and undo takes it back", async () => {
-    const { context, page, problems } = await openLive(browser, site.url + FLOOR);
+    const { context, page, problems } = await openLive(FLOOR);
     assert.equal(await page.locator("svg.mb-sweep").count(), 1, "the sweep is plotted");
     assert.ok((await page.locator("svg.mb-sweep .mb-sweep-forbidden").count()) >= 2, "forbidden bands shaded");
     assert.ok((await page.locator("svg.mb-map .mb-map-close").count()) >= 1, "today a band is too close");
@@ -115,7 +115,7 @@ describe("design work on the page", () => {
   });
 
   test("a speed range added in the editor marks its collision on the frequency map", async () => {
-    const { context, page, problems } = await openLive(browser, site.url + FLOOR);
+    const { context, page, problems } = await openLive(FLOOR);
     const mode3 = 'svg.mb-map g[data-map-mode="3"] .mb-map-close';
     assert.equal(await page.locator(mode3).count(), 0, "mode 3 clears every drive today");
     const f3 = await hz(page, 3);
@@ -136,7 +136,7 @@ describe("design work on the page", () => {
   });
 
   test("a tolerance added as a row or typed with a value gives every mode a band", async () => {
-    const { context, page, problems } = await openLive(browser, site.url + FAN);
+    const { context, page, problems } = await openLive(FAN);
     assert.equal(await page.locator("svg.mb-map .mb-map-band").count(), 0, "no tolerances, no bands");
     const modes = await page.locator("table.mb-modes tr[data-mode]").count();
     await page.locator('[data-action="add"][data-list="tolerances"]').click();
@@ -171,7 +171,7 @@ describe("design work on the page", () => {
   });
 
   test("a measured frequency typed calibrates one input, applied in one step that undo takes back", async () => {
-    const { context, page, problems } = await openLive(browser, site.url + ROOT);
+    const { context, page, problems } = await openLive(ROOT);
     // One unknown (the root's stiffness) from one measurement, typed.
     await page.locator('[data-action="remove"][data-list="calibrate"][data-index="1"]').click();
     await page.locator('[data-action="remove"][data-list="measured"][data-index="1"]').click();
@@ -202,7 +202,7 @@ describe("design work on the page", () => {
     // on the bands: hundreds of solves, all in the calculator's worker. The page's thread only
     // draws the answers, so no task on it may reach 50 ms, the browser's own threshold of a long
     // task (common practice, no source).
-    const { context, page, problems } = await openLive(browser, site.url + FLOOR);
+    const { context, page, problems } = await openLive(FLOOR);
     await page.evaluate(() => {
       window.__longTasks = [];
       new PerformanceObserver((list) => window.__longTasks.push(...list.getEntries().map((e) => e.duration))).observe({
