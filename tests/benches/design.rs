@@ -1,7 +1,9 @@
 //! Speed of the design tools (printed by criterion; figures go in docs/performance.md):
-//! - what moves each mode: ∂ln f/∂ln p of 10 modes to 20 inputs by central differences on the
-//!   exact solver, each value written into the scenario and read again — budget 20 ms in the
-//!   browser's solver engine;
+//! - what moves each mode: ∂ln f/∂ln p of 10 modes to 20 inputs, as every solve finds it
+//!   (through the mode shapes the solve computed, with central differences on the solver for
+//!   lengths and positions) — budget 20 ms in the browser's solver engine — and, for
+//!   comparison, by central differences on the exact solver alone, each value written into the
+//!   scenario and read again;
 //! - a 200-point resizing sweep of one input with its edges refined — budget 200 ms there;
 //! - a whole scenario with every design request, through `solve`.
 
@@ -37,10 +39,31 @@ fn design(c: &mut Criterion) {
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
     let evaluator = inputs::Evaluator::new(&doc, &paths);
     let f = |p: &[f64]| evaluator.frequencies(p);
+    let read = modebench::Scenario::from_value(&doc).and_then(|s| s.to_model()).expect("reads");
+    let modes = modebench::exact::modes(&read.model, 10).expect("solves");
+    let solved: Vec<sensitivity::SolvedMode<'_>> = modes
+        .iter()
+        .filter(|m| !m.rigid_body)
+        .map(|m| sensitivity::SolvedMode { omega: m.omega, multiplicity: m.multiplicity, shape: &m.shape })
+        .collect();
+    let hz: Vec<f64> = solved.iter().map(|m| m.omega / std::f64::consts::TAU).collect();
+    c.bench_function("sensitivities through the shapes, 10 modes to 20 inputs", |b| {
+        b.iter(|| {
+            let evaluator = inputs::Evaluator::new(&doc, &paths).with_hints(&hz);
+            sensitivity::through_shapes(
+                &read.model,
+                &solved,
+                &|p: &[f64]| evaluator.read(p).map(|i| i.model),
+                &|m: &modebench::Model| evaluator.solve(m, 10),
+                black_box(&values),
+            )
+            .expect("solves")
+        })
+    });
     c.bench_function("sensitivities, 10 modes to 20 inputs", |b| {
         b.iter(|| sensitivity::sensitivities(&f, black_box(&values)).expect("solves"))
     });
-    // The same without handing each solve the frequencies of the one before, for comparison.
+    // The same by central differences alone, without handing each solve the frequencies of the one before, for comparison.
     let fresh = |p: &[f64]| inputs::frequencies(&doc, &paths, p);
     c.bench_function("sensitivities, 10 modes to 20 inputs, each solve from scratch", |b| {
         b.iter(|| sensitivity::sensitivities(&fresh, black_box(&values)).expect("solves"))

@@ -68,6 +68,30 @@ fn a_number_typed_alone_in_us_inch_reads_as_inches() {
 }
 
 #[test]
+fn a_value_typed_with_its_tolerance_takes_the_fields_unit_and_reads_as_a_tolerance() {
+    let path = "segments[0].section.outer_diameter";
+    let typed = |text: &str| match doc::typed(path.to_string(), text, "in") {
+        Edit::Text { text, .. } => text,
+        other => panic!("{other:?}"),
+    };
+    // Neither side with a unit: both take the field's; a unit typed on either side is kept.
+    assert_eq!(typed("4.5 ± 2 %"), "4.5 in ± 2 %");
+    assert_eq!(typed("4.5 +/- 0.05"), "4.5 in ± 0.05 in");
+    assert_eq!(typed("4.5 ± 1 mm"), "4.5 ± 1 mm");
+    assert_eq!(typed("114.3 mm ± 1 %"), "114.3 mm ± 1 %");
+    // Solved, the field keeps its value as typed, the diameter is 4.5 in as written alone, and
+    // the report lists the tolerance with a band around every mode.
+    let mut doc = pipe();
+    doc::apply(&mut doc, &doc::typed(path.to_string(), "4.5 ± 2 %", "in"), None);
+    assert_eq!(doc["segments"][0]["section"]["outer_diameter"], json!("4.5 in ± 2 %"));
+    let report = solve(&doc);
+    assert_eq!(frequencies(&report), frequencies(&solve(&pipe())));
+    let t = &report.design.tolerances;
+    assert!(t.len() == 1 && t[0].input.path == path && t[0].plus_minus == Some(0.02), "{t:?}");
+    assert_eq!(report.design.bands.len(), report.modes.iter().filter(|m| !m.rigid_body).count());
+}
+
+#[test]
 fn a_number_typed_alone_in_a_field_holding_rpm_reads_as_rpm() {
     let path = "excitations[0].frequency";
     assert_eq!(field_unit(&pipe(), path).0, "rpm");

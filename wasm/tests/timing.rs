@@ -51,9 +51,10 @@ fn solving_and_drawing_an_example_is_quick() {
 }
 
 /// The design tools in WebAssembly, on a stepped floor beam given by properties with two masses
-/// and an elastic end (20 numeric inputs, 10 modes): what moves each mode (budget 20 ms) and a
-/// 200-point resizing sweep with its edges refined (budget 200 ms). Printed; checked only when
-/// asked for, on an optimised build, as above.
+/// and an elastic end (20 numeric inputs, 10 modes): what moves each mode as every solve finds it
+/// (through the shapes the solve computed; budget 20 ms), the same by central differences alone
+/// (for comparison), and a 200-point resizing sweep with its edges refined (budget 200 ms).
+/// Printed; checked only when asked for, on an optimised build, as above.
 #[wasm_bindgen_test]
 fn the_design_tools_are_quick_enough_for_the_worker() {
     use modebench::design::{inputs, margin::Drive, resize, sensitivity};
@@ -84,6 +85,29 @@ fn the_design_tools_are_quick_enough_for_the_worker() {
         times.push(js_sys::Date::now() - start);
         assert!(s.is_ok());
     }
+    let differences = median(&mut times);
+    let Ok(read) = modebench::Scenario::from_value(&doc).and_then(|s| s.to_model()) else { panic!("reads") };
+    let Ok(modes) = modebench::exact::modes(&read.model, 10) else { panic!("solves") };
+    let solved: Vec<sensitivity::SolvedMode<'_>> = modes
+        .iter()
+        .filter(|m| !m.rigid_body)
+        .map(|m| sensitivity::SolvedMode { omega: m.omega, multiplicity: m.multiplicity, shape: &m.shape })
+        .collect();
+    let hz: Vec<f64> = solved.iter().map(|m| m.omega / std::f64::consts::TAU).collect();
+    let mut times = Vec::new();
+    for _ in 0..runs {
+        let evaluator = inputs::Evaluator::new(&doc, &paths).with_hints(&hz);
+        let start = js_sys::Date::now();
+        let s = sensitivity::through_shapes(
+            &read.model,
+            &solved,
+            &|p: &[f64]| evaluator.read(p).map(|i| i.model),
+            &|m: &modebench::Model| evaluator.solve(m, 10),
+            &values,
+        );
+        times.push(js_sys::Date::now() - start);
+        assert!(s.is_ok());
+    }
     let sensitivities = median(&mut times);
     let ei = [FieldPath::item("segments", 1).key("flexural_rigidity")];
     let drives = [Drive::Band { low_hz: 10.0, high_hz: 30.0 }, Drive::Line { hz: 100.0 }];
@@ -105,7 +129,8 @@ fn the_design_tools_are_quick_enough_for_the_worker() {
     }
     let sweep = median(&mut times);
     console_log!(
-        "design: sensitivities of 10 modes to 20 inputs {sensitivities:.1} ms; 200-point sweep {sweep:.1} ms"
+        "design: sensitivities of 10 modes to 20 inputs {sensitivities:.1} ms through the shapes, \
+         {differences:.1} ms by central differences alone; 200-point sweep {sweep:.1} ms"
     );
     if option_env!("MODEBENCH_CHECK_TIMING") == Some("1") && !cfg!(debug_assertions) {
         assert!(sensitivities < 20.0 && sweep < 200.0, "{sensitivities} ms, {sweep} ms");

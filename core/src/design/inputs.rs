@@ -256,6 +256,8 @@ pub fn set(doc: &mut Value, path: &FieldPath, value: f64) -> Result<()> {
                 map.insert("youngs_modulus".into(), m.youngs_modulus.into());
                 map.insert("density".into(), m.density.into());
                 map.insert("poisson".into(), m.poisson.into());
+                // α too, or a temperature change on the segment would lose its force.
+                map.insert("thermal_expansion".into(), m.thermal_expansion.into());
                 if m.shear_modulus() != m.youngs_modulus / (2.0 * (1.0 + m.poisson)) {
                     map.insert("shear_modulus".into(), m.shear_modulus().into());
                 }
@@ -337,15 +339,32 @@ impl<'a> Evaluator<'a> {
 
     /// The elastic frequencies (Hz) with the inputs set to `values`.
     pub fn frequencies(&self, values: &[f64]) -> Result<Vec<f64>> {
+        let inputs = self.read(values)?;
+        self.solve(&inputs.model, inputs.options.modes)
+    }
+
+    /// The scenario read and checked with the inputs set to `values`, not solved.
+    pub fn read(&self, values: &[f64]) -> Result<crate::scenario::Inputs> {
         let mut trial = self.doc.clone();
         for (path, v) in self.paths.iter().zip(values) {
             set(&mut trial, path, *v)?;
         }
-        let inputs = Scenario::from_value(&trial)?.to_model()?;
+        Scenario::from_value(&trial)?.to_model()
+    }
+
+    /// The first `modes` elastic frequencies (Hz) of a model read by [`Evaluator::read`],
+    /// started from the frequencies of the last solve.
+    pub fn solve(&self, model: &crate::model::Model, modes: usize) -> Result<Vec<f64>> {
         let hints = self.hints.borrow().clone();
-        let omegas = crate::exact::frequencies_with_hints(&inputs.model, inputs.options.modes, &hints)?;
+        let omegas = crate::exact::frequencies_with_hints(model, modes, &hints)?;
         self.hints.replace(omegas.clone());
         Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
+    }
+
+    /// Hands the next solve these frequencies (Hz) to start from: the solved scenario's.
+    pub fn with_hints(self, hz: &[f64]) -> Evaluator<'a> {
+        self.hints.replace(hz.iter().map(|f| f * std::f64::consts::TAU).collect());
+        self
     }
 }
 

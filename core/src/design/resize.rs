@@ -6,8 +6,13 @@
 //! feasible and not is refined by bisection on the input, to a millionth of the range. A mode
 //! that dips into a band and out again between two grid points is missed: the grid is fine
 //! enough for the smooth curves of real beams, and the caller may ask for more points.
+//!
+//! When inputs carry tolerances, each mode is judged on its band at every value tried
+//! ([`resize_within`]): a value is feasible when every band's nearer edge keeps the margin, as
+//! the report's margins judge it (`analysis::margins::band_separation`).
 
 use super::margin::Drive;
+use super::tolerance::Band;
 use super::Frequencies;
 use crate::error::{Error, ErrorKind, Result};
 use serde::{Deserialize, Serialize};
@@ -30,6 +35,40 @@ const REFINE: usize = 22;
 /// every drive by `margin`, from a sweep of `points` values.
 pub fn resize(
     frequencies: &Frequencies<'_>,
+    p0: &[f64],
+    input: usize,
+    range: (f64, f64),
+    drives: &[Drive],
+    margin: f64,
+    points: usize,
+) -> Result<Resize> {
+    let exact = |p: &[f64]| -> Result<Vec<Band>> {
+        Ok(frequencies(p)?.into_iter().map(|f| Band { nominal: f, low: f, high: f }).collect())
+    };
+    resize_within(&exact, p0, input, range, drives, margin, points)
+}
+
+/// Each mode's band (Hz) for given input values.
+pub type Bands<'a> = dyn Fn(&[f64]) -> Result<Vec<Band>> + 'a;
+
+/// Whether every band clears every drive by the margin: a band of one frequency as
+/// [`Drive::too_close`] judges it, a wider one on its nearer edge as the report's margins do.
+pub fn clear(bands: &[Band], drives: &[Drive], margin: f64) -> bool {
+    bands.iter().all(|b| {
+        drives.iter().all(|d| {
+            if b.low == b.high {
+                !d.too_close(b.nominal, margin)
+            } else {
+                crate::analysis::margins::band_separation(d, (b.low, b.high)).abs() >= margin
+            }
+        })
+    })
+}
+
+/// As [`resize`], judging each mode on its band at every value tried: the sweep reports the
+/// nominal frequencies, the intervals are where every band keeps the margin.
+pub fn resize_within(
+    bands: &Bands<'_>,
     p0: &[f64],
     input: usize,
     (low, high): (f64, f64),
@@ -57,22 +96,23 @@ pub fn resize(
         );
     }
     let points = points.clamp(3, 2000);
-    let at = |x: f64| -> Result<Vec<f64>> {
+    let at = |x: f64| -> Result<Vec<Band>> {
         let mut p = p0.to_vec();
         p[input] = x;
-        frequencies(&p)
+        bands(&p)
     };
-    let clear = |f: &[f64]| f.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, margin)));
     let mut sweep = Vec::with_capacity(points);
+    let mut ok = Vec::with_capacity(points);
     for i in 0..points {
         let x = low + (high - low) * i as f64 / (points - 1) as f64;
-        sweep.push((x, at(x)?));
+        let b = at(x)?;
+        ok.push(clear(&b, drives, margin));
+        sweep.push((x, b.iter().map(|b| b.nominal).collect()));
     }
-    let ok: Vec<bool> = sweep.iter().map(|(_, f)| clear(f)).collect();
     let edge = |mut good: f64, mut bad: f64| -> Result<f64> {
         for _ in 0..REFINE {
             let mid = 0.5 * (good + bad);
-            if clear(&at(mid)?) {
+            if clear(&at(mid)?, drives, margin) {
                 good = mid;
             } else {
                 bad = mid;

@@ -13,8 +13,8 @@ use super::inputs::{self, Input};
 use super::margin::Drive;
 use super::requests::{end_range, range_of, ranged, ratio, relocate};
 use super::resize;
-use super::sensitivity::sensitivities;
-use super::tolerance::{bands, Spread};
+use super::sensitivity::{through_shapes, SolvedMode};
+use super::tolerance::{bands, bands_from, Band, Spread};
 use crate::analysis::margins::Order;
 use crate::error::{Error, ErrorKind, Result};
 use crate::path::FieldPath;
@@ -47,6 +47,10 @@ pub struct Solved<'a> {
     pub orders: &'a [Order],
     /// The margin wanted.
     pub margin: f64,
+    /// The model solved.
+    pub model: &'a crate::model::Model,
+    /// Its elastic modes, with their shapes.
+    pub modes: &'a [SolvedMode<'a>],
 }
 
 /// Runs the design study of a scenario.
@@ -73,8 +77,9 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
     let all = inputs::all(&doc);
     let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
-    let evaluator = inputs::Evaluator::new(&doc, &paths);
-    let f = |p: &[f64]| evaluator.frequencies(p);
+    let evaluator = inputs::Evaluator::new(&doc, &paths).with_hints(solved.elastic_hz);
+    let model_at = |p: &[f64]| evaluator.read(p).map(|i| i.model);
+    let solve = |m: &crate::model::Model| evaluator.solve(m, solved.modes.len());
     let work = all.len() * solved.elastic_hz.len();
     if work > MOST_SENSITIVITIES {
         design.notes.push(format!(
@@ -84,7 +89,7 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
             solved.elastic_hz.len(),
             2 * all.len()
         ));
-    } else if let Ok(s) = sensitivities(&f, &values) {
+    } else if let Ok(s) = through_shapes(solved.model, solved.modes, &model_at, &solve, &values) {
         design.inputs = all.iter().map(echo).collect();
         design.sensitivities = s
             .into_iter()
@@ -92,16 +97,24 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
             .map(|(k, per_input)| ModeSensitivity { mode: solved.rigid + k + 1, per_input })
             .collect();
     }
-    tolerances(scenario, &doc, solved, &mut design)?;
+    let tolerated = tolerances(scenario, &doc, solved, &mut design)?;
     let measured = measured(scenario, solved, &mut design)?;
     calibration(scenario, &doc, &measured, &mut design)?;
-    resizing(scenario, &doc, solved, &mut design)?;
+    resizing(scenario, &doc, solved, &tolerated, &mut design)?;
     Ok(design)
 }
 
-fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+/// The inputs that carry tolerances, with their spreads.
+type Tolerated = Vec<(Input, Spread)>;
+
+fn tolerances(
+    scenario: &Scenario,
+    doc: &Value,
+    solved: &Solved<'_>,
+    design: &mut Design,
+) -> Result<Tolerated> {
     if scenario.tolerances.is_empty() {
-        return Ok(());
+        return Ok(Vec::new());
     }
     let mut chosen: Vec<Input> = Vec::new();
     let mut spreads = Vec::new();
@@ -161,15 +174,28 @@ fn tolerances(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mu
     }
     let paths: Vec<FieldPath> = chosen.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = chosen.iter().map(|i| i.value).collect();
-    let evaluator = inputs::Evaluator::new(doc, &paths);
+    let evaluator = inputs::Evaluator::new(doc, &paths).with_hints(solved.elastic_hz);
     let f = |p: &[f64]| evaluator.frequencies(p);
-    let b = bands(&f, &values, &spreads)?;
+    // The sensitivities found for every input serve the band when they cover these inputs.
+    let columns: Option<Vec<usize>> =
+        paths.iter().map(|p| design.inputs.iter().position(|i| i.path == p.to_string())).collect();
+    let b = match columns {
+        Some(columns) if design.sensitivities.len() == solved.elastic_hz.len() => {
+            let s: Vec<Vec<Option<f64>>> = design
+                .sensitivities
+                .iter()
+                .map(|row| columns.iter().map(|&j| row.per_input[j]).collect())
+                .collect();
+            bands_from(&f, &values, &spreads, solved.elastic_hz, &s)?
+        }
+        _ => bands(&f, &values, &spreads)?,
+    };
     design.bands = b
         .iter()
         .enumerate()
         .map(|(k, b)| ModeBand { mode: solved.rigid + k + 1, low_hz: b.low, high_hz: b.high })
         .collect();
-    Ok(())
+    Ok(chosen.into_iter().zip(spreads.into_iter().flatten()).collect())
 }
 
 fn measured(scenario: &Scenario, solved: &Solved<'_>, design: &mut Design) -> Result<Vec<Measured>> {
@@ -279,7 +305,13 @@ fn calibration(scenario: &Scenario, doc: &Value, measured: &[Measured], design: 
     Ok(())
 }
 
-fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut Design) -> Result<()> {
+fn resizing(
+    scenario: &Scenario,
+    doc: &Value,
+    solved: &Solved<'_>,
+    tolerated: &Tolerated,
+    design: &mut Design,
+) -> Result<()> {
     let Some(r) = &scenario.resize else { return Ok(()) };
     crate::model::whole(&crate::schema::RESIZE_FIELDS[3], r.points)
         .map_err(|e| e.at(FieldPath::root().key("resize").key("points")))?;
@@ -291,11 +323,41 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
             .at(FieldPath::root().key("resize").key("to")));
     }
     let drives: Vec<Drive> = solved.orders.iter().map(|o| o.drive).collect();
-    let path = [input.path.clone()];
-    let evaluator = inputs::Evaluator::new(doc, &path);
+    // The input resized first, then every other input with a tolerance: each value tried is
+    // judged on the bands the tolerances give there. The resized input's own tolerance follows
+    // it when it is ± a fraction; a range of its own has no meaning while it moves.
+    let mut paths = vec![input.path.clone()];
+    let mut values = vec![input.value];
+    let mut spreads: Vec<Option<Spread>> = vec![None];
+    for (other, spread) in tolerated {
+        if other.path == input.path {
+            if let Spread::Relative { .. } = spread {
+                spreads[0] = Some(*spread);
+            } else {
+                design.notes.push(format!(
+                    "The range given as the tolerance of {} is left out while resizing it.",
+                    input.field.label
+                ));
+            }
+            continue;
+        }
+        paths.push(other.path.clone());
+        values.push(other.value);
+        spreads.push(Some(*spread));
+    }
+    let evaluator = inputs::Evaluator::new(doc, &paths).with_hints(solved.elastic_hz);
     let f = |p: &[f64]| evaluator.frequencies(p);
-    let clear_today =
-        solved.elastic_hz.iter().all(|hz| drives.iter().all(|d| !d.too_close(*hz, solved.margin)));
+    let within = |p: &[f64]| bands(&f, p, &spreads);
+    let today: Vec<Band> = match design.bands.len() {
+        0 => solved.elastic_hz.iter().map(|&f| Band { nominal: f, low: f, high: f }).collect(),
+        _ => design
+            .bands
+            .iter()
+            .zip(solved.elastic_hz)
+            .map(|(b, &f)| Band { nominal: f, low: b.low_hz, high: b.high_hz })
+            .collect(),
+    };
+    let clear_today = resize::clear(&today, &drives, solved.margin);
     let mut report = ResizeReport {
         input: echo(&input),
         low,
@@ -316,13 +378,21 @@ fn resizing(scenario: &Scenario, doc: &Value, solved: &Solved<'_>, design: &mut 
             .at("excitations"),
         );
     } else {
-        match resize::resize(&f, &[input.value], 0, (low, high), &drives, solved.margin, r.points) {
+        let found = if tolerated.is_empty() {
+            resize::resize(&f, &values, 0, (low, high), &drives, solved.margin, r.points)
+        } else {
+            resize::resize_within(&within, &values, 0, (low, high), &drives, solved.margin, r.points)
+        };
+        match found {
             Ok(found) => {
                 if found.intervals.is_empty() {
                     report.problem = Some(Error::new(
                         ErrorKind::Model,
-                        "no value in this range clears every mode from every excitation by the margin; widen the \
-                         range, resize another input, or change the margin after checking what your code asks",
+                        format!(
+                            "no value in this range clears every mode{} from every excitation by the margin; widen \
+                             the range, resize another input, or change the margin after checking what your code asks",
+                            if tolerated.is_empty() { "" } else { "'s tolerance band" }
+                        ),
                     ));
                 }
                 report.intervals = found.intervals;

@@ -44,7 +44,37 @@ pub struct Band {
 /// The band of every mode for inputs `p0` with the spreads given (`None`: exact).
 pub fn bands(frequencies: &Frequencies<'_>, p0: &[f64], spreads: &[Option<Spread>]) -> Result<Vec<Band>> {
     let f0 = frequencies(p0)?;
-    let s = sensitivities(frequencies, p0)?;
+    // Only a relative spread uses its input's sensitivity.
+    let relative: Vec<usize> =
+        (0..p0.len()).filter(|&j| matches!(spreads.get(j), Some(Some(Spread::Relative { .. })))).collect();
+    let mut s = vec![vec![None; p0.len()]; f0.len()];
+    if !relative.is_empty() {
+        let some = |q: &[f64]| {
+            let mut p = p0.to_vec();
+            for (&j, v) in relative.iter().zip(q) {
+                p[j] = *v;
+            }
+            frequencies(&p)
+        };
+        let q0: Vec<f64> = relative.iter().map(|&j| p0[j]).collect();
+        for (row, found) in s.iter_mut().zip(sensitivities(&some, &q0)?) {
+            for (&j, v) in relative.iter().zip(found) {
+                row[j] = v;
+            }
+        }
+    }
+    bands_from(frequencies, p0, spreads, &f0, &s)
+}
+
+/// As [`bands`], given the frequencies at `p0` and their sensitivities to the inputs (∂ln fₖ/∂ln
+/// pⱼ, as [`sensitivities`] gives them), found already.
+pub fn bands_from(
+    frequencies: &Frequencies<'_>,
+    p0: &[f64],
+    spreads: &[Option<Spread>],
+    f0: &[f64],
+    s: &[Vec<Option<f64>>],
+) -> Result<Vec<Band>> {
     // The two ends of each input's range, and for each mode which end raises it.
     let ends: Vec<Option<(f64, f64)>> = p0
         .iter()
@@ -75,6 +105,17 @@ pub fn bands(frequencies: &Frequencies<'_>, p0: &[f64], spreads: &[Option<Spread
             };
         }
     }
+    // Most modes share their worst corners (a stiffer, lighter beam raises them all): each
+    // corner is solved once.
+    let solved: std::cell::RefCell<Vec<(Vec<f64>, Vec<f64>)>> = std::cell::RefCell::new(Vec::new());
+    let solved_at = |p: &[f64]| -> Result<Vec<f64>> {
+        if let Some((_, f)) = solved.borrow().iter().find(|(q, _)| q.as_slice() == p) {
+            return Ok(f.clone());
+        }
+        let f = frequencies(p)?;
+        solved.borrow_mut().push((p.to_vec(), f.clone()));
+        Ok(f)
+    };
     let mut out = Vec::with_capacity(f0.len());
     for (k, &nominal) in f0.iter().enumerate() {
         // First order: Σ |S|·Δp/p over the relative spreads.
@@ -102,8 +143,8 @@ pub fn bands(frequencies: &Frequencies<'_>, p0: &[f64], spreads: &[Option<Spread
                 })
                 .collect()
         };
-        let top = frequencies(&corner(true))?.get(k).copied().unwrap_or(nominal);
-        let bottom = frequencies(&corner(false))?.get(k).copied().unwrap_or(nominal);
+        let top = solved_at(&corner(true))?.get(k).copied().unwrap_or(nominal);
+        let bottom = solved_at(&corner(false))?.get(k).copied().unwrap_or(nominal);
         let low = nominal.min(top).min(bottom).min(nominal * (1.0 - linear));
         let high = nominal.max(top).max(bottom).max(nominal * (1.0 + linear));
         out.push(Band { nominal, low, high });

@@ -15,7 +15,7 @@ mod solve;
 pub(crate) mod statics;
 mod sweep;
 
-pub use shape::ModeShape;
+pub use shape::{Gradient, ModeShape, SegmentGradient};
 
 use crate::error::Result;
 use crate::layout::Layout;

@@ -11,6 +11,10 @@
 //!
 //! Normalisation: the largest translation anywhere (beam or sprung mass) is +1.
 
+mod gradient;
+
+pub use gradient::{Gradient, SegmentGradient};
+
 use crate::error::Result;
 use crate::exact::solve::{respond, StationLoad};
 use crate::exact::sweep;

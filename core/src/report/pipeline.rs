@@ -8,7 +8,7 @@ use crate::scenario::Scenario;
 
 /// Reads, checks and solves a scenario given as parsed JSON.
 pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
-    solve_with(&Scenario::from_value(value)?, value, &[])
+    solve_value_with_hints(value, &[])
 }
 
 /// The natural frequencies (Hz) of the modes a [`Report`] of this scenario lists, in its order
@@ -42,7 +42,10 @@ pub fn solve(scenario: &Scenario) -> Result<Report> {
 /// The results are those of [`solve_value`] to within the root search's tolerance, whatever the
 /// hints: every frequency is still isolated by the count.
 pub fn solve_value_with_hints(value: &serde_json::Value, hints_hz: &[f64]) -> Result<Report> {
-    solve_with(&Scenario::from_value(value)?, value, hints_hz)
+    // The design study writes trial values into the scenario with each tolerance typed beside
+    // its value already split off.
+    let value = crate::scenario::tolerant::normalise(value)?;
+    solve_with(&Scenario::from_value(&value)?, &value, hints_hz)
 }
 
 /// Solves a scenario read from `doc`, the JSON it was read from, which the design study writes
@@ -67,6 +70,16 @@ fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) ->
         .collect();
     let orders = margins::orders(&excitations);
     let elastic_hz: Vec<f64> = analysis.modes.iter().filter(|m| !m.rigid_body).map(|m| hz(m.omega)).collect();
+    let elastic: Vec<crate::design::sensitivity::SolvedMode<'_>> = analysis
+        .modes
+        .iter()
+        .filter(|m| !m.rigid_body)
+        .map(|m| crate::design::sensitivity::SolvedMode {
+            omega: m.omega,
+            multiplicity: m.multiplicity,
+            shape: &m.shape,
+        })
+        .collect();
     let design = crate::design::study(
         scenario,
         doc,
@@ -75,6 +88,8 @@ fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) ->
             rigid: analysis.rigid_body_modes,
             orders: &orders,
             margin: inputs.margin,
+            model,
+            modes: &elastic,
         },
     )?;
     let modes: Vec<ModeReport> = analysis

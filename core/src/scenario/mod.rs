@@ -15,6 +15,7 @@ mod tests;
 #[cfg(test)]
 mod tests_axial;
 pub(crate) mod text;
+pub mod tolerant;
 
 pub use crate::schema::DEFAULT_MARGIN;
 pub use design::{MeasuredInput, RangeInput, ResizeInput, ToleranceInput};
@@ -185,10 +186,13 @@ impl Scenario {
         Scenario::from_value(&text::read(text)?)
     }
 
-    /// Reads a scenario from parsed JSON (never inlined, as `to_model`).
+    /// Reads a scenario from parsed JSON (never inlined, as `to_model`). A value typed with its
+    /// tolerance ("6.02 mm ± 12.5 %") is read as the value and an entry of `tolerances`
+    /// ([`tolerant`]).
     #[inline(never)]
     pub fn from_value(value: &serde_json::Value) -> Result<Scenario> {
-        parse::scenario(&json::Node::root(value))
+        let value = tolerant::normalise(value)?;
+        parse::scenario(&json::Node::root(&value))
     }
 }
 

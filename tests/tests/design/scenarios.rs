@@ -217,3 +217,129 @@ fn a_tolerance_band_holds_a_seeded_monte_carlo_of_whole_scenarios() {
         }
     }
 }
+
+#[test]
+fn sensitivities_through_the_shapes_agree_with_central_differences_on_the_solver() {
+    // What every solve reports (through the mode shapes, central differences on the solver only
+    // for lengths and positions) against central differences on the exact solver alone, each
+    // input written into the scenario and solved again: sections, presets, contents, masses,
+    // springs, sprung masses, a temperature change and the other theory of the documented
+    // scenarios. Both are good to about 1e-8 where
+    // the step is central, 1e-5 where an input at the edge of its range allows only one side.
+    use modebench::design::{inputs, sensitivity};
+    for (case, text) in [
+        ("sensor-boom", include_str!("../../../docs/scenarios/sensor-boom.json")),
+        ("fan-floor-beam-us", include_str!("../../../docs/scenarios/fan-floor-beam-us.json")),
+        ("filled-pipe-span", include_str!("../../../docs/scenarios/filled-pipe-span.json")),
+        ("absorber-on-platform-beam", include_str!("../../../docs/scenarios/absorber-on-platform-beam.json")),
+        ("fan-set-on-mounts", include_str!("../../../docs/scenarios/fan-set-on-mounts.json")),
+        ("hot-line-between-anchors", include_str!("../../../docs/scenarios/hot-line-between-anchors.json")),
+        ("pump-discharge-valve-us", include_str!("../../../docs/scenarios/pump-discharge-valve-us.json")),
+        ("stub-shaft-timoshenko", include_str!("../../../docs/scenarios/stub-shaft-timoshenko.json")),
+    ] {
+        let doc: Value = serde_json::from_str(text).expect("JSON");
+        let d = solve(&doc).design;
+        assert!(!d.inputs.is_empty(), "{case}");
+        let paths: Vec<modebench::FieldPath> =
+            d.inputs.iter().map(|i| modebench::FieldPath::parse(&i.path).expect("a path")).collect();
+        let values: Vec<f64> = d.inputs.iter().map(|i| i.value.expect("finite")).collect();
+        let evaluator = inputs::Evaluator::new(&doc, &paths);
+        let central =
+            sensitivity::sensitivities(&|p: &[f64]| evaluator.frequencies(p), &values).expect("solves");
+        for (k, row) in d.sensitivities.iter().enumerate() {
+            for (j, got) in row.per_input.iter().enumerate() {
+                let (Some(got), Some(want)) = (got, central[k][j]) else {
+                    assert_eq!(
+                        got.is_some(),
+                        central[k][j].is_some(),
+                        "{case}, mode {}, {}",
+                        row.mode,
+                        d.inputs[j].path
+                    );
+                    continue;
+                };
+                assert!(
+                    (got - want).abs() < 1e-5 * (1.0 + want.abs()),
+                    "{case}, mode {}, {}: {got} against {want}",
+                    row.mode,
+                    d.inputs[j].path
+                );
+            }
+        }
+    }
+}
+
+#[test]
+fn a_tolerance_typed_with_its_value_is_the_tolerance_written_apart() {
+    // "4 mm ± 12.5 %" and "2.8 ± 0.2 kg" in the fields mean what the same tolerances mean under
+    // `tolerances` (the format's definition): the same echo, the same bands, bit for bit.
+    let mut apart = boom("2.5e4 N*m/rad", "2.8 kg");
+    // (Those typed are listed in the order of the scenario's keys: attachments before segments.)
+    apart["tolerances"] = json!([
+        { "field": "attachments[0].mass", "plus_minus": 0.2 / 2.8 },
+        { "field": "segments[0].section.wall", "plus_minus": "12.5 %" },
+    ]);
+    let mut typed = boom("2.5e4 N*m/rad", "2.8 ± 0.2 kg");
+    typed["segments"][0]["section"]["wall"] = json!("4 mm ± 12.5 %");
+    let (a, t) = (solve(&apart), solve(&typed));
+    assert_eq!(elastic_hz(&a), elastic_hz(&t));
+    assert_eq!(a.design.bands, t.design.bands);
+    assert_eq!(a.design.tolerances, t.design.tolerances);
+    assert_eq!(t.design.tolerances.len(), 2);
+    // The mass's band edges are the ends of 2.6 to 3.0 kg.
+    let mass = &t.design.tolerances[0];
+    assert!(
+        mass.low.is_some_and(|v| (v - 2.6).abs() < 1e-12)
+            && mass.high.is_some_and(|v| (v - 3.0).abs() < 1e-12)
+    );
+}
+
+#[test]
+fn resizing_within_tolerance_bands_reports_intervals_whose_edges_re_solve_on_the_bands() {
+    // The floor beam and drives above, with the steel's modulus ± 5 %, the fan's mass ± 10 % and
+    // the depth ± 2 % (which moves with the depth tried): the intervals are where every mode's
+    // band keeps the margin, judged as the report judges a band (on its nearer edge). So at each
+    // interval's ends and middle the scenario re-solved with its tolerances clears every margin,
+    // and just outside an end a margin fails; and each interval lies inside one found without
+    // the tolerances (a band holds its nominal frequency).
+    let mut doc: Value =
+        serde_json::from_str(include_str!("../../../docs/scenarios/fan-floor-beam-us.json")).expect("JSON");
+    doc["excitations"] = json!([
+        { "label": "fan", "frequency": "600 rpm", "up_to": "900 rpm" },
+        { "label": "motor, twice line frequency", "frequency": "60 Hz", "orders": [2] },
+    ]);
+    doc["margin"] = json!("15 %");
+    doc["tolerances"] = json!([
+        { "field": "segments[0].material.youngs_modulus", "plus_minus": "5 %" },
+        { "field": "attachments[0].mass", "plus_minus": "10 %" },
+        { "field": "segments[0].section.depth", "plus_minus": "2 %" },
+    ]);
+    let tolerant = doc.clone();
+    let at = |depth: f64| {
+        let mut d = tolerant.clone();
+        d["segments"][0]["section"]["depth"] = json!(depth);
+        d
+    };
+    doc["resize"] =
+        json!({ "field": "segments[0].section.depth", "from": "6 in", "to": "20 in", "points": 60 });
+    let r = solve(&doc).design.resize.expect("a resizing");
+    assert!(r.problem.is_none() && !r.intervals.is_empty(), "{r:?}");
+    let nudge = 1e-4 * (r.high - r.low);
+    for &(a, b) in &r.intervals {
+        assert!(clear(&at(a)) && clear(&at(b)) && clear(&at(0.5 * (a + b))), "[{a}, {b}]");
+        if a > r.low {
+            assert!(!clear(&at(a - nudge)), "just below {a} a margin must fail");
+        }
+        if b < r.high {
+            assert!(!clear(&at(b + nudge)), "just above {b} a margin must fail");
+        }
+    }
+    assert!(clear(&at(r.nearest.expect("a feasible value"))));
+    let mut nominal = doc.clone();
+    nominal.as_object_mut().map(|m| m.remove("tolerances"));
+    let without = solve(&nominal).design.resize.expect("a resizing").intervals;
+    for &(a, b) in &r.intervals {
+        assert!(without.iter().any(|&(c, d)| c <= a && b <= d), "[{a}, {b}] is not within {without:?}");
+    }
+    assert!(r.intervals != without, "the bands must narrow what is feasible");
+}

@@ -17,6 +17,12 @@ fn boom() -> Value {
     })
 }
 
+/// The boom's segment with the wall written as `wall`.
+fn tube(wall: &str) -> Value {
+    json!([{ "length": "1450 mm", "section": { "shape": "tube", "outer_diameter": "60 mm", "wall": wall },
+             "material": "aluminium-6061-t6" }])
+}
+
 fn with(changes: Value) -> Value {
     let mut doc = boom();
     for (k, v) in changes.as_object().into_iter().flatten() {
@@ -72,6 +78,16 @@ fn badly_put_requests_are_refused_by_their_field() {
             json!({ "tolerances": [{ "field": "segments[0].section.wall", "plus_minus": 0.1, "from": "3 mm", "to": "5 mm" }] }),
             "tolerances[0].plus_minus",
             "not both",
+        ),
+        // A tolerance typed with its value: too wide, not a tolerance, larger than the value, and
+        // typed with a running speed, which is not an input of the beam.
+        (json!({ "segments": tube("4 mm ± 150 %") }), "segments[0].section.wall", "percentage"),
+        (json!({ "segments": tube("4 mm ± abc") }), "segments[0].section.wall", "\"6.02 mm ± 12.5 %\""),
+        (json!({ "segments": tube("4 ± 5 mm") }), "segments[0].section.wall", "smaller than the value"),
+        (
+            json!({ "excitations": [{ "frequency": "1480 rpm +/- 2 %" }] }),
+            "excitations[0].frequency",
+            "numeric input of the beam",
         ),
         // An end between pinned and clamped that is held otherwise, and an unknown pair.
         (

@@ -17,11 +17,23 @@ pub use edit::{apply, Edit, List};
 
 /// The edit for `text` typed into the field at `path` that shows `unit` beside it: a number
 /// typed alone takes that unit, written out ("4.5" in a field showing "in" is stored as
-/// "4.5 in"), so that the scenario says what was meant whatever units are chosen later. Anything
-/// else is kept exactly as typed.
+/// "4.5 in"), so that the scenario says what was meant whatever units are chosen later. A value
+/// typed with its tolerance ("6.02 ± 12.5 %", "6.02 ± 0.5") takes the unit the same way when
+/// neither side carries one ("6.02 mm ± 12.5 %", "6.02 mm ± 0.5 mm"); the core reads the two
+/// apart. Anything else is kept exactly as typed.
 pub fn typed(path: String, text: &str, unit: &str) -> Edit {
-    let text = modebench::units::with_unit(text, unit).unwrap_or_else(|| text.to_string());
-    Edit::Text { path, text }
+    let with_unit = |t: &str| modebench::units::with_unit(t, unit);
+    let written = match modebench::scenario::tolerant::split(text) {
+        Some((value, tolerance)) => with_unit(value).and_then(|value| {
+            if let Some(percent) = tolerance.strip_suffix('%') {
+                Some(format!("{value} ± {} %", percent.trim()))
+            } else {
+                with_unit(tolerance).map(|tolerance| format!("{value} ± {tolerance}"))
+            }
+        }),
+        None => with_unit(text),
+    };
+    Edit::Text { path, text: written.unwrap_or_else(|| text.to_string()) }
 }
 
 use modebench::schema;
