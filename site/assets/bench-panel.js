@@ -22,6 +22,7 @@
 const LONGEST_S = 60; // a microphone or sensor record stops by itself after this long
 const LARGEST_FILE_BYTES = 200_000_000; // the core reads no larger file (bench::MAX_BYTES)
 const NO_MOTION_MS = 1500; // no sensor event in this long: the device reports no motion
+const ANSWER_WAIT_MS = 5000; // the longest a recording waits for the calculator's first results
 
 let worker = null;
 let nextId = 1;
@@ -185,8 +186,15 @@ class Panel {
     );
   }
 
-  options(source) {
+  // The analysis's options, with the calculator's latest results to match the peaks against. A
+  // recording opened while the calculator's first results are still on their way waits for them
+  // (a few seconds at most), so that its peaks are not left unmatched.
+  async options(source) {
     const channel = this.panel.querySelector("[data-bench-channel]").value;
+    const deadline = performance.now() + ANSWER_WAIT_MS;
+    while (typeof this.root.modebenchAnswer !== "string" && performance.now() < deadline) {
+      await new Promise((done) => setTimeout(done, 100));
+    }
     const answer = typeof this.root.modebenchAnswer === "string" ? this.root.modebenchAnswer : undefined;
     return JSON.stringify({ source, channel: source === "file" ? channel : "", answer });
   }
@@ -335,7 +343,7 @@ class Panel {
       }
       this.meter.value = 0;
       await this.show(
-        analyse({ kind: "samples", samples, rate, options: this.options("microphone") }, [samples.buffer]),
+        analyse({ kind: "samples", samples, rate, options: await this.options("microphone") }, [samples.buffer]),
         ended,
         note,
       );
@@ -344,7 +352,7 @@ class Panel {
       const times = Float64Array.from(capture.times);
       const values = Float32Array.from(capture.values);
       await this.show(
-        analyse({ kind: "timed", times, values, options: this.options("motion") }, [times.buffer, values.buffer]),
+        analyse({ kind: "timed", times, values, options: await this.options("motion") }, [times.buffer, values.buffer]),
         ended,
         note,
       );
@@ -368,7 +376,7 @@ class Panel {
       this.say(`The file “${file.name}” could not be read (${error.name}).`, true);
       return;
     }
-    await this.show(analyse({ kind: "file", bytes, options: this.options("file") }, [bytes]), performance.now(), "", file.name);
+    await this.show(analyse({ kind: "file", bytes, options: await this.options("file") }, [bytes]), performance.now(), "", file.name);
     // The same file may be opened again after a change of channel.
     input.value = "";
   }
