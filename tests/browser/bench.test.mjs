@@ -1,7 +1,8 @@
 // The tap-test panel end to end in Chromium: a synthetic ring-down of known modes fed as the
 // microphone (Chromium's fake capture device plays a WAV file as the microphone) and imported as
-// a WAV and a CSV file through the panel's file input; the listed peaks are checked against the
-// frequencies the records were made of. A denied microphone says so and leaves file import
+// a WAV and a CSV file through the panel's file input, and as the motion sensor's `devicemotion`
+// readings at an uneven rate; the listed peaks are checked against the frequencies the records
+// were made of. A denied microphone says so and leaves file import
 // working; no request leaves 127.0.0.1 while recording; the frequencies kept as measured survive
 // a reload and are taken back by "Undo". The analysis times are printed, not asserted
 // (docs/performance.md records them).
@@ -267,6 +268,43 @@ describe("the tap-test panel", () => {
     await page.locator("[data-bench-file]").setInputFiles({ name: "logger.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
     await page.waitForSelector(".mb-bench-status.mb-bench-error", { timeout: 10_000 });
     assert.match(await page.locator(".mb-bench-status").textContent(), /Channel: "second" is not a channel number; type 1/);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
+  test("the motion sensor's readings, at an uneven rate, give the part's low mode", async () => {
+    // A tablet fixed to the part reports its motion some 60 times a second, never exactly evenly.
+    // The readings are made here as the browser would hand them to the page: `devicemotion`
+    // events, each with its own time stamp (set on the event, so that twelve seconds of readings
+    // need not take twelve seconds). Two taps on a 4.2 Hz mode with 2 % damping, and a little
+    // noise; the damped frequency is f·√(1 − ζ²) (any vibrations textbook).
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await openPanel(context);
+    await page.locator('[data-bench-action="motion-start"]').first().click();
+    await page.waitForFunction(() => document.querySelector(".mb-bench")?.dataset.benchState === "motion");
+    const mode = { hz: 4.2, zeta: 0.02 };
+    await page.evaluate(({ hz, zeta }) => {
+      let seed = 7;
+      const random = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+      const start = performance.now();
+      const sigma = zeta * 2 * Math.PI * hz;
+      const damped = hz * Math.sqrt(1 - zeta * zeta);
+      for (let t = 0; t < 12; t += (1 + 0.2 * (random() - 0.5)) / 60) {
+        let z = 0.02 * (random() - 0.5);
+        for (const t0 of [1, 6.5]) {
+          if (t >= t0) z += 3 * Math.exp(-sigma * (t - t0)) * Math.cos(2 * Math.PI * damped * (t - t0));
+        }
+        const event = new DeviceMotionEvent("devicemotion", { acceleration: { x: 0, y: 0, z }, interval: 16 });
+        Object.defineProperty(event, "timeStamp", { value: start + t * 1000 });
+        window.dispatchEvent(event);
+      }
+    }, mode);
+    await page.locator('[data-bench-action="motion-stop"]').first().click();
+    const peaks = await listed(page);
+    assertListed(peaks, [mode.hz * Math.sqrt(1 - mode.zeta ** 2)], 5e-3, "motion sensor");
+    const text = await page.locator(".mb-bench").first().innerText();
+    assert.match(text, /modes up to about/, "the panel says up to which frequency the sensor serves");
+    assert.doesNotMatch(text, BROKEN_NUMBER);
     assert.deepEqual(problems, []);
     await context.close();
   });
