@@ -144,6 +144,32 @@ class Panel {
       if (action) this.act(action);
     });
     this.panel.querySelector("[data-bench-file]").addEventListener("change", (event) => this.openFile(event.target));
+    // When the calculator's predicted frequencies change after a recording was matched with them
+    // (an input edited), the match shown is out of date: say so rather than leave it standing.
+    this.matchedWith = null;
+    new MutationObserver(() => this.checkMatch()).observe(root, { attributes: true, attributeFilter: ["data-solving"] });
+  }
+
+  checkMatch() {
+    if (this.root.hasAttribute("data-solving") || !this.matchedWith || !this.results.firstChild) return;
+    const now = predictedHz(this.root.modebenchAnswer);
+    const same =
+      now &&
+      now.length === this.matchedWith.length &&
+      now.every((hz, i) => Math.abs(hz - this.matchedWith[i]) <= 1e-9 * Math.abs(hz));
+    let note = this.results.querySelector(".mb-bench-stale");
+    if (same) {
+      note?.remove();
+    } else if (!note) {
+      note = element(
+        "p",
+        { class: "mb-bench-stale", role: "status" },
+        "The calculator's results have changed since this recording was matched with them: the " +
+          "“Predicted” and difference columns below are of the earlier results. Open or record it " +
+          "again to match the new ones.",
+      );
+      this.results.prepend(note);
+    }
   }
 
   // Which buttons are live: "idle", "microphone" or "motion" (recording), "busy" (analysing).
@@ -196,6 +222,7 @@ class Panel {
       await new Promise((done) => setTimeout(done, 100));
     }
     const answer = typeof this.root.modebenchAnswer === "string" ? this.root.modebenchAnswer : undefined;
+    this.matchedWith = predictedHz(answer);
     return JSON.stringify({ source, channel: source === "file" ? channel : "", answer });
   }
 
@@ -408,6 +435,16 @@ class Panel {
       }
     }
     this.setState("idle");
+  }
+}
+
+// The predicted frequencies (Hz) of a calculator's answer as the solving worker gave it, or null.
+function predictedHz(answer) {
+  try {
+    const modes = JSON.parse(answer).report?.modes;
+    return Array.isArray(modes) ? modes.map((m) => m.frequency_hz) : null;
+  } catch {
+    return null;
   }
 }
 

@@ -232,6 +232,8 @@ describe("the tap-test panel", () => {
     assert.ok(Math.abs(kept / f1 - 1) < 1e-3, `mode 1 kept as ${kept} Hz against ${f1} Hz`);
     assert.match(await page.locator(".mb-calc").innerText(), /measured/i);
     assert.match(await page.locator("button.mb-undo").textContent(), /use the tap test's frequencies/);
+    // Keeping them changes no predicted frequency, so the match shown is still the current one.
+    assert.equal(await page.locator(".mb-bench-stale").count(), 0, "keeping the measured values left the match current");
 
     const measuredRow = '[data-field="measured[0].frequency"]';
     const gone = () => page.waitForFunction((sel) => !document.querySelector(sel), measuredRow, { timeout: 10_000 });
@@ -262,6 +264,16 @@ describe("the tap-test panel", () => {
     const csv = ["time_s,accel_m_s2", ...Array.from(slow, (v, i) => `${(i / csvRate).toFixed(6)},${v.toFixed(6)}`)].join("\n");
     await page.locator("[data-bench-file]").setInputFiles({ name: "logger.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
     assertListed(await listed(page), [damped[0]], FILE_TOLERANCE, "CSV file");
+
+    // An input edited after the match: the panel says its predicted column is of the earlier results.
+    const before = await predicted(page, 1);
+    await page.locator('[data-field="attachments[0].mass"]').fill("3 kg");
+    await page.waitForFunction(
+      ([selector, old]) => Number(document.querySelector(selector)?.dataset.hz) !== old && !document.querySelector(".mb-calc").hasAttribute("data-solving"),
+      [MODE(1), before],
+      { timeout: 10_000 },
+    );
+    await page.waitForSelector(".mb-bench-stale", { timeout: 5000 });
 
     // A bad channel is named with what was typed and what is allowed.
     await page.locator("[data-bench-channel]").fill("second");
