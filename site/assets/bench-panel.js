@@ -95,9 +95,14 @@ function build(index) {
       "p",
       { class: "mb-note" },
       "For low modes only: browsers report motion some 20 to 60 times a second, which serves modes up to " +
-        "about 10 to 25 Hz. The panel says the limit once the sensor runs. A tablet fixed to the part adds its mass.",
+        "about 10 to 25 Hz. The panel says the limit once the sensor runs. A tablet fixed to the part adds its mass:",
     ),
   );
+  const sensorMass = element("label", {}, "Its mass ");
+  sensorMass.append(element("input", { type: "text", size: "8", placeholder: "e.g. 480 g", "data-bench-sensor-mass": "" }));
+  const sensorAt = element("label", {}, "at, from the left end ");
+  sensorAt.append(element("input", { type: "text", size: "8", placeholder: "e.g. 1.2 m", "data-bench-sensor-position": "" }));
+  motion.append(sensorMass, sensorAt, button("Add it to the model", "add-sensor"));
   const file = element("fieldset", { class: "mb-bench-source", "data-source": "file" });
   const pick = element("label", {}, "Recording (WAV, or CSV: a time column and signal columns) ");
   pick.append(element("input", { type: "file", accept: ".wav,.csv,.txt,.tsv,audio/wav,text/csv", "data-bench-file": "" }));
@@ -183,6 +188,7 @@ class Panel {
       "motion-stop": state === "motion",
       keep: state === "idle" && this.measured.length > 0,
       clear: state === "idle",
+      "add-sensor": state === "idle",
     };
     for (const [action, on] of Object.entries(live)) {
       this.panel.querySelector(`[data-bench-action="${action}"]`).disabled = !on;
@@ -200,6 +206,30 @@ class Panel {
     else if (action === "motion-start") this.startMotion();
     else if (action === "keep") this.keep(this.measured);
     else if (action === "clear") this.keep([]);
+    else if (action === "add-sensor") this.addSensor();
+  }
+
+  // Adds the tablet or sensor fixed to the part to the model as a point mass, as typed: both
+  // values must carry their unit, so that nothing typed here is read in a unit the reader did not
+  // see. A value the calculator refuses shows as an error on the new attachment's field.
+  addSensor() {
+    const mass = this.panel.querySelector("[data-bench-sensor-mass]").value.trim();
+    const position = this.panel.querySelector("[data-bench-sensor-position]").value.trim();
+    const hasUnit = (text) => /[0-9.]\s*[^\d\s.,eE+-]/.test(text) || /[a-df-zA-DF-Z"']/.test(text);
+    if (!mass || !position || !hasUnit(mass) || !hasUnit(position)) {
+      this.say(
+        `To add the sensor, type its mass and where it sits from the left end, each with its unit ` +
+          `(e.g. 480 g at 1.2 m); got mass “${mass}”, position “${position}”.`,
+        true,
+      );
+      return;
+    }
+    const row = { type: "mass", label: "tablet or sensor fixed for the tap test", position, mass };
+    this.root.dispatchEvent(new CustomEvent("modebench-attach", { detail: JSON.stringify(row) }));
+    this.say(
+      `Added to the model as a point mass of ${mass} at ${position}: the predicted modes above are now of the ` +
+        "part as tested. “Undo” at the top of the calculator takes this back.",
+    );
   }
 
   keep(rows) {

@@ -321,6 +321,37 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
+  test("the tablet fixed to the part is added to the model as one step, and only with its units", async () => {
+    // A mass added where mode 1 moves lowers it (Rayleigh's quotient; any vibrations textbook).
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await openPanel(context);
+    const masses = '[data-field^="attachments["][data-field$="].mass"]';
+    const count = await page.locator(masses).count();
+    const f1 = await predicted(page, 1);
+
+    // A bare number is refused, not read in a unit the reader did not see.
+    await page.locator("[data-bench-sensor-mass]").fill("480");
+    await page.locator("[data-bench-sensor-position]").fill("1.2 m");
+    await page.locator('[data-bench-action="add-sensor"]').click();
+    assert.match(await page.locator(".mb-bench-status").textContent(), /each with its unit.*mass “480”/);
+    assert.equal(await page.locator(masses).count(), count);
+
+    await page.locator("[data-bench-sensor-mass]").fill("480 g");
+    await page.locator('[data-bench-action="add-sensor"]').click();
+    await page.waitForFunction(([sel, n]) => document.querySelectorAll(sel).length === n + 1, [masses, count], { timeout: 10_000 });
+    await page.waitForFunction(
+      ([selector, old]) => Number(document.querySelector(selector)?.dataset.hz) < old && !document.querySelector(".mb-calc").hasAttribute("data-solving"),
+      [MODE(1), f1],
+      { timeout: 10_000 },
+    );
+    assert.equal(await page.locator(masses).nth(count).inputValue(), "480 g");
+    assert.match(await page.locator("button.mb-undo").textContent(), /add the tap test's sensor/);
+    await page.locator("button.mb-undo").click();
+    await page.waitForFunction(([sel, n]) => document.querySelectorAll(sel).length === n, [masses, count], { timeout: 10_000 });
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("the worked page's recording, opened in the panel at a tablet's size: four modes matched, no accessibility problem", async () => {
     // axe-core is added as a script of the test's own, which the page's policy would block.
     const { context } = await isolatedContext(browser, { bypassCSP: true, viewport: { width: 768, height: 1024 } });

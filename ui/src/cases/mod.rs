@@ -314,12 +314,13 @@ pub fn undo_words(edit: &Edit) -> Option<String> {
             matches!(key, "type" | "shape" | "material" | "left" | "right")
                 .then(|| format!("change “{}”", words(path)))
         }
-        // A fit or a size applied, or a tap test's frequencies kept, is recorded, with its own
-        // words, where it is applied.
+        // A fit or a size applied, a tap test's frequencies kept or its sensor's mass added, is
+        // recorded, with its own words, where it is applied.
         Edit::Text { .. }
         | Edit::Add(_)
         | Edit::Tick { on: true, .. }
         | Edit::Apply(_)
-        | Edit::Measured(_) => None,
+        | Edit::Measured(_)
+        | Edit::Attach(_) => None,
     }
 }

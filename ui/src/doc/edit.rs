@@ -95,6 +95,9 @@ pub enum Edit {
     /// Replaced the `measured` list with a tap test's rows (`{"mode": 2, "frequency": "14.2
     /// Hz"}`), as one step; no rows clear it.
     Measured(Vec<Value>),
+    /// Added an attachment row made elsewhere (the tap-test panel's tablet or sensor fixed to the
+    /// part, as a point mass with its values as typed, units included), as one step.
+    Attach(Value),
 }
 
 impl Edit {
@@ -136,6 +139,7 @@ pub fn apply(doc: &mut Value, edit: &Edit, last: Option<&Report>) {
         Edit::Measured(rows) => {
             path::set(doc, List::Measured.key(), Value::Array(rows.clone()));
         }
+        Edit::Attach(row) => push(doc, List::Attachments, row.clone()),
         Edit::Add(list) => add(doc, *list, system, last),
         Edit::Remove(list, index) => {
             // A beam keeps at least one segment; the editor offers no remove button then.
@@ -418,6 +422,11 @@ fn add(doc: &mut Value, list: List, system: UnitSystem, last: Option<&Report>) {
         List::Excitations => text_object(&[("label", ""), ("frequency", d.frequency)]),
         List::Tolerances | List::Measured | List::Calibrate => super::design::new_row(doc, list, last),
     };
+    push(doc, list, row);
+}
+
+/// Appends `row` to `list`, making the list if the case has none.
+fn push(doc: &mut Value, list: List, row: Value) {
     if let Some(object) = doc.as_object_mut() {
         let rows = object.entry(list.key()).or_insert_with(|| Value::Array(Vec::new()));
         if !rows.is_array() {

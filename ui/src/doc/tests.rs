@@ -250,3 +250,18 @@ fn a_tap_tests_frequencies_replace_the_measured_list_and_solve_as_measured() {
     apply(&mut doc, &Edit::Measured(Vec::new()), None);
     assert!(doc.get("measured").is_none(), "no rows clear the list");
 }
+
+#[test]
+fn a_sensor_fixed_for_the_tap_test_is_added_as_a_point_mass_that_lowers_mode_1() {
+    // A mass added where the first mode moves lowers its frequency (Rayleigh's quotient: the
+    // kinetic energy grows, the strain energy does not; any vibrations textbook).
+    let mut doc = boom();
+    let before = solve(&doc).unwrap().modes[0].frequency_hz;
+    let count = doc["attachments"].as_array().map_or(0, Vec::len);
+    let row = json!({"type": "mass", "label": "tablet fixed for the tap test", "position": "1.2 m", "mass": "480 g"});
+    apply(&mut doc, &Edit::Attach(row.clone()), None);
+    assert_eq!(doc["attachments"].as_array().map(Vec::len), Some(count + 1));
+    assert_eq!(doc["attachments"][count], row);
+    let after = solve(&doc).unwrap().modes[0].frequency_hz;
+    assert!(after < before, "{after} Hz with the tablet, {before} Hz without");
+}

@@ -80,9 +80,10 @@ fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64,
         }
     }
     let listener = callback(&calculator, |c, event: Event| c.handle(&event));
-    // `modebench-measured` is the tap-test panel's: the frequencies it measured, to keep in the
-    // case (see `Calculator::on_measured`).
-    let attached = ["input", "change", "click", calculator::MEASURED_EVENT]
+    // `modebench-measured` and `modebench-attach` are the tap-test panel's: the frequencies it
+    // measured, to keep in the case, and the sensor fixed to the part, to add to the model (see
+    // `Calculator::on_measured` and `on_attach`).
+    let attached = ["input", "change", "click", calculator::MEASURED_EVENT, calculator::ATTACH_EVENT]
         .iter()
         .all(|kind| root.add_event_listener_with_callback(kind, &listener).is_ok());
     attached && root.set_attribute("data-live", "true").is_ok()

@@ -19,6 +19,7 @@ impl Calculator {
             "change" => self.on_change(&target),
             "click" => self.on_click(&target),
             super::MEASURED_EVENT => self.on_measured(event),
+            super::ATTACH_EVENT => self.on_attach(event),
             _ => {}
         }
     }
@@ -185,6 +186,22 @@ impl Calculator {
         self.store_unless_waiting();
         self.cases.record(&what);
         self.edit(Edit::Measured(rows), None);
+        self.show_cases();
+        self.show_undo();
+    }
+
+    /// Adds the tablet or sensor fixed to the part for a tap test to the model: the panel sends
+    /// a `modebench-attach` event whose detail is the JSON text of an attachment row, its values
+    /// as the reader typed them (with their units). One step that "Undo" takes back; a value the
+    /// core refuses shows as an error on its field, as if typed there.
+    fn on_attach(&mut self, event: &Event) {
+        let Some(text) = event.dyn_ref::<web_sys::CustomEvent>().and_then(|e| e.detail().as_string()) else {
+            return;
+        };
+        let Ok(row @ serde_json::Value::Object(_)) = text::read_exact(&text) else { return };
+        self.store_unless_waiting();
+        self.cases.record("add the tap test's sensor to the model");
+        self.edit(Edit::Attach(row), None);
         self.show_cases();
         self.show_undo();
     }

@@ -26,6 +26,10 @@ use web_sys::{Element, HtmlInputElement};
 /// The event by which the tap-test panel hands the calculator the frequencies it measured.
 pub(in crate::widget) const MEASURED_EVENT: &str = "modebench-measured";
 
+/// The event by which the tap-test panel adds the tablet or sensor fixed to the part to the
+/// model, as an attachment row (JSON text) with its values as typed.
+pub(in crate::widget) const ATTACH_EVENT: &str = "modebench-attach";
+
 /// The callbacks that take the page script's replies about links and files.
 pub(in crate::widget) struct Replies {
     /// Takes a link made for the open case.
