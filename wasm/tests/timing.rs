@@ -2,6 +2,7 @@
 //! does it on every keystroke) and writing its results (the page does it when the answer comes,
 //! besides reading the answer and setting `innerHTML`). The times
 //! are printed; `MODEBENCH_CHECK_TIMING=1` with `--release` also checks them against the budget.
+//! The native benchmarks' two budget workloads are timed here too, for WebAssembly ÷ native.
 #![cfg(target_arch = "wasm32")]
 
 use modebench_web::{doc, render};
