@@ -2,6 +2,7 @@
 //! does it on every keystroke) and writing its results (the page does it when the answer comes,
 //! besides reading the answer and setting `innerHTML`). The times
 //! are printed; `MODEBENCH_CHECK_TIMING=1` with `--release` also checks them against the budget.
+//! The native benchmarks' two budget workloads are timed here too, for WebAssembly ÷ native.
 #![cfg(target_arch = "wasm32")]
 
 use modebench_web::{doc, render};
@@ -134,5 +135,74 @@ fn the_design_tools_are_quick_enough_for_the_worker() {
     );
     if option_env!("MODEBENCH_CHECK_TIMING") == Some("1") && !cfg!(debug_assertions) {
         assert!(sensitivities < 20.0 && sweep < 200.0, "{sensitivities} ms, {sweep} ms");
+    }
+}
+
+/// The native engine benchmarks' budget beam (`tests/benches/engine.rs`, kept the same here so
+/// that the two figures divide): a stepped, three-segment floor beam carrying ten attachments of
+/// every kind, pinned at the left, elastic at the right.
+fn budget_model() -> modebench::Model {
+    use modebench::{Attachment, End, Model, ModelParts, Segment, Theory};
+    let seg = |length, ei, m| Segment {
+        length,
+        flexural_rigidity: ei,
+        mass_per_length: m,
+        shear_rigidity: None,
+        rotary_inertia_per_length: 0.0,
+    };
+    let attachments = vec![
+        Attachment::Mass { position: 0.4, mass: 12.0, rotary_inertia: 0.3 },
+        Attachment::Spring { position: 0.9, stiffness: 2.0e6 },
+        Attachment::Mass { position: 1.3, mass: 30.0, rotary_inertia: 0.0 },
+        Attachment::SprungMass { position: 1.8, mass: 45.0, stiffness: 8.0e5 },
+        Attachment::RotationalSpring { position: 2.2, stiffness: 5.0e4 },
+        Attachment::Support { position: 2.6 },
+        Attachment::Mass { position: 3.1, mass: 8.0, rotary_inertia: 0.1 },
+        Attachment::Spring { position: 3.5, stiffness: 1.0e6 },
+        Attachment::Mass { position: 4.0, mass: 20.0, rotary_inertia: 0.0 },
+        Attachment::SprungMass { position: 4.6, mass: 15.0, stiffness: 3.0e5 },
+    ];
+    let Ok(model) = Model::new(ModelParts {
+        segments: vec![seg(1.5, 4.0e6, 40.0), seg(2.0, 2.5e6, 32.0), seg(1.5, 4.0e6, 40.0)],
+        left: End::Pinned,
+        right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
+        attachments,
+        theory: Theory::EulerBernoulli,
+    }) else {
+        panic!("the budget model is valid")
+    };
+    model
+}
+
+/// The native engine benchmarks' two budget workloads in WebAssembly, for the ratio of the two
+/// (recorded in docs/performance.md): the exact method's first 10 frequencies of the budget beam,
+/// and finite elements with 200 elements, 10 modes, on the same beam. `Date.now()` counts whole
+/// milliseconds, so each figure is a batch of solves divided by its size; the median of the
+/// batches is printed, and the fastest beside it. Printed only: a ratio depends on the machine.
+#[wasm_bindgen_test]
+fn the_budget_workloads_in_webassembly() {
+    use modebench::fe::{self, Mesh};
+    let model = budget_model();
+    let exact = || modebench::exact::frequencies(std::hint::black_box(&model), 10).map(|f| f.len());
+    let elements =
+        || fe::frequencies(std::hint::black_box(&model), 10, Mesh::Total(200)).map(|f| f.omegas.len());
+    let batches = if cfg!(debug_assertions) { 1 } else { 15 };
+    for (case, solve, batch) in [
+        ("exact, 10 modes, budget beam", &exact as &dyn Fn() -> Result<usize, modebench::Error>, 200),
+        ("finite elements, 200 elements, 10 modes, budget beam", &elements, 40),
+    ] {
+        // The first solve compiles the module's hot functions; it is not counted.
+        assert_eq!(solve().ok(), Some(10), "{case}: 10 frequencies");
+        let mut each = Vec::new();
+        for _ in 0..batches {
+            let start = js_sys::Date::now();
+            for _ in 0..batch {
+                let _ = std::hint::black_box(solve());
+            }
+            each.push((js_sys::Date::now() - start) * 1000.0 / f64::from(batch));
+        }
+        let fastest = each.iter().copied().fold(f64::INFINITY, f64::min);
+        let middle = median(&mut each);
+        console_log!("{case}: {middle:.1} µs per solve (fastest batch {fastest:.1} µs), median of {batches} batches of {batch}");
     }
 }
