@@ -479,11 +479,21 @@ function predictedHz(answer) {
 }
 
 // Adds a tap-test panel under every live calculator that has none.
+// A closed panel that the page's boot script put there (a summary only, until this script has
+// loaded) is replaced by the whole panel; the one the reader opened opens, with the focus kept
+// on its summary.
 export function attachPanels() {
   const panels = [];
   document.querySelectorAll(".mb-calc[data-modebench]").forEach((root, index) => {
-    if (root.nextElementSibling?.classList.contains("mb-bench")) return;
-    panels.push(new Panel(root, index));
+    const placed = root.nextElementSibling?.classList.contains("mb-bench") ? root.nextElementSibling : null;
+    if (placed?.querySelector(".mb-bench-body")) return;
+    const opened = placed?.open ?? false;
+    const focused = placed?.contains(document.activeElement) ?? false;
+    placed?.remove();
+    const panel = new Panel(root, index);
+    if (opened) panel.panel.open = true;
+    if (focused) panel.panel.querySelector("summary").focus();
+    panels.push(panel);
   });
   return panels.length;
 }

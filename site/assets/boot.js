@@ -36,11 +36,27 @@ async function boot() {
   if (incoming) {
     history.replaceState(null, "", window.location.pathname + window.location.search);
   }
-  // The tap-test panel under each calculator; its engine loads only when a panel is opened.
-  // A panel that cannot start leaves the calculators as they are.
-  import("./bench-panel.js")
-    .then((bench) => bench.attachPanels())
-    .catch((error) => console.warn("Modebench: the tap-test panel could not start.", error));
+  // The tap-test panel under each calculator, closed: its script, and then its engine, load only
+  // when a reader opens one, so a page that is only read fetches neither. A panel that cannot
+  // start leaves the calculators as they are.
+  for (const root of document.querySelectorAll(".mb-calc[data-modebench]")) {
+    if (root.nextElementSibling?.classList.contains("mb-bench")) continue;
+    const closed = document.createElement("details");
+    closed.className = "mb-bench";
+    const summary = document.createElement("summary");
+    summary.textContent = "Tap test: measure this part's frequencies";
+    closed.append(summary);
+    root.after(closed);
+    closed.addEventListener(
+      "toggle",
+      () => {
+        import("./bench-panel.js")
+          .then((bench) => bench.attachPanels())
+          .catch((error) => console.warn("Modebench: the tap-test panel could not start.", error));
+      },
+      { once: true },
+    );
+  }
 }
 
 try {
