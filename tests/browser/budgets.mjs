@@ -9,7 +9,7 @@ import { readFileSync, statSync } from "node:fs";
 import { cpus } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
-import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, startSite } from "./support.mjs";
+import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, openLive, startSite } from "./support.mjs";
 
 // Kilobytes are 1000 bytes here, the stricter reading of each budget.
 const KB = 1000;
@@ -132,6 +132,10 @@ async function coldLoad(browser, url, viewport) {
   };
 }
 
+// A page in a fresh context once its calculator is live, or null if it never goes live (the
+// browser is closed at the end in any case).
+const liveOrNull = (browser, url) => openLive(browser, url, { settle: false }).catch(() => null);
+
 // The page's frames while a reader types into the design rows of the resizing page: each keystroke
 // asks the calculator's worker for a solve with its sensitivities, tolerance bands and a
 // 200-point resizing sweep. The worker does that work; the page must keep drawing frames. Returns
@@ -139,15 +143,8 @@ async function coldLoad(browser, url, viewport) {
 // answer is drawn.
 const DESIGN_PAGE = "floor-beam-variable-speed-fan.html";
 async function designFrames(browser, url) {
-  const { context } = await isolatedContext(browser);
-  const page = await context.newPage();
-  await page.goto(url);
-  const ready = await page
-    .waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 })
-    .then(() => true)
-    .catch(() => false);
-  if (!ready) {
-    await context.close();
+  const { context, page } = (await liveOrNull(browser, url)) ?? {};
+  if (!page) {
     return null;
   }
   await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, { timeout: 20_000 });
@@ -180,15 +177,8 @@ async function designFrames(browser, url) {
 // a brisk typist's interval between keystrokes (common practice, no source). With no pause the
 // next edit follows the previous answer at once; that figure is printed for reference.
 async function editTimes(browser, url, pause) {
-  const { context } = await isolatedContext(browser);
-  const page = await context.newPage();
-  await page.goto(url);
-  const ready = await page
-    .waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 })
-    .then(() => true)
-    .catch(() => false);
-  if (!ready) {
-    await context.close();
+  const { context, page } = (await liveOrNull(browser, url)) ?? {};
+  if (!page) {
     return null;
   }
   // A reader edits a calculator they can see, once its worker has confirmed the page's results.

@@ -43,22 +43,11 @@ pub fn sensitivities(frequencies: &Frequencies<'_>, p0: &[f64]) -> Result<Vec<Ve
         let down = frequencies(&at).ok();
         for (k, row) in out.iter_mut().enumerate() {
             let at = |side: &Option<Vec<f64>>| side.as_ref().and_then(|f| f.get(k).copied());
-            let s = match (at(&up), at(&down)) {
-                (Some(u), Some(d)) => (u.ln() - d.ln()) / (2.0 * STEP),
-                (Some(u), None) => (u.ln() - f0[k].ln()) / STEP,
-                (None, Some(d)) => (f0[k].ln() - d.ln()) / STEP,
-                (None, None) => continue,
-            };
+            let Some(s) = log_slope(at(&up), at(&down), f0[k]) else { continue };
             row[j] = s.is_finite().then_some(s);
         }
     }
-    if out.iter().flatten().all(Option::is_none) && !p0.is_empty() {
-        return Err(Error::new(
-            ErrorKind::Model,
-            "no input moves any frequency (all are zero or not finite)",
-        ));
-    }
-    Ok(out)
+    moved(out, p0)
 }
 
 /// The frequencies on one side of a step, when the model there was read and solved.
@@ -118,17 +107,29 @@ pub fn through_shapes(
                         (up.as_ref().and_then(|m| solve(m).ok()), down.as_ref().and_then(|m| solve(m).ok()))
                     });
                     let at = |side: &Option<Vec<f64>>| side.as_ref().and_then(|f| f.get(k).copied());
-                    match (at(u), at(d)) {
-                        (Some(u), Some(d)) => (u.ln() - d.ln()) / (2.0 * STEP),
-                        (Some(u), None) => (u.ln() - f0[k].ln()) / STEP,
-                        (None, Some(d)) => (f0[k].ln() - d.ln()) / STEP,
-                        (None, None) => continue,
-                    }
+                    let Some(s) = log_slope(at(u), at(d), f0[k]) else { continue };
+                    s
                 }
             };
             row[j] = s.is_finite().then_some(s);
         }
     }
+    moved(out, p0)
+}
+
+/// ∂ln f/∂ln p from the frequencies a step up and a step down (central), or from one side and
+/// the frequency at the value itself (one-sided) where the other side could not be solved.
+fn log_slope(up: Option<f64>, down: Option<f64>, f0: f64) -> Option<f64> {
+    match (up, down) {
+        (Some(u), Some(d)) => Some((u.ln() - d.ln()) / (2.0 * STEP)),
+        (Some(u), None) => Some((u.ln() - f0.ln()) / STEP),
+        (None, Some(d)) => Some((f0.ln() - d.ln()) / STEP),
+        (None, None) => None,
+    }
+}
+
+/// The sensitivities, unless no input moves any frequency at all.
+fn moved(out: Vec<Vec<Option<f64>>>, p0: &[f64]) -> Result<Vec<Vec<Option<f64>>>> {
     if out.iter().flatten().all(Option::is_none) && !p0.is_empty() {
         return Err(Error::new(
             ErrorKind::Model,
