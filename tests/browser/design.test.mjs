@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, closeAll, launch, openLive, startSite } from "./support.mjs";
+import { BROKEN_NUMBER, TEST_TIMEOUT_MS, closeAll, launch, openLive, startSite } from "./support.mjs";
 
 const ROOT = "calibrating-a-bolted-root.html";
 const FLOOR = "floor-beam-variable-speed-fan.html";
@@ -43,7 +43,7 @@ async function assertNoBrokenNumbers(page) {
 }
 
 describe("design work on the page", () => {
-  test("a calibration is applied in one step, reproduces the measurements, and is undone", async () => {
+  test("a calibration is applied in one step, reproduces the measurements, and is undone", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + ROOT);
     assert.equal(await page.locator("svg.mb-map").count(), 1, "the frequency map is drawn");
     assert.equal(await page.locator("svg.mb-map .mb-map-measured").count(), 2, "both measurements are on it");
@@ -70,7 +70,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a resizing proposal is applied and every nominal margin then holds", async () => {
+  test("a resizing proposal is applied and every nominal margin then holds", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + FLOOR);
     assert.equal(await page.locator("svg.mb-sweep").count(), 1, "the sweep is plotted");
     assert.ok((await page.locator("svg.mb-sweep .mb-sweep-forbidden").count()) >= 2, "forbidden bands shaded");
@@ -86,7 +86,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a speed range typed in the editor is judged from its nearer end, with its sign", async () => {
+  test("a speed range typed in the editor is judged from its nearer end, with its sign", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + FLOOR);
     const before = await page.locator('table.mb-modes tr[data-mode="1"] td.mb-separation').getAttribute("data-separation");
     // 600–900 rpm is 10–15 Hz; mode 1 lies just above it. Up to 1200 rpm (20 Hz) puts it inside.
