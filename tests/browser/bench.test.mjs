@@ -16,7 +16,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, ROOT, axeProblems, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { BROKEN_NUMBER, ROOT, TEST_TIMEOUT_MS, axeProblems, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
 
 const PAGE = "sensor-boom.html";
 const MODE = (n) => `table.mb-modes tr[data-mode="${n}"] td[data-hz]`;
@@ -135,7 +135,7 @@ async function predicted(page, n) {
 }
 
 describe("the tap-test panel", () => {
-  test("the microphone hears the synthetic taps: peaks listed at the frequencies recorded, nothing sent", async () => {
+  test("the microphone hears the synthetic taps: peaks listed at the frequencies recorded, nothing sent", { timeout: TEST_TIMEOUT_MS }, async () => {
     const micBrowser = await launch([
       "--use-fake-ui-for-media-stream",
       "--use-fake-device-for-media-stream",
@@ -178,7 +178,7 @@ describe("the tap-test panel", () => {
     }
   });
 
-  test("a denied microphone says so, and a file can still be opened", async () => {
+  test("a denied microphone says so, and a file can still be opened", { timeout: TEST_TIMEOUT_MS }, async () => {
     const deniedBrowser = await launch(["--use-fake-device-for-media-stream", "--deny-permission-prompts"]);
     try {
       const { context } = await isolatedContext(deniedBrowser);
@@ -198,7 +198,7 @@ describe("the tap-test panel", () => {
     }
   });
 
-  test("WAV and CSV files are analysed, matched with the predicted modes, kept as measured, reloaded and undone", async () => {
+  test("WAV and CSV files are analysed, matched with the predicted modes, kept as measured, reloaded and undone", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const { page, problems } = await openPanel(context);
     const f1 = await predicted(page, 1);
@@ -284,7 +284,7 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
-  test("the motion sensor's readings, at an uneven rate, give the part's low mode", async () => {
+  test("the motion sensor's readings, at an uneven rate, give the part's low mode", { timeout: TEST_TIMEOUT_MS }, async () => {
     // A tablet fixed to the part reports its motion some 60 times a second, never exactly evenly.
     // The readings are made here as the browser would hand them to the page: `devicemotion`
     // events, each with its own time stamp (set on the event, so that twelve seconds of readings
@@ -321,7 +321,7 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
-  test("the tablet fixed to the part is added to the model as one step, and only with its units", async () => {
+  test("the tablet fixed to the part is added to the model as one step, and only with its units", { timeout: TEST_TIMEOUT_MS }, async () => {
     // A mass added where mode 1 moves lowers it (Rayleigh's quotient; any vibrations textbook).
     const { context } = await isolatedContext(browser);
     const { page, problems } = await openPanel(context);
@@ -352,7 +352,7 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
-  test("the worked page's recording, opened in the panel at a tablet's size: four modes matched, no accessibility problem", async () => {
+  test("the worked page's recording, opened in the panel at a tablet's size: four modes matched, no accessibility problem", { timeout: TEST_TIMEOUT_MS }, async () => {
     // axe-core is added as a script of the test's own, which the page's policy would block.
     const { context } = await isolatedContext(browser, { bypassCSP: true, viewport: { width: 768, height: 1024 } });
     const { page, problems } = await watchedPage(context);
@@ -370,7 +370,7 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
-  test("a 10 s record at 48 kHz is analysed in the worker (time printed)", async () => {
+  test("a 10 s record at 48 kHz is analysed in the worker (time printed)", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const { page } = await openPanel(context);
     const rate = 48000;

@@ -4,7 +4,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, closeAll, isolatedContext, launch, openLive, pages, startSite } from "./support.mjs";
+import { BROKEN_NUMBER, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, pages, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -53,7 +53,7 @@ async function assertNoBrokenNumbers(page) {
 
 describe("the live calculator", () => {
   for (const file of pages()) {
-    test(`${file}: the live numbers are the prerendered ones`, async () => {
+    test(`${file}: the live numbers are the prerendered ones`, { timeout: TEST_TIMEOUT_MS }, async () => {
       const raw = await (await fetch(site.url + file)).text();
       const prerendered = [...raw.matchAll(/<td[^>]*\sdata-hz="([^"]+)"/g)].map((m) => Number(m[1]));
       if (!raw.includes('class="mb-calc"')) {
@@ -72,7 +72,7 @@ describe("the live calculator", () => {
     });
   }
 
-  test("as built, the editor shows its values fixed; live, its controls take their place without moving", async () => {
+  test("as built, the editor shows its values fixed; live, its controls take their place without moving", { timeout: TEST_TIMEOUT_MS }, async () => {
     const editorHeight = (page) =>
       page.evaluate(() => {
         const calculator = document.querySelector(".mb-calc");
@@ -102,7 +102,7 @@ describe("the live calculator", () => {
     await context.close();
   });
 
-  test("before the engine, the calculator's body is held back for half a second at most, and printed in full", async () => {
+  test("before the engine, the calculator's body is held back for half a second at most, and printed in full", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     // The page's script never arrives, so only the style sheet decides what shows.
     await context.route("**/assets/boot.js", (route) => route.abort());
@@ -145,7 +145,7 @@ describe("the live calculator", () => {
     await context.close();
   });
 
-  test("choosing a mode as soon as the calculator is live draws that mode's shape", async () => {
+  test("choosing a mode as soon as the calculator is live draws that mode's shape", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
     const caption = () => page.locator(".mb-calc svg.mb-plot title").first().textContent();
     assert.match(await caption(), /^Mode 1: /);
@@ -158,7 +158,7 @@ describe("the live calculator", () => {
     await context.close();
   });
 
-  test("a heavier camera head lowers the first frequency; a lighter one raises it", async () => {
+  test("a heavier camera head lowers the first frequency; a lighter one raises it", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     const start = await mode1(page);
     await typeAndWait(page, TIP_MASS, "4.2 kg");
@@ -177,7 +177,7 @@ describe("the live calculator", () => {
     ["", "nothing at all"],
     ["heavy", "no number"],
   ]) {
-    test(`${why} ("${typed}") is named beside the field, and no broken number appears`, async () => {
+    test(`${why} ("${typed}") is named beside the field, and no broken number appears`, { timeout: TEST_TIMEOUT_MS }, async () => {
       const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
       const lastGood = await mode1(page);
       await page.locator(TIP_MASS).fill(typed);
@@ -192,7 +192,7 @@ describe("the live calculator", () => {
     });
   }
 
-  test("a reload keeps what was typed", async () => {
+  test("a reload keeps what was typed", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     await typeAndWait(page, TIP_MASS, "3.1 kg");
     const edited = await mode1(page);

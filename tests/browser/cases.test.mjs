@@ -6,7 +6,7 @@ import { readFile, mkdtemp, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { closeAll, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
+import { TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -54,7 +54,7 @@ async function editCase(page) {
 }
 
 describe("cases", () => {
-  test("cases survive a reload, and undo brings back a deleted case and the restored example's values", async () => {
+  test("cases survive a reload, and undo brings back a deleted case and the restored example's values", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openBoom();
     const example = await caseNames(page);
     assert.equal(example.length, 1);
@@ -99,7 +99,7 @@ describe("cases", () => {
     await context.close();
   });
 
-  test("a link carries the case exactly, and opens it in another browser", async () => {
+  test("a link carries the case exactly, and opens it in another browser", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openBoom();
     await editCase(page);
     const sent = await openCase(page);
@@ -130,7 +130,7 @@ describe("cases", () => {
     await other.context.close();
   });
 
-  test("a scenario file and the results files round-trip the case", async () => {
+  test("a scenario file and the results files round-trip the case", { timeout: TEST_TIMEOUT_MS }, async () => {
     const dir = await mkdtemp(join(tmpdir(), "modebench-cases-"));
     const { context, page } = await openBoom({ contextOptions: { acceptDownloads: true } });
     await editCase(page);

@@ -7,7 +7,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, closeAll, launch, openLive as openPage, startSite } from "./support.mjs";
+import { BROKEN_NUMBER, TEST_TIMEOUT_MS, closeAll, launch, openLive as openPage, startSite } from "./support.mjs";
 
 const ROOT = "calibrating-a-bolted-root.html";
 const FLOOR = "floor-beam-variable-speed-fan.html";
@@ -49,7 +49,7 @@ async function assertNoBrokenNumbers(page) {
 }
 
 describe("design work on the page", () => {
-  test("a calibration is applied in one step, reproduces the measurements, and is undone", async () => {
+  test("a calibration is applied in one step, reproduces the measurements, and is undone", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(ROOT);
     assert.equal(await page.locator("svg.mb-map").count(), 1, "the frequency map is drawn");
     assert.equal(await page.locator("svg.mb-map .mb-map-measured").count(), 2, "both measurements are on it");
@@ -76,7 +76,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a resizing proposal within the bands is applied, every margin then holds, and undo takes it back", async () => {
+  test("a resizing proposal within the bands is applied, every margin then holds, and undo takes it back", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(FLOOR);
     assert.equal(await page.locator("svg.mb-sweep").count(), 1, "the sweep is plotted");
     assert.ok((await page.locator("svg.mb-sweep .mb-sweep-forbidden").count()) >= 2, "forbidden bands shaded");
@@ -103,7 +103,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a speed range added in the editor marks its collision on the frequency map", async () => {
+  test("a speed range added in the editor marks its collision on the frequency map", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(FLOOR);
     const mode3 = 'svg.mb-map g[data-map-mode="3"] .mb-map-close';
     assert.equal(await page.locator(mode3).count(), 0, "mode 3 clears every drive today");
@@ -124,7 +124,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a tolerance added as a row or typed with a value gives every mode a band", async () => {
+  test("a tolerance added as a row or typed with a value gives every mode a band", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(FAN);
     assert.equal(await page.locator("svg.mb-map .mb-map-band").count(), 0, "no tolerances, no bands");
     const modes = await page.locator("table.mb-modes tr[data-mode]").count();
@@ -159,7 +159,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a measured frequency typed calibrates one input, applied in one step that undo takes back", async () => {
+  test("a measured frequency typed calibrates one input, applied in one step that undo takes back", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(ROOT);
     // One unknown (the root's stiffness) from one measurement, typed.
     await page.locator('[data-action="remove"][data-list="calibrate"][data-index="1"]').click();
@@ -186,7 +186,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("typing in the design rows leaves the page's thread free while the worker sweeps", async () => {
+  test("typing in the design rows leaves the page's thread free while the worker sweeps", { timeout: TEST_TIMEOUT_MS }, async () => {
     // Every keystroke in a tolerance re-solves the case with its 120-point resizing sweep judged
     // on the bands: hundreds of solves, all in the calculator's worker. The page's thread only
     // draws the answers, so no task on it may reach 50 ms, the browser's own threshold of a long
@@ -216,7 +216,7 @@ describe("design work on the page", () => {
     await context.close();
   });
 
-  test("a speed range typed in the editor is judged from its nearer end, with its sign", async () => {
+  test("a speed range typed in the editor is judged from its nearer end, with its sign", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(FLOOR);
     const before = await page.locator('table.mb-modes tr[data-mode="1"] td.mb-separation').getAttribute("data-separation");
     // 600–900 rpm is 10–15 Hz; mode 1 lies just above it. Up to 1200 rpm (20 Hz) puts it inside.

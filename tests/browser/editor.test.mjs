@@ -5,7 +5,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { TABLETS, axeProblems, closeAll, launch, openLive, pages, settled, startSite } from "./support.mjs";
+import { TABLETS, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, openLive, pages, settled, startSite } from "./support.mjs";
 
 const FAN = "fan-floor-beam.html"; // a US-inch case: 16 ft I-beam, a 540 lb fan at 6.5 ft
 const BOOM = "sensor-boom.html";
@@ -32,7 +32,7 @@ async function type(page, selector, text) {
 }
 
 describe("units in the editor", () => {
-  test("in US inch, a position typed without a unit reads as inches", async () => {
+  test("in US inch, a position typed without a unit reads as inches", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + FAN);
     const position = '[data-field="attachments[0].position"]';
     assert.equal(await page.locator(position).getAttribute("data-unit"), "in");
@@ -55,7 +55,7 @@ describe("units in the editor", () => {
     await context.close();
   });
 
-  test("a wall thinner than 0.1 mm is warned about, naming both values", async () => {
+  test("a wall thinner than 0.1 mm is warned about, naming both values", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + FAN);
     await type(page, '[data-field="segments[0].section.flange_thickness"]', "0.002");
     const warning = page.locator('.mb-warning[data-code="implausible"]');
@@ -70,7 +70,7 @@ describe("units in the editor", () => {
 
 describe("at the bench", () => {
   for (const tablet of TABLETS) {
-    test(`at ${tablet.width}×${tablet.height}, the modes stay in view while a field at the top of the editor changes`, async () => {
+    test(`at ${tablet.width}×${tablet.height}, the modes stay in view while a field at the top of the editor changes`, { timeout: TEST_TIMEOUT_MS }, async () => {
       const viewport = { width: tablet.width, height: tablet.height };
       const { context, page, problems } = await openLive(browser, site.url + FAN, { contextOptions: { viewport, hasTouch: true } });
       await page.locator(".jump a").click();
@@ -94,7 +94,7 @@ describe("at the bench", () => {
 
 describe("focus after adding and removing rows", () => {
   for (const list of ["attachments", "segments", "excitations"]) {
-    test(`${list}: Add focuses the new row's first field; Remove the next row, then the Add button`, async () => {
+    test(`${list}: Add focuses the new row's first field; Remove the next row, then the Add button`, { timeout: TEST_TIMEOUT_MS }, async () => {
       const { context, page, problems } = await openLive(browser, site.url + FAN);
       const rows = () => page.locator(`[data-row^="${list}["]`).count();
       const before = await rows();
@@ -148,7 +148,7 @@ describe("focus after adding and removing rows", () => {
 describe("accessibility (axe-core)", () => {
   for (const file of pages()) {
     for (const tablet of TABLETS) {
-      test(`${file} at ${tablet.width}×${tablet.height}: no serious or critical problem`, async () => {
+      test(`${file} at ${tablet.width}×${tablet.height}: no serious or critical problem`, { timeout: TEST_TIMEOUT_MS }, async () => {
         const viewport = { width: tablet.width, height: tablet.height };
         const calculators = /class="mb-calc"/.test(await (await fetch(site.url + file)).text());
         const { context, page } = await openLive(browser, site.url + file, {
@@ -161,7 +161,7 @@ describe("accessibility (axe-core)", () => {
     }
   }
 
-  test("with an input error showing, the error is tied to its field and nothing serious is found", async () => {
+  test("with an input error showing, the error is tied to its field and nothing serious is found", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { contextOptions: { bypassCSP: true } });
     const mass = '[data-field="attachments[0].mass"]';
     await page.locator(mass).fill("-3 kg");

@@ -8,7 +8,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
 import { deflateRawSync } from "node:zlib";
-import { DIST, closeAll, launch, offlineSite, startSite, untilKept, watchedPage } from "./support.mjs";
+import { DIST, TEST_TIMEOUT_MS, closeAll, launch, offlineSite, startSite, untilKept, watchedPage } from "./support.mjs";
 
 // A simply supported uniform beam: f₁ = (π/2)·√(EI/(m·L⁴)), textbook Euler–Bernoulli.
 const CASE = {
@@ -61,7 +61,7 @@ async function frameComputes(frame) {
 }
 
 describe("the embed page", () => {
-  test("in another page's frame, it opens the case in its address and computes it, offline too", async () => {
+  test("in another page's frame, it opens the case in its address and computes it, offline too", { timeout: TEST_TIMEOUT_MS }, async () => {
     const context = await browser.newContext();
     const { page, problems } = await watchedPage(context);
     await page.goto(site.url + "docs/bracket.html");

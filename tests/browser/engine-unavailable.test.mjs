@@ -3,7 +3,7 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
+import { TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
@@ -32,7 +32,7 @@ describe("a calculator without its engine", () => {
     ["the engine's WebAssembly", "**/*.wasm"],
     ["the engine's script", "**/modebench_page.js"],
   ]) {
-    test(`when ${what} fails to load, it says the live calculator could not start`, async () => {
+    test(`when ${what} fails to load, it says the live calculator could not start`, { timeout: TEST_TIMEOUT_MS }, async () => {
       const { context } = await isolatedContext(browser);
       await context.route(pattern, (route) => route.abort());
       const page = await context.newPage();
@@ -50,7 +50,7 @@ describe("a calculator without its engine", () => {
     });
   }
 
-  test("while the page's script has not run, it says the calculator becomes editable once it has", async () => {
+  test("while the page's script has not run, it says the calculator becomes editable once it has", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     // The script never arrives: the state of a page still loading it.
     await context.route("**/assets/boot.js", (route) => route.abort());
@@ -61,7 +61,7 @@ describe("a calculator without its engine", () => {
     await context.close();
   });
 
-  test("once live, neither note shows", async () => {
+  test("once live, neither note shows", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     assert.deepEqual(await notes(page), { loading: false, unavailable: false });
     await context.close();

@@ -15,7 +15,7 @@ import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:f
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, ROOT, closeAll, launch, offlineSite, pages, startSite, untilKept, watchedPage } from "./support.mjs";
+import { DIST, ROOT, TEST_TIMEOUT_MS, closeAll, launch, offlineSite, pages, startSite, untilKept, watchedPage } from "./support.mjs";
 
 let browser;
 
@@ -47,7 +47,7 @@ async function computes(page) {
 }
 
 describe("offline", () => {
-  test("after the first visit, a reload and every page work and compute with the network gone", async () => {
+  test("after the first visit, a reload and every page work and compute with the network gone", { timeout: TEST_TIMEOUT_MS }, async () => {
     const site = await startSite();
     const context = await browser.newContext();
     const { page, kept } = await firstVisit(context, site.url + "index.html");
@@ -82,7 +82,7 @@ describe("offline", () => {
     await context.close();
   });
 
-  test("after a rebuild, the service worker serves the new version", async () => {
+  test("after a rebuild, the service worker serves the new version", { timeout: TEST_TIMEOUT_MS }, async () => {
     // A copy of the site and of the sources it is built from, so the rebuild touches neither.
     const scratch = mkdtempSync(join(tmpdir(), "modebench-offline-"));
     const root = join(scratch, "root");

@@ -9,7 +9,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { closeAll, launch, openLive, settled, startSite } from "./support.mjs";
+import { TEST_TIMEOUT_MS, closeAll, launch, openLive, settled, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const WATER = '[data-field="segments[0].extra_mass.submerged"]';
@@ -74,7 +74,7 @@ function pdfText(pdf) {
 }
 
 describe("the printed sheet", () => {
-  test("a case of the reader's own prints as its own calculation record, with nothing empty", async () => {
+  test("a case of the reader's own prints as its own calculation record, with nothing empty", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page, problems } = await openLive(browser, site.url + BOOM, { ready: ".mb-cases" });
 
     // The example, printed: the page's title and its notes on the example, every mode drawn.

@@ -10,7 +10,7 @@ import { join } from "node:path";
 import { pathToFileURL } from "node:url";
 import { after, before, describe, test } from "node:test";
 import { deflateRawSync } from "node:zlib";
-import { ROOT, closeAll, launch, openLive, settled } from "./support.mjs";
+import { ROOT, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, openLive, settled } from "./support.mjs";
 
 const FILE = process.env.MODEBENCH_SINGLE_FILE ?? join(ROOT, "build", "single", "modebench-calculator.html");
 const URL_OF_FILE = pathToFileURL(FILE).href;
@@ -56,7 +56,7 @@ async function mode(page, n) {
 }
 
 describe("the single file, opened from disk", () => {
-  test("it goes live, computes a case from its address as the textbook does, and an edit", async () => {
+  test("it goes live, computes a case from its address as the textbook does, and an edit", { timeout: TEST_TIMEOUT_MS }, async () => {
     const data = deflateRawSync(Buffer.from(JSON.stringify(CASE), "utf8")).toString("base64url");
     const context = await browser.newContext();
     const { page, problems, elsewhere } = await openFile(`${URL_OF_FILE}#calc=1&case=${data}`, context);
@@ -88,7 +88,7 @@ describe("the single file, opened from disk", () => {
     await context.close();
   });
 
-  test("the example computes, an edit moves it the way physics says, and a reload keeps it", async () => {
+  test("the example computes, an edit moves it the way physics says, and a reload keeps it", { timeout: TEST_TIMEOUT_MS }, async () => {
     const context = await browser.newContext();
     const { page, problems, elsewhere } = await openFile(URL_OF_FILE, context);
     const policy = await page.getAttribute('meta[http-equiv="Content-Security-Policy"]', "content");
@@ -112,6 +112,18 @@ describe("the single file, opened from disk", () => {
     assert.equal(await mode(page, 1), heavier);
     assert.deepEqual(problems, []);
     assert.deepEqual(elsewhere, []);
+    await context.close();
+  });
+
+  test("axe-core finds no serious or critical problem, an input error showing included", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // The context bypasses the file's policy only so that axe can be added (support.mjs); it is
+    // not an isolated one, whose routing refuses file:// addresses.
+    const context = await browser.newContext({ bypassCSP: true });
+    const { page } = await openLive(browser, URL_OF_FILE, { context });
+    assert.deepEqual(await axeProblems(page), []);
+    await page.locator(TIP_MASS).fill("-3 kg");
+    await page.locator('.mb-field-error[data-for="attachments[0].mass"]').waitFor({ state: "visible", timeout: 5000 });
+    assert.deepEqual(await axeProblems(page), []);
     await context.close();
   });
 });

@@ -12,6 +12,7 @@ import {
   ENGINES,
   SCREENSHOTS,
   TABLETS,
+  TEST_TIMEOUT_MS,
   closeAll,
   isolatedContext,
   launch,
@@ -51,7 +52,7 @@ async function settle(page) {
 describe("every page", () => {
   for (const file of pages()) {
     for (const tablet of TABLETS) {
-      test(`${file} at ${tablet.width}×${tablet.height}: loads cleanly, stays local, fits, and is photographed`, async () => {
+      test(`${file} at ${tablet.width}×${tablet.height}: loads cleanly, stays local, fits, and is photographed`, { timeout: TEST_TIMEOUT_MS }, async () => {
         const { context, external } = await isolatedContext(browser, {
           viewport: { width: tablet.width, height: tablet.height },
           hasTouch: true,
@@ -100,7 +101,7 @@ describe("every page", () => {
 });
 
 describe("the site as files", () => {
-  test("every page carries the content security policy, and serve sends it too", async () => {
+  test("every page carries the content security policy, and serve sends it too", { timeout: TEST_TIMEOUT_MS }, async () => {
     for (const file of pages()) {
       const response = await fetch(site.url + file);
       assert.equal(response.headers.get("content-security-policy"), POLICY, file);
@@ -109,7 +110,7 @@ describe("the site as files", () => {
     }
   });
 
-  test("every URL in every page is relative and reaches a file", async () => {
+  test("every URL in every page is relative and reaches a file", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
     for (const file of pages()) {
@@ -136,7 +137,7 @@ describe("the site as files", () => {
     }
   });
 
-  test("the engines and the worker are served with the types browsers insist on", async () => {
+  test("the engines and the worker are served with the types browsers insist on", { timeout: TEST_TIMEOUT_MS }, async () => {
     const types = {
       "assets/boot.js": /^text\/javascript/,
       "assets/solve-worker.js": /^text\/javascript/,
@@ -157,7 +158,7 @@ describe("the site as files", () => {
     }
   });
 
-  test("a host that sends the engine with a generic type still gets a live calculator", async () => {
+  test("a host that sends the engine with a generic type still gets a live calculator", { timeout: TEST_TIMEOUT_MS }, async () => {
     // Streaming compilation insists on application/wasm; plenty of file hosts send
     // application/octet-stream instead, and the page must then compile from the bytes.
     const context = await browser.newContext();
@@ -178,7 +179,7 @@ describe("the site as files", () => {
     await context.close();
   });
 
-  test("the site works unchanged under a sub-path of another host", async () => {
+  test("the site works unchanged under a sub-path of another host", { timeout: TEST_TIMEOUT_MS }, async () => {
     // A host that keeps the site in a folder of its own, as internal docs servers do.
     const host = mkdtempSync(join(tmpdir(), "modebench-host-"));
     mkdirSync(join(host, "docs"));
@@ -203,7 +204,7 @@ describe("the site as files", () => {
     }
   });
 
-  test("printed, a calculator page is a calculation sheet: title, calculator, cautions, no navigation", async () => {
+  test("printed, a calculator page is a calculation sheet: title, calculator, cautions, no navigation", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
     for (const file of pages()) {
@@ -233,7 +234,7 @@ describe("the site as files", () => {
     await context.close();
   });
 
-  test("the server never leaves the folder it serves", async () => {
+  test("the server never leaves the folder it serves", { timeout: TEST_TIMEOUT_MS }, async () => {
     for (const path of ["%2e%2e/Cargo.toml", "assets/%2e%2e/%2e%2e/Cargo.toml"]) {
       assert.notEqual((await fetch(site.url + path)).status, 200, path);
     }

@@ -41,6 +41,13 @@ export const BUDGET = {
   editMs: 16,
 };
 
+// Each browser test's own time limit (`test(name, { timeout: TEST_TIMEOUT_MS }, …)`), so that a
+// test waiting on a page that never answers fails and the next runs. Node 20 has no default for
+// every test of a file: its `--test-timeout`, which CI also sets, limits each file as a whole.
+// Generous: the slowest test (the offline rebuild, which builds the site again) took about 20 s
+// on a two-core machine loaded by other builds.
+export const TEST_TIMEOUT_MS = 180_000;
+
 // A cold load is timed in a fresh browser context (nothing cached) opened this long before the
 // page is asked for. Opening a context, and closing the previous one, keeps the browser busy for
 // a few hundred milliseconds on a small machine; a reader's browser is open and idle when they

@@ -7,7 +7,7 @@ import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { DIST, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -74,7 +74,7 @@ async function solveHere(page, scenarios) {
 }
 
 describe("solving off the main thread", () => {
-  test("typing into a model slow to solve leaves the page responsive", async () => {
+  test("typing into a model slow to solve leaves the page responsive", { timeout: TEST_TIMEOUT_MS }, async () => {
     const slow = slowBoom();
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
@@ -139,7 +139,7 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
-  test("an answer overtaken by a newer edit is never drawn over it", async () => {
+  test("an answer overtaken by a newer edit is never drawn over it", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const { page, problems } = await watchedPage(context);
     await page.goto(site.url + BOOM);
@@ -184,7 +184,7 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
-  test("a stored case too slow to solve leaves the page live on its example, and is offered back", async () => {
+  test("a stored case too slow to solve leaves the page live on its example, and is offered back", { timeout: TEST_TIMEOUT_MS }, async () => {
     const key = "modebench:/" + BOOM + "#0";
     const mine = boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s));
     const { context } = await isolatedContext(browser);
@@ -231,7 +231,7 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
-  test("the worker starts under the pages' content security policy", async () => {
+  test("the worker starts under the pages' content security policy", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, external } = await isolatedContext(browser);
     await context.addInitScript(() => {
       window.__violations = [];
@@ -262,7 +262,7 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
-  test("a worker whose engine cannot load leaves the built results, and an edit says so", async () => {
+  test("a worker whose engine cannot load leaves the built results, and an edit says so", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     await context.route("**/modebench_solver_bg.wasm", (route) => route.abort());
     const page = await context.newPage();
