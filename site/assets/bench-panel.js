@@ -80,6 +80,16 @@ function build(index) {
       "Recordings never leave this device: they are analysed in this browser, sent nowhere and not stored.",
     ),
   );
+  // Where the part was tapped and heard: a mode with a node at either may be missing from the
+  // record, and the match says so instead of pairing it with a neighbour's peak.
+  const where = element("fieldset", { class: "mb-bench-source mb-bench-where-fields" });
+  where.append(element("legend", {}, "Where, from the left end (blank: where mode 1 moves most)"));
+  const tapAt = element("label", {}, "Tapped at ");
+  tapAt.append(element("input", { type: "text", size: "8", placeholder: "e.g. 0.9 m", "data-bench-tap-at": "" }));
+  const heardAt = element("label", {}, "Microphone or sensor at ");
+  heardAt.append(element("input", { type: "text", size: "8", placeholder: "e.g. 1.2 m", "data-bench-sensor-at": "" }));
+  where.append(tapAt, heardAt);
+  body.append(where);
   const sources = element("div", { class: "mb-bench-sources" });
   const mic = element("fieldset", { class: "mb-bench-source", "data-source": "microphone" });
   mic.append(element("legend", {}, "Microphone"));
@@ -149,10 +159,38 @@ class Panel {
       if (action) this.act(action);
     });
     this.panel.querySelector("[data-bench-file]").addEventListener("change", (event) => this.openFile(event.target));
+    this.keepTyped(index);
     // When the calculator's predicted frequencies change after a recording was matched with them
     // (an input edited), the match shown is out of date: say so rather than leave it standing.
     this.matchedWith = null;
     new MutationObserver(() => this.checkMatch()).observe(root, { attributes: true, attributeFilter: ["data-solving"] });
+  }
+
+  // What the reader types in the panel (positions, the sensor's mass, the channel) is kept in
+  // this browser for this page's calculator, so that a reload loses none of it. Storage that
+  // is refused (a private window, a full quota) only means nothing is kept.
+  keepTyped(index) {
+    const key = `modebench-bench:${location.pathname}:${index}`;
+    const fields = [...this.panel.querySelectorAll('input[type="text"]')];
+    let saved = {};
+    try {
+      saved = JSON.parse(localStorage.getItem(key) ?? "{}") ?? {};
+    } catch {
+      saved = {};
+    }
+    const name = (input) => Object.keys(input.dataset)[0];
+    for (const input of fields) {
+      if (typeof saved[name(input)] === "string") input.value = saved[name(input)];
+    }
+    this.panel.addEventListener("input", (event) => {
+      if (!fields.includes(event.target)) return;
+      const values = Object.fromEntries(fields.map((input) => [name(input), input.value]));
+      try {
+        localStorage.setItem(key, JSON.stringify(values));
+      } catch {
+        // Nothing kept: the fields still work for this visit.
+      }
+    });
   }
 
   checkMatch() {
@@ -253,7 +291,9 @@ class Panel {
     }
     const answer = typeof this.root.modebenchAnswer === "string" ? this.root.modebenchAnswer : undefined;
     this.matchedWith = predictedHz(answer);
-    return JSON.stringify({ source, channel: source === "file" ? channel : "", answer });
+    const tap_at = this.panel.querySelector("[data-bench-tap-at]").value;
+    const sensor_at = this.panel.querySelector("[data-bench-sensor-at]").value;
+    return JSON.stringify({ source, channel: source === "file" ? channel : "", answer, tap_at, sensor_at });
   }
 
   async startMicrophone() {

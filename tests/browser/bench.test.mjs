@@ -284,6 +284,40 @@ describe("the tap-test panel", () => {
     await context.close();
   });
 
+  test("where the part was tapped and heard is typed with its unit, used in the match and kept across a reload", { timeout: TEST_TIMEOUT_MS }, async () => {
+    const { context } = await isolatedContext(browser);
+    const { page, problems } = await openPanel(context);
+    const f1 = await predicted(page, 1);
+    const zeta = 0.02;
+    const rate = 8000;
+    const record = wav(
+      ringDown({ rate, seconds: 6.3, modes: [{ hz: f1 * Math.sqrt(1 - zeta * zeta), zeta, amplitude: 0.4 }], taps: [0.3, 3.3], noise: 5e-4, seed: 5 }),
+      rate,
+    );
+    const open = async () => {
+      await page.locator("[data-bench-file]").setInputFiles({ name: "boom.wav", mimeType: "audio/wav", buffer: record });
+      await listed(page);
+    };
+    // A number alone is refused by name, with what was typed and what is allowed.
+    await page.locator("[data-bench-tap-at]").fill("900");
+    await open();
+    assert.match(await page.locator(".mb-bench-status.mb-bench-error").textContent(), /Tapped at: "900" has no unit; .*from 0 to 1450 mm/);
+    // With units, the match says where it took the tap and the microphone to be.
+    await page.locator("[data-bench-tap-at]").fill("900 mm");
+    await page.locator("[data-bench-sensor-at]").fill("1.4 m");
+    await open();
+    assert.match(await page.locator(".mb-bench-where").textContent(), /tapped at 900 mm and heard at 1400 mm from the left end/);
+    // A reload keeps what was typed in the panel.
+    await page.reload();
+    await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 });
+    await page.locator(".mb-bench > summary").first().click();
+    await page.waitForSelector("[data-bench-tap-at]", { timeout: 10_000 });
+    assert.equal(await page.locator("[data-bench-tap-at]").inputValue(), "900 mm");
+    assert.equal(await page.locator("[data-bench-sensor-at]").inputValue(), "1.4 m");
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("the motion sensor's readings, at an uneven rate, give the part's low mode", { timeout: TEST_TIMEOUT_MS }, async () => {
     // A tablet fixed to the part reports its motion some 60 times a second, never exactly evenly.
     // The readings are made here as the browser would hand them to the page: `devicemotion`

@@ -7,8 +7,9 @@
 //! Plain Rust, tested natively; `entry.rs` binds it for the worker. What goes in and out is
 //! JSON text, so that the worker's glue stays a few lines:
 //! - in, the options: `{"source": "microphone"|"motion"|"file", "answer": "<the solving
-//!   worker's answer for the report on show>", "channel": "<1-based, as typed>"}`, every key
-//!   optional;
+//!   worker's answer for the report on show>", "channel": "<1-based, as typed>", "tap_at": "<where
+//!   the part was tapped, from the left end, with its unit>", "sensor_at": "<where the microphone
+//!   or sensor was>"}`, every key optional (a position left blank is where mode 1 moves most);
 //! - out: `{"ok": true, "html": …, "measured": [{"mode": 2, "frequency": "14.236 Hz"}], "peaks":
 //!   [Hz, …], "taps": n, "rate_hz": …}` or `{"ok": false, "message": …}`.
 
@@ -18,8 +19,8 @@ mod render;
 
 use crate::worker::message;
 use modebench::bench::{self, BenchOptions, BenchReport, Predicted, SourceKind};
-use modebench::units::significant;
-use modebench::Error;
+use modebench::units::{self, is_bare_number, significant, Kind};
+use modebench::{Error, Report};
 use serde_json::{json, Value};
 
 /// A recording as it reaches the engine.
@@ -35,8 +36,9 @@ pub enum Recording<'a> {
 /// What the panel asked for, read from its options.
 struct Asked {
     options: BenchOptions,
-    /// The report the prediction came from, when the calculator had one.
-    predicted: bool,
+    /// Where the tap and the sensor were taken to be, in words, when the calculator had a
+    /// prediction to match.
+    matched_at: Option<String>,
 }
 
 /// Analyses a recording and returns the panel's answer as JSON text (see the module's head).
@@ -58,7 +60,7 @@ fn run(recording: Recording, asked: Asked) -> Result<Value, String> {
     .map_err(|e| words(&e))?;
     Ok(json!({
         "ok": true,
-        "html": render::results_html(&report, asked.predicted),
+        "html": render::results_html(&report, asked.matched_at.as_deref()),
         "measured": measured(&report),
         "peaks": report.peaks.iter().map(|p| p.frequency_hz).collect::<Vec<_>>(),
         "taps": report.taps.iter().filter(|t| t.used).count(),
@@ -105,9 +107,51 @@ fn asked(text: &str) -> Result<Asked, String> {
         options.channel = channel(typed)?;
     }
     let report = value.get("answer").and_then(Value::as_str).and_then(|a| message::read(a).ok());
-    let predicted = report.is_some();
-    options.predicted = report.map(|r| Predicted::from_report(&r, None, None));
-    Ok(Asked { options, predicted })
+    let mut matched_at = None;
+    if let Some(report) = report {
+        let tap = position(&value, "tap_at", "Tapped at", &report)?;
+        let sensor = position(&value, "sensor_at", "Microphone or sensor at", &report)?;
+        let predicted = Predicted::from_report(&report, tap, sensor);
+        let place = |typed: Option<f64>, at: f64| {
+            let shown = units::format(at, Kind::Length, report.units);
+            if typed.is_some() {
+                shown
+            } else {
+                format!("{shown} (where mode 1 moves most, as none was typed)")
+            }
+        };
+        matched_at = Some(format!(
+            "Matched with the part tapped at {} and heard at {} from the left end.",
+            place(tap, predicted.tap_m),
+            place(sensor, predicted.sensor_m)
+        ));
+        options.predicted = Some(predicted);
+    }
+    Ok(Asked { options, matched_at })
+}
+
+/// A position along the beam typed by the reader (`key` of the options, shown as `label`), in
+/// metres: blank is none; it must carry its unit, so that a number is never read in a unit the
+/// reader did not see, and lie on the beam.
+fn position(value: &Value, key: &str, label: &str, report: &Report) -> Result<Option<f64>, String> {
+    let Some(typed) = value.get(key).and_then(Value::as_str).map(str::trim).filter(|t| !t.is_empty()) else {
+        return Ok(None);
+    };
+    let shown: String = typed.chars().take(60).collect();
+    let length = units::format(report.beam.length, Kind::Length, report.units);
+    let allowed = format!("type where it was along the beam from the left end, with its unit (e.g. 1.2 m or 47 in), from 0 to {length}");
+    if is_bare_number(typed) {
+        return Err(format!("{label}: \"{shown}\" has no unit; {allowed}."));
+    }
+    let at = units::parse(typed, Kind::Length)
+        .map_err(|e| format!("{label}: \"{shown}\" is not a length ({}); {allowed}.", e.message))?
+        .si;
+    // A position typed to the beam's length in other units may land a rounding past its end.
+    let slack = 1e-9 * report.beam.length;
+    if !(at >= -slack && at <= report.beam.length + slack) {
+        return Err(format!("{label}: \"{shown}\" is not on the beam; {allowed}."));
+    }
+    Ok(Some(at.clamp(0.0, report.beam.length)))
 }
 
 /// A channel typed by the reader: a whole number from 1, as the file counts them.

@@ -19,9 +19,10 @@ const BOTTOM: f64 = 34.0;
 /// The level axis spans at most this many dB below the highest point.
 const SPAN_DB: f64 = 90.0;
 
-/// Everything the panel shows after an analysis. `predicted` says whether a prediction was at
-/// hand, so that an empty match says why.
-pub(super) fn results_html(report: &BenchReport, predicted: bool) -> String {
+/// Everything the panel shows after an analysis. `matched_at` says where the tap and the sensor
+/// were taken to be when a prediction was at hand (`None` without one, so that an empty match
+/// says why).
+pub(super) fn results_html(report: &BenchReport, matched_at: Option<&str>) -> String {
     let mut html = String::new();
     let used = report.taps.iter().filter(|t| t.used).count();
     let _ = write!(
@@ -38,7 +39,10 @@ pub(super) fn results_html(report: &BenchReport, predicted: bool) -> String {
         report.consistency.map_or(String::new(), |c| format!("; the taps agree to {}", significant(c, 2))),
     );
     html.push_str(&spectrum_svg(report));
-    html.push_str(&peaks_table(report, predicted));
+    if let Some(words) = matched_at {
+        let _ = write!(html, "<p class=\"mb-bench-where\">{}</p>", escape(words));
+    }
+    html.push_str(&peaks_table(report, matched_at.is_some()));
     html.push_str(&unmatched(report));
     html.push_str(&warnings(report));
     html

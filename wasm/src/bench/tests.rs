@@ -112,3 +112,46 @@ fn bad_options_and_bad_recordings_are_answered_with_a_message() {
         assert!(message.contains(expected), "{message} should say {expected}");
     }
 }
+
+/// The second mode of a cantilever has its node at 0.7834 L from the clamp (Blevins, *Formulas
+/// for Natural Frequency and Mode Shape*, table 8-1 — from memory). A record with mode 1 alone,
+/// of a part tapped there, leaves mode 2 unmatched because of the tap, not for want of a peak.
+#[test]
+fn a_tap_typed_at_a_modes_node_says_why_that_mode_is_missing() {
+    let solved = message::solve(CANTILEVER);
+    let report = message::read(&solved).unwrap();
+    let first = report.modes[0].frequency_hz;
+    let samples = ring_downs(&[first * (1.0f64 - 4e-4).sqrt()], 0.02, 8000.0, 3);
+    let run = |tap: &str| {
+        let options = serde_json::json!({ "source": "file", "answer": solved, "tap_at": tap }).to_string();
+        answer(&analyse(Recording::Samples(&samples, 8000.0), &options))
+    };
+    let at_node = run("78.34 cm");
+    assert_eq!(at_node["ok"], true, "{at_node}");
+    let html = at_node["html"].as_str().unwrap();
+    assert!(html.contains("tapped at 78.34 cm") || html.contains("tapped at 0.7834 m"), "{html}");
+    assert!(html.contains("node near the tap"), "{html}");
+    let at_tip = run("");
+    let html = at_tip["html"].as_str().unwrap();
+    assert!(html.contains("where mode 1 moves most"), "{html}");
+    assert!(!html.contains("node near the tap"), "{html}");
+}
+
+#[test]
+fn a_tap_or_sensor_position_without_its_unit_or_off_the_beam_is_refused_by_name() {
+    let solved = message::solve(CANTILEVER);
+    let samples = ring_downs(&[17.7], 0.02, 8000.0, 1);
+    for (key, typed, expected) in [
+        ("tap_at", "0.5", "Tapped at: \"0.5\" has no unit"),
+        ("sensor_at", "2 m", "Microphone or sensor at: \"2 m\" is not on the beam"),
+        ("sensor_at", "-1 in", "Microphone or sensor at: \"-1 in\" is not on the beam"),
+        ("tap_at", "half way", "Tapped at: \"half way\" is not a length"),
+    ] {
+        let options = serde_json::json!({ "source": "file", "answer": solved, key: typed }).to_string();
+        let out = answer(&analyse(Recording::Samples(&samples, 8000.0), &options));
+        assert_eq!(out["ok"], false, "{out}");
+        let message = out["message"].as_str().unwrap();
+        assert!(message.contains(expected), "{message} should say {expected}");
+        assert!(message.contains("from 0 to 1 m"), "{message} should give the range");
+    }
+}
