@@ -3,17 +3,20 @@
 //! field for an error to name.
 
 use crate::error::{number, roughly, Error};
-use crate::extra_mass::MassBreakdown;
+use crate::extra_mass::{ExtraMassInput, MassBreakdown};
 use crate::material::{MaterialInput, ResolvedMaterial};
 use crate::model::SHEAR_RATIO;
 use crate::path::FieldPath;
 use crate::schema::{FLEXURAL_RIGIDITY, MASS_PER_LENGTH, SHEAR_RIGIDITY};
-use crate::section::SectionProps;
+use crate::section::{SectionInput, SectionProps};
+use crate::units::Quantity;
 
 /// What a segment given by section and material was made of, kept to explain a model error.
 #[derive(Clone, Debug)]
 pub(super) struct SectionOrigin {
+    pub(super) section_input: SectionInput,
     pub(super) material_input: MaterialInput,
+    pub(super) extra_input: ExtraMassInput,
     pub(super) material: ResolvedMaterial,
     pub(super) props: SectionProps,
     pub(super) mass: MassBreakdown,
@@ -42,31 +45,41 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         }
         "mass_per_length" => {
             let total = mass.total();
-            let place = if total > 2.0 * mass.structural { "extra_mass" } else { "section" };
-            (
-                at(place),
-                format!(
-                    "the mass per length of this section in this material, with its extra mass, must lie \
-                     {}; check the units of the density, the dimensions and the extra mass",
-                    MASS_PER_LENGTH.allowed()
-                ),
-                (total, "kg/m"),
-            )
+            let (place, typed) = heaviest(segment, origin);
+            let message = format!(
+                "the mass per length of this section in this material, with its extra mass, must lie {}; check \
+                 the units of the density, the dimensions and the extra mass",
+                MASS_PER_LENGTH.allowed()
+            );
+            let error = Error::new(e.kind, message).at(place);
+            return match typed {
+                Some(typed) => error.with_value(typed),
+                None => error,
+            }
+            .with_si(total, "kg/m");
         }
         "shear_rigidity" if e.message.contains("implausible") => {
             return implausible_shear(e, segment, origin)
         }
         "shear_rigidity" => {
             let kga = props.shear_coefficient * mat.shear_modulus * props.area;
-            (
-                at("section"),
-                format!(
-                    "the shear rigidity κGA of this section in this material must lie {}; check the \
-                     section's dimensions and the material's shear modulus",
-                    SHEAR_RIGIDITY.allowed()
-                ),
-                (kga, "N"),
-            )
+            let message = format!(
+                "the shear rigidity κGA of this section in this material must lie {}; check the section's \
+                 dimensions and the material's shear modulus",
+                SHEAR_RIGIDITY.allowed()
+            );
+            // κ is at most 1, so a κGA too small whose G·A alone is in range was made so by a
+            // shear coefficient typed too small: name it, as typed.
+            if let SectionInput::Custom { shear_coefficient: Some(kappa), .. } = &origin.section_input {
+                let ga = mat.shear_modulus * props.area;
+                if !SHEAR_RIGIDITY.range.contains(kga, false) && SHEAR_RIGIDITY.range.contains(ga, false) {
+                    return Error::new(e.kind, message)
+                        .at(at("section").key("shear_coefficient"))
+                        .with_value(kappa)
+                        .with_si(kga, "N");
+                }
+            }
+            (at("section"), message, (kga, "N"))
         }
         "rotary_inertia_per_length" => (
             at("section"),
@@ -78,6 +91,27 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         _ => return e,
     };
     Error::new(e.kind, message).at(place).with_si(si.0, si.1)
+}
+
+/// Where the mass of a segment given by section lies: the section (with its material's density)
+/// when that outweighs the extra mass, else the heaviest part of the extra mass, at the field
+/// that gives it and with its value as typed.
+fn heaviest<'a>(segment: &FieldPath, origin: &'a SectionOrigin) -> (FieldPath, Option<&'a Quantity>) {
+    let (mass, extra) = (&origin.mass, &origin.extra_input);
+    let extra_mass = segment.key("extra_mass");
+    let contents = match (&extra.contents_density, &extra.contents) {
+        (Some(density), _) => (extra_mass.key("contents_density"), Some(density)),
+        (None, Some(_)) => (extra_mass.key("contents"), None),
+        (None, None) => (extra_mass.clone(), None),
+    };
+    let parts = [
+        (mass.structural, (segment.key("section"), None)),
+        (mass.contents, contents),
+        (mass.lining, (extra_mass.key("lining"), extra.lining.as_ref())),
+        (mass.added_water, (extra_mass.key("submerged"), None)),
+    ];
+    let heaviest = parts.into_iter().reduce(|a, b| if b.0 > a.0 { b } else { a });
+    heaviest.map_or((segment.key("section"), None), |(_, place)| place)
 }
 
 /// The plausibility check of κGA fails for a section segment when E/G, the shear coefficient

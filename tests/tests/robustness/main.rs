@@ -7,6 +7,7 @@
 //! concern. Design requests that are badly put or have no answer are in `design.rs`.
 
 mod design;
+mod extremes;
 mod models;
 mod readers;
 mod recordings;
