@@ -120,16 +120,8 @@ pub fn breakdown(
             .with_number(section.area));
     }
     let mut conversions = Vec::new();
-    // Each value read with its unit and checked against its range in the schema, at its own
-    // field, so that a value no computation could use is named as typed.
     let mut read = |quantity: &Quantity, field: &Field, path: &FieldPath| {
-        let value = units::convert_field(quantity, field.kind, path, &mut conversions)?;
-        match field.range.refuse(value, field.what, field.unit(), false) {
-            None => Ok(value),
-            Some((kind, message)) => {
-                Err(Error::new(kind, message).at(path).with_value(quantity).with_si(value, field.unit()))
-            }
-        }
+        checked(quantity, field, path, &mut conversions)
     };
     let [_, contents_field, lining_field, _] = &schema::EXTRA_MASS_FIELDS;
     let [water_field, coefficient_field] = &schema::SUBMERGED_FIELDS;
@@ -234,4 +226,23 @@ pub fn breakdown(
         });
     }
     Ok(result)
+}
+
+/// A value read with its unit and checked against its range in the schema, at its own field, so
+/// that a value no computation could use is named as typed. One copy for every field (the
+/// solver's engine is built for speed, which would otherwise inline it at each).
+#[inline(never)]
+fn checked(
+    quantity: &Quantity,
+    field: &Field,
+    path: &FieldPath,
+    conversions: &mut Vec<(FieldPath, Conversion)>,
+) -> Result<f64, Error> {
+    let value = units::convert_field(quantity, field.kind, path, conversions)?;
+    match field.range.refuse(value, field.what, field.unit(), false) {
+        None => Ok(value),
+        Some((kind, message)) => {
+            Err(Error::new(kind, message).at(path).with_value(quantity).with_si(value, field.unit()))
+        }
+    }
 }

@@ -30,11 +30,14 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
     let Some(field) = e.path.last_key().filter(|_| own_field) else { return e };
     let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
     let at = |place: &str| segment.key(place);
-    let (place, message, si) = match field {
+    // Where the error stands, what was typed there when one field decides it, the message and
+    // the derived value in SI.
+    let (place, typed, message, si): (_, Option<&Quantity>, _, _) = match field {
         "flexural_rigidity" => {
             let ei = mat.youngs_modulus * props.second_moment;
             (
                 at("section"),
+                None,
                 format!(
                     "the bending stiffness EI = E·I of this section in this material must lie {}; check \
                      the section's dimensions and the material's Young's modulus",
@@ -44,45 +47,46 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
             )
         }
         "mass_per_length" => {
-            let total = mass.total();
             let (place, typed) = heaviest(segment, origin);
-            let message = format!(
-                "the mass per length of this section in this material, with its extra mass, must lie {}; check \
-                 the units of the density, the dimensions and the extra mass",
-                MASS_PER_LENGTH.allowed()
-            );
-            let error = Error::new(e.kind, message).at(place);
-            return match typed {
-                Some(typed) => error.with_value(typed),
-                None => error,
-            }
-            .with_si(total, "kg/m");
+            (
+                place,
+                typed,
+                format!(
+                    "the mass per length of this section in this material, with its extra mass, must lie {}; \
+                     check the units of the density, the dimensions and the extra mass",
+                    MASS_PER_LENGTH.allowed()
+                ),
+                (mass.total(), "kg/m"),
+            )
         }
         "shear_rigidity" if e.message.contains("implausible") => {
             return implausible_shear(e, segment, origin)
         }
         "shear_rigidity" => {
             let kga = props.shear_coefficient * mat.shear_modulus * props.area;
-            let message = format!(
-                "the shear rigidity κGA of this section in this material must lie {}; check the section's \
-                 dimensions and the material's shear modulus",
-                SHEAR_RIGIDITY.allowed()
-            );
             // κ is at most 1, so a κGA too small whose G·A alone is in range was made so by a
             // shear coefficient typed too small: name it, as typed.
-            if let SectionInput::Custom { shear_coefficient: Some(kappa), .. } = &origin.section_input {
-                let ga = mat.shear_modulus * props.area;
-                if !SHEAR_RIGIDITY.range.contains(kga, false) && SHEAR_RIGIDITY.range.contains(ga, false) {
-                    return Error::new(e.kind, message)
-                        .at(at("section").key("shear_coefficient"))
-                        .with_value(kappa)
-                        .with_si(kga, "N");
+            let ga_in_range = SHEAR_RIGIDITY.range.contains(mat.shear_modulus * props.area, false);
+            let (place, typed) = match &origin.section_input {
+                SectionInput::Custom { shear_coefficient: Some(kappa), .. } if ga_in_range => {
+                    (at("section").key("shear_coefficient"), Some(kappa))
                 }
-            }
-            (at("section"), message, (kga, "N"))
+                _ => (at("section"), None),
+            };
+            (
+                place,
+                typed,
+                format!(
+                    "the shear rigidity κGA of this section in this material must lie {}; check the \
+                     section's dimensions and the material's shear modulus",
+                    SHEAR_RIGIDITY.allowed()
+                ),
+                (kga, "N"),
+            )
         }
         "rotary_inertia_per_length" => (
             at("section"),
+            None,
             "the rotary inertia ρI of this section in this material cannot be computed; check the \
              section's dimensions and the material's density"
                 .to_string(),
@@ -90,7 +94,12 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         ),
         _ => return e,
     };
-    Error::new(e.kind, message).at(place).with_si(si.0, si.1)
+    let error = Error::new(e.kind, message).at(place);
+    match typed {
+        Some(typed) => error.with_value(typed),
+        None => error,
+    }
+    .with_si(si.0, si.1)
 }
 
 /// Where the mass of a segment given by section lies: the section (with its material's density)
@@ -98,20 +107,19 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
 /// that gives it and with its value as typed.
 fn heaviest<'a>(segment: &FieldPath, origin: &'a SectionOrigin) -> (FieldPath, Option<&'a Quantity>) {
     let (mass, extra) = (&origin.mass, &origin.extra_input);
+    let parts = [mass.structural, mass.contents, mass.lining, mass.added_water];
+    let heaviest = (1..parts.len()).fold(0, |best, i| if parts[i] > parts[best] { i } else { best });
     let extra_mass = segment.key("extra_mass");
-    let contents = match (&extra.contents_density, &extra.contents) {
-        (Some(density), _) => (extra_mass.key("contents_density"), Some(density)),
-        (None, Some(_)) => (extra_mass.key("contents"), None),
-        (None, None) => (extra_mass.clone(), None),
-    };
-    let parts = [
-        (mass.structural, (segment.key("section"), None)),
-        (mass.contents, contents),
-        (mass.lining, (extra_mass.key("lining"), extra.lining.as_ref())),
-        (mass.added_water, (extra_mass.key("submerged"), None)),
-    ];
-    let heaviest = parts.into_iter().reduce(|a, b| if b.0 > a.0 { b } else { a });
-    heaviest.map_or((segment.key("section"), None), |(_, place)| place)
+    match heaviest {
+        1 if extra.contents_density.is_some() => {
+            (extra_mass.key("contents_density"), extra.contents_density.as_ref())
+        }
+        1 if extra.contents.is_some() => (extra_mass.key("contents"), None),
+        1 => (extra_mass, None),
+        2 => (extra_mass.key("lining"), extra.lining.as_ref()),
+        3 => (extra_mass.key("submerged"), None),
+        _ => (segment.key("section"), None),
+    }
 }
 
 /// The plausibility check of κGA fails for a section segment when E/G, the shear coefficient
