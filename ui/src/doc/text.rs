@@ -149,11 +149,10 @@ impl Reader<'_> {
                 self.repeated = Some(FieldPath::root().key(&key));
                 return Err(self.fail("each field once"));
             }
-            let value = self.value().map_err(|e| {
+            let value = self.value().inspect_err(|_| {
                 if let Some(inner) = &self.repeated {
                     self.repeated = Some(FieldPath::root().key(&key).join(inner));
                 }
-                e
             })?;
             map.insert(key, value);
             if self.eat(b'}') {
@@ -172,11 +171,10 @@ impl Reader<'_> {
         }
         loop {
             let index = items.len();
-            let item = self.value().map_err(|e| {
+            let item = self.value().inspect_err(|_| {
                 if let Some(inner) = &self.repeated {
                     self.repeated = Some(FieldPath::root().index(index).join(inner));
                 }
-                e
             })?;
             items.push(item);
             if self.eat(b']') {
@@ -378,7 +376,7 @@ mod tests {
             (r#"{"a": {"len": 1, "\u006cen": 2}}"#, "a.len"),
         ];
         for (text, path) in cases {
-            assert_eq!(serde_json::from_str::<Value>(text).is_ok(), true, "{text} is JSON to serde_json");
+            assert!(serde_json::from_str::<Value>(text).is_ok(), "{text} is JSON to serde_json");
             match super::read(text) {
                 Err(super::Unread::Twice(at)) => assert_eq!(at.to_string(), path, "{text}"),
                 other => panic!("{text}: {other:?}"),
