@@ -12,8 +12,9 @@ mod tests;
 
 use crate::error::{echo, Error, ErrorKind};
 use crate::path::FieldPath;
+use crate::schema::{self, Field};
 use crate::section::SectionProps;
-use crate::units::{self, Conversion, Kind, Quantity};
+use crate::units::{self, Conversion, Quantity};
 use std::f64::consts::PI;
 
 /// Water density assumed for a submerged member, kg/m³: seawater, the common offshore design
@@ -119,18 +120,11 @@ pub fn breakdown(
             .with_number(section.area));
     }
     let mut conversions = Vec::new();
-    let mut read = |quantity: &Quantity, kind: Kind, field: &FieldPath| {
-        units::convert_field(quantity, kind, field, &mut conversions)
+    let mut read = |quantity: &Quantity, field: &Field, path: &FieldPath| {
+        checked(quantity, field, path, &mut conversions)
     };
-    let not_negative = |value: f64, quantity: &Quantity, field: &FieldPath, what: &str| {
-        if value >= 0.0 {
-            Ok(value)
-        } else {
-            Err(Error::new(ErrorKind::OutOfRange, format!("{what} must not be negative"))
-                .at(field)
-                .with_value(quantity))
-        }
-    };
+    let [_, contents_field, lining_field, _] = &schema::EXTRA_MASS_FIELDS;
+    let [water_field, coefficient_field] = &schema::SUBMERGED_FIELDS;
 
     // A preset by name gives the density when none is recorded; a recorded density wins, so a
     // later change of the table never changes a saved case.
@@ -163,20 +157,13 @@ pub fn breakdown(
                 .at("contents_density")
                 .with_value(quantity));
             }
-            let rho = read(quantity, Kind::Density, &"contents_density".into())?;
-            not_negative(rho, quantity, &"contents_density".into(), "the contents density")?
-                * section.bore_area
+            read(quantity, contents_field, &contents_field.name.into())? * section.bore_area
         }
     };
 
     let lining = match &extra.lining {
         None => 0.0,
-        Some(quantity) => not_negative(
-            read(quantity, Kind::MassPerLength, &"lining".into())?,
-            quantity,
-            &"lining".into(),
-            "the lining mass",
-        )?,
+        Some(quantity) => read(quantity, lining_field, &lining_field.name.into())?,
     };
 
     let added_water = match &extra.submerged {
@@ -192,27 +179,16 @@ pub fn breakdown(
             let rho_w = match &submerged.water_density {
                 None => DEFAULT_WATER_DENSITY,
                 Some(quantity) => {
-                    let field = &FieldPath::from("submerged").key("water_density");
-                    let rho_w = read(quantity, Kind::Density, field)?;
-                    if rho_w <= 0.0 {
-                        return Err(Error::new(ErrorKind::OutOfRange, "the water density must be positive")
-                            .at(field)
-                            .with_value(quantity));
-                    }
-                    rho_w
+                    read(quantity, water_field, &FieldPath::from("submerged").key(water_field.name))?
                 }
             };
             let c_a = match &submerged.added_mass_coefficient {
                 None => DEFAULT_ADDED_MASS_COEFFICIENT,
-                Some(quantity) => {
-                    let field = &FieldPath::from("submerged").key("added_mass_coefficient");
-                    not_negative(
-                        read(quantity, Kind::Ratio, field)?,
-                        quantity,
-                        field,
-                        "the added-mass coefficient",
-                    )?
-                }
+                Some(quantity) => read(
+                    quantity,
+                    coefficient_field,
+                    &FieldPath::from("submerged").key(coefficient_field.name),
+                )?,
             };
             c_a * rho_w * PI * d_o * d_o / 4.0
         }
@@ -220,14 +196,21 @@ pub fn breakdown(
 
     let result = MassBreakdown { structural, contents, lining, added_water, conversions };
     if !result.total().is_finite() {
-        // Name the input whose part overflowed (or is the largest), as typed.
+        // Name the input whose part overflowed (or is the largest), as typed. The water's
+        // density and the outer diameter are bounded by their ranges, so water's part can only
+        // overflow through a typed added-mass coefficient.
+        let coefficient = extra.submerged.as_ref().and_then(|s| s.added_mass_coefficient.as_ref());
+        let submerged = FieldPath::from("submerged");
+        let water = if coefficient.is_some() { submerged.key(coefficient_field.name) } else { submerged };
         let parts = [
-            (contents, "contents_density", extra.contents_density.as_ref()),
-            (lining, "lining", extra.lining.as_ref()),
-            (added_water, "submerged", None),
+            (contents, FieldPath::from(contents_field.name), extra.contents_density.as_ref()),
+            (lining, FieldPath::from(lining_field.name), extra.lining.as_ref()),
+            (added_water, water, coefficient),
         ];
-        let (_, field, typed) =
-            parts.iter().fold(parts[0], |a, b| if b.0.total_cmp(&a.0).is_gt() { *b } else { a });
+        let (_, field, typed) = parts
+            .into_iter()
+            .reduce(|a, b| if b.0.total_cmp(&a.0).is_gt() { b } else { a })
+            .expect("three parts");
         let error = Error::new(
             ErrorKind::OutOfRange,
             format!(
@@ -243,4 +226,23 @@ pub fn breakdown(
         });
     }
     Ok(result)
+}
+
+/// A value read with its unit and checked against its range in the schema, at its own field, so
+/// that a value no computation could use is named as typed. One copy for every field (the
+/// solver's engine is built for speed, which would otherwise inline it at each).
+#[inline(never)]
+fn checked(
+    quantity: &Quantity,
+    field: &Field,
+    path: &FieldPath,
+    conversions: &mut Vec<(FieldPath, Conversion)>,
+) -> Result<f64, Error> {
+    let value = units::convert_field(quantity, field.kind, path, conversions)?;
+    match field.range.refuse(value, field.what, field.unit(), false) {
+        None => Ok(value),
+        Some((kind, message)) => {
+            Err(Error::new(kind, message).at(path).with_value(quantity).with_si(value, field.unit()))
+        }
+    }
 }

@@ -1,6 +1,7 @@
 //! `modebench-site serve` stays small whatever a client does: an endless request line or
 //! oversized headers are refused without being buffered, a client trickling its request is cut
-//! off after a few seconds in total, and hundreds of idle connections do not add threads.
+//! off after a few seconds in total, and hundreds of idle or trickling connections add neither
+//! threads nor memory.
 
 // The figures come from /proc, which is Linux's; the server itself builds anywhere.
 #![cfg(target_os = "linux")]
@@ -41,6 +42,7 @@ fn an_endless_request_line_gets_414_and_is_never_buffered() {
     streamer.join().unwrap();
     assert_eq!(answer.status, 414, "{answer:?}");
     let grown_kb = server.status_field("VmHWM").saturating_sub(peak_before);
+    println!("one 100 MB request line: the server's peak memory grew by {grown_kb} kB");
     assert!(grown_kb < 4096, "the server's peak memory grew by {grown_kb} kB for one long line");
 }
 
@@ -108,4 +110,58 @@ fn hundreds_of_idle_connections_add_no_threads_and_a_request_still_gets_through(
         std::thread::sleep(Duration::from_millis(200));
     }
     drop(idle);
+}
+
+#[test]
+fn hundreds_of_trickling_clients_add_neither_threads_nor_memory() {
+    let server = Server::start("trickling");
+    assert_eq!(server.get("/").status, 200);
+    let threads_before = server.status_field("Threads");
+    let peak_before = server.status_field("VmHWM");
+    // Each client starts a request and then sends one byte a second, well within any per-read
+    // timeout, for twice the head deadline: only a deadline for the whole head, and a fixed
+    // number of workers, keep the server's threads and memory where they were.
+    let mut clients: Vec<TcpStream> = (0..300)
+        .map(|_| {
+            let mut stream = server.connect();
+            let _ = stream.write_all(b"GET / HTTP/1.1\r\nX-Slow: ");
+            stream
+        })
+        .collect();
+    let started = Instant::now();
+    let mut most_threads = threads_before;
+    while started.elapsed() < HEAD_DEADLINE * 2 {
+        std::thread::sleep(Duration::from_secs(1));
+        for client in &mut clients {
+            // A client the server has answered or turned away finds its connection closed.
+            let _ = client.write_all(b"a");
+        }
+        most_threads = most_threads.max(server.status_field("Threads"));
+    }
+    assert!(
+        most_threads <= threads_before + 2,
+        "{most_threads} threads with 300 trickling clients, {threads_before} before"
+    );
+    // Each connection costs the kernel a socket, not the server a buffer that grows: 300 of them
+    // (twice what 16 workers and a queue of 64 hold at once) stay within a few megabytes.
+    let grown_kb = server.status_field("VmHWM").saturating_sub(peak_before);
+    println!(
+        "300 trickling clients: at most {most_threads} threads ({threads_before} before), peak memory \
+         grew by {grown_kb} kB"
+    );
+    assert!(grown_kb < 8192, "the server's peak memory grew by {grown_kb} kB for 300 trickling clients");
+    drop(clients);
+    let started = Instant::now();
+    loop {
+        let answer = server.get("/");
+        if answer.status == 200 {
+            break;
+        }
+        assert!(
+            started.elapsed() < HEAD_DEADLINE * 2,
+            "still no answer after {:?}: {answer:?}",
+            started.elapsed()
+        );
+        std::thread::sleep(Duration::from_millis(200));
+    }
 }

@@ -3,17 +3,20 @@
 //! field for an error to name.
 
 use crate::error::{number, roughly, Error};
-use crate::extra_mass::MassBreakdown;
+use crate::extra_mass::{ExtraMassInput, MassBreakdown};
 use crate::material::{MaterialInput, ResolvedMaterial};
 use crate::model::SHEAR_RATIO;
 use crate::path::FieldPath;
 use crate::schema::{FLEXURAL_RIGIDITY, MASS_PER_LENGTH, SHEAR_RIGIDITY};
-use crate::section::SectionProps;
+use crate::section::{SectionInput, SectionProps};
+use crate::units::Quantity;
 
 /// What a segment given by section and material was made of, kept to explain a model error.
 #[derive(Clone, Debug)]
 pub(super) struct SectionOrigin {
+    pub(super) section_input: SectionInput,
     pub(super) material_input: MaterialInput,
+    pub(super) extra_input: ExtraMassInput,
     pub(super) material: ResolvedMaterial,
     pub(super) props: SectionProps,
     pub(super) mass: MassBreakdown,
@@ -27,11 +30,14 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
     let Some(field) = e.path.last_key().filter(|_| own_field) else { return e };
     let (mat, props, mass) = (&origin.material, &origin.props, &origin.mass);
     let at = |place: &str| segment.key(place);
-    let (place, message, si) = match field {
+    // Where the error stands, what was typed there when one field decides it, the message and
+    // the derived value in SI.
+    let (place, typed, message, si): (_, Option<&Quantity>, _, _) = match field {
         "flexural_rigidity" => {
             let ei = mat.youngs_modulus * props.second_moment;
             (
                 at("section"),
+                None,
                 format!(
                     "the bending stiffness EI = E·I of this section in this material must lie {}; check \
                      the section's dimensions and the material's Young's modulus",
@@ -41,16 +47,16 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
             )
         }
         "mass_per_length" => {
-            let total = mass.total();
-            let place = if total > 2.0 * mass.structural { "extra_mass" } else { "section" };
+            let (place, typed) = heaviest(segment, origin);
             (
-                at(place),
+                place,
+                typed,
                 format!(
-                    "the mass per length of this section in this material, with its extra mass, must lie \
-                     {}; check the units of the density, the dimensions and the extra mass",
+                    "the mass per length of this section in this material, with its extra mass, must lie {}; \
+                     check the units of the density, the dimensions and the extra mass",
                     MASS_PER_LENGTH.allowed()
                 ),
-                (total, "kg/m"),
+                (mass.total(), "kg/m"),
             )
         }
         "shear_rigidity" if e.message.contains("implausible") => {
@@ -58,8 +64,18 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         }
         "shear_rigidity" => {
             let kga = props.shear_coefficient * mat.shear_modulus * props.area;
+            // κ is at most 1, so a κGA too small whose G·A alone is in range was made so by a
+            // shear coefficient typed too small: name it, as typed.
+            let ga_in_range = SHEAR_RIGIDITY.range.contains(mat.shear_modulus * props.area, false);
+            let (place, typed) = match &origin.section_input {
+                SectionInput::Custom { shear_coefficient: Some(kappa), .. } if ga_in_range => {
+                    (at("section").key("shear_coefficient"), Some(kappa))
+                }
+                _ => (at("section"), None),
+            };
             (
-                at("section"),
+                place,
+                typed,
                 format!(
                     "the shear rigidity κGA of this section in this material must lie {}; check the \
                      section's dimensions and the material's shear modulus",
@@ -70,6 +86,7 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         }
         "rotary_inertia_per_length" => (
             at("section"),
+            None,
             "the rotary inertia ρI of this section in this material cannot be computed; check the \
              section's dimensions and the material's density"
                 .to_string(),
@@ -77,7 +94,32 @@ pub(super) fn explain(e: Error, segment: &FieldPath, origin: &SectionOrigin) -> 
         ),
         _ => return e,
     };
-    Error::new(e.kind, message).at(place).with_si(si.0, si.1)
+    let error = Error::new(e.kind, message).at(place);
+    match typed {
+        Some(typed) => error.with_value(typed),
+        None => error,
+    }
+    .with_si(si.0, si.1)
+}
+
+/// Where the mass of a segment given by section lies: the section (with its material's density)
+/// when that outweighs the extra mass, else the heaviest part of the extra mass, at the field
+/// that gives it and with its value as typed.
+fn heaviest<'a>(segment: &FieldPath, origin: &'a SectionOrigin) -> (FieldPath, Option<&'a Quantity>) {
+    let (mass, extra) = (&origin.mass, &origin.extra_input);
+    let parts = [mass.structural, mass.contents, mass.lining, mass.added_water];
+    let heaviest = (1..parts.len()).fold(0, |best, i| if parts[i] > parts[best] { i } else { best });
+    let extra_mass = segment.key("extra_mass");
+    match heaviest {
+        1 if extra.contents_density.is_some() => {
+            (extra_mass.key("contents_density"), extra.contents_density.as_ref())
+        }
+        1 if extra.contents.is_some() => (extra_mass.key("contents"), None),
+        1 => (extra_mass, None),
+        2 => (extra_mass.key("lining"), extra.lining.as_ref()),
+        3 => (extra_mass.key("submerged"), None),
+        _ => (segment.key("section"), None),
+    }
 }
 
 /// The plausibility check of κGA fails for a section segment when E/G, the shear coefficient

@@ -20,6 +20,7 @@ pub mod tolerant;
 pub use crate::schema::DEFAULT_MARGIN;
 pub use design::{MeasuredInput, RangeInput, ResizeInput, ToleranceInput};
 pub use read::{ExcitationRead, Inputs, SegmentEcho};
+pub use text::given_twice;
 
 use crate::error::Result;
 use crate::extra_mass::ExtraMassInput;

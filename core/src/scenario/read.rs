@@ -269,7 +269,14 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<Re
             axial_force: axial_force(r, s, path, thermal)?,
             thermal_force: thermal,
         };
-        let origin = SectionOrigin { material_input: material_input.clone(), material: mat, props, mass };
+        let origin = SectionOrigin {
+            section_input: section_input.clone(),
+            material_input: material_input.clone(),
+            extra_input: extra,
+            material: mat,
+            props,
+            mass,
+        };
         return Ok((segment, echo, Some(origin)));
     }
     let (Some(ei), Some(m)) = (&s.flexural_rigidity, &s.mass_per_length) else {

@@ -193,3 +193,40 @@ fn every_kind_and_shape_the_schema_lists_is_read() {
         assert!(read.is_ok(), "{section}: {read:?}");
     }
 }
+
+#[test]
+fn an_extra_mass_or_shear_coefficient_out_of_range_is_named_where_it_was_typed() {
+    // No water is 200 times denser than seawater's 1025 kg/m³ (from memory; the densest liquid
+    // at room temperature, mercury, is about 13,500 kg/m³): refused by the field's documented
+    // range, at the field, rather than computed with.
+    let mut s = tube();
+    s["segments"][0]["extra_mass"] = json!({ "submerged": { "water_density": "2e5 kg/m^3" } });
+    let e = refused(&s);
+    assert_eq!(e.path, "segments[0].extra_mass.submerged.water_density", "{e}");
+    assert!(e.to_string().contains("between 1 and 100000 kg/m³"), "{e}");
+    assert!(e.to_string().contains("got \"2e5 kg/m^3\""), "{e}");
+    // A lining of a million tonnes a metre is the heaviest part by far: it is named, as typed,
+    // not the extra mass as a whole.
+    let mut s = tube();
+    s["segments"][0]["extra_mass"] = json!({ "lining": "1e9 t/m" });
+    let e = refused(&s);
+    assert_eq!(e.path, "segments[0].extra_mass.lining", "{e}");
+    assert!(e.to_string().contains("got \"1e9 t/m\" (1e12 kg/m)"), "{e}");
+    // Contents given by density, far too dense: the density is named.
+    let mut s = tube();
+    s["segments"][0]["extra_mass"] = json!({ "contents_density": "1e20 kg/m^3" });
+    assert_eq!(refused(&s).path, "segments[0].extra_mass.contents_density");
+    // An added-mass coefficient that overflows the water's part: the water's density and the
+    // diameter are bounded by their ranges, so the coefficient is to blame.
+    let mut s = tube();
+    s["segments"][0]["extra_mass"] = json!({ "submerged": { "added_mass_coefficient": 1e308 } });
+    assert_eq!(refused(&s).path, "segments[0].extra_mass.submerged.added_mass_coefficient");
+    // A shear coefficient typed absurdly small (κ of real sections lies from about 0.1 to 1,
+    // Cowper 1966) makes κGA too small while G·A alone is fine: κ is named, as typed.
+    let mut s = tube();
+    s["segments"][0]["section"] = json!({ "shape": "custom", "area": "1e-3 m^2", "second_moment": "1e-6 m^4",
+        "shear_coefficient": 1e-30 });
+    let e = refused(&s);
+    assert_eq!(e.path, "segments[0].section.shear_coefficient", "{e}");
+    assert!(e.to_string().contains("got 1e-30"), "{e}");
+}

@@ -22,7 +22,7 @@ pub(crate) fn read(text: &str) -> Result<Value> {
 }
 
 /// The error for a field given twice at `path`.
-pub(crate) fn given_twice(path: &FieldPath) -> Error {
+pub fn given_twice(path: &FieldPath) -> Error {
     Error::new(ErrorKind::Conflict, "this field is given twice; keep one of the two").at(path)
 }
 

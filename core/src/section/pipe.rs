@@ -8,7 +8,7 @@
 //! double-extra-strong weights; for sizes up to 10 in STD equals schedule 40, and up to 8 in XS
 //! equals schedule 80.
 
-use crate::error::{Error, ErrorKind, Result};
+use crate::error::{echo, Error, ErrorKind, Result};
 
 /// One nominal size: its name, outside diameter (in) and the walls (in) of the schedules in
 /// [`SCHEDULES`] order, `None` where not defined.
@@ -139,7 +139,7 @@ pub fn inches(nominal: &str, schedule: &str) -> Result<(f64, f64)> {
         let known: Vec<&str> = sizes().collect();
         Error::new(
             ErrorKind::UnknownOption,
-            format!("no standard pipe size {nominal:?}; known sizes: {}", known.join(", ")),
+            format!("no standard pipe size \"{}\"; known sizes: {}", echo(nominal), known.join(", ")),
         )
         .at("nominal_size")
         .with_value(nominal)
@@ -151,7 +151,8 @@ pub fn inches(nominal: &str, schedule: &str) -> Result<(f64, f64)> {
         Error::new(
             ErrorKind::UnknownOption,
             format!(
-                "schedule {schedule:?} is not defined for {} in pipe; defined: {}",
+                "schedule \"{}\" is not defined for {} in pipe; defined: {}",
+                echo(schedule),
                 size.nominal,
                 schedules(size.nominal).join(", ")
             ),
@@ -222,5 +223,20 @@ mod tests {
         assert_eq!(dimensions("6\"", "std").unwrap(), dimensions("6", "40").unwrap());
         assert!(dimensions("3-1/2", "160").unwrap_err().message.contains("not defined"));
         assert!(dimensions("7", "40").unwrap_err().message.contains("no standard pipe size"));
+    }
+
+    #[test]
+    fn a_pasted_paragraph_is_quoted_only_in_part() {
+        // Common practice, no source: a message read beside a field fits in a few lines, so what
+        // was typed is repeated only as far as ECHO_LIMIT characters, ending in an ellipsis, and
+        // the sizes or schedules allowed are still there to read.
+        let paragraph = "x".repeat(1_000_000);
+        for e in [dimensions(&paragraph, "40").unwrap_err(), dimensions("2", &paragraph).unwrap_err()] {
+            let shown = e.to_string();
+            assert!(shown.chars().count() < 300, "{} characters: {shown:.400}", shown.chars().count());
+            let quoted = format!("\"{}…\"", "x".repeat(crate::error::ECHO_LIMIT));
+            assert!(shown.contains(&quoted), "{shown}");
+            assert!(shown.contains("known sizes: 1/2") || shown.contains("defined: 10, 40"), "{shown}");
+        }
     }
 }

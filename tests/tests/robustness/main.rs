@@ -2,11 +2,13 @@
 //! seeded random hostile input: NaN, ±∞, 0, 1e±300, negative values, wrong types and garbage
 //! text, in models built directly (`models.rs`), in scenario JSON (`scenarios.rs`) and in the
 //! input readers of sections, materials, extra masses and quantities (`readers.rs`), and in
-//! tap-test recordings (`recordings.rs`). Its error
+//! tap-test recordings (`recordings.rs`), and the extremes of a double in every numeric field of
+//! a section, its material and its extra mass (`extremes.rs`). Its error
 //! messages stay short, never show a non-finite number, and name the place in the scenario they
 //! concern. Design requests that are badly put or have no answer are in `design.rs`.
 
 mod design;
+mod extremes;
 mod models;
 mod readers;
 mod recordings;

@@ -74,7 +74,14 @@ pub fn results_json(scenario: &Value, answer: &str) -> Option<String> {
 /// The scenario in a file the reader opened: a scenario file, or a results file (whose
 /// `scenario` is the case as typed). An error says what the file is not.
 pub fn scenario_from_file(text: &str) -> Result<Value, String> {
-    let value = crate::doc::read(text).map_err(|e| format!("the file is not a scenario: {}", e.message))?;
+    let value = crate::doc::read(text).map_err(|e| {
+        if e.path.is_empty() {
+            format!("the file is not a scenario: {}", e.message)
+        } else {
+            // A field given twice: the place and the words, as the calculator shows them.
+            format!("in the file, {e}")
+        }
+    })?;
     let scenario = match value.get("scenario") {
         Some(inner) if value.get("report").is_some() => inner.clone(),
         _ => value,

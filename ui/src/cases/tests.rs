@@ -223,6 +223,13 @@ fn a_scenario_or_a_results_file_opens_as_its_case() {
     assert_eq!(scenario_from_file(&results), Ok(s));
     assert!(scenario_from_file("[1, 2]").unwrap_err().contains("JSON object"));
     assert!(scenario_from_file("{ nope").unwrap_err().starts_with("the file is not a scenario"));
+    // A hand-edited file that gives a field twice is refused with the field's place (RFC 8259,
+    // section 4: readers differ on which of the two they keep).
+    let twice = r#"{"left": "pinned", "right": "pinned", "segments": [{"length": "1 m", "length": "2 m"}]}"#;
+    assert_eq!(
+        scenario_from_file(twice),
+        Err("in the file, segments[0].length: this field is given twice; keep one of the two".into())
+    );
 }
 
 #[test]

@@ -43,8 +43,12 @@ use serde_json::Value;
 
 /// Reads scenario text into the editable form; an error names what is wrong with the JSON.
 pub fn read(text: &str) -> Result<Value, Error> {
-    text::read(text)
-        .map_err(|e| Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}")))
+    text::read(text).map_err(|e| match e {
+        text::Unread::Syntax(e) => {
+            Error::new(ErrorKind::Syntax, format!("the scenario is not valid JSON: {e}"))
+        }
+        text::Unread::Twice(path) => modebench::scenario::given_twice(&path),
+    })
 }
 
 /// The unit system the scenario asks for, read as the core reads it. An absent or unknown one is

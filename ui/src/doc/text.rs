@@ -7,10 +7,31 @@
 //! decimal reader the unit parser uses, except by [`read_exact`]: the page reads the solving
 //! worker's answers with it, whose numbers are the engine's results written in full.
 
+use modebench::FieldPath;
 use serde_json::{Map, Number, Value};
 
-/// Parses JSON text; the error says where (a byte offset) and what was expected.
-pub fn read(text: &str) -> Result<Value, String> {
+/// Why a text did not read.
+#[derive(Debug, PartialEq)]
+pub enum Unread {
+    /// It is not JSON: what was expected, and where (a character offset).
+    Syntax(String),
+    /// A field is given twice in one object, at this path. Readers differ on which of the two
+    /// they keep (RFC 8259, section 4), so the scenario keeps neither and says so.
+    Twice(FieldPath),
+}
+
+impl std::fmt::Display for Unread {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            Unread::Syntax(text) => f.write_str(text),
+            Unread::Twice(path) => write!(f, "{}", modebench::scenario::given_twice(path)),
+        }
+    }
+}
+
+/// Parses JSON text; the error says where (a byte offset) and what was expected, or which field
+/// is given twice.
+pub fn read(text: &str) -> Result<Value, Unread> {
     parse(text, modebench::units::decimal)
 }
 
@@ -18,17 +39,24 @@ pub fn read(text: &str) -> Result<Value, String> {
 /// decimal parser of Rust's standard library): a number written in its shortest form comes back
 /// bit for bit.
 pub fn read_exact(text: &str) -> Result<Value, String> {
-    parse(text, |number| number.parse().ok())
+    parse(text, |number| number.parse().ok()).map_err(|e| e.to_string())
 }
 
-fn parse(text: &str, decimal: fn(&str) -> Option<f64>) -> Result<Value, String> {
-    let mut r = Reader { b: text.as_bytes(), i: 0, depth: 0, decimal };
-    let value = r.value()?;
-    r.blank();
-    if r.i != r.b.len() {
-        return Err(r.fail("the end of the text"));
+fn parse(text: &str, decimal: fn(&str) -> Option<f64>) -> Result<Value, Unread> {
+    let mut r = Reader { b: text.as_bytes(), i: 0, depth: 0, decimal, repeated: None };
+    let value = r.value().and_then(|value| {
+        r.blank();
+        if r.i == r.b.len() {
+            Ok(value)
+        } else {
+            Err(r.fail("the end of the text"))
+        }
+    });
+    match (value, r.repeated) {
+        (_, Some(path)) => Err(Unread::Twice(path)),
+        (Ok(value), None) => Ok(value),
+        (Err(e), None) => Err(Unread::Syntax(e)),
     }
-    Ok(value)
 }
 
 struct Reader<'a> {
@@ -38,6 +66,9 @@ struct Reader<'a> {
     /// Reads a number's text; passed in, so that a build that never calls [`read_exact`] leaves
     /// the standard library's parser out.
     decimal: fn(&str) -> Option<f64>,
+    /// The path of a field given twice, once one is found; built from the inside out as the
+    /// reading unwinds, so that reading costs nothing more when no field is.
+    repeated: Option<FieldPath>,
 }
 
 /// Deeper nesting than this is not a scenario; refusing it keeps the reader's stack bounded.
@@ -112,7 +143,17 @@ impl Reader<'_> {
             if !self.eat(b':') {
                 return Err(self.fail("':'"));
             }
-            let value = self.value()?;
+            // An empty name is refused wherever it stands, so a repeated one needs no message of
+            // its own.
+            if !key.is_empty() && map.contains_key(&key) {
+                self.repeated = Some(FieldPath::root().key(&key));
+                return Err(self.fail("each field once"));
+            }
+            let value = self.value().inspect_err(|_| {
+                if let Some(inner) = &self.repeated {
+                    self.repeated = Some(FieldPath::root().key(&key).join(inner));
+                }
+            })?;
             map.insert(key, value);
             if self.eat(b'}') {
                 return Ok(Value::Object(map));
@@ -129,7 +170,13 @@ impl Reader<'_> {
             return Ok(Value::Array(items));
         }
         loop {
-            items.push(self.value()?);
+            let index = items.len();
+            let item = self.value().inspect_err(|_| {
+                if let Some(inner) = &self.repeated {
+                    self.repeated = Some(FieldPath::root().index(index).join(inner));
+                }
+            })?;
+            items.push(item);
             if self.eat(b']') {
                 return Ok(Value::Array(items));
             }
@@ -312,6 +359,33 @@ mod tests {
         ] {
             assert!(super::read(bad).is_err(), "{bad:?} must be rejected");
         }
+    }
+
+    #[test]
+    fn a_field_given_twice_is_refused_with_its_path() {
+        // RFC 8259, section 4: names within an object should be unique, and readers differ on
+        // which value of a repeated name they keep; serde_json keeps the last, silently.
+        let cases = [
+            (r#"{"left": "free", "left": "pinned"}"#, "left"),
+            (r#"{"segments": [{"length": 1, "length": 2}]}"#, "segments[0].length"),
+            (
+                r#"{"segments": [{}, {"section": {"shape": "round", "shape": "tube"}}]}"#,
+                "segments[1].section.shape",
+            ),
+            // Escapes spell the same name: "\u006c" is "l".
+            (r#"{"a": {"len": 1, "\u006cen": 2}}"#, "a.len"),
+        ];
+        for (text, path) in cases {
+            assert!(serde_json::from_str::<Value>(text).is_ok(), "{text} is JSON to serde_json");
+            match super::read(text) {
+                Err(super::Unread::Twice(at)) => assert_eq!(at.to_string(), path, "{text}"),
+                other => panic!("{text}: {other:?}"),
+            }
+        }
+        let shown = super::read(cases[1].0).unwrap_err().to_string();
+        assert_eq!(shown, "segments[0].length: this field is given twice; keep one of the two");
+        // Names that differ, and an empty name (refused later by the scenario reader), pass.
+        assert!(super::read(r#"{"a": 1, "b": {"a": 2}, "": 3, "": 4}"#).is_ok());
     }
 
     #[test]
