@@ -141,7 +141,10 @@ impl Scenario {
                 r.typed(e)
             })?;
         let forces: Vec<f64> = echoes.iter().map(|e: &SegmentEcho| e.axial_force.unwrap_or(0.0)).collect();
-        let model = model.with_axial_forces(forces).map_err(|e| self.at_typed_force(r.typed(e)))?;
+        let model = model
+            .with_axial_forces(forces)
+            .and_then(|m| crate::axial::check_taut(&m).map(|()| m))
+            .map_err(|e| self.at_typed_force(r.typed(e)))?;
         let report_point = match &self.report_point {
             Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, &schema::REPORT_POINT.name.into())?),
             None => None,

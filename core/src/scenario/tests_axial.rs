@@ -200,3 +200,27 @@ fn a_force_that_cannot_be_computed_is_shown_on_the_field_that_gave_it() {
     assert_eq!((path.as_str(), value.as_str()), ("segments[1].axial_force", "-1 MN"));
     assert!(message.contains("buckled"), "{message}");
 }
+
+#[test]
+fn a_beam_too_taut_to_compute_as_a_beam_is_refused_as_a_string() {
+    // L·√(P/EI) = 1118 (EI = 2 N·m², L = 1 m, P = 2.5e6 N): past what is computed, refused on the
+    // force with the string's formula. The case the fuzz run found had 4.6e4 and took 88 s.
+    let beam = |force: f64| {
+        json!({
+            "left": "pinned", "right": "pinned", "modes": 2,
+            "segments": [{ "length": "1 m", "flexural_rigidity": "2 N*m^2", "mass_per_length": "1 kg/m",
+                           "axial_force": format!("{force} N") }]
+        })
+    };
+    let e = crate::solve_json(&beam(2.5e6).to_string()).unwrap_err();
+    assert_eq!(e.path.to_string(), "segments[0].axial_force");
+    assert!(e.message.contains("(n/2L)·√(P/m)"), "{e}");
+    // L·√(P/EI) = 900 is computed, and accurately: ω₁² = (π/L)⁴·(EI/m)·[1 + P·L²/(π²·EI)] for a
+    // pinned–pinned beam-column (Blevins, Formulas for Natural Frequency and Mode Shape — from
+    // memory), some 6e-6 above (1/2L)·√(P/m), the taut string's.
+    let report = crate::solve_json(&beam(1.62e6).to_string()).expect("solves");
+    let pi = std::f64::consts::PI;
+    let want = (pi.powi(4) * 2.0 * (1.0 + 1.62e6 / (pi * pi * 2.0))).sqrt() / (2.0 * pi);
+    let got = report.modes[0].frequency_hz;
+    assert!((got - want).abs() < 1e-9 * want, "{got} vs {want}");
+}
