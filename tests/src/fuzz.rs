@@ -1,7 +1,8 @@
 //! The standing fuzz run: a seeded, structure-aware generator of scenarios (random ends,
-//! segments by properties or by section and material, every attachment kind at ordinary, close,
-//! coincident and joint-hugging stations, unit strings of every system, extreme values, and
-//! perturbed copies of the documented example files), and the checks every answer must pass.
+//! segments by properties or by section and material, axial forces and temperature changes,
+//! every attachment kind at ordinary, close, coincident and joint-hugging stations, unit strings
+//! of every system, extreme values, and perturbed copies of the documented example files), and
+//! the checks every answer must pass.
 //!
 //! The test command runs a short slice of it (`tests/tests/fuzz.rs`), the benchmark command a
 //! long one (`tests/benches/fuzz.rs`); both print their counts.
@@ -369,6 +370,37 @@ impl Generator<'_> {
         }
     }
 
+    /// Axial loads on the segments: a force in compression up to one and a half times `euler`
+    /// (the pinned–pinned buckling load of the whole length with one segment's EI, so that some
+    /// beams buckle and some come close) or in tension up to a hundred times it, or, on a segment
+    /// given by section and material, a temperature change with the ends held.
+    fn axial(&mut self, segments: &mut [Value], euler: f64) {
+        for segment in segments.iter_mut() {
+            let Value::Object(s) = segment else { continue };
+            match self.rng.below(4) {
+                0 if s.contains_key("section") => {
+                    let change = self.rng.range(-100.0, 200.0);
+                    let text = match self.rng.below(2) {
+                        0 => format!("{change} K"),
+                        _ => format!("{} °F", change * 1.8),
+                    };
+                    s.insert("temperature_change".into(), json!(text));
+                }
+                1 => {}
+                2 => {
+                    let force = -euler * self.value(0.01, 1.5);
+                    let force = self.quantity(force, &[("N", 1.0), ("kN", 1e3), ("lbf", 4.448_221_615)]);
+                    s.insert("axial_force".into(), force);
+                }
+                _ => {
+                    let force = euler * self.value(0.01, 100.0);
+                    let force = self.quantity(force, &[("N", 1.0), ("kN", 1e3), ("lbf", 4.448_221_615)]);
+                    s.insert("axial_force".into(), force);
+                }
+            }
+        }
+    }
+
     /// A station for an attachment: anywhere, beside an earlier station, on a segment joint or
     /// just past one, or at an end.
     fn position(&mut self, total: f64, joints: &[f64], taken: &[f64]) -> f64 {
@@ -408,6 +440,9 @@ impl Generator<'_> {
             if i + 1 < count {
                 joints.push(total);
             }
+        }
+        if self.rng.below(6) == 0 {
+            self.axial(&mut segments, std::f64::consts::PI.powi(2) * ei / (total * total));
         }
         let mut s = Map::new();
         if self.rng.below(3) == 0 {

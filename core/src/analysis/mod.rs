@@ -137,7 +137,8 @@ fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
                      compression or add supports",
                     1.0 / mu
                 ),
-            ));
+            )
+            .at(most_compressed(model)));
         }
         if 1.0 / mu > NEAR_BUCKLING {
             warnings.push(Warning {
@@ -153,6 +154,15 @@ fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
         }
     }
     Ok(factor)
+}
+
+/// The axial force of the segment in most compression: where a buckled beam's message is shown,
+/// as the force to reduce first.
+fn most_compressed(model: &Model) -> crate::path::FieldPath {
+    let segment = (0..model.segments().len())
+        .min_by(|a, b| model.axial_force(*a).total_cmp(&model.axial_force(*b)))
+        .unwrap_or(0);
+    crate::path::FieldPath::item("segments", segment).key(crate::schema::AXIAL_FORCE.name)
 }
 
 /// An attachment inside a finite element whose estimated error in some mode exceeds this gets a

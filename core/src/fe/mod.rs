@@ -314,7 +314,7 @@ impl Discrete {
                     shear_rigidity: e.kga.is_finite().then_some(e.kga),
                     rotary_inertia_per_length: e.rotary_inertia_per_length,
                 };
-                let kh = wavenumber(&segment, theory, omega) * e.length;
+                let kh = with_axial_force(wavenumber(&segment, theory, omega), e.axial, e.ei) * e.length;
                 let mut error = kh.powi(4) / 1440.0;
                 if let (Theory::Timoshenko, Some(kga)) = (theory, segment.shear_rigidity) {
                     let k = kh / e.length;
@@ -338,6 +338,19 @@ pub(crate) fn per_element(s: &crate::model::Segment, theory: Theory, omega: f64)
     let share = s.flexural_rigidity * k * k / kga;
     let sigma = share / (1.0 + share);
     WAVE_PER_ELEMENT.min((5e-5 / (0.045 * sigma)).sqrt())
+}
+
+/// The larger wavenumber of a slender beam-column's solutions at the bending wavenumber `k`
+/// (that at ω without the force) under the axial force `p`: k² = (|P|/EI + √((P/EI)² + 4k⁴))/2,
+/// from the characteristic equation EI·s⁴ − P·s² − m·ω² = 0 of EI·w⁗ − P·w″ − m·ω²·w = 0 (the
+/// oscillating waves under compression, the decaying ones under tension). Without a force it is
+/// `k`.
+fn with_axial_force(k: f64, p: f64, ei: f64) -> f64 {
+    if p == 0.0 {
+        return k;
+    }
+    let q = p.abs() / ei;
+    ((q + (q * q + 4.0 * k.powi(4)).sqrt()) / 2.0).sqrt()
 }
 
 /// The bending wavenumber of free waves at ω in a segment: (mω²/EI)^¼ for Euler–Bernoulli; for

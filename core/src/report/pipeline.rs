@@ -17,8 +17,11 @@ pub fn solve_value(value: &serde_json::Value) -> Result<Report> {
 /// [`solve_value`]. An error here is the one [`solve_value`] gives, which may also fail in the
 /// steps this leaves out.
 pub fn frequencies_value(value: &serde_json::Value) -> Result<Vec<f64>> {
-    let inputs = Scenario::from_value(value)?.to_model()?;
-    let hz: Vec<f64> = analysis::exact_omegas(&inputs.model, &inputs.options)?.into_iter().map(hz).collect();
+    let scenario = Scenario::from_value(value)?;
+    let inputs = scenario.to_model()?;
+    let omegas =
+        analysis::exact_omegas(&inputs.model, &inputs.options).map_err(|e| scenario.at_typed_force(e))?;
+    let hz: Vec<f64> = omegas.into_iter().map(hz).collect();
     if !hz.iter().all(|f| f.is_finite()) {
         return Err(overflow());
     }
@@ -55,9 +58,12 @@ fn solve_with(scenario: &Scenario, doc: &serde_json::Value, hints_hz: &[f64]) ->
     let inputs = scenario.to_model()?;
     let model = &inputs.model;
     let hints: Vec<f64> = hints_hz.iter().map(|f| f * std::f64::consts::TAU).collect();
-    let analysis = analysis::analyse_with_hints(model, &inputs.options, &hints)?;
+    // An error of the axial force is shown on the field that gave it.
+    let analysis = analysis::analyse_with_hints(model, &inputs.options, &hints)
+        .map_err(|e| scenario.at_typed_force(e))?;
     let gyration: Vec<Option<f64>> = inputs.segments.iter().map(|s| s.gyration_squared).collect();
-    let comparison = analysis::other_theory(model, &gyration, &analysis)?;
+    let comparison =
+        analysis::other_theory(model, &gyration, &analysis).map_err(|e| scenario.at_typed_force(e))?;
     let excitations: Vec<Excitation> = inputs
         .excitations
         .iter()

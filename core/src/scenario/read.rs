@@ -141,7 +141,10 @@ impl Scenario {
                 r.typed(e)
             })?;
         let forces: Vec<f64> = echoes.iter().map(|e: &SegmentEcho| e.axial_force.unwrap_or(0.0)).collect();
-        let model = model.with_axial_forces(forces).map_err(|e| r.typed(e))?;
+        let model = model
+            .with_axial_forces(forces)
+            .and_then(|m| crate::axial::check_taut(&m).map(|()| m))
+            .map_err(|e| self.at_typed_force(r.typed(e)))?;
         let report_point = match &self.report_point {
             Some(q) => Some(r.read(q, schema::REPORT_POINT.kind, &schema::REPORT_POINT.name.into())?),
             None => None,
@@ -170,6 +173,26 @@ impl Scenario {
 }
 
 /// The index of the segment a path lies in: 2 for `segments[2].length`.
+impl Scenario {
+    /// An error placed on a segment's axial force, placed instead on its temperature change when
+    /// that alone gave the force, and given the value as typed: the field the reader wrote.
+    pub(crate) fn at_typed_force(&self, mut e: Error) -> Error {
+        let Some(i) = segment_of(&e.path) else { return e };
+        let segment = FieldPath::item("segments", i);
+        if e.path != segment.key(schema::AXIAL_FORCE.name) {
+            return e;
+        }
+        match self.segments.get(i).map(|s| (&s.axial_force, &s.temperature_change)) {
+            Some((Some(force), _)) => e.with_value(force),
+            Some((None, Some(change))) => {
+                e.path = segment.key(schema::TEMPERATURE_CHANGE.name);
+                e.with_value(change)
+            }
+            _ => e,
+        }
+    }
+}
+
 fn segment_of(path: &FieldPath) -> Option<usize> {
     match path.steps() {
         [Step::Key(list), Step::Index(i), ..] if list == "segments" => Some(*i),

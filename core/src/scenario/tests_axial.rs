@@ -160,3 +160,67 @@ fn extreme_axial_forces_end_in_a_result_or_a_clear_message() {
         }
     }
 }
+
+#[test]
+fn a_force_that_cannot_be_computed_is_shown_on_the_field_that_gave_it() {
+    // A segment whose force comes from its temperature alone has its refusals on the temperature,
+    // with the value as typed; one with a typed force has them on the force.
+    let on = |scenario: &Value| {
+        let e = crate::solve_json(&scenario.to_string()).unwrap_err();
+        (e.path.to_string(), e.value.clone().unwrap_or_default(), e.message)
+    };
+    let mut free = pipe(json!({ "temperature_change": "45 °C" }));
+    free["left"] = json!("free");
+    free["right"] = json!("free");
+    assert_eq!(on(&free).0, "segments[0].temperature_change");
+    let mut deep = pipe(json!({ "temperature_change": "45 °C" }));
+    deep["theory"] = json!("timoshenko");
+    let (path, value, _) = on(&deep);
+    assert_eq!((path.as_str(), value.as_str()), ("segments[0].temperature_change", "45 °C"));
+    // Buckled: the clamped–clamped 6 m pipe buckles at 4π²EI/L² (Euler's load, K = 0.5;
+    // Timoshenko & Gere, Theory of Elastic Stability, ch. 2 — from memory), 0.66 MN with
+    // EI = 200 GPa × 3.01e-6 m⁴ for the 4 in schedule 40 pipe, which −E·A·α·ΔT reaches at 134 K
+    // (A = 2.05e-3 m²); 150 K is past it and 100 K short of it.
+    let hot = |dt: &str| pipe(json!({ "temperature_change": dt }));
+    assert!(crate::solve_json(&hot("100 K").to_string()).is_ok());
+    let (path, value, message) = on(&hot("150 K"));
+    assert_eq!((path.as_str(), value.as_str()), ("segments[0].temperature_change", "150 K"));
+    assert!(message.contains("buckled"), "{message}");
+    // Two segments, both past that load (more compression everywhere only lowers it): the
+    // message is on the one in most compression.
+    let mut two = pipe(json!({ "axial_force": "-0.7 MN" }));
+    let mut second = two["segments"][0].clone();
+    second["axial_force"] = json!("-1 MN");
+    two["segments"][0]["length"] = json!("3 m");
+    second["length"] = json!("3 m");
+    if let Some(segments) = two["segments"].as_array_mut() {
+        segments.push(second);
+    }
+    let (path, value, message) = on(&two);
+    assert_eq!((path.as_str(), value.as_str()), ("segments[1].axial_force", "-1 MN"));
+    assert!(message.contains("buckled"), "{message}");
+}
+
+#[test]
+fn a_beam_too_taut_to_compute_as_a_beam_is_refused_as_a_string() {
+    // L·√(P/EI) = 1118 (EI = 2 N·m², L = 1 m, P = 2.5e6 N): past what is computed, refused on the
+    // force with the string's formula. The case the fuzz run found had 4.6e4 and took 88 s.
+    let beam = |force: f64| {
+        json!({
+            "left": "pinned", "right": "pinned", "modes": 2,
+            "segments": [{ "length": "1 m", "flexural_rigidity": "2 N*m^2", "mass_per_length": "1 kg/m",
+                           "axial_force": format!("{force} N") }]
+        })
+    };
+    let e = crate::solve_json(&beam(2.5e6).to_string()).unwrap_err();
+    assert_eq!(e.path.to_string(), "segments[0].axial_force");
+    assert!(e.message.contains("(n/2L)·√(P/m)"), "{e}");
+    // L·√(P/EI) = 900 is computed, and accurately: ω₁² = (π/L)⁴·(EI/m)·[1 + P·L²/(π²·EI)] for a
+    // pinned–pinned beam-column (Blevins, Formulas for Natural Frequency and Mode Shape — from
+    // memory), some 6e-6 above (1/2L)·√(P/m), the taut string's.
+    let report = crate::solve_json(&beam(1.62e6).to_string()).expect("solves");
+    let pi = std::f64::consts::PI;
+    let want = (pi.powi(4) * 2.0 * (1.0 + 1.62e6 / (pi * pi * 2.0))).sqrt() / (2.0 * pi);
+    let got = report.modes[0].frequency_hz;
+    assert!((got - want).abs() < 1e-9 * want, "{got} vs {want}");
+}
