@@ -30,7 +30,7 @@ const N: Option<f64> = None;
 /// ASME B36.10M (from memory): schedules 10, 40, 80, 160, STD, XS, XXS. (0.318 in is a wall,
 /// not an approximation of 1/π.)
 #[allow(clippy::approx_constant)]
-static SIZES: [Size; 20] = [
+static SIZES: [Size; 21] = [
     size(
         "1/2",
         0.840,
@@ -106,6 +106,8 @@ static SIZES: [Size; 20] = [
     size("16", 16.000, [Some(0.250), Some(0.500), Some(0.844), Some(1.594), Some(0.375), Some(0.500), N]),
     size("18", 18.000, [Some(0.250), Some(0.562), Some(0.938), Some(1.781), Some(0.375), Some(0.500), N]),
     size("20", 20.000, [Some(0.250), Some(0.594), Some(1.031), Some(1.969), Some(0.375), Some(0.500), N]),
+    // 22 in has no schedule 40 in the standard (from memory).
+    size("22", 22.000, [Some(0.250), N, Some(1.125), Some(2.125), Some(0.375), Some(0.500), N]),
     size("24", 24.000, [Some(0.250), Some(0.688), Some(1.219), Some(2.344), Some(0.375), Some(0.500), N]),
 ];
 
@@ -223,6 +225,10 @@ mod tests {
         assert_eq!(dimensions("6\"", "std").unwrap(), dimensions("6", "40").unwrap());
         assert!(dimensions("3-1/2", "160").unwrap_err().message.contains("not defined"));
         assert!(dimensions("7", "40").unwrap_err().message.contains("no standard pipe size"));
+        // 22 in: outside 22.000 in, XS 0.500 in, no schedule 40 (ASME B36.10M, from memory).
+        let (od, t) = dimensions("22", "XS").unwrap();
+        assert!((od - 22.0 * 0.0254).abs() < 1e-15 && (t - 0.5 * 0.0254).abs() < 1e-15);
+        assert!(dimensions("22", "40").unwrap_err().message.contains("not defined"));
     }
 
     #[test]
