@@ -209,8 +209,7 @@ fn resizing(
     design: &mut Design,
 ) -> Result<()> {
     let Some(r) = &scenario.resize else { return Ok(()) };
-    crate::model::whole(&crate::schema::RESIZE_FIELDS[3], r.points)
-        .map_err(|e| e.at(FieldPath::root().key("resize").key("points")))?;
+    crate::model::whole(&crate::schema::RESIZE_FIELDS[3], r.points).map_err(|e| e.at("resize"))?;
     let chosen = ranged(doc, &[&r.range], &|_| FieldPath::root().key("resize"))?;
     let (input, low, high) =
         chosen.into_iter().next().ok_or_else(|| Error::new(ErrorKind::Missing, "nothing to resize"))?;

@@ -21,9 +21,10 @@ pub(super) fn measured(
     for (i, m) in scenario.measured.iter().enumerate() {
         let at = FieldPath::item("measured", i);
         let field = &crate::schema::MEASURED_FIELDS[1];
-        crate::model::whole(&crate::schema::MEASURED_FIELDS[0], m.mode).map_err(|e| e.at(at.key("mode")))?;
+        // The check names its own field: the error is placed under the row, not under the field.
+        crate::model::whole(&crate::schema::MEASURED_FIELDS[0], m.mode).map_err(|e| e.at(at.clone()))?;
         let hz = inputs::read(&m.frequency, field, &at.key("frequency"))?;
-        crate::model::value(field, hz).map_err(|e| e.at(at.key("frequency")).with_value(&m.frequency))?;
+        crate::model::value(field, hz).map_err(|e| e.at(at.clone()).with_value(&m.frequency))?;
         let elastic = m.mode.checked_sub(solved.rigid + 1).filter(|k| *k < solved.elastic_hz.len());
         let Some(k) = elastic else {
             let shown = solved.rigid + solved.elastic_hz.len();
