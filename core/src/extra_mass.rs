@@ -194,11 +194,9 @@ pub fn breakdown(
                 Some(quantity) => {
                     let field = &FieldPath::from("submerged").key("water_density");
                     let rho_w = read(quantity, Kind::Density, field)?;
-                    if rho_w <= 0.0 {
-                        return Err(Error::new(ErrorKind::OutOfRange, "the water density must be positive")
-                            .at(field)
-                            .with_value(quantity));
-                    }
+                    // The schema's range, as the format's documentation gives it.
+                    crate::model::value(&crate::schema::SUBMERGED_FIELDS[0], rho_w)
+                        .map_err(|e| e.at("submerged").with_value(quantity))?;
                     rho_w
                 }
             };
