@@ -136,34 +136,14 @@ impl SymBand {
     /// Solves A·x = r for a symmetric positive definite A. Returns `None` when a pivot is not
     /// positive (the matrix is singular or indefinite).
     pub(crate) fn solve_positive(&self, rhs: &[Vec<f64>]) -> Option<Vec<Vec<f64>>> {
-        let mut f = self.clone();
-        let d = f.factor_in_place();
+        let mut factors = self.clone();
+        let d = factors.factor_in_place();
         let scale = (0..self.n).map(|i| self.data[i * (self.b + 1)].abs()).fold(0.0, f64::max);
         if d.iter().any(|p| !(p.is_finite() && *p > 1e-14 * scale)) {
             return None;
         }
-        let (n, b, w) = (self.n, self.b, self.b + 1);
-        Some(
-            rhs.iter()
-                .map(|r| {
-                    let mut x = r.clone();
-                    for i in 0..n {
-                        for k in i.saturating_sub(b)..i {
-                            x[i] -= f.data[i * w + (i - k)] * x[k];
-                        }
-                    }
-                    for i in 0..n {
-                        x[i] /= d[i];
-                    }
-                    for i in (0..n).rev() {
-                        for r in (i + 1)..n.min(i + b + 1) {
-                            x[i] -= f.data[r * w + (r - i)] * x[r];
-                        }
-                    }
-                    x
-                })
-                .collect(),
-        )
+        let ldlt = Ldlt { factors, d };
+        Some(rhs.iter().map(|r| ldlt.solve(r)).collect())
     }
 }
 
@@ -189,16 +169,15 @@ fn ldl_step(data: &mut [f64], j: usize, w: usize, m: usize, column: &mut [f64]) 
 }
 
 /// An LDLᵀ factorisation: L in the strict lower band of `factors`, D in `d`.
-#[cfg(test)]
 #[derive(Clone, Debug)]
 pub(crate) struct Ldlt {
     factors: SymBand,
     d: Vec<f64>,
 }
 
-#[cfg(test)]
 impl Ldlt {
     /// Number of negative pivots, the number of negative eigenvalues.
+    #[cfg(test)]
     pub(crate) fn negative(&self) -> usize {
         self.d.iter().filter(|p| **p < 0.0).count()
     }
@@ -232,19 +211,12 @@ mod tests {
 
     /// A reproducible symmetric band matrix with entries in (−1, 1) and a shifted diagonal.
     fn sample(n: usize, b: usize, shift: f64, seed: u64) -> (SymBand, DMatrix<f64>) {
-        let mut s = seed;
-        let mut next = || {
-            s = s.wrapping_add(0x9E37_79B9_7F4A_7C15);
-            let mut z = s;
-            z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-            z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-            ((z ^ (z >> 31)) >> 11) as f64 / (1u64 << 53) as f64 * 2.0 - 1.0
-        };
+        let mut rng = modebench_tests::random::Rng::new(seed);
         let mut band = SymBand::zeros(n, b);
         let mut dense = DMatrix::zeros(n, n);
         for i in 0..n {
             for j in i.saturating_sub(b)..=i {
-                let v = next() + if i == j { shift } else { 0.0 };
+                let v = rng.range(-1.0, 1.0) + if i == j { shift } else { 0.0 };
                 band.add(i, j, v);
                 dense[(i, j)] = v;
                 dense[(j, i)] = v;

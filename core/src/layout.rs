@@ -105,7 +105,7 @@ impl Layout {
                          magnitude (check the units), or ask for fewer modes"
                     ),
                 )
-                .at(format!("segments[{}]", span.segment)));
+                .at(crate::path::FieldPath::item("segments", span.segment)));
             }
             for p in 0..n {
                 points.push(a + (b - a) * p as f64 / n as f64);

@@ -124,6 +124,16 @@ pub struct SectionProps {
     pub conversions: Vec<(FieldPath, Conversion)>,
 }
 
+/// A dimension as typed, with the metre it was read in when it was typed without a unit: "4" in
+/// a message beside "60 mm" would not say that it was taken as 4 m.
+fn as_typed(q: &Quantity) -> String {
+    if q.has_unit() {
+        q.to_string()
+    } else {
+        format!("{q} m")
+    }
+}
+
 /// Computes the properties of a section for a material with Poisson's ratio `poisson`.
 ///
 /// Errors carry a path relative to the section (`wall`), which the caller prefixes.
@@ -150,7 +160,9 @@ pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Er
                 return Err(Error::new(
                     ErrorKind::Conflict,
                     format!(
-                        "the wall ({wall}) must be thinner than half the outer diameter ({outer_diameter})"
+                        "the wall ({}) must be thinner than half the outer diameter ({})",
+                        as_typed(wall),
+                        as_typed(outer_diameter)
                     ),
                 )
                 .at("wall")
@@ -187,7 +199,11 @@ pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Er
                 let smaller = if b <= h { width } else { depth };
                 return Err(Error::new(
                     ErrorKind::Conflict,
-                    format!("the wall ({wall}) must be thinner than half the smaller side ({smaller})"),
+                    format!(
+                        "the wall ({}) must be thinner than half the smaller side ({})",
+                        as_typed(wall),
+                        as_typed(smaller)
+                    ),
                 )
                 .at("wall")
                 .with_value(wall));

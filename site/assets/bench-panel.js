@@ -18,6 +18,11 @@
 //
 // Recordings never leave the device: they go from the microphone, sensor or file to the worker
 // and nowhere else, and are not stored.
+//
+// Longer than 400 lines on purpose: the panel is one class whose methods share one recording's
+// state (the source running and how to stop it, the answer its peaks were matched with, the rows
+// to keep), and a second module would be a second request, made only after this one is read,
+// when a reader opens a panel at the bench.
 
 const LONGEST_S = 60; // a microphone or sensor record stops by itself after this long
 const LARGEST_FILE_BYTES = 200_000_000; // the core reads no larger file (bench::MAX_BYTES)

@@ -9,17 +9,18 @@ use anyhow::Result;
 use modebench_ui::render::escape;
 
 use crate::calculator;
-use crate::template::CSP;
+use crate::template::{self, CSP};
 
 /// The file the embed page is written to.
 pub(crate) const FILE: &str = "embed.html";
 
-/// The example shown when the fragment carries no case.
-const EXAMPLE: &str = "file: docs/scenarios/sensor-boom.json";
+/// The example shown when the fragment carries no case (here and in the single file).
+pub(crate) const EXAMPLE: &str = "file: docs/scenarios/sensor-boom.json";
 
 /// The whole embed page; `engine` as for every page (without it the calculator stays fixed).
 pub(crate) fn document(root: &Path, engine: bool) -> Result<String> {
     let calculator = calculator::render(EXAMPLE, root)?;
+    let title = escape("Modebench calculator");
     let boot = if engine {
         "<link rel=\"modulepreload\" href=\"assets/modebench_page.js\">\n\
          <script type=\"module\" src=\"assets/boot.js\"></script>\n"
@@ -27,32 +28,34 @@ pub(crate) fn document(root: &Path, engine: bool) -> Result<String> {
         ""
     };
     Ok(format!(
-        "<!doctype html>
-<html lang=\"en\">
-<head>
-<meta charset=\"utf-8\">
-<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">
-<meta http-equiv=\"Content-Security-Policy\" content=\"{CSP}\">
-<title>{title}</title>
-<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
+        "{head}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
 <link rel=\"stylesheet\" href=\"assets/site.css\">
 <link rel=\"stylesheet\" href=\"assets/widget.css\">
 <link rel=\"stylesheet\" href=\"assets/print.css\" media=\"print\">
 {boot}<script type=\"module\" src=\"assets/offline.js\"></script>
 </head>
 <body class=\"embed\">
-<main id=\"content\" class=\"page page-embed\">
-<p class=\"sheet-head\">Modebench calculation sheet</p>
-<h1 class=\"embed-title\">{title}</h1>
-{calculator}
+{sheet}{calculator}
 <p class=\"embed-foot\"><a href=\"index.html\" target=\"_blank\">Modebench</a>: how the results are computed, \
 and the worked cases.</p>
 </main>
 </body>
 </html>
 ",
-        title = escape("Modebench calculator"),
+        head = template::head(CSP, &title),
+        sheet = sheet_head(&title),
     ))
+}
+
+/// The top of the calculation sheet that the embed page and the single file show: the sheet's
+/// heading and its title, escaped by the caller. It opens the page's `main` element.
+pub(crate) fn sheet_head(title: &str) -> String {
+    format!(
+        "<main id=\"content\" class=\"page page-embed\">
+<p class=\"sheet-head\">Modebench calculation sheet</p>
+<h1 class=\"embed-title\">{title}</h1>
+"
+    )
 }
 
 #[cfg(test)]

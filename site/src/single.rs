@@ -18,9 +18,8 @@ use anyhow::{bail, Context, Result};
 use modebench_ui::render::escape;
 
 use crate::calculator;
-
-/// The example shown when the address carries no case (the embed page's).
-const EXAMPLE: &str = "file: docs/scenarios/sensor-boom.json";
+use crate::embed;
+use crate::template;
 
 /// The no-modules engine files `xtask` binds into the folder given to `single`.
 pub(crate) const ENGINE_FILES: [&str; 4] =
@@ -37,7 +36,7 @@ pub(crate) fn write(root: &Path, wasm: &Path, out: &Path) -> Result<u64> {
     };
     let assets = root.join("site").join("assets");
     let parts = Parts {
-        calculator: calculator::render(EXAMPLE, root)?,
+        calculator: calculator::render(embed::EXAMPLE, root)?,
         styles: [text(&assets, "site.css")?, text(&assets, "widget.css")?],
         print: text(&assets, "print.css")?,
         page_glue: text(wasm, ENGINE_FILES[0])?,
@@ -92,23 +91,13 @@ fn document(parts: &Parts) -> Result<String> {
     let policy = policy(&script, &parts.styles, &parts.print);
     let title = escape("Modebench calculator");
     Ok(format!(
-        "<!doctype html>
-<html lang=\"en\">
-<head>
-<meta charset=\"utf-8\">
-<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">
-<meta http-equiv=\"Content-Security-Policy\" content=\"{policy}\">
-<title>{title}</title>
-<style>{site}</style>
+        "{head}<style>{site}</style>
 <style>{widget}</style>
 <style media=\"print\">{print}</style>
 <script type=\"module\">{script}</script>
 </head>
 <body class=\"embed single\">
-<main id=\"content\" class=\"page page-embed\">
-<p class=\"sheet-head\">Modebench calculation sheet</p>
-<h1 class=\"embed-title\">{title}</h1>
-<p class=\"single-note\">One file that holds the whole calculator and its engine: it works opened \
+{sheet}<p class=\"single-note\">One file that holds the whole calculator and its engine: it works opened \
 from disk, with no network. Your cases stay in this browser on this device; send one as a link or \
 a scenario file from the calculator's menu.</p>
 {calculator}
@@ -126,6 +115,8 @@ engineer.</p>
         print = parts.print,
         calculator = parts.calculator,
         page_engine = digest::base64(&parts.page_engine),
+        head = template::head(&policy, &title),
+        sheet = embed::sheet_head(&title),
     ))
 }
 
@@ -185,7 +176,7 @@ mod tests {
         let assets = root.join("site/assets");
         let css = |name: &str| std::fs::read_to_string(assets.join(name)).unwrap();
         Parts {
-            calculator: calculator::render(EXAMPLE, root).unwrap(),
+            calculator: calculator::render(embed::EXAMPLE, root).unwrap(),
             styles: [css("site.css"), css("widget.css")],
             print: css("print.css"),
             page_glue: "let wasm_bindgen; (function () { wasm_bindgen = () => {}; })();".into(),

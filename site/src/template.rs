@@ -55,14 +55,7 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
         format!("<meta name=\"description\" content=\"{}\">\n", escape(&page.summary))
     };
     format!(
-        "<!doctype html>
-<html lang=\"en\">
-<head>
-<meta charset=\"utf-8\">
-<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">
-<meta http-equiv=\"Content-Security-Policy\" content=\"{CSP}\">
-<title>{head_title}</title>
-{summary}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
+        "{head}{summary}<link rel=\"icon\" href=\"assets/mark.svg\" type=\"image/svg+xml\">
 <link rel=\"manifest\" href=\"assets/manifest.webmanifest\">
 <link rel=\"stylesheet\" href=\"assets/site.css\">
 {widget_css}<link rel=\"stylesheet\" href=\"assets/print.css\" media=\"print\">
@@ -86,9 +79,26 @@ that matter by test, and follow the codes that apply and a qualified engineer.</
 </body>
 </html>
 ",
+        head = head(CSP, &head_title),
         nav = navigation(page, frame.pages),
         slug = page.slug,
         mark = brand_mark(),
+    )
+}
+
+/// The opening of every HTML document the site writes, up to its title: the policy it runs
+/// under (as a `meta` element, which a page opened from disk obeys too) and the title, escaped
+/// by the caller.
+pub(crate) fn head(policy: &str, title: &str) -> String {
+    format!(
+        "<!doctype html>
+<html lang=\"en\">
+<head>
+<meta charset=\"utf-8\">
+<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">
+<meta http-equiv=\"Content-Security-Policy\" content=\"{policy}\">
+<title>{title}</title>
+"
     )
 }
 

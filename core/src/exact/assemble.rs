@@ -42,7 +42,7 @@ impl System {
                         omega / std::f64::consts::TAU
                     ),
                 )
-                .at(format!("segments[{}]", span.segment)));
+                .at(crate::path::FieldPath::item("segments", span.segment)));
             };
             poles = poles.saturating_add(count);
             let ids = layout.span_dofs(span);

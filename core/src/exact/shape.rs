@@ -11,7 +11,9 @@
 //!
 //! Normalisation: the largest translation anywhere (beam or sprung mass) is +1.
 
+mod energy;
 mod gradient;
+mod sample;
 
 pub use gradient::{Gradient, SegmentGradient};
 
@@ -22,11 +24,8 @@ use crate::exact::System;
 use crate::layout::Layout;
 use crate::member::Member;
 use crate::model::Model;
-
-/// Points sampled along the beam for plotting (at least).
-const SAMPLES: usize = 160;
-/// Deflections below this fraction of the largest count as zero when looking for nodes.
-const ZERO: f64 = 1e-9;
+use energy::inner;
+use sample::{normalise, resample};
 
 /// A normalised mode shape.
 #[derive(Clone, Debug, PartialEq)]
@@ -62,64 +61,6 @@ impl ModeShape {
         let i = self.pieces.partition_point(|p| p.x0 + p.length < x).min(self.pieces.len() - 1);
         let p = &self.pieces[i];
         p.member.propagate(self.omega, p.state, (x - p.x0).clamp(0.0, p.length))
-    }
-
-    /// The mass-weighted inner product of two shapes of the same model:
-    /// ∫ m·φ·ψ dx + ∫ ρI·φ′·ψ′ dx + Σ point masses and rotary inertias + Σ sprung masses.
-    /// Zero (to rounding) for two different modes: the modes are mass-orthogonal.
-    pub fn mass_product(&self, other: &ModeShape, model: &Model) -> f64 {
-        inner(model, self, other)
-    }
-
-    /// Rayleigh's quotient of the shape as computed, ω² = U/T: the strain energy in bending (and
-    /// shear), springs and isolators over the kinetic energy per ω². For the exact mode shape it
-    /// is exactly ω², and it is stationary there, so for a computed one it errs only to second
-    /// order in the shape's error: how far its root lies from the frequency the shape was
-    /// computed at measures that frequency's error.
-    pub fn rayleigh_quotient(&self, model: &Model) -> f64 {
-        let mut strain = 0.0;
-        for p in &self.pieces {
-            let half = 0.5 * p.length;
-            for (xi, weight) in GAUSS {
-                let x = half * (1.0 + xi);
-                strain += weight * half * p.member.strain_density(self.omega, p.state, x);
-            }
-        }
-        let (kt_left, kr_left) = model.left().springs();
-        let (kt_right, kr_right) = model.right().springs();
-        for (x, kt, kr) in [(0.0, kt_left, kr_left), (model.length(), kt_right, kr_right)] {
-            let (w, t) = self.at(x);
-            strain += finite(kt) * w * w + finite(kr) * t * t;
-        }
-        for (index, a) in model.attachments().iter().enumerate() {
-            match *a {
-                crate::model::Attachment::Spring { position, stiffness } => {
-                    strain += finite(stiffness) * self.at(position).0.powi(2);
-                }
-                crate::model::Attachment::RotationalSpring { position, stiffness } => {
-                    strain += finite(stiffness) * self.at(position).1.powi(2);
-                }
-                crate::model::Attachment::SprungMass { position, stiffness, .. } => {
-                    let d = self.sprung.iter().find(|(i, _)| *i == index).map_or(0.0, |(_, d)| *d);
-                    strain += stiffness * (self.at(position).0 - d).powi(2);
-                }
-                _ => {}
-            }
-        }
-        strain / inner(model, self, self)
-    }
-
-    fn scale(&mut self, factor: f64) {
-        for v in &mut self.deflection {
-            *v *= factor;
-        }
-        for (_, v) in &mut self.sprung {
-            *v *= factor;
-        }
-        for p in &mut self.pieces {
-            p.state.iter_mut().for_each(|v| *v *= factor);
-        }
-        self.generalized_mass *= factor * factor;
     }
 }
 
@@ -270,24 +211,6 @@ fn build(model: &Model, omega: f64, response: &crate::exact::solve::Response) ->
     shape
 }
 
-/// Samples the deflection for plotting: at least [`SAMPLES`] points, each piece's ends included.
-fn resample(s: &mut ModeShape) {
-    let per_piece = SAMPLES.div_ceil(s.pieces.len().max(1)).max(2);
-    s.x.clear();
-    s.deflection.clear();
-    for p in &s.pieces {
-        for j in 0..per_piece {
-            let local = p.length * j as f64 / per_piece as f64;
-            s.x.push(p.x0 + local);
-            s.deflection.push(p.member.propagate(s.omega, p.state, local).0);
-        }
-    }
-    if let Some(p) = s.pieces.last() {
-        s.x.push(p.x0 + p.length);
-        s.deflection.push(p.member.propagate(s.omega, p.state, p.length).0);
-    }
-}
-
 fn subtract(target: &mut ModeShape, other: &ModeShape, c: f64) {
     for (p, o) in target.pieces.iter_mut().zip(&other.pieces) {
         for (a, b) in p.state.iter_mut().zip(o.state) {
@@ -297,115 +220,6 @@ fn subtract(target: &mut ModeShape, other: &ModeShape, c: f64) {
     for ((_, a), (_, b)) in target.sprung.iter_mut().zip(&other.sprung) {
         *a -= c * b;
     }
-}
-
-/// A stiffness that is not rigid; a rigid one holds its point still and stores no energy.
-fn finite(k: f64) -> f64 {
-    if k.is_finite() {
-        k
-    } else {
-        0.0
-    }
-}
-
-/// Gauss–Legendre 6-point abscissae and weights on [−1, 1] (Abramowitz & Stegun, table 25.4).
-const GAUSS: [(f64, f64); 6] = [
-    (-0.932_469_514_203_152, 0.171_324_492_379_170),
-    (-0.661_209_386_466_265, 0.360_761_573_048_139),
-    (-0.238_619_186_083_197, 0.467_913_934_572_691),
-    (0.238_619_186_083_197, 0.467_913_934_572_691),
-    (0.661_209_386_466_265, 0.360_761_573_048_139),
-    (0.932_469_514_203_152, 0.171_324_492_379_170),
-];
-
-fn inner(model: &Model, a: &ModeShape, b: &ModeShape) -> f64 {
-    // The two shapes may sit on different piece layouts (each is cut for its own frequency), so
-    // integrate over the union of their piece boundaries; within each interval both are smooth.
-    let mut cuts: Vec<f64> = a.pieces.iter().chain(&b.pieces).map(|p| p.x0).collect();
-    cuts.push(model.length());
-    crate::sort::floats(&mut cuts);
-    cuts.dedup_by(|x, y| (*x - *y).abs() <= 1e-12 * model.length());
-    let mut sum = 0.0;
-    for w in cuts.windows(2) {
-        let (x0, x1) = (w[0], w[1]);
-        let half = 0.5 * (x1 - x0);
-        let piece =
-            &a.pieces[a.pieces.partition_point(|p| p.x0 + p.length <= x0 + half).min(a.pieces.len() - 1)];
-        for (xi, weight) in GAUSS {
-            let x = x0 + half * (1.0 + xi);
-            let (wa, ta) = a.at(x);
-            let (wb, tb) = b.at(x);
-            sum +=
-                weight * half * (piece.mass_per_length * wa * wb + piece.rotary_inertia_per_length * ta * tb);
-        }
-    }
-    for attachment in model.attachments() {
-        if let crate::model::Attachment::Mass { position, mass, rotary_inertia } = *attachment {
-            let (wa, ta) = a.at(position);
-            let (wb, tb) = b.at(position);
-            sum += mass * wa * wb + rotary_inertia * ta * tb;
-        }
-    }
-    for ((i, ua), (_, ub)) in a.sprung.iter().zip(&b.sprung) {
-        if let crate::model::Attachment::SprungMass { mass, .. } = model.attachments()[*i] {
-            sum += mass * ua * ub;
-        }
-    }
-    sum
-}
-
-fn normalise(s: &mut ModeShape) {
-    let mut largest = 0.0f64;
-    for v in s.deflection.iter().chain(s.sprung.iter().map(|(_, a)| a)) {
-        if v.abs() > largest.abs() {
-            largest = *v;
-        }
-    }
-    if largest != 0.0 && largest.is_finite() {
-        s.scale(1.0 / largest);
-    }
-    s.nodes = nodes(s);
-}
-
-/// Points where the deflection changes sign, found from the samples and refined by bisection on
-/// the exact shape. A run of zero samples between opposite signs (a support) counts once, at
-/// its middle.
-fn nodes(s: &ModeShape) -> Vec<f64> {
-    let mut out = Vec::new();
-    let mut last: Option<(usize, f64)> = None;
-    for (i, &v) in s.deflection.iter().enumerate() {
-        if v.abs() <= ZERO {
-            continue;
-        }
-        if let Some((j, u)) = last {
-            if u.signum() != v.signum() {
-                if i > j + 1 {
-                    // Zero samples in between: the crossing is the middle of that run.
-                    out.push(0.5 * (s.x[j + 1] + s.x[i - 1]));
-                } else {
-                    out.push(bisect(s, s.x[j], s.x[i], u));
-                }
-            }
-        }
-        last = Some((i, v));
-    }
-    out
-}
-
-fn bisect(s: &ModeShape, mut a: f64, mut b: f64, value_at_a: f64) -> f64 {
-    // 44 halvings take a sample interval below a billionth of a micrometre on any real beam.
-    for _ in 0..44 {
-        let m = 0.5 * (a + b);
-        if m <= a || m >= b {
-            break;
-        }
-        if s.at(m).0.signum() == value_at_a.signum() {
-            a = m;
-        } else {
-            b = m;
-        }
-    }
-    0.5 * (a + b)
 }
 
 #[cfg(test)]
@@ -438,47 +252,5 @@ mod tests {
         assert_eq!(shape.sprung, vec![(0, 1.0)]);
         assert!(shape.deflection.iter().all(|w| w.is_finite() && w.abs() < 1e-9));
         assert!(shape.generalized_mass.is_finite() && (shape.generalized_mass - 180.0).abs() < 1e-6);
-    }
-
-    #[test]
-    fn rayleigh_quotient_of_each_mode_is_its_frequency() {
-        // Rayleigh's quotient of an exact mode shape is its ω² (a fact of the theory), for every
-        // kind of member, end and attachment; and a shape computed at a wrong frequency has a
-        // quotient that points back at the right one.
-        for theory in [Theory::EulerBernoulli, Theory::Timoshenko] {
-            let model = Model::new(ModelParts {
-                segments: vec![
-                    Segment {
-                        length: 0.8,
-                        flexural_rigidity: 3.0e3,
-                        mass_per_length: 6.0,
-                        shear_rigidity: Some(4.0e5),
-                        rotary_inertia_per_length: 0.004,
-                    },
-                    Segment {
-                        length: 1.1,
-                        flexural_rigidity: 1.5e3,
-                        mass_per_length: 4.0,
-                        shear_rigidity: Some(3.0e5),
-                        rotary_inertia_per_length: 0.002,
-                    },
-                ],
-                left: End::Elastic { translational: 2.0e5, rotational: 4.0e3 },
-                right: End::Pinned,
-                attachments: vec![
-                    Attachment::Mass { position: 0.5, mass: 1.2, rotary_inertia: 0.01 },
-                    Attachment::Spring { position: 1.4, stiffness: 3.0e4 },
-                    Attachment::RotationalSpring { position: 1.0, stiffness: 500.0 },
-                    Attachment::SprungMass { position: 1.6, mass: 0.7, stiffness: 2.0e4 },
-                    Attachment::Support { position: 1.2 },
-                ],
-                theory,
-            })
-            .unwrap();
-            for m in crate::exact::modes(&model, 5).unwrap() {
-                let rq = m.shape.rayleigh_quotient(&model).sqrt();
-                assert!(((rq - m.omega) / m.omega).abs() < 1e-12, "{theory:?}: {rq} vs {}", m.omega);
-            }
-        }
     }
 }

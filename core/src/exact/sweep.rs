@@ -67,7 +67,7 @@ pub(crate) fn pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
                      (check the units), or ask for fewer modes"
                 ),
             )
-            .at(format!("segments[{}]", span.segment)));
+            .at(crate::path::FieldPath::item("segments", span.segment)));
         }
         out.push(n);
     }
@@ -83,7 +83,7 @@ fn too_short_in_shear(omega: f64, segment: usize) -> Error {
             omega / std::f64::consts::TAU
         ),
     )
-    .at(format!("segments[{segment}]"))
+    .at(crate::path::FieldPath::item("segments", segment))
 }
 
 /// Two states at a cut: `z[row][column]` with rows (w, θ, Q, M).

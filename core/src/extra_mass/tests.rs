@@ -84,6 +84,20 @@ fn impossible_extra_mass_is_rejected_with_the_field_named() {
         let e = breakdown(section, STEEL, &extra(json)).expect_err(json);
         assert_eq!((e.kind, e.path.to_string().as_str()), (*kind, *path), "{json}: {e}");
     }
+    // The water density's range is the one the format's documentation gives
+    // (docs/scenario-format.md, `submerged`: between 1 and 100000 kg/m³), echoed with what was
+    // typed; 0.5 kg/m³ is no water.
+    let e =
+        breakdown(&pipe(), STEEL, &extra(r#"{"submerged": {"water_density": "0.5 kg/m^3"}}"#)).unwrap_err();
+    assert_eq!(
+        (e.kind, e.path.to_string().as_str()),
+        (ErrorKind::OutOfRange, "submerged.water_density"),
+        "{e}"
+    );
+    assert!(
+        e.to_string().contains("between 1 and 100000 kg/m³") && e.to_string().contains("\"0.5 kg/m^3\""),
+        "{e}"
+    );
     let e = breakdown(&rectangle(), STEEL, &extra(r#"{"submerged": {}}"#)).unwrap_err();
     assert!(e.message.contains("only modelled for round sections"), "{}", e.message);
     let e = breakdown(&rectangle(), STEEL, &extra(r#"{"contents_density": 1000}"#)).unwrap_err();

@@ -230,3 +230,86 @@ fn an_extra_mass_or_shear_coefficient_out_of_range_is_named_where_it_was_typed()
     assert_eq!(e.path, "segments[0].section.shear_coefficient", "{e}");
     assert!(e.to_string().contains("got 1e-30"), "{e}");
 }
+
+#[test]
+fn a_value_outside_its_documented_range_is_echoed_as_typed_with_the_range() {
+    // The allowed ranges are those docs/scenario-format.md gives for each field; every refusal
+    // repeats the value as typed, unit and all, and says what is allowed.
+    type Change = fn(&mut Value);
+    let cases: [(Change, &str, &str, &str); 13] = [
+        (
+            |s| s["segments"][0]["length"] = json!("0 ft"),
+            "segments[0].length",
+            "0 ft",
+            "between 1e-9 and 1e6 m",
+        ),
+        (
+            |s| s["segments"][0]["section"]["outer_diameter"] = json!("-2 in"),
+            "segments[0].section.outer_diameter",
+            "-2 in",
+            "between 1e-9 and 1e6 m",
+        ),
+        (
+            |s| s["segments"][0]["material"] = json!({ "youngs_modulus": "1 Pa", "density": "7850 kg/m^3" }),
+            "segments[0].material.youngs_modulus",
+            "1 Pa",
+            "between 1000 and 1e13 Pa",
+        ),
+        (
+            |s| {
+                s["segments"][0]["material"] = json!({ "youngs_modulus": "200 GPa", "density": "0.5 kg/m^3" })
+            },
+            "segments[0].material.density",
+            "0.5 kg/m^3",
+            "between 1 and 100000 kg/m³",
+        ),
+        (
+            |s| s["segments"][0]["axial_force"] = json!("1e15 lbf"),
+            "segments[0].axial_force",
+            "1e15 lbf",
+            "between -1e12 and 1e12 N",
+        ),
+        (
+            |s| s["segments"][0]["extra_mass"] = json!({ "lining": "-1 lb/ft" }),
+            "segments[0].extra_mass.lining",
+            "-1 lb/ft",
+            "must not be negative",
+        ),
+        (
+            |s| s["segments"][0]["extra_mass"] = json!({ "submerged": { "water_density": "0.5 kg/m^3" } }),
+            "segments[0].extra_mass.submerged.water_density",
+            "0.5 kg/m^3",
+            "between 1 and 100000 kg/m³",
+        ),
+        (|s| s["attachments"][0]["mass"] = json!("-3 lb"), "attachments[0].mass", "-3 lb", "zero or more"),
+        (|s| s["attachments"][0]["position"] = json!("2 m"), "attachments[0].position", "2 m", "0 to 1.45 m"),
+        (
+            |s| s["left"] = json!({ "type": "elastic", "translational": "-5 lbf/in" }),
+            "left.translational",
+            "-5 lbf/in",
+            "between 0 and 1e20 N/m, or \"rigid\"",
+        ),
+        (
+            |s| s["excitations"] = json!([{ "frequency": "-5 Hz" }]),
+            "excitations[0].frequency",
+            "-5 Hz",
+            "greater than zero",
+        ),
+        (|s| s["margin"] = json!("150 %"), "margin", "150 %", "between 0 and 100 %"),
+        (
+            |s| s["excitations"] = json!([{ "frequency": "1800 rpm", "up_to": "-10 Hz" }]),
+            "excitations[0].up_to",
+            "-10 Hz",
+            "greater than zero",
+        ),
+    ];
+    for (change, path, typed, allowed) in cases {
+        let mut s = tube();
+        change(&mut s);
+        let e = refused(&s);
+        let shown = e.to_string();
+        assert_eq!(e.path, path, "{shown}");
+        assert!(shown.contains(&format!("got \"{typed}\"")), "{shown} repeats {typed:?} as typed");
+        assert!(shown.contains(allowed), "{shown} says what is allowed: {allowed}");
+    }
+}

@@ -408,3 +408,22 @@ fn a_thin_wall_on_a_large_box_keeps_its_area() {
     // I = (bh³ − bᵢhᵢ³)/12 ≈ (2t·h³ + b·3h²·2t)/12 = 2t·b³·4/12 to first order in t.
     check("thin box I ≈ (2/3)t·b³", ROARK, 2.0 / 3.0 * t * b.powi(3), thin.second_moment, 1e-9);
 }
+
+#[test]
+fn a_wall_typed_without_a_unit_is_shown_in_the_metres_it_was_read_in() {
+    // docs/scenario-format.md: "a number without a unit is always SI", so "4" is a 4 m wall;
+    // the message says so beside the diameter as typed, instead of a bare "4".
+    let tube = SectionInput::Tube { outer_diameter: q("60 mm"), wall: q("4") };
+    let e = properties(&tube, NU).unwrap_err();
+    assert!(e.message.contains("the wall (4 m) must be thinner than half the outer diameter (60 mm)"), "{e}");
+    let box_section =
+        SectionInput::RectangularTube { width: q("40 mm"), depth: Quantity::Number(0.06), wall: q("30 mm") };
+    let e = properties(&box_section, NU).unwrap_err();
+    assert!(e.message.contains("the wall (30 mm) must be thinner than half the smaller side (40 mm)"), "{e}");
+    let e = properties(
+        &SectionInput::RectangularTube { width: q("1 m"), depth: Quantity::Number(0.06), wall: q("40 mm") },
+        NU,
+    )
+    .unwrap_err();
+    assert!(e.message.contains("half the smaller side (0.06 m)"), "{e}");
+}

@@ -65,6 +65,17 @@ impl std::fmt::Display for Quantity {
     }
 }
 
+impl Quantity {
+    /// Whether a unit was written: a plain number, or a text that is a number alone, is read as
+    /// SI, which a message should then say.
+    pub fn has_unit(&self) -> bool {
+        match self {
+            Quantity::Number(_) => false,
+            Quantity::Text(text) => parse::parse_text(text).map_or(true, |p| !p.factors.is_empty()),
+        }
+    }
+}
+
 impl<'de> serde::Deserialize<'de> for Quantity {
     /// Accepts a JSON number or string, with a message that says so for anything else (an
     /// untagged derive would only say that no variant matched).
@@ -169,6 +180,11 @@ pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
                 .unwrap_or_default();
             let separator = if e.message.ends_with('?') { " " } else { ". " };
             e.message = format!("{}{separator}{capital} is written in units like {examples}", e.message);
+        }
+        if kind != Kind::Length {
+            // The example is of the field's own kind: "27.2 Hz" for a frequency, not a length.
+            let example = display::examples(kind).first().map_or("27.2".to_string(), |u| format!("27.2 {u}"));
+            e.message = e.message.replace("\"27.2 in\"", &format!("\"{example}\""));
         }
         e.with_value(&shown)
     })?;

@@ -346,3 +346,18 @@ fn converted_values_carry_the_digits_typed_and_one_more() {
         assert!(!number.contains("0000000") && !number.contains("9999999"), "{shown}");
     }
 }
+
+#[test]
+fn a_value_without_its_number_is_answered_with_an_example_of_its_own_kind() {
+    // Common practice, no source: the example in a message is one the field accepts, so a fan
+    // speed typed as "rpm" is not told to write "27.2 in".
+    let frequency = parse("rpm", Kind::Frequency).unwrap_err();
+    assert!(
+        frequency.message.contains("as in \"27.2 Hz\"") && !frequency.message.contains(" in\""),
+        "{frequency}"
+    );
+    let length = parse("mm", Kind::Length).unwrap_err();
+    assert!(length.message.contains("as in \"27.2 in\""), "{length}");
+    let empty = parse(" ", Kind::Mass).unwrap_err();
+    assert!(empty.message.contains("as in \"27.2 kg\""), "{empty}");
+}

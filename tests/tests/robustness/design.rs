@@ -102,6 +102,24 @@ fn badly_put_requests_are_refused_by_their_field() {
         ),
         // A measured mode that was not computed, a calibration without measurements, three unknowns.
         (json!({ "measured": [{ "mode": 9, "frequency": "60 Hz" }] }), "measured[0].mode", "modes up to 3"),
+        // Values outside the ranges the format's documentation gives (docs/scenario-format.md:
+        // a mode's number from 1, a measured frequency above zero, 20 to 1000 points), each
+        // refused at its own field and not at a field inside it.
+        (
+            json!({ "measured": [{ "mode": 0, "frequency": "60 Hz" }] }),
+            "measured[0].mode",
+            "a whole number from 1 to 26",
+        ),
+        (
+            json!({ "measured": [{ "mode": 1, "frequency": "-10 Hz" }] }),
+            "measured[0].frequency",
+            "must be greater than zero",
+        ),
+        (
+            json!({ "resize": { "field": "segments[0].section.wall", "from": "2 mm", "to": "8 mm", "points": 5 } }),
+            "resize.points",
+            "a whole number from 20 to 1000",
+        ),
         (
             json!({ "calibrate": [{ "field": "left.rotational", "from": "1e3 N*m/rad", "to": "1e7 N*m/rad" }] }),
             "measured",

@@ -8,6 +8,7 @@ pub mod design;
 mod edit;
 pub mod history;
 pub mod path;
+mod presets;
 pub mod text;
 
 #[cfg(test)]

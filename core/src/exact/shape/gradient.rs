@@ -10,7 +10,8 @@
 //! taken part by part. Lengths and positions move the stations, not only the energies; they have
 //! no entry here, and [`Gradient::change`] declines a change of them.
 
-use super::{ModeShape, GAUSS};
+use super::energy::GAUSS;
+use super::ModeShape;
 use crate::member::Member;
 use crate::model::{Attachment, Model, Segment};
 
