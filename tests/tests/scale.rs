@@ -10,7 +10,7 @@
 //! separation within its own error estimate.
 
 use modebench::{analyse, exact, Attachment, End, Model, ModelParts, Options, Segment, Theory};
-use modebench_tests::random::Rng;
+use modebench_tests::random::{self, Rng};
 use modebench_tests::reference;
 use serde_json::{json, Value};
 
@@ -240,4 +240,34 @@ fn a_mass_just_past_a_segment_joint_gives_the_right_answer() {
         })
         .collect();
     against_reference(&cases, 4);
+}
+
+#[test]
+fn random_models_with_crowded_stations_match_the_reference() {
+    // A seeded campaign of random models once found 19 in 20,000 with frequencies off by 1.9e-5
+    // to 7.6e-2 and no warning (a count's bracket that missed its root). Here each random model
+    // (segments, ends, masses, springs, sprung masses, supports) gets one more mass a hair from
+    // an attachment or a segment joint, 1e-9, 1e-6 or 1e-4 of the length away.
+    let mut rng = Rng::new(0xC_1055);
+    let kinds = random::Kinds { unrestrained: false, sprung: true, supports: true, timoshenko: false };
+    let mut cases: Vec<(String, Model)> = Vec::new();
+    for i in 0..200 {
+        let base = random::model(&mut rng, kinds);
+        let length = base.length();
+        let gap = [1e-9, 1e-6, 1e-4][i % 3] * length;
+        let joint = base.segments()[0].length;
+        let anchor = match (base.attachments().first(), i % 2) {
+            (Some(a), 0) => a.position(),
+            _ if base.segments().len() > 1 => joint,
+            _ => rng.range(0.2, 0.8) * length,
+        };
+        let x = if anchor + gap < length { anchor + gap } else { anchor - gap };
+        let mut attachments = base.attachments().to_vec();
+        attachments.push(Attachment::Mass { position: x, mass: rng.range(0.1, 1.0), rotary_inertia: 0.0 });
+        if let Ok(m) = base.with_attachments(attachments) {
+            cases.push((format!("random model {i}, a mass {gap:.0e} m from {anchor}"), m));
+        }
+    }
+    assert!(cases.len() > 150, "only {} models were valid", cases.len());
+    against_reference(&cases, 6);
 }
