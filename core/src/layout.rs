@@ -40,17 +40,6 @@ pub(crate) struct SprungDof {
     pub(crate) attachment: usize,
 }
 
-/// Attachments that act on the deflection alone (a mass without rotary inertia, a spring, a
-/// sprung mass) closer than this fraction of the beam's length to a point whose deflection is
-/// held (a support, a rigid spring, an end that holds it) are placed on that point. There the
-/// beam moves by the slope times the distance, so what such an attachment adds to a mode's
-/// energies is of the order of (distance / length)² of what it would add elsewhere, below 1e-14
-/// here (a fact of the theory): the support absorbs it. Left apart, the piece between them is so
-/// short that its stiffness swamps the count in double precision, which then found a frequency
-/// that is not there. (A rotational spring or rotary inertia acts on the slope, which changes
-/// to first order over the distance, so it stays where it is.)
-pub(crate) const ON_HELD_POINT: f64 = 1e-7;
-
 /// Most stations one layout may have. Real models need a few hundred at most; more means
 /// segments so different in stiffness or mass that one of them holds thousands of waves at the
 /// frequencies asked for.
@@ -91,14 +80,13 @@ impl Layout {
     ) -> Result<Layout> {
         let length = model.length();
         let tolerance = SAME_POINT * length;
-        let place = held_points(model);
         let mut xs = vec![0.0, length];
         let mut x = 0.0;
         for s in &model.segments()[..model.segments().len() - 1] {
             x += s.length;
             xs.push(x);
         }
-        xs.extend(model.attachments().iter().map(&place));
+        xs.extend(model.attachments().iter().map(Attachment::position));
         xs.extend(extra.iter().copied().filter(|x| x.is_finite() && *x > 0.0 && *x < length));
         let natural = merge_points(xs, tolerance);
 
@@ -140,7 +128,7 @@ impl Layout {
         }
         let mut sprung_at: Vec<Vec<(usize, f64, f64)>> = vec![Vec::new(); stations.len()];
         for (index, a) in model.attachments().iter().enumerate() {
-            let i = nearest(place(a));
+            let i = nearest(a.position());
             let s = &mut stations[i];
             match *a {
                 Attachment::Mass { mass, rotary_inertia, .. } => {
@@ -179,37 +167,6 @@ impl Layout {
             })
             .collect();
         Ok(Layout { stations, spans })
-    }
-}
-
-/// Where each attachment is placed: one that acts on the deflection alone on the nearest point
-/// whose deflection is held when it lies within [`ON_HELD_POINT`] of the length from one, any
-/// other where it is.
-pub(crate) fn held_points(model: &Model) -> impl Fn(&Attachment) -> f64 {
-    let length = model.length();
-    let mut held: Vec<f64> =
-        model.attachments().iter().filter(|a| a.holds_deflection()).map(Attachment::position).collect();
-    for (x, end) in [(0.0, model.left()), (length, model.right())] {
-        if end.springs().0 == f64::INFINITY {
-            held.push(x);
-        }
-    }
-    let reach = ON_HELD_POINT * length;
-    move |a: &Attachment| {
-        let x = a.position();
-        let on_deflection = match *a {
-            Attachment::Mass { rotary_inertia, .. } => rotary_inertia == 0.0,
-            Attachment::Spring { .. } | Attachment::SprungMass { .. } => true,
-            Attachment::RotationalSpring { .. } | Attachment::Support { .. } => false,
-        };
-        if !on_deflection {
-            return x;
-        }
-        held.iter()
-            .copied()
-            .filter(|h| (h - x).abs() <= reach)
-            .min_by(|a, b| (a - x).abs().total_cmp(&(b - x).abs()))
-            .unwrap_or(x)
     }
 }
 

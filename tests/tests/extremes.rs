@@ -108,34 +108,3 @@ fn a_check_that_rounding_limits_says_so_and_never_advises_more_elements() {
         assert!(note.message.contains("softest spring"), "{case}: the cause is not named: {}", note.message);
     }
 }
-
-#[test]
-fn a_mass_a_hair_from_a_support_is_on_the_support() {
-    // A mass 1e-9 of the length beside an intermediate support once made the count find a
-    // frequency that is not there (mode 2 came out beside mode 1). The beam moves there by its
-    // slope times the distance, so the mass adds (1e-9)² of what it would add elsewhere to any
-    // mode's energies (a fact of the theory): the answer is the model with the mass on the
-    // support, and a note says so.
-    let scenario = |x: f64| {
-        json!({
-            "modes": 4, "left": "pinned", "right": "free",
-            "segments": [{ "length": 1, "flexural_rigidity": 1, "mass_per_length": 1 }],
-            "attachments": [
-                { "type": "support", "position": 0.4 },
-                { "type": "mass", "position": x, "mass": 0.5 }
-            ]
-        })
-    };
-    let on = solve(&scenario(0.4));
-    for gap in [2e-12, 1e-10, 1e-9, 5e-8] {
-        let beside = solve(&scenario(0.4 + gap));
-        let hz = |r: &Report| r.modes.iter().map(|m| m.frequency_hz).collect::<Vec<_>>();
-        assert_eq!(hz(&beside), hz(&on), "{gap:e} from the support");
-        assert!(
-            beside.warnings.iter().any(|w| w.code == WarningCode::SamePoint && w.message.contains("held")),
-            "{gap:e}: {:?}",
-            beside.warnings
-        );
-        check_the_check(&beside, &format!("a mass {gap:e} from a support"));
-    }
-}

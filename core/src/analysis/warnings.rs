@@ -80,9 +80,7 @@ pub(super) fn merged_points(model: &Model) -> Option<Warning> {
     let positions: Vec<f64> = model.attachments().iter().map(|a| a.position()).collect();
     let at: Vec<(f64, usize)> =
         crate::sort::order(&positions).into_iter().map(|i| (positions[i], i)).collect();
-    let Some(pair) = at.windows(2).find(|w| w[1].0 > w[0].0 && w[1].0 - w[0].0 <= tolerance) else {
-        return on_held_point(model);
-    };
+    let pair = at.windows(2).find(|w| w[1].0 > w[0].0 && w[1].0 - w[0].0 <= tolerance)?;
     let (first, second) = (pair[0].1.min(pair[1].1), pair[0].1.max(pair[1].1));
     Some(Warning {
         code: WarningCode::SamePoint,
@@ -119,22 +117,6 @@ impl Compared {
     fn difference(&self) -> f64 {
         (self.fe - self.exact) / self.exact
     }
-}
-
-/// A note when an attachment lies so close to a support (or another point whose deflection is
-/// held) that the solvers place it there (see `layout::ON_HELD_POINT`).
-fn on_held_point(model: &Model) -> Option<Warning> {
-    let place = crate::layout::held_points(model);
-    let (index, a) = model.attachments().iter().enumerate().find(|(_, a)| place(a) != a.position())?;
-    Some(Warning {
-        code: WarningCode::SamePoint,
-        message: format!(
-            "Attachment {} is {:.1e} m from a point the beam is held at, a ten-millionth of its length or less; it \
-             is treated as on that point, where the beam barely moves, which changes no frequency measurably.",
-            index + 1,
-            (place(a) - a.position()).abs()
-        ),
-    })
 }
 
 /// Bending stiffnesses of neighbouring segments this far apart are past what double precision
