@@ -279,7 +279,8 @@ fn attachments_a_hair_from_a_support_give_the_right_answer() {
     // and the count at the next station found a frequency that is not there (mode 2 beside
     // mode 1 with a mass 1e-9 of the length from a support; rotary inertia and rotational springs
     // alike).
-    let kinds: [(&str, fn(f64) -> Attachment); 5] = [
+    type Make = fn(f64) -> Attachment;
+    let kinds: [(&str, Make); 5] = [
         ("mass", |x| Attachment::Mass { position: x, mass: 0.5, rotary_inertia: 0.0 }),
         ("mass with rotary inertia", |x| Attachment::Mass { position: x, mass: 0.5, rotary_inertia: 0.01 }),
         ("rotational spring", |x| Attachment::RotationalSpring { position: x, stiffness: 5.0 }),
