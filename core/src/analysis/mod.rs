@@ -32,7 +32,9 @@ pub struct ModeResult {
     pub multiplicity: usize,
     /// Whether the mode is a rigid-body mode (0 Hz).
     pub rigid_body: bool,
-    /// Finite-element angular frequency, rad/s (`None` for rigid-body modes).
+    /// Finite-element angular frequency, rad/s: `None` for rigid-body modes, where the check
+    /// could not be computed, and from a frequency the check lists twice on (a mode it lost to
+    /// rounding; a note says so).
     pub fe_omega: Option<f64>,
     /// The finite-element check's own estimate of its relative error (mesh and round-off).
     pub fe_error: Option<f64>,
