@@ -14,11 +14,12 @@
 //! [`ErrorKind::NoConvergence`] instead of running on. Repeated frequencies stay unresolved by the
 //! count and are reported once per multiplicity at the centre of a tiny interval.
 //!
-//! The file runs past 400 lines on purpose: the sample list, the isolation loop and Brent's
-//! step share invariants (which samples are on which discretisation, which counts are trusted)
-//! that are easier to keep true when read together.
+//! This file isolates each frequency by the count; `roots/polish.rs` narrows an isolated one
+//! down with Brent's method on the determinant.
 
 use crate::error::{Error, ErrorKind, Result};
+
+mod polish;
 
 /// What one factorisation at a trial ω gives.
 #[derive(Clone, Copy, Debug, PartialEq)]
@@ -67,9 +68,6 @@ pub(crate) struct Work {
 const REPEATED: f64 = 1e-13;
 /// Relative tolerance of the polished root.
 const POLISH: f64 = 4e-14;
-/// The relative size of an interpolation step below which Brent's iteration is taken to have
-/// settled into its superlinear convergence (see [`brent`]).
-const SETTLED: f64 = 1e-6;
 /// How far above each hint (relative) it is probed.
 const HINT_OFFSET: f64 = 1e-9;
 /// Evaluations a search may spend besides those per mode (finding an upper bound, hints).
@@ -244,74 +242,6 @@ impl Search {
         let lo = self.samples[..hi].iter().rposition(|s| s.below < k).unwrap_or(0);
         (lo, hi)
     }
-
-    /// The one frequency in the sampled interval (lo, hi] (counts k − 1 and k), by Brent's
-    /// method on the determinant scaled by its larger value at the ends.
-    fn polish(
-        &mut self,
-        evaluator: &Evaluator<'_>,
-        lo: usize,
-        hi: usize,
-        known: &[f64],
-        tolerance: f64,
-    ) -> Result<f64> {
-        let (a, b) = (self.samples[lo], self.samples[hi]);
-        let (slo, llo) = match a.value {
-            Some(v) => v,
-            None => self.revalue(evaluator, lo)?,
-        };
-        let (shi, lhi) = match b.value {
-            Some(v) => v,
-            None => self.revalue(evaluator, hi)?,
-        };
-        if slo == shi {
-            // Only where an end sits within rounding of a root; the count still brackets it.
-            return Ok(0.5 * (a.omega + b.omega));
-        }
-        // The determinant divided by (ω − ωⱼ) for every frequency already found below the
-        // interval: those factors bend the determinant most across the interval, and without
-        // them the interpolation steps converge from the first. The product is positive inside
-        // the interval, so the sign change is the same. (Dividing also by the hints above the
-        // interval was tried and cost more evaluations on a warm start, not fewer.)
-        let deflated = |omega: f64, log: f64| log - known.iter().map(|w| (omega - w).ln()).sum::<f64>();
-        let (dlo, dhi) = (deflated(a.omega, llo), deflated(b.omega, lhi));
-        let reference = dlo.max(dhi);
-        let scaled = |omega: f64, sign: f64, log: f64| {
-            sign * (deflated(omega, log) - reference).clamp(-700.0, 700.0).exp()
-        };
-        let mut failure = None;
-        let root = brent(
-            a.omega,
-            scaled(a.omega, slo, llo),
-            b.omega,
-            scaled(b.omega, shi, lhi),
-            tolerance,
-            &mut |omega| match self.evaluate(evaluator, omega) {
-                Ok(e) => Some(scaled(omega, e.sign, e.log)),
-                Err(e) => {
-                    failure = Some(e);
-                    None
-                }
-            },
-        );
-        match (root, failure) {
-            (_, Some(e)) => Err(e),
-            (Some(root), None) => Ok(root),
-            (None, None) => Ok(0.5 * (a.omega + b.omega)),
-        }
-    }
-
-    /// Evaluates the sample at `index` again on the search's discretisation (its first value
-    /// was taken on another), in place.
-    fn revalue(&mut self, evaluator: &Evaluator<'_>, index: usize) -> Result<(f64, f64)> {
-        let omega = self.samples[index].omega;
-        let e = self.evaluate(evaluator, omega)?;
-        // `evaluate` inserted a second sample at the same ω (or a nudged one); keep one.
-        if let Some(at) = self.samples.iter().position(|s| s.omega == omega && s.value.is_none()) {
-            self.samples.remove(at);
-        }
-        Ok((e.sign, e.log))
-    }
 }
 
 /// Where to look next for the k-th frequency inside the sampled interval (a, b). Beam
@@ -341,90 +271,6 @@ fn next_trial(a: &Sample, b: &Sample, k: usize, roots: &[Root], tries: usize) ->
     } else {
         bisect
     }
-}
-
-/// Brent's method (Brent, *Algorithms for Minimization without Derivatives*, 1973, ch. 4) on a
-/// sign-changing bracket; `None` if the function stops being defined.
-fn brent(
-    mut a: f64,
-    mut fa: f64,
-    mut b: f64,
-    mut fb: f64,
-    tolerance: f64,
-    f: &mut dyn FnMut(f64) -> Option<f64>,
-) -> Option<f64> {
-    if fa == 0.0 {
-        return Some(a);
-    }
-    if fb == 0.0 {
-        return Some(b);
-    }
-    let (mut c, mut fc) = (a, fa);
-    let mut d = b - a;
-    let mut e = d;
-    // The interpolation step taken in this iteration (NaN when it bisected).
-    let mut p_over_q: f64;
-    for _ in 0..200 {
-        if fb.signum() == fc.signum() {
-            (c, fc) = (a, fa);
-            d = b - a;
-            e = d;
-        }
-        if fc.abs() < fb.abs() {
-            (a, fa) = (b, fb);
-            (b, fb) = (c, fc);
-            (c, fc) = (a, fa);
-        }
-        let tol = 2.0 * f64::EPSILON * b.abs() + 0.5 * tolerance * b.abs();
-        let m = 0.5 * (c - b);
-        if m.abs() <= tol || fb == 0.0 {
-            return Some(b);
-        }
-        if e.abs() >= tol && fa.abs() > fb.abs() {
-            let s = fb / fa;
-            let (mut p, mut q);
-            if a == c {
-                p = 2.0 * m * s;
-                q = 1.0 - s;
-            } else {
-                let qa = fa / fc;
-                let r = fb / fc;
-                p = s * (2.0 * m * qa * (qa - r) - (b - a) * (r - 1.0));
-                q = (qa - 1.0) * (r - 1.0) * (s - 1.0);
-            }
-            if p > 0.0 {
-                q = -q;
-            } else {
-                p = -p;
-            }
-            if 2.0 * p < (3.0 * m * q - (tol * q).abs()).min((e * q).abs()) {
-                e = d;
-                d = p / q;
-                p_over_q = d;
-            } else {
-                d = m;
-                p_over_q = f64::NAN;
-                e = m;
-            }
-        } else {
-            d = m;
-            p_over_q = f64::NAN;
-            e = m;
-        }
-        if d == p_over_q && d.abs() <= tol && e.abs() <= SETTLED * b.abs() {
-            // Two interpolation steps in a row, the last smaller than the tolerance and the one
-            // before it already small: convergence is superlinear there, so the stepped
-            // estimate's error is far smaller still, and evaluating it (or stepping across the
-            // root only to shrink the bracket) would cost one more factorisation for nothing.
-            // Far from the root a step can be small for other reasons (values at the ends that
-            // differ by many orders of magnitude), so the step before must be small too.
-            return Some(b + d);
-        }
-        (a, fa) = (b, fb);
-        b += if d.abs() > tol { d } else { tol.copysign(m) };
-        fb = f(b)?;
-    }
-    Some(b)
 }
 
 fn no_convergence(mode: usize, why: &str) -> Error {
@@ -494,9 +340,29 @@ mod tests {
 
     #[test]
     fn a_contradictory_count_ends_within_the_budget() {
-        let outcome = find(0, 3, 1.0, &[], &Liar);
-        if let Err(e) = &outcome {
-            assert_eq!(e.kind, ErrorKind::NoConvergence);
+        match find(0, 3, 1.0, &[], &Liar) {
+            Err(e) => assert_eq!(e.kind, ErrorKind::NoConvergence),
+            Ok((_, work)) => assert!(work.evaluations <= BUDGET_BASE + 3 * BUDGET_PER_MODE, "{work:?}"),
+        }
+    }
+
+    /// A count that puts every frequency below any trial above zero, as round-off made one on
+    /// two masses a micrometre apart: the interval above the first frequency then shrinks
+    /// towards zero with nothing to polish, and only the budget ends the search.
+    struct AllAtZero;
+
+    impl Spectrum for AllAtZero {
+        fn evaluator(&self, _: f64) -> Result<Evaluator<'_>> {
+            Ok(Box::new(|omega| Evaluation { below: if omega > 0.0 { 5 } else { 0 }, sign: 1.0, log: 0.0 }))
+        }
+    }
+
+    #[test]
+    fn a_count_with_every_root_at_zero_ends_in_an_error_within_the_budget() {
+        for skip in [0, 1] {
+            let e = find(skip, 2, 1.0, &[], &AllAtZero).expect_err("no frequency can be isolated");
+            assert_eq!(e.kind, ErrorKind::NoConvergence, "{e}");
+            assert!(e.message.contains("budget"), "{e}");
         }
     }
 }

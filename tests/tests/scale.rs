@@ -6,10 +6,11 @@
 //! The reference's count must step at each frequency within 1e-10 of it (which proves the value
 //! and its index right to that), and equal the index between neighbours (no mode missed or
 //! duplicated); two attachments closer than the engine's resolution must give exactly the model
-//! with the two merged.
+//! with the two merged, and the finite-element check must follow the exact value at every
+//! separation within its own error estimate.
 
-use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
-use modebench_tests::random::Rng;
+use modebench::{analyse, exact, Attachment, End, Model, ModelParts, Options, Segment, Theory};
+use modebench_tests::random::{self, Rng};
 use modebench_tests::reference;
 use serde_json::{json, Value};
 
@@ -186,4 +187,115 @@ fn attachments_within_the_resolution_are_exactly_the_merged_model() {
     for (a, b) in near.iter().zip(&want) {
         assert!(((a - b) / b).abs() < 1e-5, "{a} vs {b}");
     }
+}
+
+#[test]
+fn the_finite_element_check_follows_the_exact_value_at_every_separation() {
+    // Consistent-mass elements are a Rayleigh–Ritz model of the same beam, so each of their
+    // frequencies lies at or above the exact one (the inclusion principle, e.g. Bathe, *Finite
+    // Element Procedures*, from memory) up to round-off, and above it by no more than the
+    // check's own estimate (mesh, attachments inside elements, round-off; a factor 10, as the
+    // report allows, since the estimates are of order). The exact values of these separations
+    // are proven against the reference by `close_attachments_give_the_right_answer_at_every_
+    // separation`; from 0 to 1e-12 they are the merged model's, bit for bit; at 0.7 the second
+    // mass sits on the far support, which absorbs it. The check once gave 0.5 % low at 1e-5.
+    let separations = [
+        0.0, 1e-15, 1e-13, 1e-12, 2e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-7, 1e-6, 3e-6, 1e-5, 3e-5, 1e-4, 3e-4,
+        1e-3, 1e-2, 0.1, 0.25, 0.4, 0.69, 0.7,
+    ];
+    let merged = analyse(&pair(0.0), &Options::with_modes(4)).expect("solves");
+    for d in separations {
+        let a = analyse(&pair(d), &Options::with_modes(4)).unwrap_or_else(|e| panic!("d = {d:e}: {e}"));
+        for m in &a.modes {
+            let (Some(fe), Some(error), Some(accuracy)) = (m.fe_omega, m.fe_error, m.accuracy) else {
+                panic!("d = {d:e}, mode {}: no finite-element value", m.number)
+            };
+            let difference = (fe - m.omega) / m.omega;
+            assert!(
+                difference >= -(10.0 * accuracy + 1e-12) && difference <= 10.0 * (error + accuracy) + 1e-12,
+                "d = {d:e}, mode {}: FE {fe} against exact {}: {difference:e}, its estimate {error:e}",
+                m.number,
+                m.omega
+            );
+        }
+        if d <= 1e-12 {
+            let fe = |a: &modebench::Analysis| a.modes.iter().map(|m| m.fe_omega).collect::<Vec<_>>();
+            assert_eq!(fe(&a), fe(&merged), "d = {d:e}: the check is not the merged model's");
+        }
+    }
+}
+
+#[test]
+fn a_mass_just_past_a_segment_joint_gives_the_right_answer() {
+    // A cantilever whose outer half is a million times stiffer than its inner half, so that its
+    // low modes are near-rigid motions of that half on the flexible one, with a mass placed on
+    // the joint and a hair either side of it; such a mass 1e-4 of the length past the joint once
+    // put a near-rigid mode 0.29 % off.
+    let cases: Vec<(String, Model)> = [0.0, 1e-9, -1e-9, 1e-6, -1e-6, 1e-4, -1e-4, 1e-2]
+        .into_iter()
+        .map(|d| {
+            let mass = Attachment::Mass { position: 0.5 + d, mass: 0.5, rotary_inertia: 1e-4 };
+            let segments = vec![segment(0.5, 1.0, 1.0), segment(0.5, 1e6, 1.0)];
+            (format!("a mass {d:e} past the joint"), model(segments, End::Clamped, End::Free, vec![mass]))
+        })
+        .collect();
+    against_reference(&cases, 4);
+}
+
+#[test]
+fn random_models_with_crowded_stations_match_the_reference() {
+    // A seeded campaign of random models once found 19 in 20,000 with frequencies off by 1.9e-5
+    // to 7.6e-2 and no warning (a count's bracket that missed its root). Here each random model
+    // (segments, ends, masses, springs, sprung masses, supports) gets one more mass a hair from
+    // an attachment or a segment joint, 1e-9, 1e-6 or 1e-4 of the length away.
+    let mut rng = Rng::new(0xC_1055);
+    let kinds = random::Kinds { unrestrained: false, sprung: true, supports: true, timoshenko: false };
+    let mut cases: Vec<(String, Model)> = Vec::new();
+    for i in 0..200 {
+        let base = random::model(&mut rng, kinds);
+        let length = base.length();
+        let gap = [1e-9, 1e-6, 1e-4][i % 3] * length;
+        let joint = base.segments()[0].length;
+        let anchor = match (base.attachments().first(), i % 2) {
+            (Some(a), 0) => a.position(),
+            _ if base.segments().len() > 1 => joint,
+            _ => rng.range(0.2, 0.8) * length,
+        };
+        let x = if anchor + gap < length { anchor + gap } else { anchor - gap };
+        let mut attachments = base.attachments().to_vec();
+        attachments.push(Attachment::Mass { position: x, mass: rng.range(0.1, 1.0), rotary_inertia: 0.0 });
+        if let Ok(m) = base.with_attachments(attachments) {
+            cases.push((format!("random model {i}, a mass {gap:.0e} m from {anchor}"), m));
+        }
+    }
+    assert!(cases.len() > 150, "only {} models were valid", cases.len());
+    against_reference(&cases, 6);
+}
+
+#[test]
+fn attachments_a_hair_from_a_support_give_the_right_answer() {
+    // Just past a held deflection the sweep's reaction column is almost all force; a piece a
+    // hair long once left its deflection and rotation below the rounding of the other column's,
+    // and the count at the next station found a frequency that is not there (mode 2 beside
+    // mode 1 with a mass 1e-9 of the length from a support; rotary inertia and rotational springs
+    // alike).
+    type Make = fn(f64) -> Attachment;
+    let kinds: [(&str, Make); 5] = [
+        ("mass", |x| Attachment::Mass { position: x, mass: 0.5, rotary_inertia: 0.0 }),
+        ("mass with rotary inertia", |x| Attachment::Mass { position: x, mass: 0.5, rotary_inertia: 0.01 }),
+        ("rotational spring", |x| Attachment::RotationalSpring { position: x, stiffness: 5.0 }),
+        ("spring", |x| Attachment::Spring { position: x, stiffness: 500.0 }),
+        ("sprung mass", |x| Attachment::SprungMass { position: x, mass: 0.3, stiffness: 300.0 }),
+    ];
+    let mut cases: Vec<(String, Model)> = Vec::new();
+    for (name, make) in kinds {
+        for gap in [2e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-6] {
+            for side in [1.0, -1.0] {
+                let attachments = vec![Attachment::Support { position: 0.4 }, make(0.4 + side * gap)];
+                let m = model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, attachments);
+                cases.push((format!("{name} {:e} from a support", side * gap), m));
+            }
+        }
+    }
+    against_reference(&cases, 4);
 }

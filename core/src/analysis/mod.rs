@@ -32,7 +32,9 @@ pub struct ModeResult {
     pub multiplicity: usize,
     /// Whether the mode is a rigid-body mode (0 Hz).
     pub rigid_body: bool,
-    /// Finite-element angular frequency, rad/s (`None` for rigid-body modes).
+    /// Finite-element angular frequency, rad/s: `None` for rigid-body modes, where the check
+    /// could not be computed, and from a frequency the check lists twice on (a mode it lost to
+    /// rounding; a note says so).
     pub fe_omega: Option<f64>,
     /// The finite-element check's own estimate of its relative error (mesh and round-off).
     pub fe_error: Option<f64>,
@@ -194,7 +196,14 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
         None => Mesh::Between { lowest: first, highest: last },
     };
     let exact_elastic: Vec<f64> = exact_modes.iter().filter(|m| !m.rigid_body).map(|m| m.omega).collect();
-    let mut fe = fe::frequencies_near(model, options.modes, mesh, &exact_elastic)?;
+    // The check is a second opinion: where its matrices' rounding swamps the modes sought (a
+    // bar far stiffer than the springs that hold it), its root search gives up within its budget
+    // and the exact results are reported without it, with a note, rather than not at all.
+    let (mut fe, fe_failed) = match fe::frequencies_near(model, options.modes, mesh, &exact_elastic) {
+        Ok(fe) => (fe, false),
+        Err(e) if e.kind == ErrorKind::NoConvergence => (fe::unsolved(model, mesh)?, true),
+        Err(e) => return Err(e),
+    };
     // An attachment acting inside an element adds an error the mesh does not show (see
     // `fe::Interior::error`); where that error is large the check is solved again with those
     // attachments on nodes of their own, accepting the round-off of the shorter elements, which
@@ -214,7 +223,13 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
         if nodes.len() == before {
             break;
         }
-        fe = fe::frequencies_with_nodes(model, options.modes, mesh, &exact_elastic, &nodes)?;
+        match fe::frequencies_with_nodes(model, options.modes, mesh, &exact_elastic, &nodes) {
+            Ok(finer) => fe = finer,
+            // The check before stands, with its estimate of what the attachments inside
+            // elements cost it.
+            Err(e) if e.kind == ErrorKind::NoConvergence => break,
+            Err(e) => return Err(e),
+        }
     }
     let mut modes = Vec::with_capacity(exact_modes.len());
     let mut compared = Vec::with_capacity(exact_modes.len());
@@ -292,19 +307,22 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
     }
     let disagreement = warnings::fe_comparison(model, &compared);
     let disagrees = disagreement.is_some();
-    warnings.extend(disagreement);
-    if disagrees {
+    if let Some((_, Some(from))) = &disagreement {
+        // A frequency the check lists twice is a mode it lost to rounding: its column from the
+        // copy on is blank rather than a list the note says not to rely on.
+        for m in modes.iter_mut().filter(|m| m.number >= *from) {
+            m.fe_omega = None;
+            m.fe_error = None;
+        }
+    }
+    warnings.extend(disagreement.map(|(w, _)| w));
+    if fe_failed {
+        warnings.push(warnings::fe_unsolved(model));
+    } else if disagrees {
         // The note above says which column is at fault.
-    } else if let Some(worst) =
-        modes.iter().filter(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)).map(|m| m.number).next()
-    {
-        warnings.push(Warning {
-            code: WarningCode::FeUnconverged,
-            message: format!(
-                "The finite-element check differs from the exact result by more than 0.1 % from mode {worst} on, as \
-                 its mesh predicts; use more elements if you rely on it. The exact results are not affected."
-            ),
-        });
+    } else if let Some(worst) = modes.iter().find(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)) {
+        let compared = compared.iter().find(|c| c.number == worst.number);
+        warnings.push(warnings::fe_unconverged(model, worst.number, compared, options.elements));
     }
     if modes.iter().any(|m| m.multiplicity > 1 && !m.rigid_body) {
         warnings.push(Warning {

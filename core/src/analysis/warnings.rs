@@ -139,7 +139,10 @@ const SAME: f64 = 1e-9;
 /// - a check above the exact value by more than its estimates explain shows the check at fault,
 ///   when the exact values up to there pass their own check (Rayleigh's quotient of each shape
 ///   within 1e-9); otherwise neither is advised.
-pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<Warning> {
+///
+/// With the note comes, where the check lists a frequency twice, the mode from which its column
+/// is to be left blank.
+pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<(Warning, Option<usize>)> {
     let pair = |v: &[f64], i: usize| i + 1 < v.len() && (v[i + 1] - v[i]).abs() <= SAME * v[i].abs();
     let exact: Vec<f64> = modes.iter().map(|m| m.exact).collect();
     let fe: Vec<f64> = modes.iter().map(|m| m.fe).collect();
@@ -152,21 +155,29 @@ pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<Warning
             } else {
                 ("exact method", "finite-element check")
             };
-            return Some(Warning {
-                code: WarningCode::FeDisagrees,
-                message: format!(
-                    "The {twice} gives mode {}'s frequency twice where the {once} finds it once: it has lost a mode \
-                     to rounding{cause}, and its later modes may be misplaced. Do not rely on the {twice}'s column \
-                     from mode {} on; check the inputs.",
-                    modes[i].number,
-                    modes[i].number + 1
-                ),
-            });
+            let from = modes[i].number + 1;
+            let advice = match in_fe {
+                true => format!("Its column is left blank from mode {from} on."),
+                false => {
+                    format!("Do not rely on the {twice}'s column from mode {from} on; check the inputs.")
+                }
+            };
+            return Some((
+                Warning {
+                    code: WarningCode::FeDisagrees,
+                    message: format!(
+                        "The {twice} gives mode {}'s frequency twice where the {once} finds it once: it has lost a \
+                         mode to rounding{cause}, and its later modes may be misplaced. {advice}",
+                        modes[i].number
+                    ),
+                },
+                in_fe.then_some(from),
+            ));
         }
     }
     let below = modes.iter().find(|m| m.difference() < -(10.0 * (m.round_off + m.accuracy) + 1e-9));
     if let Some(m) = below {
-        return Some(Warning {
+        return Some((Warning {
             code: WarningCode::FeDisagrees,
             message: format!(
                 "The finite-element check puts mode {} {:.1e} below the exact value, more than its rounding \
@@ -178,7 +189,7 @@ pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<Warning
                 m.round_off,
                 m.number
             ),
-        });
+        }, None));
     }
     // The estimates are of order, not bounds: a factor 10 of margin.
     let at = modes.iter().position(|m| m.difference() > 10.0 * (m.error + m.accuracy) + 1e-12)?;
@@ -196,16 +207,67 @@ pub(super) fn fe_comparison(model: &Model, modes: &[Compared]) -> Option<Warning
             m.number
         ),
     };
-    Some(Warning {
-        code: WarningCode::FeDisagrees,
+    Some((
+        Warning {
+            code: WarningCode::FeDisagrees,
+            message: format!(
+                "The finite-element check of mode {} lies {:.1e} above the exact value, more than its mesh and \
+                 rounding explain ({:.0e}). {advice}",
+                m.number,
+                m.difference(),
+                m.error
+            ),
+        },
+        None,
+    ))
+}
+
+/// The note when the finite-element check differs from the exact value by more than 0.1 % from
+/// mode `number` on, within its own estimate, saying which part of that estimate explains it.
+/// Rounding grows with the number of elements (as the fourth power: the largest eigenvalue the
+/// mesh carries) and the mesh's error falls as the inverse fourth power, so where rounding
+/// dominates, more elements make the check worse, and a mesh `(mesh / rounding)^⅛` times the
+/// one given balances the two.
+pub(super) fn fe_unconverged(
+    model: &Model,
+    number: usize,
+    compared: Option<&Compared>,
+    elements: Option<usize>,
+) -> Warning {
+    let (round_off, mesh) = compared.map_or((0.0, 1.0), |c| (c.round_off, (c.error - c.round_off).max(0.0)));
+    let message = if round_off > mesh {
+        let balance = match elements {
+            Some(n) if mesh > 0.0 => {
+                let better = (n as f64 * (mesh / round_off).powf(0.125)).round().max(1.0);
+                format!("; about {better:.0} elements would balance rounding against the mesh's error")
+            }
+            _ => String::new(),
+        };
+        format!(
+            "The finite-element check differs from the exact result by more than 0.1 % from mode {number} on, and \
+             rounding in its matrices explains it (up to {round_off:.0e}){}: more elements would make it worse{balance}. \
+             The exact results do not depend on it.",
+            contrast_cause(model)
+        )
+    } else {
+        format!(
+            "The finite-element check differs from the exact result by more than 0.1 % from mode {number} on, as its \
+             mesh predicts; use more elements if you rely on it. The exact results are not affected."
+        )
+    };
+    Warning { code: WarningCode::FeUnconverged, message }
+}
+
+/// The note when the finite-element check could not be computed at all.
+pub(super) fn fe_unsolved(model: &Model) -> Warning {
+    Warning {
+        code: WarningCode::FeUnconverged,
         message: format!(
-            "The finite-element check of mode {} lies {:.1e} above the exact value, more than its mesh and rounding \
-             explain ({:.0e}). {advice}",
-            m.number,
-            m.difference(),
-            m.error
+            "The finite-element check could not be computed for this model: rounding in its matrices swamps the \
+             modes sought{}. Its column is left blank; the exact results do not depend on it.",
+            contrast_cause(model)
         ),
-    })
+    }
 }
 
 /// Words naming the likely cause of lost modes: segments of very different stiffness side by
@@ -224,6 +286,39 @@ fn contrast_cause(model: &Model) -> String {
              precision resolves side by side)",
             i,
             i + 1
+        ),
+        _ => spring_cause(model),
+    }
+}
+
+/// Words naming a spring far softer than the beam it holds (empty when there is none): the
+/// beam's bending stiffness EI/L³ (EI/L for a rotational spring) against the softest finite
+/// spring, grounded, at an end or under a sprung mass.
+fn spring_cause(model: &Model) -> String {
+    use crate::model::Attachment;
+    let length = model.length();
+    let ei = model.segments().iter().map(|s| s.flexural_rigidity).fold(0.0, f64::max);
+    let (bending, turning) = (ei / length.powi(3), ei / length);
+    let soft = |k: f64, against: f64| (k.is_finite() && k > 0.0).then(|| against / k);
+    let mut ratios: Vec<f64> = Vec::new();
+    for end in [model.left(), model.right()] {
+        let (t, r) = end.springs();
+        ratios.extend(soft(t, bending));
+        ratios.extend(soft(r, turning));
+    }
+    for a in model.attachments() {
+        ratios.extend(match *a {
+            Attachment::Spring { stiffness, .. } | Attachment::SprungMass { stiffness, .. } => {
+                soft(stiffness, bending)
+            }
+            Attachment::RotationalSpring { stiffness, .. } => soft(stiffness, turning),
+            _ => None,
+        });
+    }
+    match ratios.into_iter().fold(0.0, f64::max) {
+        ratio if ratio > STIFFNESS_CONTRAST => format!(
+            " (the beam's bending stiffness is {ratio:.0e} times that of its softest spring, more than double \
+             precision resolves side by side)"
         ),
         _ => String::new(),
     }

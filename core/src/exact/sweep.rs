@@ -224,21 +224,32 @@ impl Metric {
 
     /// Gram–Schmidt on the two columns; returns the product of their lengths before scaling,
     /// which joins the factor to keep det Y·factor unchanged.
+    ///
+    /// The column whose (w, θ) is the smaller part of it is normalised first and the other made
+    /// orthogonal to it: subtracting a multiple of that column changes the other's (w, θ) by a
+    /// multiple of its own small ones, which costs them no digits. The other order loses them
+    /// just past a held deflection, where the reaction's column is almost all force: a piece a
+    /// hair long then leaves its (w, θ) far below the rounding of the other column's, and the
+    /// count at the next station, which rests on them, came out wrong.
     fn orthonormalise(&self, z: &mut Basis) -> f64 {
         let d = &self.0;
         let dot =
             |z: &Basis, a: usize, b: usize| (0..4).map(|r| d[r] * d[r] * z[r][a] * z[r][b]).sum::<f64>();
-        let n0 = dot(z, 0, 0).sqrt();
+        let motion = |z: &Basis, c: usize| (0..2).map(|r| d[r] * d[r] * z[r][c] * z[r][c]).sum::<f64>();
+        // (w, θ) as a share of each column, compared without dividing: m₁/n₁ < m₀/n₀.
+        let (first, second) =
+            if motion(z, 1) * dot(z, 0, 0) < motion(z, 0) * dot(z, 1, 1) { (1, 0) } else { (0, 1) };
+        let n0 = dot(z, first, first).sqrt();
         for row in z.iter_mut() {
-            row[0] /= n0;
+            row[first] /= n0;
         }
-        let p = dot(z, 0, 1);
+        let p = dot(z, first, second);
         for row in z.iter_mut() {
-            row[1] -= p * row[0];
+            row[second] -= p * row[first];
         }
-        let n1 = dot(z, 1, 1).sqrt();
+        let n1 = dot(z, second, second).sqrt();
         for row in z.iter_mut() {
-            row[1] /= n1;
+            row[second] /= n1;
         }
         n0 * n1
     }

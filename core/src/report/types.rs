@@ -120,7 +120,8 @@ pub struct ModeReport {
     pub frequency_hz: f64,
     /// The same in revolutions (cycles) per minute.
     pub rpm: f64,
-    /// Finite-element frequency, Hz.
+    /// Finite-element frequency, Hz; `None` where the check gives none (see
+    /// `analysis::ModeResult::fe_omega`).
     pub fe_frequency_hz: Option<f64>,
     /// (FE − exact)/exact.
     pub fe_difference: Option<f64>,

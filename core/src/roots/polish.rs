@@ -1,0 +1,168 @@
+//! Polishing one isolated frequency: Brent's method on the determinant, deflated by the
+//! frequencies already found, inside an interval the count says holds exactly that one. Every
+//! evaluation goes through the search's budget, and Brent's loop has its own cap, so a
+//! determinant that is only noise ends the polish rather than prolonging it.
+
+use super::{Evaluator, Search};
+use crate::error::Result;
+
+/// The relative size of an interpolation step below which Brent's iteration is taken to have
+/// settled into its superlinear convergence (see [`brent`]).
+const SETTLED: f64 = 1e-6;
+/// Most iterations of Brent's method on one interval: far past the ten or so a root takes; the
+/// search's budget of evaluations usually stops a polish on noise before this does.
+const BRENT_STEPS: usize = 200;
+
+impl Search {
+    /// The one frequency in the sampled interval (lo, hi] (counts k − 1 and k), by Brent's
+    /// method on the determinant scaled by its larger value at the ends.
+    pub(super) fn polish(
+        &mut self,
+        evaluator: &Evaluator<'_>,
+        lo: usize,
+        hi: usize,
+        known: &[f64],
+        tolerance: f64,
+    ) -> Result<f64> {
+        let (a, b) = (self.samples[lo], self.samples[hi]);
+        let (slo, llo) = match a.value {
+            Some(v) => v,
+            None => self.revalue(evaluator, lo)?,
+        };
+        let (shi, lhi) = match b.value {
+            Some(v) => v,
+            None => self.revalue(evaluator, hi)?,
+        };
+        if slo == shi {
+            // Only where an end sits within rounding of a root; the count still brackets it.
+            return Ok(0.5 * (a.omega + b.omega));
+        }
+        // The determinant divided by (ω − ωⱼ) for every frequency already found below the
+        // interval: those factors bend the determinant most across the interval, and without
+        // them the interpolation steps converge from the first. The product is positive inside
+        // the interval, so the sign change is the same. (Dividing also by the hints above the
+        // interval was tried and cost more evaluations on a warm start, not fewer.)
+        let deflated = |omega: f64, log: f64| log - known.iter().map(|w| (omega - w).ln()).sum::<f64>();
+        let (dlo, dhi) = (deflated(a.omega, llo), deflated(b.omega, lhi));
+        let reference = dlo.max(dhi);
+        let scaled = |omega: f64, sign: f64, log: f64| {
+            sign * (deflated(omega, log) - reference).clamp(-700.0, 700.0).exp()
+        };
+        let mut failure = None;
+        let root = brent(
+            a.omega,
+            scaled(a.omega, slo, llo),
+            b.omega,
+            scaled(b.omega, shi, lhi),
+            tolerance,
+            &mut |omega| match self.evaluate(evaluator, omega) {
+                Ok(e) => Some(scaled(omega, e.sign, e.log)),
+                Err(e) => {
+                    failure = Some(e);
+                    None
+                }
+            },
+        );
+        match (root, failure) {
+            (_, Some(e)) => Err(e),
+            (Some(root), None) => Ok(root),
+            (None, None) => Ok(0.5 * (a.omega + b.omega)),
+        }
+    }
+
+    /// Evaluates the sample at `index` again on the search's discretisation (its first value
+    /// was taken on another), in place.
+    fn revalue(&mut self, evaluator: &Evaluator<'_>, index: usize) -> Result<(f64, f64)> {
+        let omega = self.samples[index].omega;
+        let e = self.evaluate(evaluator, omega)?;
+        // `evaluate` inserted a second sample at the same ω (or a nudged one); keep one.
+        if let Some(at) = self.samples.iter().position(|s| s.omega == omega && s.value.is_none()) {
+            self.samples.remove(at);
+        }
+        Ok((e.sign, e.log))
+    }
+}
+
+/// Brent's method (Brent, *Algorithms for Minimization without Derivatives*, 1973, ch. 4) on a
+/// sign-changing bracket; `None` if the function stops being defined.
+fn brent(
+    mut a: f64,
+    mut fa: f64,
+    mut b: f64,
+    mut fb: f64,
+    tolerance: f64,
+    f: &mut dyn FnMut(f64) -> Option<f64>,
+) -> Option<f64> {
+    if fa == 0.0 {
+        return Some(a);
+    }
+    if fb == 0.0 {
+        return Some(b);
+    }
+    let (mut c, mut fc) = (a, fa);
+    let mut d = b - a;
+    let mut e = d;
+    // The interpolation step taken in this iteration (NaN when it bisected).
+    let mut p_over_q: f64;
+    for _ in 0..BRENT_STEPS {
+        if fb.signum() == fc.signum() {
+            (c, fc) = (a, fa);
+            d = b - a;
+            e = d;
+        }
+        if fc.abs() < fb.abs() {
+            (a, fa) = (b, fb);
+            (b, fb) = (c, fc);
+            (c, fc) = (a, fa);
+        }
+        let tol = 2.0 * f64::EPSILON * b.abs() + 0.5 * tolerance * b.abs();
+        let m = 0.5 * (c - b);
+        if m.abs() <= tol || fb == 0.0 {
+            return Some(b);
+        }
+        if e.abs() >= tol && fa.abs() > fb.abs() {
+            let s = fb / fa;
+            let (mut p, mut q);
+            if a == c {
+                p = 2.0 * m * s;
+                q = 1.0 - s;
+            } else {
+                let qa = fa / fc;
+                let r = fb / fc;
+                p = s * (2.0 * m * qa * (qa - r) - (b - a) * (r - 1.0));
+                q = (qa - 1.0) * (r - 1.0) * (s - 1.0);
+            }
+            if p > 0.0 {
+                q = -q;
+            } else {
+                p = -p;
+            }
+            if 2.0 * p < (3.0 * m * q - (tol * q).abs()).min((e * q).abs()) {
+                e = d;
+                d = p / q;
+                p_over_q = d;
+            } else {
+                d = m;
+                p_over_q = f64::NAN;
+                e = m;
+            }
+        } else {
+            d = m;
+            p_over_q = f64::NAN;
+            e = m;
+        }
+        if d == p_over_q && d.abs() <= tol && e.abs() <= SETTLED * b.abs() {
+            // Two interpolation steps in a row, the last smaller than the tolerance and the one
+            // before it already small: convergence is superlinear there, so the stepped
+            // estimate's error is far smaller still, and evaluating it (or stepping across the
+            // root only to shrink the bracket) would cost one more factorisation for nothing.
+            // Far from the root a step can be small for other reasons (values at the ends that
+            // differ by many orders of magnitude), so the step before must be small too.
+            return Some(b + d);
+        }
+        (a, fa) = (b, fb);
+        b += if d.abs() > tol { d } else { tol.copysign(m) };
+        fb = f(b)?;
+    }
+    Some(b)
+}
