@@ -27,14 +27,17 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // debt to be won back, not as the new normal. On 2026-12-03 part of it was (page 404 → 382 KB,
 // solver 601 → 572 KB) and the budgets were lowered to those sizes with a few KB to spare; the
 // sensitivities through the mode shapes and the tolerances typed with a value then brought the
-// solver back to 602 KB the same day, and its budget to 606 KB.
+// solver back to 602 KB the same day, and its budget to 606 KB. Later that day the checks
+// that keep close stations, taut and buckled beams and hostile input from giving wrong answers
+// or unreadable messages added 11.5 KB (612.4 KB), and the budget became 616 KB: a debt again,
+// recorded in docs/performance.md with where the solver's size goes.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's
 // tap-test panel, by the panel's worker; built for size it weighed 525 KB on 2026-12-03, and its
 // budget leaves room for the panel to grow a little, not for another library.
 export const BUDGET = {
   pageEngineBytes: 390_000,
-  solverEngineBytes: 606_000,
+  solverEngineBytes: 616_000,
   benchEngineBytes: 560_000,
   pageGzipBytes: 200_000,
   coldLoadMs: 300,
