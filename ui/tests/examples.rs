@@ -51,8 +51,12 @@ fn every_preset_in_an_example_is_recorded_with_the_values_its_table_gives() {
                 Value::String(id) => panic!("{at}.material names the preset \"{id}\" without its values"),
                 recorded => {
                     if let Some(id) = recorded["preset"].as_str() {
-                        let m = modebench::material::preset(id).unwrap_or_else(|| panic!("{at}: no preset {id}"));
-                        assert!(close(si(&recorded["youngs_modulus"], Kind::Pressure), m.youngs_modulus), "{at} E");
+                        let m =
+                            modebench::material::preset(id).unwrap_or_else(|| panic!("{at}: no preset {id}"));
+                        assert!(
+                            close(si(&recorded["youngs_modulus"], Kind::Pressure), m.youngs_modulus),
+                            "{at} E"
+                        );
                         assert!(close(si(&recorded["density"], Kind::Density), m.density), "{at} density");
                         assert!(close(si(&recorded["poisson"], Kind::Ratio), m.poisson), "{at} ν");
                         let alpha = si(&recorded["thermal_expansion"], Kind::ThermalExpansion);
@@ -68,7 +72,10 @@ fn every_preset_in_an_example_is_recorded_with_the_values_its_table_gives() {
                     section["schedule"].as_str().unwrap(),
                 )
                 .unwrap();
-                assert!(section.get("outer_diameter").is_some(), "{at}: the pipe's outside diameter is recorded");
+                assert!(
+                    section.get("outer_diameter").is_some(),
+                    "{at}: the pipe's outside diameter is recorded"
+                );
                 assert!(close(si(&section["outer_diameter"], Kind::Length), od), "{at} outside diameter");
                 assert!(close(si(&section["wall"], Kind::Length), wall), "{at} wall");
                 checked += 1;
