@@ -91,7 +91,7 @@ impl Model {
 const TAUT: f64 = 1e3;
 
 /// Refuses axial forces so large beside the bending stiffness that the beam is a string and
-/// computing it as a beam would take too long: see [`TAUT`]. The message is on the segment that
+/// computing it as a beam would take too long: see `TAUT`. The message is on the segment that
 /// contributes most.
 pub fn check_taut(model: &Model) -> Result<()> {
     let parts: Vec<f64> = model
