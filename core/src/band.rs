@@ -51,6 +51,19 @@ impl SymBand {
         self.data[hi * (self.b + 1) + k] += v;
     }
 
+    /// Adds a symmetric 4 × 4 block (a member's or an element's) at the degrees of freedom
+    /// `ids`; a `None` id is a held freedom, whose row and column are left out.
+    pub(crate) fn scatter(&mut self, ids: &[Option<usize>; 4], block: &[[f64; 4]; 4]) {
+        for (a, ia) in ids.iter().enumerate() {
+            let Some(ia) = ia else { continue };
+            for (b, ib) in ids.iter().enumerate().take(a + 1) {
+                if let Some(ib) = ib {
+                    self.add(*ia, *ib, block[a][b]);
+                }
+            }
+        }
+    }
+
     /// A[i][j].
     pub(crate) fn get(&self, i: usize, j: usize) -> f64 {
         let (hi, lo) = if i >= j { (i, j) } else { (j, i) };

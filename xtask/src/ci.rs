@@ -27,10 +27,22 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 
     run::step("Lints");
     run::status(&mut project.cargo(["clippy", "--workspace", "--all-targets", "--", "-D", "warnings"]))?;
+    // The tap test's engine is a feature no workspace-wide command turns on: lint it natively.
+    run::status(&mut project.cargo([
+        "clippy",
+        "-p",
+        "modebench-web",
+        "--features",
+        "bench",
+        "--all-targets",
+        "--",
+        "-D",
+        "warnings",
+    ]))?;
     // The widget and the JS API compile only for WebAssembly; lint them there, as the
-    // integrators' build and as each of the two engines a page loads.
+    // integrators' build and as each of the three engines.
     let engines = engine::ENGINES.map(|e| ["--no-default-features", "--features", e.feature]);
-    for features in [&[][..], &engines[0][..], &engines[1][..]] {
+    for features in [&[][..], &engines[0][..], &engines[1][..], &engines[2][..]] {
         let mut args = vec!["clippy", "-p", "modebench-web", "--target", TARGET, "--all-targets"];
         args.extend_from_slice(features);
         args.extend_from_slice(&["--", "-D", "warnings"]);
@@ -44,6 +56,9 @@ pub(crate) fn run(project: &Project) -> Result<()> {
     // The reference-library checks (mpmath, scipy) must run here, not skip: the tools step
     // installed Python's packages.
     run::status(project.cargo(["test", "--workspace"]).env("MODEBENCH_REQUIRE_REFERENCE", "1"))?;
+    // The tap test's engine (its options, positions and drawing), which the workspace's run
+    // leaves out with its feature.
+    run::status(&mut project.cargo(["test", "-p", "modebench-web", "--features", "bench", "--lib"]))?;
 
     run::step("The core and the UI build for WebAssembly; each crate depends only on what it may");
     run::status(&mut project.cargo(["check", "-p", "modebench", "-p", "modebench-ui", "--target", TARGET]))?;

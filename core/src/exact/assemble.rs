@@ -45,15 +45,7 @@ impl System {
                 .at(crate::path::FieldPath::item("segments", span.segment)));
             };
             poles = poles.saturating_add(count);
-            let ids = layout.span_dofs(span);
-            for (a, ia) in ids.iter().enumerate() {
-                let Some(ia) = ia else { continue };
-                for (b, ib) in ids.iter().enumerate().take(a + 1) {
-                    if let Some(ib) = ib {
-                        k.add(*ia, *ib, local[a][b]);
-                    }
-                }
-            }
+            k.scatter(&layout.span_dofs(span), &local);
         }
         for s in &layout.stations {
             if let Some(w) = s.w {

@@ -23,7 +23,6 @@ use crate::roots::{self, Evaluator, Spectrum};
 
 /// How many elements to use.
 #[derive(Clone, Copy, Debug, PartialEq)]
-#[non_exhaustive]
 pub enum Mesh {
     /// About this many elements in all, shared out by length (at least one per span between
     /// nodes).
@@ -249,22 +248,12 @@ impl Discrete {
         let mesh = FeMesh::new(model, mesh, points)?;
         let mut stiffness = SymBand::zeros(mesh.dofs, mesh.bandwidth);
         let mut mass = SymBand::zeros(mesh.dofs, mesh.bandwidth);
-        let add = |band: &mut SymBand, ids: &[Option<usize>; 4], block: &[[f64; 4]; 4]| {
-            for (a, ia) in ids.iter().enumerate() {
-                let Some(ia) = ia else { continue };
-                for (b, ib) in ids.iter().enumerate().take(a + 1) {
-                    if let Some(ib) = ib {
-                        band.add(*ia, *ib, block[a][b]);
-                    }
-                }
-            }
-        };
         let outer = |n: &[f64; 4], scale: f64| -> [[f64; 4]; 4] {
             std::array::from_fn(|a| std::array::from_fn(|b| scale * n[a] * n[b]))
         };
         for e in &mesh.elements {
-            add(&mut stiffness, &e.dofs, &e.element.stiffness());
-            add(&mut mass, &e.dofs, &e.element.mass());
+            stiffness.scatter(&e.dofs, &e.element.stiffness());
+            mass.scatter(&e.dofs, &e.element.mass());
         }
         for n in &mesh.nodes {
             if let Some(w) = n.w {
@@ -279,16 +268,16 @@ impl Discrete {
             let (nw, npsi) = placed.element.at(p.xi);
             match p.kind {
                 PointKind::Mass { mass: m, rotary_inertia } => {
-                    add(&mut mass, &placed.dofs, &outer(&nw, m));
-                    add(&mut mass, &placed.dofs, &outer(&npsi, rotary_inertia));
+                    mass.scatter(&placed.dofs, &outer(&nw, m));
+                    mass.scatter(&placed.dofs, &outer(&npsi, rotary_inertia));
                 }
-                PointKind::Spring { stiffness: k } => add(&mut stiffness, &placed.dofs, &outer(&nw, k)),
+                PointKind::Spring { stiffness: k } => stiffness.scatter(&placed.dofs, &outer(&nw, k)),
                 PointKind::RotationalSpring { stiffness: k } => {
-                    add(&mut stiffness, &placed.dofs, &outer(&npsi, k))
+                    stiffness.scatter(&placed.dofs, &outer(&npsi, k))
                 }
                 PointKind::Sprung { mass: m, stiffness: k, dof, .. } => {
                     // k·(N·q − d)²: the spring between the beam's point and the mass.
-                    add(&mut stiffness, &placed.dofs, &outer(&nw, k));
+                    stiffness.scatter(&placed.dofs, &outer(&nw, k));
                     for (id, n) in placed.dofs.iter().zip(nw) {
                         if let Some(id) = id {
                             stiffness.add(*id, dof, -k * n);

@@ -7,6 +7,8 @@
 //! without a guard, so "NaN", "inf" and "undefined" never reach the page.
 
 mod band;
+#[cfg(feature = "bench")]
+pub mod bench;
 mod design;
 mod design_rows;
 mod echo;

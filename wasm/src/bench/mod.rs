@@ -1,6 +1,6 @@
 //! The tap-test panel's engine: a recording (a file's bytes, the microphone's samples, the motion
 //! sensor's timed values) analysed by the core's tap test, matched with the calculator's last
-//! report, and drawn as the panel's results. It runs in the bench worker
+//! report, and drawn as the panel's results (`modebench_ui::render::bench`). It runs in the bench worker
 //! (`site/assets/bench-worker.js`), never on the page's main thread; the page's engine only
 //! receives the measured frequencies the reader chooses to keep.
 //!
@@ -15,12 +15,12 @@
 
 #[cfg(target_arch = "wasm32")]
 pub mod entry;
-mod render;
 
 use crate::worker::message;
 use modebench::bench::{self, BenchOptions, BenchReport, Predicted, SourceKind};
 use modebench::units::{self, is_bare_number, significant, Kind};
 use modebench::{Error, Report};
+use modebench_ui::render::bench as render;
 use serde_json::{json, Value};
 
 /// A recording as it reaches the engine.
@@ -165,5 +165,5 @@ fn channel(typed: &str) -> Result<usize, String> {
     }
 }
 
-#[cfg(test)]
+#[cfg(all(test, not(target_arch = "wasm32")))]
 mod tests;

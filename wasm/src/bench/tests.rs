@@ -4,33 +4,27 @@
 
 use super::{analyse, Recording};
 use crate::worker::message;
+use modebench_tests::random::Rng;
+use modebench_tests::ringdown::{self, Mode};
 use serde_json::Value;
 
-/// A record of `taps` taps 2 s apart, each adding decaying sinusoids at the given damped
-/// frequencies (Hz) with damping ratio `zeta` to what still rings, over a little seeded noise (a
-/// linear congruential generator, so the record is the same on every run).
+/// A record of `taps` taps 2 s apart, each ringing modes at the given damped frequencies (Hz)
+/// with damping ratio `zeta` on top of what still rings, in a little seeded noise: the test kit's
+/// synthetic ring-down, so the record is the same on every run.
 fn ring_downs(modes: &[f64], zeta: f64, rate: f64, taps: usize) -> Vec<f32> {
-    let spacing = 2.0;
-    let lead = 0.3;
-    let total = ((lead + spacing * taps as f64) * rate) as usize;
-    let mut seed: u64 = 0x5eed_1234;
-    let mut noise = move || {
-        seed = seed.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
-        ((seed >> 33) as f64 / (1u64 << 31) as f64 - 0.5) * 2e-4
-    };
-    let mut out: Vec<f64> = (0..total).map(|_| noise()).collect();
-    for tap in 0..taps {
-        let start = ((lead + spacing * tap as f64) * rate) as usize;
-        for (n, x) in out.iter_mut().enumerate().skip(start) {
-            let t = (n - start) as f64 / rate;
-            for (k, f) in modes.iter().enumerate() {
-                let wd = 2.0 * std::f64::consts::PI * f;
-                let wn = wd / (1.0 - zeta * zeta).sqrt();
-                *x += 0.3 / (k + 1) as f64 * (-zeta * wn * t).exp() * (wd * t + 0.4 * k as f64).sin();
-            }
-        }
-    }
-    out.into_iter().map(|x| x as f32).collect()
+    let modes: Vec<Mode> = modes
+        .iter()
+        .enumerate()
+        .map(|(k, fd)| Mode {
+            hz: fd / (1.0 - zeta * zeta).sqrt(),
+            zeta,
+            amplitude: 0.3 / (k + 1) as f64,
+            phase: 0.4 * k as f64,
+        })
+        .collect();
+    let struck: Vec<(f64, f64)> = (0..taps).map(|i| (0.3 + 2.0 * i as f64, 1.0)).collect();
+    let seconds = 0.3 + 2.0 * taps as f64;
+    ringdown::record(&mut Rng::new(0x5eed_1234), rate, seconds, &modes, &struck, 6e-5, false).samples
 }
 
 fn answer(text: &str) -> Value {

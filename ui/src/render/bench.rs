@@ -4,9 +4,9 @@
 //! found no peak and why, and the core's warnings and notes in words. Only presentation: every
 //! number comes from the core's report.
 
+use super::escape;
 use modebench::bench::BenchReport;
 use modebench::units::significant;
-use modebench_ui::render::escape;
 use std::fmt::Write;
 
 /// The plot's size in SVG units, and its margins for the axes' labels.
@@ -22,7 +22,7 @@ const SPAN_DB: f64 = 90.0;
 /// Everything the panel shows after an analysis. `matched_at` says where the tap and the sensor
 /// were taken to be when a prediction was at hand (`None` without one, so that an empty match
 /// says why).
-pub(super) fn results_html(report: &BenchReport, matched_at: Option<&str>) -> String {
+pub fn results_html(report: &BenchReport, matched_at: Option<&str>) -> String {
     let mut html = String::new();
     let used = report.taps.iter().filter(|t| t.used).count();
     let _ = write!(
