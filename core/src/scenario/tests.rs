@@ -273,7 +273,7 @@ fn a_value_outside_its_documented_range_is_echoed_as_typed_with_the_range() {
             |s| s["segments"][0]["extra_mass"] = json!({ "lining": "-1 lb/ft" }),
             "segments[0].extra_mass.lining",
             "-1 lb/ft",
-            "must not be negative",
+            "must be zero or more",
         ),
         (
             |s| s["segments"][0]["extra_mass"] = json!({ "submerged": { "water_density": "0.5 kg/m^3" } }),
