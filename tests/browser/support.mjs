@@ -44,6 +44,14 @@ export const BUDGET = {
   editMs: 16,
 };
 
+// The worker starts each solve from the previous answer, so a frequency reached along another
+// path of edits (or read back from a file and solved afresh) agrees with the first to
+// round-off, not always to the last bit; the engine promises 1e-12 relative, and two results
+// that close are the same answer.
+export const SAME = 1e-12;
+export const same = (a, b) => Math.abs(a - b) <= SAME * Math.abs(b);
+export const allSame = (a, b) => a.length === b.length && a.every((x, i) => same(x, b[i]));
+
 // Each browser test's own time limit (`test(name, { timeout: TEST_TIMEOUT_MS }, …)`), so that a
 // test waiting on a page that never answers fails and the next runs. Node 20 has no default for
 // every test of a file: its `--test-timeout`, which CI also sets, limits each file as a whole.

@@ -7,7 +7,7 @@ import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, startSite, watchedPage } from "./support.mjs";
+import { DIST, SAME, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, same, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -16,11 +16,6 @@ const OFFER = '.mb-calc [data-action="reopen"]';
 // The Long Tasks API reports every task of the main thread that runs longer than this, ms; a
 // frame that long is a visible stall (the RAIL model's 50 ms, common practice).
 const LONG_TASK_MS = 50;
-// The worker starts each solve from the previous answer, so a frequency reached along another
-// path of edits agrees with a fresh solve to round-off, not always to the last bit; the engine
-// promises 1e-12 relative, and two results that close are the same answer.
-const SAME = 1e-12;
-const same = (a, b) => Math.abs(a - b) <= SAME * Math.abs(b);
 
 let site;
 let browser;
