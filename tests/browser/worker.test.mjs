@@ -134,6 +134,59 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
+  test("typing a soft spring's stiffness key by key under a short stiff piece with a heavy mass keeps every frame under 50 ms", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // A short, nearly rigid piece at the boom's tip carrying a heavy mass on a soft spring: the
+    // model whose stiffness, typed one key at a time, once froze this calculator (a 12.5 N/m
+    // spring on a near-rigid bar sent the root search into a loop without end). Whatever each
+    // keystroke's value, every answer comes back and no task of the page's thread reaches the
+    // 50 ms of a visible stall (the RAIL model, common practice).
+    const stiff = boomWith((scenario) => {
+      scenario.segments.push({ length: "20 mm", flexural_rigidity: "1e9 N*m^2", mass_per_length: "1 kg/m" });
+      scenario.attachments.push({ type: "mass", label: "ballast", position: "1470 mm", mass: "40 kg" });
+      scenario.attachments.push({ type: "spring", label: "tie", position: "1470 mm", stiffness: "100 N/m" });
+      return scenario;
+    });
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    await page.addInitScript(
+      ([key, value]) => {
+        if (!sessionStorage.getItem("seeded")) {
+          localStorage.setItem(key, value);
+          sessionStorage.setItem("seeded", "yes");
+        }
+      },
+      ["modebench:/" + BOOM + "#0", stored(stiff)],
+    );
+    await page.goto(site.url + BOOM);
+    const spring = page.locator('[data-field="attachments[2].stiffness"]');
+    await spring.waitFor({ timeout: 30_000 });
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, {
+      timeout: 30_000,
+    });
+    await page.evaluate(() => {
+      window.__longTasks = [];
+      new PerformanceObserver((list) => window.__longTasks.push(...list.getEntries().map((e) => e.duration))).observe({
+        type: "longtask",
+      });
+    });
+    await spring.click();
+    await spring.press("Control+A");
+    await spring.pressSequentially("12.5 N/m", { delay: 120 });
+    await page.waitForFunction(
+      () => !document.querySelector(".mb-calc").hasAttribute("data-solving")
+        && document.querySelector('[data-field="attachments[2].stiffness"]').value === "12.5 N/m",
+      null,
+      { timeout: 30_000 },
+    );
+    // The last keystroke's answer: frequencies on show (a near-rigid bar on soft springs has a
+    // low first mode), every one a finite positive number.
+    const shown = await page.$$eval("table.mb-modes td[data-hz]", (cells) => cells.map((c) => Number(c.dataset.hz)));
+    assert.ok(shown.length > 0 && shown.every((hz) => Number.isFinite(hz) && hz > 0), `frequencies: ${shown}`);
+    const longTasks = await page.evaluate(() => window.__longTasks);
+    assert.deepEqual(longTasks.filter((ms) => ms >= LONG_TASK_MS), [], `main-thread tasks while typing: ${longTasks} ms`);
+    await context.close();
+  });
+
   test("an answer overtaken by a newer edit is never drawn over it", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     const { page, problems } = await watchedPage(context);
