@@ -8,7 +8,8 @@
 //!
 //! `cargo bench -p modebench-tests --bench masses`
 
-use modebench::{bounds, exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use modebench::{bounds, exact, Model};
+use modebench_tests::models;
 use serde_json::json;
 use std::hint::black_box;
 use std::time::Instant;
@@ -35,27 +36,7 @@ fn measure(runs: usize, mut f: impl FnMut()) -> (f64, u64) {
 
 /// A pinned unit beam with `n` equal masses spread evenly, together as heavy as the beam.
 fn model(n: usize) -> Model {
-    let masses = (0..n)
-        .map(|i| Attachment::Mass {
-            position: (i as f64 + 0.5) / n as f64,
-            mass: 1.0 / n as f64,
-            rotary_inertia: 1e-4 / n as f64,
-        })
-        .collect();
-    Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.0,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
-        left: End::Pinned,
-        right: End::Pinned,
-        attachments: masses,
-        theory: Theory::EulerBernoulli,
-    })
-    .expect("valid")
+    models::pinned_span_with_equal_masses(n, 1.0, 1e-4)
 }
 
 /// The same beam as a scenario, for the whole report.

@@ -6,7 +6,8 @@
 //! `cargo bench -p modebench-tests --bench scaling`
 
 use modebench::fe::{self, Mesh};
-use modebench::{exact, Attachment, End, Model, ModelParts, Segment, Theory};
+use modebench::{exact, Model};
+use modebench_tests::models;
 use serde_json::json;
 use std::hint::black_box;
 use std::time::Instant;
@@ -27,57 +28,11 @@ fn time(runs: usize, mut f: impl FnMut()) -> (f64, f64) {
 }
 
 fn beam(n: usize) -> Model {
-    let masses = (0..n)
-        .map(|i| Attachment::Mass {
-            position: (i as f64 + 0.5) / n as f64,
-            mass: 1.0 / n as f64,
-            rotary_inertia: 0.0,
-        })
-        .collect();
-    Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.0,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
-        left: End::Pinned,
-        right: End::Pinned,
-        attachments: masses,
-        theory: Theory::EulerBernoulli,
-    })
-    .expect("valid")
+    models::pinned_span_with_equal_masses(n, 1.0, 0.0)
 }
 
 fn main() {
-    // The same budget beam as the engine bench and the core's work test.
-    let seg = |length, ei, m| Segment {
-        length,
-        flexural_rigidity: ei,
-        mass_per_length: m,
-        shear_rigidity: None,
-        rotary_inertia_per_length: 0.0,
-    };
-    let budget = Model::new(ModelParts {
-        segments: vec![seg(1.5, 4.0e6, 40.0), seg(2.0, 2.5e6, 32.0), seg(1.5, 4.0e6, 40.0)],
-        left: End::Pinned,
-        right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
-        attachments: vec![
-            Attachment::Mass { position: 0.4, mass: 12.0, rotary_inertia: 0.3 },
-            Attachment::Spring { position: 0.9, stiffness: 2.0e6 },
-            Attachment::Mass { position: 1.3, mass: 30.0, rotary_inertia: 0.0 },
-            Attachment::SprungMass { position: 1.8, mass: 45.0, stiffness: 8.0e5 },
-            Attachment::RotationalSpring { position: 2.2, stiffness: 5.0e4 },
-            Attachment::Support { position: 2.6 },
-            Attachment::Mass { position: 3.1, mass: 8.0, rotary_inertia: 0.1 },
-            Attachment::Spring { position: 3.5, stiffness: 1.0e6 },
-            Attachment::Mass { position: 4.0, mass: 20.0, rotary_inertia: 0.0 },
-            Attachment::SprungMass { position: 4.6, mass: 15.0, stiffness: 3.0e5 },
-        ],
-        theory: Theory::EulerBernoulli,
-    })
-    .expect("valid");
+    let budget = models::budget_beam();
     let (t, fastest) = time(301, || {
         black_box(exact::frequencies(black_box(&budget), 10).expect("solves"));
     });

@@ -2,6 +2,7 @@
 //! helper, a seeded generator of random models, and the bridge to the Python reference library.
 
 pub mod fuzz;
+pub mod models;
 pub mod published;
 pub mod random;
 pub mod reference;

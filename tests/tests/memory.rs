@@ -2,8 +2,8 @@
 //! masses needs one flexibility per mass, not one dense vector per mass (which took 2.9 GB).
 //! Read from the process's peak resident size, which this test binary has to itself.
 
-use modebench::{bounds, Attachment, End, Model, ModelParts, Segment, Theory};
-use modebench_tests::check;
+use modebench::{bounds, Attachment};
+use modebench_tests::{check, models};
 
 /// The process's peak resident set, kB (Linux).
 fn peak_kb() -> Option<u64> {
@@ -15,23 +15,8 @@ fn peak_kb() -> Option<u64> {
 #[test]
 fn dunkerley_over_ten_thousand_masses_stays_small() {
     let before = peak_kb();
-    let masses: Vec<Attachment> = (0..10_000)
-        .map(|i| Attachment::Mass { position: (i as f64 + 0.5) / 10_000.0, mass: 1e-4, rotary_inertia: 1e-8 })
-        .collect();
-    let model = Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.0,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
-        left: End::Pinned,
-        right: End::Pinned,
-        attachments: masses,
-        theory: Theory::EulerBernoulli,
-    })
-    .expect("valid model");
+    // 10,000 masses of 1e-4 with rotary inertias of 1e-8, together as heavy as the span.
+    let model = models::pinned_span_with_equal_masses(10_000, 1.0, 1e-4);
     let d = bounds::dunkerley(&model).expect("solves").expect("restrained");
     // Dunkerley's sum by hand on a pinned span (EI = m = L = 1): 1/ω² = 1/ω_b² + Σ Mᵢ·δᵢ +
     // Σ Jᵢ·δθᵢ, with ω_b = π² the bare span's fundamental (Euler–Bernoulli, any vibration text),
