@@ -10,6 +10,9 @@
 // The records are made here, from a seeded generator: each tap starts decaying sinusoids
 // x(t) = A e^(−ζωt) sin(ω_d t + φ), ω_d = ω√(1 − ζ²) (the damped oscillator's free response, a
 // fact of the theory), so the damped frequencies listed must be the ones written.
+//
+// Longer than 400 lines on purpose: the records' makers (ring-down, WAV writer) are shared by
+// every test of the panel, and splitting the file would copy them or add a module for one file.
 
 import assert from "node:assert/strict";
 import { mkdtempSync, writeFileSync } from "node:fs";
