@@ -58,7 +58,15 @@ pub(crate) fn run(project: &Project) -> Result<()> {
     run::status(project.cargo(["test", "--workspace"]).env("MODEBENCH_REQUIRE_REFERENCE", "1"))?;
     // The tap test's engine (its options, positions and drawing), which the workspace's run
     // leaves out with its feature.
-    run::status(&mut project.cargo(["test", "-p", "modebench-web", "--features", "bench", "--lib"]))?;
+    run::status(&mut project.cargo([
+        "test",
+        "-p",
+        "modebench-web",
+        "--features",
+        "bench",
+        "--lib",
+        "bench::",
+    ]))?;
 
     run::step("The core and the UI build for WebAssembly; each crate depends only on what it may");
     run::status(&mut project.cargo(["check", "-p", "modebench", "-p", "modebench-ui", "--target", TARGET]))?;
