@@ -401,7 +401,7 @@ describe("the tap-test panel", () => {
     // The page's table: modes 1–4 measured 4.5, 3.5, 2.5 and 2.0 % under the prediction (the
     // recording was made so; tests/tests/bench/page.rs keeps it and the page in step).
     const differences = await page.locator(".mb-bench-peaks tr[data-peak] td:last-child").allInnerTexts();
-    assert.deepEqual(differences, ["-4.50 %", "-3.50 %", "-2.50 %", "-2.00 %"]);
+    assert.deepEqual(differences, ["−4.50 %", "−3.50 %", "−2.50 %", "−2.00 %"]);
     assert.deepEqual(await axeProblems(page), []);
     assert.deepEqual(problems, []);
     await context.close();

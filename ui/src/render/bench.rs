@@ -185,6 +185,30 @@ fn percent(ratio: Option<f64>) -> String {
     ratio.map_or("—".to_string(), |z| format!("{} %", significant(100.0 * z, 3)))
 }
 
+/// A difference already in percent, with a true minus sign and two decimals: "+0.42 %",
+/// "−1.30 %", "0.00 %" (a hyphen would read as a dash in a table of figures).
+fn signed_percent(d: f64) -> String {
+    let text = format!("{:.2} %", d.abs());
+    if text == "0.00 %" || !d.is_finite() {
+        return if d.is_finite() { text } else { "—".to_string() };
+    }
+    if d > 0.0 {
+        format!("+{text}")
+    } else {
+        format!("−{text}")
+    }
+}
+
+/// The fit's quality on its 0–1 scale with two decimals, so that 0.996 reads "1.00" and is not
+/// mistaken for a count, and a poor fit reads "0.43".
+fn quality(q: f64) -> String {
+    if q.is_finite() {
+        format!("{q:.2}")
+    } else {
+        "—".to_string()
+    }
+}
+
 fn peaks_table(report: &BenchReport, predicted: bool) -> String {
     if report.peaks.is_empty() {
         return "<p class=\"mb-bench-none\">No peak stands clear of the noise floor: tap harder, hold the tablet closer, \
@@ -195,7 +219,7 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
     for (i, p) in report.peaks.iter().enumerate() {
         let mode = match (p.mode, p.predicted_hz, p.difference_percent) {
             (Some(m), Some(hz), Some(d)) => {
-                format!("<td>{m}</td><td>{}</td><td>{:+.2} %</td>", significant(hz, 5), d)
+                format!("<td>{m}</td><td>{}</td><td>{}</td>", significant(hz, 5), signed_percent(d))
             }
             _ => "<td>—</td><td>—</td><td>—</td>".to_string(),
         };
@@ -213,7 +237,7 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
             p.frequency_hz,
             significant(p.frequency_hz, 6),
             percent(p.damping_fit),
-            significant(p.quality, 2),
+            quality(p.quality),
             significant(p.over_floor_db, 3),
         );
     }
@@ -281,4 +305,25 @@ fn warnings(report: &BenchReport) -> String {
         return String::new();
     }
     format!("<ul class=\"mb-bench-warnings\" aria-label=\"Warnings and notes\">{}</ul>", items.concat())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{quality, signed_percent};
+
+    #[test]
+    fn differences_carry_a_true_minus_and_two_decimals() {
+        assert_eq!(signed_percent(0.4213), "+0.42 %");
+        assert_eq!(signed_percent(-1.3), "−1.30 %");
+        assert_eq!(signed_percent(-0.001), "0.00 %");
+        assert_eq!(signed_percent(0.0), "0.00 %");
+        assert_eq!(signed_percent(f64::NAN), "—");
+    }
+
+    #[test]
+    fn quality_reads_on_its_scale() {
+        assert_eq!(quality(0.996), "1.00");
+        assert_eq!(quality(0.4321), "0.43");
+        assert_eq!(quality(f64::INFINITY), "—");
+    }
 }
