@@ -31,18 +31,32 @@ pub(crate) fn ground(x: f64, y: f64, width: f64) -> String {
     )
 }
 
+/// The outline of a ground pad 24 wide, as path data: the mode plot draws every spring's pad
+/// in one path.
+pub(crate) fn ground_d(x: f64, y: f64) -> String {
+    format!("M{} {}h18a3 3 0 0 1 0 6h-18a3 3 0 0 1 0-6z", n(x - 9.0), n(y))
+}
+
 /// A zig-zag spring from (x, y1) to (x, y2).
 pub(crate) fn zigzag(x: f64, y1: f64, y2: f64) -> String {
+    format!(
+        "<path class=\"mb-spring\" d=\"{}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>",
+        zigzag_d(x, y1, y2)
+    )
+}
+
+/// The zig-zag of [`zigzag`] as path data, for drawing many springs in one path.
+pub(crate) fn zigzag_d(x: f64, y1: f64, y2: f64) -> String {
     let turns = 6;
     let lead = (y2 - y1) * 0.15;
     let step = (y2 - y1 - 2.0 * lead) / turns as f64;
-    let mut d = format!("M{} {} L{} {}", n(x), n(y1), n(x), n(y1 + lead));
+    let mut d = format!("M{} {}L{} {}", n(x), n(y1), n(x), n(y1 + lead));
     for i in 0..turns {
         let side = if i % 2 == 0 { 6.0 } else { -6.0 };
-        d.push_str(&format!(" L{} {}", n(x + side), n(y1 + lead + step * (i as f64 + 0.5))));
+        d.push_str(&format!("L{} {}", n(x + side), n(y1 + lead + step * (i as f64 + 0.5))));
     }
-    d.push_str(&format!(" L{} {} L{} {}", n(x), n(y2 - lead), n(x), n(y2)));
-    format!("<path class=\"mb-spring\" d=\"{d}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>")
+    d.push_str(&format!("L{} {}L{} {}", n(x), n(y2 - lead), n(x), n(y2)));
+    d
 }
 
 /// A coiled rotational spring around (x, y).
@@ -133,11 +147,12 @@ pub(crate) fn end_icon(kind: &str, right: bool, has_rotational: bool) -> String 
     )
 }
 
-/// A mass drawn as a rounded block centred on (x, y).
-pub(crate) fn mass(x: f64, y: f64) -> String {
+/// A mass drawn as a rounded block 16 wide centred on (x, y), as path data: the mode plot draws
+/// every mass in one path, since a model may carry hundreds of them.
+pub(crate) fn mass_d(x: f64, y: f64) -> String {
     format!(
-        "<rect class=\"mb-mass\" x=\"{}\" y=\"{}\" width=\"16\" height=\"16\" rx=\"4\" fill=\"{INK}\"/>",
-        n(x - 8.0),
+        "M{} {}h8a4 4 0 0 1 4 4v8a4 4 0 0 1-4 4h-8a4 4 0 0 1-4-4v-8a4 4 0 0 1 4-4z",
+        n(x - 4.0),
         n(y - 8.0)
     )
 }

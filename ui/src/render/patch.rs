@@ -1,0 +1,211 @@
+//! Which elements of a block of the calculator's markup changed between two drawings of it, so
+//! that the page replaces only those. A model with hundreds of attachments has hundreds of rows
+//! in its results (the inputs as modelled, the unit conversions); typing one value changes one
+//! row of each and the frequencies, and replacing the whole block would have the browser parse,
+//! style and lay out every row again on every answer.
+//!
+//! Both drawings are read as trees of elements (our own markup: every element closed, text and
+//! attribute values escaped), compared from the top, and each element that differs is replaced
+//! whole, unless its start tag and the text around its children are the same, in which case only
+//! the children that differ are (or the element whole, when most of its children changed: one
+//! replacement is then cheaper than many). An element is named by its place in document order
+//! under the block, which is the order of `querySelectorAll("*")`; the page checks the count and
+//! each target's tag before it replaces anything, and draws the block whole otherwise.
+
+/// What to do to the drawn block to make it the new drawing.
+#[derive(Clone, Debug, PartialEq)]
+pub enum Plan {
+    /// Nothing: the two drawings are the same.
+    Same,
+    /// Replace the block's whole content: the drawings differ at its top level, or a drawing
+    /// could not be read as a tree of elements.
+    Whole,
+    /// Replace these elements.
+    Patches {
+        /// How many elements the old drawing has under the block, which the page checks
+        /// against its own count before replacing anything.
+        elements: usize,
+        /// The elements to replace, none inside another.
+        patches: Vec<Patch>,
+    },
+}
+
+/// One element to replace.
+#[derive(Clone, Debug, PartialEq)]
+pub struct Patch {
+    /// Its place among the block's elements in document order, from 0.
+    pub index: usize,
+    /// Its tag name as written, for the page to check.
+    pub tag: String,
+    /// Its new markup, the element whole.
+    pub html: String,
+}
+
+/// Elements without content or end tag in HTML.
+const VOID: [&str; 13] =
+    ["area", "base", "br", "col", "embed", "hr", "img", "input", "link", "meta", "source", "track", "wbr"];
+
+/// When more children than this changed, and more than half of them, the parent is replaced
+/// whole.
+const FEW: usize = 4;
+
+/// An element of a drawing: where it lies in the text, and its children.
+#[derive(Debug)]
+struct Node {
+    tag: String,
+    /// Document-order place under the block (the block itself is not counted).
+    index: usize,
+    /// From its `<` to the end of its start tag.
+    start: usize,
+    open_end: usize,
+    /// Where its end tag starts, and where the element ends (both `open_end` for a void or
+    /// self-closed element).
+    close_start: usize,
+    end: usize,
+    children: Vec<Node>,
+}
+
+/// The plan that turns the drawing `old` into `new`.
+pub fn plan(old: &str, new: &str) -> Plan {
+    if old == new {
+        return Plan::Same;
+    }
+    let (Some((old_tree, elements)), Some((new_tree, _))) = (parse(old), parse(new)) else {
+        return Plan::Whole;
+    };
+    let mut patches = Vec::new();
+    if !same_shell(old, &old_tree, new, &new_tree) {
+        return Plan::Whole;
+    }
+    if !children(old, &old_tree, new, &new_tree, &mut patches) {
+        return Plan::Whole;
+    }
+    Plan::Patches { elements, patches }
+}
+
+/// Whether two elements have the same start tag, the same number of children and the same text
+/// around them, so that only their children can differ.
+fn same_shell(old: &str, a: &Node, new: &str, b: &Node) -> bool {
+    if old[a.start..a.open_end] != new[b.start..b.open_end] || a.children.len() != b.children.len() {
+        return false;
+    }
+    let gaps = |n: &Node| -> Vec<(usize, usize)> {
+        let mut at = n.open_end;
+        let mut out = Vec::with_capacity(n.children.len() + 1);
+        for c in &n.children {
+            out.push((at, c.start));
+            at = c.end;
+        }
+        out.push((at, n.close_start.max(at)));
+        out
+    };
+    gaps(a).iter().zip(gaps(b)).all(|(&(s, e), (t, f))| old[s..e] == new[t..f])
+}
+
+/// Adds the patches that make `a`'s children `b`'s, given the same shell; false when `a` itself
+/// should be replaced instead (most of its children changed). Never false for the block.
+fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
+    let changed: Vec<(&Node, &Node)> = a
+        .children
+        .iter()
+        .zip(&b.children)
+        .filter(|(x, y)| old[x.start..x.end] != new[y.start..y.end])
+        .collect();
+    let block = a.tag.is_empty();
+    if !block && changed.len() > FEW && 2 * changed.len() > a.children.len() {
+        return false;
+    }
+    for (x, y) in changed {
+        let inner = same_shell(old, x, new, y) && children(old, x, new, y, patches);
+        if !inner {
+            patches.push(Patch { index: x.index, tag: x.tag.clone(), html: new[y.start..y.end].to_string() });
+        }
+    }
+    true
+}
+
+/// Reads a drawing as a tree under an unnamed block; with the number of elements. `None` when
+/// it is not well formed as our markup always is.
+fn parse(text: &str) -> Option<(Node, usize)> {
+    let bytes = text.as_bytes();
+    let mut stack = vec![Node {
+        tag: String::new(),
+        index: usize::MAX,
+        start: 0,
+        open_end: 0,
+        close_start: 0,
+        end: 0,
+        children: Vec::new(),
+    }];
+    let mut count = 0;
+    let mut at = 0;
+    while let Some(offset) = text[at..].find('<') {
+        let start = at + offset;
+        let next = bytes.get(start + 1).copied().unwrap_or(b' ');
+        if next == b'/' {
+            let close = start + text[start..].find('>')?;
+            let name = text[start + 2..close].trim();
+            let mut node = stack.pop()?;
+            if stack.is_empty() || !node.tag.eq_ignore_ascii_case(name) {
+                return None;
+            }
+            node.close_start = start;
+            node.end = close + 1;
+            stack.last_mut()?.children.push(node);
+            at = close + 1;
+        } else if next.is_ascii_alphabetic() {
+            let open_end = tag_end(bytes, start)?;
+            let name_end = text[start + 1..open_end]
+                .find(|c: char| c.is_ascii_whitespace() || c == '>' || c == '/')
+                .map_or(open_end, |i| start + 1 + i);
+            let tag = text[start + 1..name_end].to_string();
+            let closed = bytes[open_end - 2] == b'/' || VOID.iter().any(|v| v.eq_ignore_ascii_case(&tag));
+            let node = Node {
+                tag,
+                index: count,
+                start,
+                open_end,
+                close_start: open_end,
+                end: open_end,
+                children: Vec::new(),
+            };
+            count += 1;
+            if closed {
+                stack.last_mut()?.children.push(node);
+            } else {
+                stack.push(node);
+            }
+            at = open_end;
+        } else if next == b'!' {
+            // A comment or a doctype: our markup has neither, and guessing is not safe.
+            return None;
+        } else {
+            // A `<` that starts no tag is text.
+            at = start + 1;
+        }
+    }
+    let mut root = stack.pop()?;
+    if !stack.is_empty() {
+        return None;
+    }
+    root.close_start = text.len();
+    root.end = text.len();
+    Some((root, count))
+}
+
+/// Where the start tag at `start` ends (just past its `>`), skipping quoted attribute values.
+fn tag_end(bytes: &[u8], start: usize) -> Option<usize> {
+    let mut quote = None;
+    for (i, &b) in bytes.iter().enumerate().skip(start + 1) {
+        match (quote, b) {
+            (None, b'"' | b'\'') => quote = Some(b),
+            (Some(q), _) if b == q => quote = None,
+            (None, b'>') => return Some(i + 1),
+            _ => {}
+        }
+    }
+    None
+}
+
+#[cfg(test)]
+mod tests;
