@@ -52,7 +52,8 @@ const FEW: usize = 4;
 /// An element of a drawing: where it lies in the text, and its children.
 #[derive(Debug)]
 struct Node {
-    tag: String,
+    /// Where its tag name lies in the text (empty for the block).
+    tag: (usize, usize),
     /// Document-order place under the block (the block itself is not counted).
     index: usize,
     /// From its `<` to the end of its start tag.
@@ -65,22 +66,42 @@ struct Node {
     children: Vec<Node>,
 }
 
+/// A drawing of a block, read once as a tree of elements: the next drawing is compared with it.
+#[derive(Debug)]
+pub struct Drawing {
+    text: String,
+    /// The tree and its number of elements; `None` when the text is not well formed.
+    tree: Option<(Node, usize)>,
+}
+
+impl Drawing {
+    /// Reads a drawing.
+    pub fn new(text: String) -> Drawing {
+        let tree = parse(&text);
+        Drawing { text, tree }
+    }
+
+    /// The drawing's markup.
+    pub fn text(&self) -> &str {
+        &self.text
+    }
+}
+
 /// The plan that turns the drawing `old` into `new`.
-pub fn plan(old: &str, new: &str) -> Plan {
-    if old == new {
+pub fn plan(old: &Drawing, new: &Drawing) -> Plan {
+    if old.text == new.text {
         return Plan::Same;
     }
-    let (Some((old_tree, elements)), Some((new_tree, _))) = (parse(old), parse(new)) else {
+    let (Some((old_tree, elements)), Some((new_tree, _))) = (&old.tree, &new.tree) else {
         return Plan::Whole;
     };
+    let (old, new) = (old.text.as_str(), new.text.as_str());
     let mut patches = Vec::new();
-    if !same_shell(old, &old_tree, new, &new_tree) {
+    if !same_shell(old, old_tree, new, new_tree) {
         return Plan::Whole;
     }
-    if !children(old, &old_tree, new, &new_tree, &mut patches) {
-        return Plan::Whole;
-    }
-    Plan::Patches { elements, patches }
+    children(old, old_tree, new, new_tree, &mut patches);
+    Plan::Patches { elements: *elements, patches }
 }
 
 /// Whether two elements have the same start tag, the same number of children and the same text
@@ -111,14 +132,15 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
         .zip(&b.children)
         .filter(|(x, y)| old[x.start..x.end] != new[y.start..y.end])
         .collect();
-    let block = a.tag.is_empty();
+    let block = a.tag.0 == a.tag.1;
     if !block && changed.len() > FEW && 2 * changed.len() > a.children.len() {
         return false;
     }
     for (x, y) in changed {
         let inner = same_shell(old, x, new, y) && children(old, x, new, y, patches);
         if !inner {
-            patches.push(Patch { index: x.index, tag: x.tag.clone(), html: new[y.start..y.end].to_string() });
+            let tag = old[x.tag.0..x.tag.1].to_string();
+            patches.push(Patch { index: x.index, tag, html: new[y.start..y.end].to_string() });
         }
     }
     true
@@ -129,7 +151,7 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
 fn parse(text: &str) -> Option<(Node, usize)> {
     let bytes = text.as_bytes();
     let mut stack = vec![Node {
-        tag: String::new(),
+        tag: (0, 0),
         index: usize::MAX,
         start: 0,
         open_end: 0,
@@ -146,7 +168,7 @@ fn parse(text: &str) -> Option<(Node, usize)> {
             let close = start + text[start..].find('>')?;
             let name = text[start + 2..close].trim();
             let mut node = stack.pop()?;
-            if stack.is_empty() || !node.tag.eq_ignore_ascii_case(name) {
+            if stack.is_empty() || !text[node.tag.0..node.tag.1].eq_ignore_ascii_case(name) {
                 return None;
             }
             node.close_start = start;
@@ -158,10 +180,10 @@ fn parse(text: &str) -> Option<(Node, usize)> {
             let name_end = text[start + 1..open_end]
                 .find(|c: char| c.is_ascii_whitespace() || c == '>' || c == '/')
                 .map_or(open_end, |i| start + 1 + i);
-            let tag = text[start + 1..name_end].to_string();
-            let closed = bytes[open_end - 2] == b'/' || VOID.iter().any(|v| v.eq_ignore_ascii_case(&tag));
+            let tag = &text[start + 1..name_end];
+            let closed = bytes[open_end - 2] == b'/' || VOID.iter().any(|v| v.eq_ignore_ascii_case(tag));
             let node = Node {
-                tag,
+                tag: (start + 1, name_end),
                 index: count,
                 start,
                 open_end,

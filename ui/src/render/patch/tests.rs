@@ -1,14 +1,14 @@
 //! The plan of replacements, checked by carrying it out on the old text: the result must be the
 //! new text exactly, for the calculator's own results drawn before and after an edit.
 
-use super::{parse, plan, Node, Plan};
+use super::{parse, Drawing, Node, Plan};
 use crate::render::{results_inner, View};
 
 /// The span of every element of a drawing, by document-order place.
-fn spans(text: &str) -> Vec<(usize, usize, String)> {
-    fn walk(node: &Node, out: &mut Vec<(usize, usize, String)>) {
+fn spans(text: &str) -> Vec<(usize, usize, (usize, usize))> {
+    fn walk(node: &Node, out: &mut Vec<(usize, usize, (usize, usize))>) {
         for c in &node.children {
-            out.push((c.start, c.end, c.tag.clone()));
+            out.push((c.start, c.end, c.tag));
             walk(c, out);
         }
     }
@@ -18,6 +18,11 @@ fn spans(text: &str) -> Vec<(usize, usize, String)> {
     assert_eq!(out.len(), count);
     out.sort_by_key(|s| s.0);
     out
+}
+
+/// The plan from `old` to `new`.
+fn plan(old: &str, new: &str) -> Plan {
+    super::plan(&Drawing::new(old.to_string()), &Drawing::new(new.to_string()))
 }
 
 /// `old` with the plan carried out, as the page does it.
@@ -33,7 +38,7 @@ fn carry_out(old: &str, new: &str) -> (String, Plan) {
                 .iter()
                 .map(|p| {
                     let (start, end, tag) = &spans[p.index];
-                    assert_eq!(tag, &p.tag, "the page checks the tag");
+                    assert_eq!(&old[tag.0..tag.1], p.tag, "the page checks the tag");
                     (*start, *end, p.html.as_str())
                 })
                 .collect();

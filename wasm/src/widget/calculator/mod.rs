@@ -10,6 +10,7 @@ mod answers;
 mod cases;
 mod events;
 mod focus;
+mod patch;
 
 use super::io::Io;
 use super::solver::{Callbacks, Solver};
@@ -67,12 +68,22 @@ pub(super) struct Calculator {
     /// The page script's helpers for links and files, and the callbacks for their replies.
     io: Io,
     replies: Option<Replies>,
-    /// The worker's answer for the report on show, as it wrote it, for the results' JSON file.
-    answer: Option<String>,
+    /// The worker's answer for the report on show, as it wrote it (a JavaScript string), for
+    /// the results' JSON file.
+    answer: Option<wasm_bindgen::JsValue>,
+    /// Whether results read from an answer wait to be drawn in a task of their own, and the
+    /// callback that draws them.
+    waiting_draw: bool,
+    draw_later: Option<js_sys::Function>,
     /// What the case bar's status line says.
     note: String,
     /// The printed sheet's head as last drawn.
     sheet: String,
+    /// The inside of the results element as last drawn by [`Calculator::draw_results`], from
+    /// which the next drawing is patched; `None` when something else has drawn there since.
+    results_shown: Option<crate::render::patch::Drawing>,
+    /// Whether an error's marks are in the editor, to be taken out before the next are placed.
+    marked: bool,
 }
 
 impl Calculator {
@@ -105,6 +116,10 @@ impl Calculator {
             answer: None,
             note: String::new(),
             sheet: String::new(),
+            results_shown: None,
+            marked: false,
+            waiting_draw: false,
+            draw_later: None,
         };
         c.load_example();
         c
@@ -131,6 +146,31 @@ impl Calculator {
         self.show_sheet();
         self.show_solving();
         self.open_incoming();
+    }
+
+    /// Gives the calculator the callback that draws results left for a task of their own.
+    pub(super) fn set_draw_later(&mut self, callback: js_sys::Function) {
+        self.draw_later = Some(callback);
+    }
+
+    /// With `ask`, leaves the results to draw to a task of its own, and says whether it could;
+    /// without, says whether results are left to draw (and takes them in hand).
+    fn later(&mut self, ask: bool) -> bool {
+        if !ask {
+            return std::mem::take(&mut self.waiting_draw);
+        }
+        if self.waiting_draw {
+            // A task is already coming; it draws the newest answer.
+            return true;
+        }
+        let posted = match (&self.draw_later, web_sys::window()) {
+            (Some(callback), Some(window)) => {
+                window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
+            }
+            _ => false,
+        };
+        self.waiting_draw = posted;
+        posted
     }
 
     fn load_example(&mut self) {
@@ -178,12 +218,21 @@ impl Calculator {
             dom::first(&self.root, ".mb-results").filter(|_| self.built_results && self.last.is_none());
         let kept = kept.map(|results| results.outer_html());
         self.root.set_inner_html(&html);
+        self.results_shown = None;
+        self.marked = self.error.is_some();
         match (kept, dom::first(&self.root, ".mb-results")) {
             (Some(built), Some(results)) => {
                 results.set_outer_html(&built);
                 self.show_built_results();
             }
-            _ => self.built_results = false,
+            _ => {
+                self.built_results = false;
+                // What the results element now holds, for the next answer to be patched over
+                // (drawn again here: the calculator's markup does not hand its parts back).
+                let stale = self.error.is_some();
+                let html = render::results_inner(self.last.as_ref(), stale, &self.view);
+                self.results_shown = Some(crate::render::patch::Drawing::new(html));
+            }
         }
         self.show_offer();
         self.tie_errors();
@@ -193,7 +242,8 @@ impl Calculator {
 
     /// Keeps the results the page was built with on show: greyed, with the note that they
     /// belong to an earlier input, while there is an error.
-    fn show_built_results(&self) {
+    fn show_built_results(&mut self) {
+        self.results_shown = None;
         let Some(results) = dom::first(&self.root, ".mb-results") else { return };
         let _ = results.remove_attribute("aria-busy");
         let note = dom::first(&results, ".mb-stale-note");
@@ -218,6 +268,7 @@ impl Calculator {
         if let Some(editor) = dom::first(&self.root, ".mb-editor") {
             let error = if marks { self.error.as_ref() } else { None };
             editor.set_inner_html(&render::editor_html(&self.doc, error, Editing::Live));
+            self.marked = error.is_some();
         }
         self.tie_errors();
     }
@@ -236,11 +287,8 @@ impl Calculator {
             let class = if self.error.is_some() { "mb-results mb-stale" } else { "mb-results" };
             results.set_class_name(class);
             let _ = results.remove_attribute("aria-busy");
-            results.set_inner_html(&render::results_inner(
-                self.last.as_ref(),
-                self.error.is_some(),
-                &self.view,
-            ));
+            let html = render::results_inner(self.last.as_ref(), self.error.is_some(), &self.view);
+            self.results_shown = Some(patch::draw(&results, self.results_shown.as_ref(), html));
         }
         if let Some(summary) = dom::first(&self.root, ".mb-summary") {
             summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
@@ -265,7 +313,21 @@ impl Calculator {
         self.grey_summary(true);
     }
 
-    fn mark_error(&self) {
+    /// Takes the last error's marks out of the editor and places the error's, if any. Without
+    /// marks in the editor nothing is searched: with hundreds of rows each search of the editor
+    /// costs the page milliseconds on every answer.
+    fn mark_error(&mut self) {
+        if self.marked {
+            self.unmark();
+        }
+        let Some(error) = &self.error else { return };
+        self.place_error(error);
+        self.tie_errors();
+        self.marked = true;
+    }
+
+    fn unmark(&mut self) {
+        self.marked = false;
         for old in dom::all(&self.root, ".mb-editor .mb-field-error") {
             old.remove();
         }
@@ -278,9 +340,6 @@ impl Calculator {
         for input in dom::all(&self.root, ".mb-editor [aria-invalid]") {
             let _ = input.remove_attribute("aria-invalid");
         }
-        let Some(error) = &self.error else { return };
-        self.place_error(error);
-        self.tie_errors();
     }
 
     /// Puts the message for `error` beside its field, or above the editor.
