@@ -5,7 +5,7 @@
 //! style and lay out every row again on every answer.
 //!
 //! Both drawings are read as trees of elements (our own markup: every element closed, text and
-//! attribute values escaped), compared from the top, and each element that differs is replaced
+//! attribute values escaped, no element without an end tag or `/>`), compared from the top, and each element that differs is replaced
 //! whole, unless its start tag and the text around its children are the same, in which case only
 //! the children that differ are (or the element whole, when most of its children changed: one
 //! replacement is then cheaper than many). An element is named by its place in document order
@@ -35,15 +35,9 @@ pub enum Plan {
 pub struct Patch {
     /// Its place among the block's elements in document order, from 0.
     pub index: usize,
-    /// Its tag name as written, for the page to check.
-    pub tag: String,
     /// Its new markup, the element whole.
     pub html: String,
 }
-
-/// Elements without content or end tag in HTML.
-const VOID: [&str; 13] =
-    ["area", "base", "br", "col", "embed", "hr", "img", "input", "link", "meta", "source", "track", "wbr"];
 
 /// When more children than this changed, and more than half of them, the parent is replaced
 /// whole.
@@ -110,44 +104,38 @@ fn same_shell(old: &str, a: &Node, new: &str, b: &Node) -> bool {
     if old[a.start..a.open_end] != new[b.start..b.open_end] || a.children.len() != b.children.len() {
         return false;
     }
-    let gaps = |n: &Node| -> Vec<(usize, usize)> {
-        let mut at = n.open_end;
-        let mut out = Vec::with_capacity(n.children.len() + 1);
-        for c in &n.children {
-            out.push((at, c.start));
-            at = c.end;
+    // The text before each child, and after the last.
+    let (mut x, mut y) = (a.open_end, b.open_end);
+    for (c, d) in a.children.iter().zip(&b.children) {
+        if old[x..c.start] != new[y..d.start] {
+            return false;
         }
-        out.push((at, n.close_start.max(at)));
-        out
-    };
-    gaps(a).iter().zip(gaps(b)).all(|(&(s, e), (t, f))| old[s..e] == new[t..f])
+        (x, y) = (c.end, d.end);
+    }
+    old[x..a.close_start] == new[y..b.close_start]
 }
 
 /// Adds the patches that make `a`'s children `b`'s, given the same shell; false when `a` itself
 /// should be replaced instead (most of its children changed). Never false for the block.
 fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
-    let changed: Vec<(&Node, &Node)> = a
-        .children
-        .iter()
-        .zip(&b.children)
-        .filter(|(x, y)| old[x.start..x.end] != new[y.start..y.end])
-        .collect();
+    let pairs = || a.children.iter().zip(&b.children);
+    let differ = |x: &Node, y: &Node| old[x.start..x.end] != new[y.start..y.end];
+    let changed = pairs().filter(|(x, y)| differ(x, y)).count();
     let block = a.tag.0 == a.tag.1;
-    if !block && changed.len() > FEW && 2 * changed.len() > a.children.len() {
+    if !block && changed > FEW && 2 * changed > a.children.len() {
         return false;
     }
-    for (x, y) in changed {
-        let inner = same_shell(old, x, new, y) && children(old, x, new, y, patches);
-        if !inner {
-            let tag = old[x.tag.0..x.tag.1].to_string();
-            patches.push(Patch { index: x.index, tag, html: new[y.start..y.end].to_string() });
+    for (x, y) in pairs() {
+        if differ(x, y) && !(same_shell(old, x, new, y) && children(old, x, new, y, patches)) {
+            patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
         }
     }
     true
 }
 
 /// Reads a drawing as a tree under an unnamed block; with the number of elements. `None` when
-/// it is not well formed as our markup always is.
+/// it is not well formed as our markup always is: every element closed by an end tag or `/>`
+/// (the results hold no element without one), no comment.
 fn parse(text: &str) -> Option<(Node, usize)> {
     let bytes = text.as_bytes();
     let mut stack = vec![Node {
@@ -161,50 +149,47 @@ fn parse(text: &str) -> Option<(Node, usize)> {
     }];
     let mut count = 0;
     let mut at = 0;
-    while let Some(offset) = text[at..].find('<') {
-        let start = at + offset;
-        let next = bytes.get(start + 1).copied().unwrap_or(b' ');
+    while at < bytes.len() {
+        if bytes[at] != b'<' {
+            at += 1;
+            continue;
+        }
+        let start = at;
+        let end = tag_end(bytes, start)?;
+        let next = *bytes.get(start + 1)?;
         if next == b'/' {
-            let close = start + text[start..].find('>')?;
-            let name = text[start + 2..close].trim();
             let mut node = stack.pop()?;
-            if stack.is_empty() || !text[node.tag.0..node.tag.1].eq_ignore_ascii_case(name) {
+            if stack.is_empty() || bytes[node.tag.0..node.tag.1] != bytes[start + 2..end - 1] {
                 return None;
             }
             node.close_start = start;
-            node.end = close + 1;
+            node.end = end;
             stack.last_mut()?.children.push(node);
-            at = close + 1;
         } else if next.is_ascii_alphabetic() {
-            let open_end = tag_end(bytes, start)?;
-            let name_end = text[start + 1..open_end]
-                .find(|c: char| c.is_ascii_whitespace() || c == '>' || c == '/')
-                .map_or(open_end, |i| start + 1 + i);
-            let tag = &text[start + 1..name_end];
-            let closed = bytes[open_end - 2] == b'/' || VOID.iter().any(|v| v.eq_ignore_ascii_case(tag));
+            let mut name_end = start + 1;
+            while bytes[name_end].is_ascii_alphanumeric() {
+                name_end += 1;
+            }
             let node = Node {
                 tag: (start + 1, name_end),
                 index: count,
                 start,
-                open_end,
-                close_start: open_end,
-                end: open_end,
+                open_end: end,
+                close_start: end,
+                end,
                 children: Vec::new(),
             };
             count += 1;
-            if closed {
+            if bytes[end - 2] == b'/' {
                 stack.last_mut()?.children.push(node);
             } else {
                 stack.push(node);
             }
-            at = open_end;
-        } else if next == b'!' {
-            // A comment or a doctype: our markup has neither, and guessing is not safe.
-            return None;
         } else {
-            // A `<` that starts no tag is text.
-            at = start + 1;
+            // A comment, a doctype or a `<` that starts no tag: none is in our markup.
+            return None;
         }
+        at = end;
     }
     let mut root = stack.pop()?;
     if !stack.is_empty() {
@@ -215,15 +200,18 @@ fn parse(text: &str) -> Option<(Node, usize)> {
     Some((root, count))
 }
 
-/// Where the start tag at `start` ends (just past its `>`), skipping quoted attribute values.
+/// Where the tag at `start` ends (just past its `>`), skipping quoted attribute values.
 fn tag_end(bytes: &[u8], start: usize) -> Option<usize> {
-    let mut quote = None;
+    let mut quote = 0;
     for (i, &b) in bytes.iter().enumerate().skip(start + 1) {
-        match (quote, b) {
-            (None, b'"' | b'\'') => quote = Some(b),
-            (Some(q), _) if b == q => quote = None,
-            (None, b'>') => return Some(i + 1),
-            _ => {}
+        if quote != 0 {
+            if b == quote {
+                quote = 0;
+            }
+        } else if b == b'"' || b == b'\'' {
+            quote = b;
+        } else if b == b'>' {
+            return Some(i + 1);
         }
     }
     None

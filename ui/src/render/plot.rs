@@ -99,75 +99,22 @@ fn rest_line(report: &Report, px: &dyn Fn(f64) -> f64) -> String {
 }
 
 fn shape_line(mode: &ModeReport, px: &dyn Fn(f64) -> f64) -> String {
-    let points: Vec<(f64, f64)> = mode
+    let points: Vec<String> = mode
         .shape
         .x
         .iter()
         .zip(&mode.shape.w)
         .filter(|(x, w)| x.is_finite() && w.is_finite())
-        .map(|(x, w)| (px(*x), AXIS - AMPLITUDE * w.clamp(-1.5, 1.5)))
+        .map(|(x, w)| format!("{},{}", n(px(*x)), n(AXIS - AMPLITUDE * w.clamp(-1.5, 1.5))))
         .collect();
     if points.is_empty() {
         return String::new();
     }
-    let points: Vec<String> =
-        thin(&points, TOLERANCE).iter().map(|(x, y)| format!("{},{}", n(*x), n(*y))).collect();
     format!(
         "<polyline class=\"mb-shape\" points=\"{}\" fill=\"none\" stroke=\"{SHAPE}\" stroke-width=\"3.2\" \
          stroke-linejoin=\"round\" stroke-linecap=\"round\"/>",
         points.join(" ")
     )
-}
-
-/// How far the drawn line may pass from a sample it leaves out, in the plot's units: the
-/// coordinates are written to 0.1, so a line within 0.1 of every sample draws the same shape
-/// (the plot is 720 units wide and shown at most about that many pixels wide).
-const TOLERANCE: f64 = 0.1;
-
-/// The most samples one drawn segment may stand for.
-const MAX_RUN: usize = 64;
-
-/// The samples of a line that draw it within `tolerance` of every sample: a long model's shape
-/// comes with a sample at every station and between them (1,605 at 800 attachments), three or
-/// four to the pixel, which would make the browser parse and stroke them all on every answer.
-/// Greedy: from each point kept, the line goes as far as it can while passing within
-/// `tolerance` of every sample it skips. The first and the last are always kept.
-pub(crate) fn thin(points: &[(f64, f64)], tolerance: f64) -> Vec<(f64, f64)> {
-    let Some((&first, _)) = points.split_first() else { return Vec::new() };
-    let mut kept = vec![first];
-    let mut anchor = 0;
-    let mut end = 1;
-    while end < points.len() {
-        // Can the line from the anchor reach the point after `end` and still pass every sample?
-        let next = end + 1;
-        // A window is capped so that a long straight run costs a bounded number of checks.
-        let reaches =
-            next < points.len() && next - anchor <= MAX_RUN && within(points, anchor, next, tolerance);
-        if reaches {
-            end = next;
-        } else {
-            kept.push(points[end]);
-            anchor = end;
-            end += 1;
-        }
-    }
-    kept
-}
-
-/// Whether every sample strictly between `a` and `b` lies within `tolerance` of the segment
-/// from `a` to `b`.
-fn within(points: &[(f64, f64)], a: usize, b: usize, tolerance: f64) -> bool {
-    let (ax, ay) = points[a];
-    let (bx, by) = points[b];
-    let (dx, dy) = (bx - ax, by - ay);
-    let length2 = dx * dx + dy * dy;
-    points[a + 1..b].iter().all(|&(x, y)| {
-        let (px, py) = (x - ax, y - ay);
-        // The distance to the segment: to its nearer end past either end, else to the line.
-        let t = if length2 > 0.0 { ((px * dx + py * dy) / length2).clamp(0.0, 1.0) } else { 0.0 };
-        let (ex, ey) = (px - t * dx, py - t * dy);
-        ex * ex + ey * ey <= tolerance * tolerance
-    })
 }
 
 /// The deflection of a mode at `x`, interpolated between samples; 0 without a shape.
@@ -231,12 +178,12 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
     }
     let mut out = String::new();
     if !springs.is_empty() {
-        out.push_str(&format!(
-            "<path class=\"mb-spring\" d=\"{springs}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>"
-        ));
+        out.push_str(&symbols::springs(&springs));
     }
     if !grounds.is_empty() {
-        out.push_str(&format!("<path class=\"mb-ground\" d=\"{grounds}\" fill=\"{GROUND}\"/>"));
+        out.push_str(&format!(
+            "<path class=\"mb-ground\" d=\"{grounds}\" stroke=\"{GROUND}\" stroke-width=\"6\" stroke-linecap=\"round\"/>"
+        ));
     }
     if !masses.is_empty() {
         out.push_str(&format!("<path class=\"mb-mass\" d=\"{masses}\" fill=\"{INK}\"/>"));
@@ -259,60 +206,4 @@ fn ruler(report: &Report) -> String {
         n(y - 4.0),
         escape(&quantity(report.beam.length, Kind::Length, report.units))
     )
-}
-
-#[cfg(test)]
-mod tests {
-    use super::{thin, TOLERANCE};
-
-    /// The distance from a point to the segment between two others.
-    fn distance((x, y): (f64, f64), (ax, ay): (f64, f64), (bx, by): (f64, f64)) -> f64 {
-        let (dx, dy) = (bx - ax, by - ay);
-        let t = (((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy)).clamp(0.0, 1.0);
-        (x - ax - t * dx).hypot(y - ay - t * dy)
-    }
-
-    #[test]
-    fn the_thinned_line_passes_within_the_tolerance_of_every_sample() {
-        // The modes of a pinned-pinned beam, sin(kπx/L) (a textbook fact), sampled as a long
-        // model's shape is, 1,605 samples across the plot's 580 units, for k = 1 to 20; and a
-        // straight line, which is where the cap on one segment's run shows.
-        let samples = 1605;
-        let mut curves: Vec<Vec<(f64, f64)>> = (1..=20)
-            .map(|k| {
-                (0..samples)
-                    .map(|i| {
-                        let s = i as f64 / (samples - 1) as f64;
-                        (70.0 + 580.0 * s, 140.0 - 58.0 * (k as f64 * std::f64::consts::PI * s).sin())
-                    })
-                    .collect()
-            })
-            .collect();
-        curves.push((0..samples).map(|i| (70.0 + i as f64 * 0.36, 140.0)).collect());
-        for (k, curve) in curves.iter().enumerate() {
-            let kept = thin(curve, TOLERANCE);
-            assert_eq!((kept.first(), kept.last()), (curve.first(), curve.last()), "curve {k}");
-            // Every sample lies within the tolerance of the segment of the kept line over it.
-            let mut segment = 0;
-            for &p in curve {
-                while segment + 1 < kept.len() - 1 && p.0 > kept[segment + 1].0 {
-                    segment += 1;
-                }
-                let d = distance(p, kept[segment], kept[segment + 1]);
-                assert!(d <= TOLERANCE * (1.0 + 1e-9), "curve {k}: a sample {d} from the line");
-            }
-            // And the line is thinner than the samples: under a third of them for the first
-            // twenty modes at this spacing.
-            assert!(kept.len() * 3 < curve.len(), "curve {k}: {} of {} kept", kept.len(), curve.len());
-        }
-    }
-
-    #[test]
-    fn short_lines_are_kept_as_they_are() {
-        assert!(thin(&[], TOLERANCE).is_empty());
-        assert_eq!(thin(&[(1.0, 2.0)], TOLERANCE), vec![(1.0, 2.0)]);
-        // A corner sharper than the tolerance is kept.
-        let corner = [(0.0, 0.0), (10.0, 10.0), (20.0, 0.0)];
-        assert_eq!(thin(&corner, TOLERANCE), corner.to_vec());
-    }
 }

@@ -31,21 +31,19 @@ pub(crate) fn ground(x: f64, y: f64, width: f64) -> String {
     )
 }
 
-/// The outline of a ground pad 24 wide, as path data: the mode plot draws every spring's pad
-/// in one path.
+/// A ground pad 24 wide as path data, drawn as a line 6 thick with round ends: the mode plot
+/// draws every spring's pad in one path.
 pub(crate) fn ground_d(x: f64, y: f64) -> String {
-    format!("M{} {}h18a3 3 0 0 1 0 6h-18a3 3 0 0 1 0-6z", n(x - 9.0), n(y))
+    format!("M{} {}h18", n(x - 9.0), n(y + 3.0))
 }
 
-/// A zig-zag spring from (x, y1) to (x, y2).
-pub(crate) fn zigzag(x: f64, y1: f64, y2: f64) -> String {
-    format!(
-        "<path class=\"mb-spring\" d=\"{}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>",
-        zigzag_d(x, y1, y2)
-    )
+/// Springs drawn along the path data `d` (from [`zigzag_d`]).
+pub(crate) fn springs(d: &str) -> String {
+    format!("<path class=\"mb-spring\" d=\"{d}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>")
 }
 
-/// The zig-zag of [`zigzag`] as path data, for drawing many springs in one path.
+/// A zig-zag spring from (x, y1) to (x, y2), as path data: the mode plot draws every spring in
+/// one path.
 pub(crate) fn zigzag_d(x: f64, y1: f64, y2: f64) -> String {
     let turns = 6;
     let lead = (y2 - y1) * 0.15;
@@ -121,7 +119,7 @@ pub(crate) fn end(kind: &str, x: f64, y: f64, direction: f64, has_rotational: bo
             )
         }
         "elastic" => {
-            let mut out = zigzag(x, y + 2.0, y + 30.0);
+            let mut out = springs(&zigzag_d(x, y + 2.0, y + 30.0));
             out.push_str(&ground(x, y + 30.0, 24.0));
             if has_rotational {
                 out.push_str(&coil(x, y));

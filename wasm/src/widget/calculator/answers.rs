@@ -8,14 +8,16 @@ use crate::widget::storage;
 use crate::worker::latest::{Expiry, Purpose, Verdict};
 use crate::worker::message;
 use modebench::{Error, Report};
-use wasm_bindgen::{JsCast, JsValue};
+use wasm_bindgen::JsValue;
 use web_sys::MessageEvent;
 
-/// An answer longer than this (characters of JSON) is drawn in a task after the one that read it:
-/// reading and drawing a model of hundreds of attachments take some 10 ms each on a loaded
-/// two-core machine, and together they would be a long task; a documented scenario's answer
-/// (30 KB for the camera boom) is drawn at once, as quickly as it came.
-const LONG_ANSWER: usize = 200_000;
+/// An answer whose modes times attachments pass this is drawn in a task after the one that read
+/// it: each mode's shape has samples at every attachment and between them, and they are most
+/// of an answer (0.98 of the 1.17 MB of 20 modes of an 800-attachment model). Reading and
+/// drawing such a model take some 10 ms each on a loaded two-core machine, and together they
+/// would be a long task. A documented scenario's answer (the camera boom's: 4 modes, 1
+/// attachment, 30 KB) is drawn at once, as quickly as it came.
+const LONG_ANSWER: usize = 2_000;
 
 impl Calculator {
     /// Takes a message from the worker.
@@ -85,7 +87,7 @@ impl Calculator {
     /// the page can take a keystroke or draw a frame between them. If a newer answer comes
     /// before the drawing, the newer is drawn.
     fn solved(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
-        let long = answer.dyn_ref::<js_sys::JsString>().is_some_and(|a| a.length() as usize > LONG_ANSWER);
+        let long = outcome.as_ref().is_ok_and(|r| r.modes.len() * r.beam.attachments.len() > LONG_ANSWER);
         match outcome {
             Ok(report) => {
                 self.last = Some(report);
@@ -94,7 +96,7 @@ impl Calculator {
             }
             Err(error) => self.error = Some(error),
         }
-        if long && self.later(true) {
+        if long && self.draw_later() {
             return;
         }
         self.draw_results();
@@ -103,7 +105,7 @@ impl Calculator {
 
     /// Draws the results left to draw by [`Calculator::solved`], if any.
     pub(in crate::widget) fn on_later(&mut self) {
-        if self.later(false) {
+        if std::mem::take(&mut self.waiting_draw) {
             self.draw_results();
             self.stamp();
         }

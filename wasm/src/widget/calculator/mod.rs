@@ -153,24 +153,19 @@ impl Calculator {
         self.draw_later = Some(callback);
     }
 
-    /// With `ask`, leaves the results to draw to a task of its own, and says whether it could;
-    /// without, says whether results are left to draw (and takes them in hand).
-    fn later(&mut self, ask: bool) -> bool {
-        if !ask {
-            return std::mem::take(&mut self.waiting_draw);
+    /// Leaves the results to draw to a task of their own, unless one is coming already; says
+    /// whether one is.
+    fn draw_later(&mut self) -> bool {
+        if !self.waiting_draw {
+            let posted = match (&self.draw_later, web_sys::window()) {
+                (Some(callback), Some(window)) => {
+                    window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
+                }
+                _ => false,
+            };
+            self.waiting_draw = posted;
         }
-        if self.waiting_draw {
-            // A task is already coming; it draws the newest answer.
-            return true;
-        }
-        let posted = match (&self.draw_later, web_sys::window()) {
-            (Some(callback), Some(window)) => {
-                window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
-            }
-            _ => false,
-        };
-        self.waiting_draw = posted;
-        posted
+        self.waiting_draw
     }
 
     fn load_example(&mut self) {
@@ -242,8 +237,7 @@ impl Calculator {
 
     /// Keeps the results the page was built with on show: greyed, with the note that they
     /// belong to an earlier input, while there is an error.
-    fn show_built_results(&mut self) {
-        self.results_shown = None;
+    fn show_built_results(&self) {
         let Some(results) = dom::first(&self.root, ".mb-results") else { return };
         let _ = results.remove_attribute("aria-busy");
         let note = dom::first(&results, ".mb-stale-note");
@@ -328,17 +322,16 @@ impl Calculator {
 
     fn unmark(&mut self) {
         self.marked = false;
-        for old in dom::all(&self.root, ".mb-editor .mb-field-error") {
-            old.remove();
-        }
-        for field in dom::all(&self.root, ".mb-editor .mb-invalid, .mb-editor .mb-unfilled") {
-            let _ = field.class_list().remove_2("mb-invalid", "mb-unfilled");
-        }
-        for input in dom::all(&self.root, ".mb-editor [aria-describedby]") {
-            let _ = input.remove_attribute("aria-describedby");
-        }
-        for input in dom::all(&self.root, ".mb-editor [aria-invalid]") {
-            let _ = input.remove_attribute("aria-invalid");
+        let marks =
+            ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
+        for mark in dom::all(&self.root, marks) {
+            if mark.class_list().contains("mb-field-error") {
+                mark.remove();
+                continue;
+            }
+            let _ = mark.class_list().remove_2("mb-invalid", "mb-unfilled");
+            let _ = mark.remove_attribute("aria-describedby");
+            let _ = mark.remove_attribute("aria-invalid");
         }
     }
 

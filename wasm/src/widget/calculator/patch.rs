@@ -7,35 +7,37 @@ use wasm_bindgen::JsCast;
 use web_sys::Element;
 
 /// Makes the inside of `block` the drawing `html`, given that `shown` is what was drawn there
-/// last (`None` when unknown), and returns it, read, for the next. Anything unexpected (the
-/// element count or a tag not as drawn, because something else changed the block) draws the
-/// block whole.
+/// last (`None` when unknown), and returns it, read, for the next. Anything unexpected (an
+/// element count not as drawn, because something else changed the block) draws the block whole.
 pub(super) fn draw(block: &Element, shown: Option<&Drawing>, html: String) -> Drawing {
     let new = Drawing::new(html);
     let plan = shown.map_or(Plan::Whole, |old| patch::plan(old, &new));
     let html = new.text();
-    let patches = match plan {
+    let whole = match plan {
         Plan::Same => return new,
-        Plan::Whole => None,
+        Plan::Whole => true,
         Plan::Patches { elements, patches } => {
-            // Only the targets are taken out of the list, not its thousands of other elements.
+            // Only the targets are taken out of the list, not its thousands of other elements;
+            // every one is found before any is replaced.
             let all = block.query_selector_all("*").ok().filter(|l| l.length() as usize == elements);
-            let targets: Option<Vec<(Element, &str)>> = all.and_then(|all| {
-                patches
-                    .iter()
-                    .map(|p| {
-                        let element = u32::try_from(p.index).ok().and_then(|i| all.get(i));
-                        element
-                            .and_then(|e| e.dyn_into::<Element>().ok())
-                            .filter(|e| e.tag_name().eq_ignore_ascii_case(&p.tag))
-                            .map(|e| (e, p.html.as_str()))
-                    })
-                    .collect()
-            });
-            targets.map(|t| t.into_iter().for_each(|(e, html)| e.set_outer_html(html)))
+            let mut targets = Vec::new();
+            for p in &patches {
+                let element = all.as_ref().and_then(|all| all.get(p.index as u32));
+                match element.and_then(|e| e.dyn_into::<Element>().ok()) {
+                    Some(e) => targets.push(e),
+                    _ => break,
+                }
+            }
+            let whole = targets.len() < patches.len();
+            if !whole {
+                for (e, p) in targets.iter().zip(&patches) {
+                    e.set_outer_html(&p.html);
+                }
+            }
+            whole
         }
     };
-    if patches.is_none() {
+    if whole {
         block.set_inner_html(html);
     }
     new
