@@ -117,13 +117,13 @@ describe("solving off the main thread", () => {
       [MODE_1, reference.hz, SAME],
       { timeout: 60_000 },
     );
-    // No task of the main thread while typing came near one solve of the model: the solving was
-    // elsewhere. (Drawing twenty modes can itself pass the long-task mark on a loaded machine, so
-    // the mark is measured against the solve, timed on this same machine a moment before.)
+    // No task of the main thread while typing reached the 50 ms of a visible stall: the solving
+    // was elsewhere, and what is left to the page (taking each keystroke, reading each answer,
+    // drawing its results over the last ones) stays short even with 800 rows in the editor and
+    // their echo in the results.
     const longTasks = await page.evaluate(() => window.__longTasks);
-    const limit = Math.max(LONG_TASK_MS, reference.ms / 2);
     assert.deepEqual(
-      longTasks.filter((ms) => ms >= limit),
+      longTasks.filter((ms) => ms >= LONG_TASK_MS),
       [],
       `main-thread tasks while typing: ${longTasks} ms; one solve takes ${reference.ms.toFixed(0)} ms`,
     );
