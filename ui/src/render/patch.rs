@@ -6,9 +6,8 @@
 //!
 //! Both drawings are read as trees of elements (our own markup: every element closed, text and
 //! attribute values escaped, no element without an end tag or `/>`), compared from the top, and each element that differs is replaced
-//! whole, unless its start tag and the text around its children are the same, in which case only
-//! the children that differ are (or the element whole, when most of its children changed: one
-//! replacement is then cheaper than many). An element is named by its place in document order
+//! whole, unless its start tag is the same and it has no text beside its children, in which
+//! case only the children that differ are. An element is named by its place in document order
 //! under the block, which is the order of `querySelectorAll("*")`; the page checks the count and
 //! each target's tag before it replaces anything, and draws the block whole otherwise.
 
@@ -38,10 +37,6 @@ pub struct Patch {
     /// Its new markup, the element whole.
     pub html: String,
 }
-
-/// When more children than this changed, and more than half of them, the parent is replaced
-/// whole.
-const FEW: usize = 4;
 
 /// An element of a drawing: where it lies in the text, and its children.
 #[derive(Debug)]
@@ -98,37 +93,69 @@ pub fn plan(old: &Drawing, new: &Drawing) -> Plan {
     Plan::Patches { elements: *elements, patches }
 }
 
-/// Whether two elements have the same start tag, the same number of children and the same text
-/// around them, so that only their children can differ.
+/// Whether two elements have the same start tag and no text between their children (none
+/// before the first or after the last either), so that their children can be patched.
 fn same_shell(old: &str, a: &Node, new: &str, b: &Node) -> bool {
-    if old[a.start..a.open_end] != new[b.start..b.open_end] || a.children.len() != b.children.len() {
-        return false;
-    }
-    // The text before each child, and after the last.
-    let (mut x, mut y) = (a.open_end, b.open_end);
-    for (c, d) in a.children.iter().zip(&b.children) {
-        if old[x..c.start] != new[y..d.start] {
+    old[a.start..a.open_end] == new[b.start..b.open_end] && bare(a) && bare(b)
+}
+
+/// Whether an element's children fill it with no text between them.
+fn bare(n: &Node) -> bool {
+    let mut at = n.open_end;
+    for c in &n.children {
+        if c.start != at {
             return false;
         }
-        (x, y) = (c.end, d.end);
+        at = c.end;
     }
-    old[x..a.close_start] == new[y..b.close_start]
+    at == n.close_start
 }
 
 /// Adds the patches that make `a`'s children `b`'s, given the same shell; false when `a` itself
-/// should be replaced instead (most of its children changed). Never false for the block.
+/// should be replaced instead (it has no child to patch; never so for the block). The children alike at either end are kept; those between are patched
+/// pair by pair when as many came as went, and otherwise replaced together: the new ones are
+/// written in place of the first old one (or, when none went, together with a kept neighbour),
+/// and the other old ones replaced by nothing.
 fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
-    let pairs = || a.children.iter().zip(&b.children);
-    let differ = |x: &Node, y: &Node| old[x.start..x.end] != new[y.start..y.end];
-    let changed = pairs().filter(|(x, y)| differ(x, y)).count();
-    let block = a.tag.0 == a.tag.1;
-    if !block && changed > FEW && 2 * changed > a.children.len() {
+    let (xs, ys) = (&a.children, &b.children);
+    let same = |i: usize, j: usize| old[xs[i].start..xs[i].end] == new[ys[j].start..ys[j].end];
+    let shortest = xs.len().min(ys.len());
+    let mut head = 0;
+    while head < shortest && same(head, head) {
+        head += 1;
+    }
+    let mut tail = 0;
+    while head + tail < shortest && same(xs.len() - 1 - tail, ys.len() - 1 - tail) {
+        tail += 1;
+    }
+    let (gone, came) = (&xs[head..xs.len() - tail], &ys[head..ys.len() - tail]);
+    if xs.is_empty() {
         return false;
     }
-    for (x, y) in pairs() {
-        if differ(x, y) && !(same_shell(old, x, new, y) && children(old, x, new, y, patches)) {
-            patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
+    if gone.len() == came.len() {
+        for (x, y) in gone.iter().zip(came) {
+            let kept = old[x.start..x.end] == new[y.start..y.end]
+                || same_shell(old, x, new, y) && children(old, x, new, y, patches);
+            if !kept {
+                patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
+            }
         }
+        return true;
+    }
+    // The new children's text, with the kept neighbour they are written with when none went
+    // (the one before them, or else the one after).
+    let (from, to) = match (came.first(), came.last()) {
+        (Some(first), Some(last)) => (first.start, last.end),
+        _ => (0, 0),
+    };
+    let (index, from, to) = match gone.first() {
+        Some(first) => (first.index, from, to),
+        None if head > 0 => (xs[head - 1].index, ys[head - 1].start, to),
+        None => (xs[head].index, from, ys[head + came.len()].end),
+    };
+    patches.push(Patch { index, html: new[from..to].to_string() });
+    for x in gone.iter().skip(1) {
+        patches.push(Patch { index: x.index, html: String::new() });
     }
     true
 }
@@ -155,7 +182,8 @@ fn parse(text: &str) -> Option<(Node, usize)> {
             continue;
         }
         let start = at;
-        let end = tag_end(bytes, start)?;
+        // Our markup escapes `>` in attribute values as in text, so the first `>` ends the tag.
+        let end = start + 1 + text[start..].find('>')?;
         let next = *bytes.get(start + 1)?;
         if next == b'/' {
             let mut node = stack.pop()?;
@@ -198,23 +226,6 @@ fn parse(text: &str) -> Option<(Node, usize)> {
     root.close_start = text.len();
     root.end = text.len();
     Some((root, count))
-}
-
-/// Where the tag at `start` ends (just past its `>`), skipping quoted attribute values.
-fn tag_end(bytes: &[u8], start: usize) -> Option<usize> {
-    let mut quote = 0;
-    for (i, &b) in bytes.iter().enumerate().skip(start + 1) {
-        if quote != 0 {
-            if b == quote {
-                quote = 0;
-            }
-        } else if b == b'"' || b == b'\'' {
-            quote = b;
-        } else if b == b'>' {
-            return Some(i + 1);
-        }
-    }
-    None
 }
 
 #[cfg(test)]

@@ -3,7 +3,7 @@
 
 use super::escape::escape;
 use super::number::{hz, quantity, rpm};
-use super::symbols::{self, GROUND, INK};
+use super::symbols::{self, INK};
 use modebench::report::{AttachmentKind, ModeReport};
 use modebench::units::Kind;
 use modebench::Report;
@@ -134,15 +134,11 @@ fn deflection(mode: Option<&ModeReport>, x: f64) -> f64 {
     }
 }
 
-/// The attachments' symbols and labels. Symbols of one kind are drawn in one path each (the
-/// masses, the springs, their ground pads), so that a model with hundreds of attachments adds a
-/// few elements to the page, not hundreds.
+/// The attachments' symbols and labels. The masses are drawn in one path, so that a model with
+/// hundreds of them (cable clips, say) adds one element to the page, not hundreds.
 fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f64) -> String {
     let mut masses = String::new();
-    let mut springs = String::new();
-    let mut grounds = String::new();
     let mut others = String::new();
-    let mut labels = String::new();
     let ground = AXIS + AMPLITUDE + 22.0;
     for (i, a) in report.beam.attachments.iter().enumerate() {
         let x = px(a.position);
@@ -161,35 +157,27 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
                 // The mass rests well above the beam; however the two move, its spring is drawn
                 // at least 22 px long so the mass never seems to pass through the beam.
                 let top = (AXIS - 64.0 - AMPLITUDE * amplitude).max(34.0).min(y - 30.0);
-                springs.push_str(&symbols::zigzag_d(x, top + 8.0, y));
+                others.push_str(&symbols::springs(&symbols::zigzag_d(x, top + 8.0, y)));
                 masses.push_str(&symbols::mass_d(x, top));
             }
             AttachmentKind::Spring => {
-                springs.push_str(&symbols::zigzag_d(x, y, ground));
-                grounds.push_str(&symbols::ground_d(x, ground));
+                others.push_str(&symbols::springs(&symbols::zigzag_d(x, y, ground)));
+                others.push_str(&symbols::ground(x, ground, 24.0));
             }
             AttachmentKind::RotationalSpring => others.push_str(&symbols::coil(x, y)),
             AttachmentKind::Support => others.push_str(&symbols::pin(x, AXIS)),
         }
         if !a.label.trim().is_empty() {
             let short: String = a.label.trim().chars().take(28).collect();
-            labels.push_str(&symbols::label(x, HEIGHT - 44.0, &escape(&short)));
+            others.push_str(&symbols::label(x, HEIGHT - 44.0, &escape(&short)));
         }
     }
-    let mut out = String::new();
-    if !springs.is_empty() {
-        out.push_str(&symbols::springs(&springs));
-    }
-    if !grounds.is_empty() {
+    let mut out = others;
+    if !masses.is_empty() {
         out.push_str(&format!(
-            "<path class=\"mb-ground\" d=\"{grounds}\" stroke=\"{GROUND}\" stroke-width=\"6\" stroke-linecap=\"round\"/>"
+            "<path class=\"mb-mass\" d=\"{masses}\" stroke=\"{INK}\" stroke-width=\"8\" stroke-linejoin=\"round\"/>"
         ));
     }
-    if !masses.is_empty() {
-        out.push_str(&format!("<path class=\"mb-mass\" d=\"{masses}\" fill=\"{INK}\"/>"));
-    }
-    out.push_str(&others);
-    out.push_str(&labels);
     out
 }
 

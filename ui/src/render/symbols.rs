@@ -31,12 +31,6 @@ pub(crate) fn ground(x: f64, y: f64, width: f64) -> String {
     )
 }
 
-/// A ground pad 24 wide as path data, drawn as a line 6 thick with round ends: the mode plot
-/// draws every spring's pad in one path.
-pub(crate) fn ground_d(x: f64, y: f64) -> String {
-    format!("M{} {}h18", n(x - 9.0), n(y + 3.0))
-}
-
 /// Springs drawn along the path data `d` (from [`zigzag_d`]).
 pub(crate) fn springs(d: &str) -> String {
     format!("<path class=\"mb-spring\" d=\"{d}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>")
@@ -145,14 +139,12 @@ pub(crate) fn end_icon(kind: &str, right: bool, has_rotational: bool) -> String 
     )
 }
 
-/// A mass drawn as a rounded block 16 wide centred on (x, y), as path data: the mode plot draws
-/// every mass in one path, since a model may carry hundreds of them.
+/// A mass as path data: a square 8 wide centred on (x, y), which the mode plot strokes 8 wide
+/// with round joins, so that it shows as a block 16 wide with corners rounded to 4 (the stroke
+/// covers the inside, whatever its fill). The plot
+/// draws every mass in one path, since a model may carry hundreds of them.
 pub(crate) fn mass_d(x: f64, y: f64) -> String {
-    format!(
-        "M{} {}h8a4 4 0 0 1 4 4v8a4 4 0 0 1-4 4h-8a4 4 0 0 1-4-4v-8a4 4 0 0 1 4-4z",
-        n(x - 4.0),
-        n(y - 8.0)
-    )
+    format!("M{} {}h8v8h-8z", n(x - 4.0), n(y - 4.0))
 }
 
 /// A text label, already escaped by the caller.

@@ -4,7 +4,7 @@
 use super::{parse, Drawing, Node, Plan};
 use crate::render::{results_inner, View};
 
-/// The span of every element of a drawing, by document-order place.
+/// The span of every element of a drawing and its tag name, by document-order place.
 fn spans(text: &str) -> Vec<(usize, usize, (usize, usize))> {
     fn walk(node: &Node, out: &mut Vec<(usize, usize, (usize, usize))>) {
         for c in &node.children {
@@ -110,12 +110,17 @@ fn one_value_typed_into_a_long_model_replaces_a_small_part_of_its_results() {
 }
 
 #[test]
-fn the_same_drawing_needs_nothing_and_a_different_top_replaces_the_whole() {
+fn the_same_drawing_needs_nothing_and_text_at_the_top_replaces_the_whole() {
     let old = results(&boom(0, "2.0 kg"));
     assert_eq!(plan(&old, &old), Plan::Same);
-    // A stale note put first: the block's children no longer line up.
+    // A stale note put first is written with the first element, which is kept.
     let stale = format!("<p class=\"mb-stale-note\">x</p>{old}");
-    assert_eq!(plan(&old, &stale), Plan::Whole);
+    let (text, Plan::Patches { patches, .. }) = carry_out(&old, &stale) else { panic!("patches") };
+    assert_eq!(text, stale);
+    assert_eq!(patches.len(), 1);
+    assert!(patches[0].html.len() < 200, "{patches:?}");
+    // Text beside the block's elements: the block is drawn whole.
+    assert_eq!(plan(&old, &format!("x{old}")), Plan::Whole);
 }
 
 #[test]
@@ -128,14 +133,48 @@ fn markup_that_is_not_well_formed_is_drawn_whole() {
     {
         assert_eq!(plan("<p>b</p>", broken), Plan::Whole, "{broken}");
     }
-    // Self-closed elements have no end tag; a `>` in a quoted attribute value does not end its
-    // tag.
-    let old = "<p title=\"a>b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>1</p>";
-    let new = "<p title=\"a>b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>2</p>";
+    // Self-closed elements have no end tag.
+    let old = "<p title=\"a&gt;b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>1</p>";
+    let new = "<p title=\"a&gt;b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>2</p>";
     let (text, plan) = carry_out(old, new);
     assert_eq!(text, new);
     let Plan::Patches { elements, patches } = plan else { panic!("patches") };
     assert_eq!(elements, 5);
     assert_eq!(patches.len(), 1);
     assert_eq!(patches[0].index, 4);
+}
+
+#[test]
+fn children_that_came_or_went_are_written_in_place_of_the_old_ones() {
+    // A list that gains a row in the middle, loses one, gains one at either end, and loses all
+    // but one: the rows alike at both ends are kept.
+    let list = |rows: &[&str]| {
+        let items: String = rows.iter().map(|r| format!("<li>{r}</li>")).collect();
+        format!("<h4>t</h4><ul class=\"x\">{items}</ul><p>end</p>")
+    };
+    let cases: [(&[&str], &[&str]); 6] = [
+        (&["a", "b", "c", "d", "e", "f"], &["a", "b", "c", "x", "d", "e", "f"]),
+        (&["a", "b", "c", "d", "e", "f"], &["a", "b", "d", "e", "f"]),
+        (&["a", "b", "c", "d", "e", "f"], &["x", "a", "b", "c", "d", "e", "f"]),
+        (&["a", "b", "c", "d", "e", "f"], &["a", "b", "c", "d", "e", "f", "x"]),
+        (&["a", "b", "c", "d", "e", "f"], &["a", "y", "z", "f"]),
+        (&["a", "b", "c", "d", "e", "f"], &["c"]),
+    ];
+    for (before, after) in cases {
+        let (old, new) = (list(before), list(after));
+        let (text, plan) = carry_out(&old, &new);
+        assert_eq!(text, new, "{before:?} to {after:?}");
+        let Plan::Patches { patches, .. } = plan else { panic!("{before:?} to {after:?}: patches") };
+        // Only rows are written, never the list whole, and fewer rows than the list has.
+        let written: usize = patches.iter().map(|p| p.html.matches("<li>").count()).sum();
+        assert!(written < after.len().max(2), "{before:?} to {after:?}: {patches:?}");
+    }
+    // An element with text between its children is replaced whole when they change.
+    let (old, new) = ("<p>a <b>1</b></p>", "<p>a <b>2</b></p>");
+    let (text, plan) = carry_out(old, new);
+    assert_eq!(text, new);
+    assert_eq!(
+        plan,
+        Plan::Patches { elements: 2, patches: vec![super::Patch { index: 0, html: new.to_string() }] }
+    );
 }

@@ -96,14 +96,14 @@ impl Calculator {
             }
             Err(error) => self.error = Some(error),
         }
-        if long && self.draw_later() {
-            return;
+        self.waiting_draw = true;
+        if !long || !self.draw_later() {
+            self.on_later();
         }
-        self.draw_results();
-        self.stamp();
     }
 
-    /// Draws the results left to draw by [`Calculator::solved`], if any.
+    /// Draws the results left to draw by [`Calculator::solved`], if any (a newer answer may
+    /// have drawn them already).
     pub(in crate::widget) fn on_later(&mut self) {
         if std::mem::take(&mut self.waiting_draw) {
             self.draw_results();

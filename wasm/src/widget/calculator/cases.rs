@@ -69,8 +69,6 @@ impl Calculator {
     /// large model's twenty shapes take longer to draw than a keystroke may, so they are not
     /// drawn with every answer (the results' redraw removes them again).
     pub(in crate::widget) fn on_print(&mut self) {
-        // The shapes go into the results: the next answer draws them whole.
-        self.results_shown = None;
         for old in dom::all(&self.root, ".mb-sheet-shapes") {
             old.remove();
         }

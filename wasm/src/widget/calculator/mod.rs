@@ -71,8 +71,8 @@ pub(super) struct Calculator {
     /// The worker's answer for the report on show, as it wrote it (a JavaScript string), for
     /// the results' JSON file.
     answer: Option<wasm_bindgen::JsValue>,
-    /// Whether results read from an answer wait to be drawn in a task of their own, and the
-    /// callback that draws them.
+    /// Whether results read from an answer wait to be drawn, and the callback that draws them in
+    /// a task of their own.
     waiting_draw: bool,
     draw_later: Option<js_sys::Function>,
     /// What the case bar's status line says.
@@ -82,8 +82,6 @@ pub(super) struct Calculator {
     /// The inside of the results element as last drawn by [`Calculator::draw_results`], from
     /// which the next drawing is patched; `None` when something else has drawn there since.
     results_shown: Option<crate::render::patch::Drawing>,
-    /// Whether an error's marks are in the editor, to be taken out before the next are placed.
-    marked: bool,
 }
 
 impl Calculator {
@@ -117,7 +115,6 @@ impl Calculator {
             note: String::new(),
             sheet: String::new(),
             results_shown: None,
-            marked: false,
             waiting_draw: false,
             draw_later: None,
         };
@@ -153,19 +150,14 @@ impl Calculator {
         self.draw_later = Some(callback);
     }
 
-    /// Leaves the results to draw to a task of their own, unless one is coming already; says
-    /// whether one is.
-    fn draw_later(&mut self) -> bool {
-        if !self.waiting_draw {
-            let posted = match (&self.draw_later, web_sys::window()) {
-                (Some(callback), Some(window)) => {
-                    window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
-                }
-                _ => false,
-            };
-            self.waiting_draw = posted;
+    /// Asks for the results to be drawn in a task of their own; false when that cannot be done.
+    fn draw_later(&self) -> bool {
+        match (&self.draw_later, web_sys::window()) {
+            (Some(callback), Some(window)) => {
+                window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
+            }
+            _ => false,
         }
-        self.waiting_draw
     }
 
     fn load_example(&mut self) {
@@ -214,7 +206,6 @@ impl Calculator {
         let kept = kept.map(|results| results.outer_html());
         self.root.set_inner_html(&html);
         self.results_shown = None;
-        self.marked = self.error.is_some();
         match (kept, dom::first(&self.root, ".mb-results")) {
             (Some(built), Some(results)) => {
                 results.set_outer_html(&built);
@@ -262,7 +253,6 @@ impl Calculator {
         if let Some(editor) = dom::first(&self.root, ".mb-editor") {
             let error = if marks { self.error.as_ref() } else { None };
             editor.set_inner_html(&render::editor_html(&self.doc, error, Editing::Live));
-            self.marked = error.is_some();
         }
         self.tie_errors();
     }
@@ -307,28 +297,20 @@ impl Calculator {
         self.grey_summary(true);
     }
 
-    /// Takes the last error's marks out of the editor and places the error's, if any. Without
-    /// marks in the editor nothing is searched: with hundreds of rows each search of the editor
-    /// costs the page milliseconds on every answer.
+    /// Takes the last error's marks out of the editor and places the error's, if any.
     fn mark_error(&mut self) {
-        if self.marked {
-            self.unmark();
-        }
+        self.unmark();
         let Some(error) = &self.error else { return };
         self.place_error(error);
         self.tie_errors();
-        self.marked = true;
     }
 
     fn unmark(&mut self) {
-        self.marked = false;
-        let marks =
-            ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
+        for message in dom::all(&self.root, ".mb-editor .mb-field-error") {
+            message.remove();
+        }
+        let marks = ".mb-editor :is(.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
         for mark in dom::all(&self.root, marks) {
-            if mark.class_list().contains("mb-field-error") {
-                mark.remove();
-                continue;
-            }
             let _ = mark.class_list().remove_2("mb-invalid", "mb-unfilled");
             let _ = mark.remove_attribute("aria-describedby");
             let _ = mark.remove_attribute("aria-invalid");
