@@ -177,8 +177,40 @@ async function designFrames(browser, url) {
 // a brisk typist's interval between keystrokes (common practice, no source). With no pause the
 // next edit follows the previous answer at once; that figure is printed for reference.
 async function editTimes(browser, url, pause) {
-  const { context, page } = (await liveOrNull(browser, url)) ?? {};
+  // Where the page's own thread spends each edit, beside the round trip: the calculator's
+  // handling of the keystroke (stored and posted), its handling of the worker's answer (read
+  // and drawn; a long model's drawing comes in a zero-delay task after, timed too), and the
+  // style and layout the browser then does before the results can be seen.
+  const { context } = await isolatedContext(browser);
+  await context.addInitScript(() => {
+    const spent = { input: 0, answer: 0 };
+    window.__spent = spent;
+    let started = 0;
+    document.addEventListener("input", () => (started = performance.now()), true);
+    window.addEventListener("input", () => (spent.input += performance.now() - started));
+    const timed = (f) => (...args) => {
+      const start = performance.now();
+      try {
+        return f(...args);
+      } finally {
+        spent.answer += performance.now() - start;
+      }
+    };
+    const onmessage = Object.getOwnPropertyDescriptor(Worker.prototype, "onmessage");
+    Object.defineProperty(Worker.prototype, "onmessage", {
+      set(f) {
+        onmessage.set.call(this, f && timed(f));
+      },
+      get() {
+        return onmessage.get.call(this);
+      },
+    });
+    const setTimeout = window.setTimeout;
+    window.setTimeout = (f, ms, ...rest) => setTimeout(ms ? f : timed(f), ms, ...rest);
+  });
+  const { page } = (await openLive(browser, url, { context, settle: false }).catch(() => null)) ?? {};
   if (!page) {
+    await context.close();
     return null;
   }
   // A reader edits a calculator they can see, once its worker has confirmed the page's results.
@@ -186,10 +218,13 @@ async function editTimes(browser, url, pause) {
   await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
   await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
   const times = [];
+  const parts = { input: [], answer: [], layout: [] };
   for (let edit = 0; edit < EDITS; edit += 1) {
     const value = `${(2.0 + 0.1 * (edit % 20)).toFixed(1)} kg`;
-    const ms = await page.evaluate(async ([value, pause]) => {
+    const result = await page.evaluate(async ([value, pause]) => {
       await new Promise((resolve) => setTimeout(resolve, pause));
+      window.__spent.input = 0;
+      window.__spent.answer = 0;
       const root = document.querySelector(".mb-calc");
       const input = root.querySelector('[data-field="attachments[0].mass"]');
       const hz = () => root.querySelector('tr[data-mode="1"] td[data-hz]')?.dataset.hz;
@@ -199,8 +234,10 @@ async function editTimes(browser, url, pause) {
         let start = 0;
         const done = () => {
           if (hz() !== hzBefore && plot() !== plotBefore) {
+            const drawn = performance.now();
             root.getBoundingClientRect();
-            resolve(performance.now() - start);
+            const end = performance.now();
+            resolve({ ms: end - start, layout: end - drawn, ...window.__spent });
             return true;
           }
           return false;
@@ -216,12 +253,18 @@ async function editTimes(browser, url, pause) {
         }
       });
     }, [value, pause]);
-    if (ms !== null && edit >= 3) {
-      times.push(ms);
+    if (result !== null && edit >= 3) {
+      times.push(result.ms);
+      for (const part of Object.keys(parts)) {
+        parts[part].push(result[part]);
+      }
     }
   }
   await context.close();
-  return times.length ? { median: median(times), max: Math.max(...times) } : null;
+  const figures = (values) => ({ median: median(values), max: Math.max(...values) });
+  return times.length
+    ? { ...figures(times), parts: Object.fromEntries(Object.entries(parts).map(([k, v]) => [k, figures(v)])) }
+    : null;
 }
 
 const site = await startSite();
@@ -276,6 +319,15 @@ try {
       line(`  edit → results and plot, median of ${EDITS - 3}`, edit.median, "ms", BUDGET.editMs);
       line(`  edit → results and plot, slowest`, edit.max, "ms", BUDGET.editMs);
       line(`  back-to-back edits, median`, crowded.median, "ms");
+      // The page's own share of each edit (the rest is the worker's solve and the messages).
+      for (const [part, words] of [
+        ["input", "keystroke handled (stored, posted)"],
+        ["answer", "answer handled (read, drawn)"],
+        ["layout", "then style and layout"],
+      ]) {
+        const { median: m, max } = edit.parts[part];
+        console.log(`${`    of which ${words}, median / slowest`.padEnd(52)} ${m.toFixed(1).padStart(8)} / ${max.toFixed(1)} ms`);
+      }
     } else {
       console.log("  edit: the calculator never went live or never redrew");
     }

@@ -1,7 +1,8 @@
 // The calculator solves in a Web Worker, so that no model can freeze its page: typing into a
 // model that is slow to solve leaves the main thread free, the newest edit's results are the
-// ones drawn, a stored case too slow to solve leaves the page live on its example with the case
-// offered back, and the worker runs under the pages' content security policy.
+// ones drawn (patched over the last drawing, exactly as if drawn whole), a stored case too slow
+// to solve leaves the page live on its example with the case offered back, and the worker runs
+// under the pages' content security policy.
 
 import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
@@ -117,13 +118,13 @@ describe("solving off the main thread", () => {
       [MODE_1, reference.hz, SAME],
       { timeout: 60_000 },
     );
-    // No task of the main thread while typing came near one solve of the model: the solving was
-    // elsewhere. (Drawing twenty modes can itself pass the long-task mark on a loaded machine, so
-    // the mark is measured against the solve, timed on this same machine a moment before.)
+    // No task of the main thread while typing reached the 50 ms of a visible stall: the solving
+    // was elsewhere, and what is left to the page (taking each keystroke, reading each answer,
+    // drawing its results over the last ones) stays short even with 800 rows in the editor and
+    // their echo in the results.
     const longTasks = await page.evaluate(() => window.__longTasks);
-    const limit = Math.max(LONG_TASK_MS, reference.ms / 2);
     assert.deepEqual(
-      longTasks.filter((ms) => ms >= limit),
+      longTasks.filter((ms) => ms >= LONG_TASK_MS),
       [],
       `main-thread tasks while typing: ${longTasks} ms; one solve takes ${reference.ms.toFixed(0)} ms`,
     );
@@ -276,6 +277,58 @@ describe("solving off the main thread", () => {
     await again.waitForSelector(".mb-results:not(.mb-stale)", { timeout: 10_000 });
     assert.equal(await again.locator(OFFER).count(), 0, "the offer is gone once taken");
     assert.deepEqual(later, []);
+    await context.close();
+  });
+
+  test("results patched over the last drawing are the results drawn whole", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // The page replaces only the elements of the results that changed, found by comparing the
+    // two drawings as our own markup; Chromium's parser is the reference: after edits that change
+    // rows, add a unit conversion and take it away again, the results on show must be exactly what
+    // the same case shows drawn whole once the page is loaded again.
+    const crowded = boomWith((scenario) => {
+      for (let i = 1; i <= 60; i++) {
+        scenario.attachments.push({ type: "mass", position: `${100 + 20 * i} mm`, mass: "5 g" });
+      }
+      return scenario;
+    });
+    const { context } = await isolatedContext(browser);
+    const page = await context.newPage();
+    await page.addInitScript(
+      ([key, value]) => {
+        if (!sessionStorage.getItem("seeded")) {
+          localStorage.setItem(key, value);
+          sessionStorage.setItem("seeded", "yes");
+        }
+      },
+      ["modebench:/" + BOOM + "#0", stored(crowded)],
+    );
+    const idle = () =>
+      page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, { timeout: 30_000 });
+    await page.goto(site.url + BOOM);
+    const clip = page.locator('[data-field="attachments[3].mass"]');
+    await clip.waitFor({ timeout: 30_000 });
+    await idle();
+    // Full-precision numbers (the `data-` attributes) rounded to 9 digits: each solve starts from
+    // the one before, so the same case reached along another path of edits agrees to round-off,
+    // not always to the last bit (see SAME).
+    const results = async () =>
+      (await page.evaluate(() => document.querySelector(".mb-results").innerHTML)).replace(
+        /-?\d+\.\d{6,}(e-?\d+)?/g,
+        (x) => Number(x).toPrecision(9),
+      );
+    for (const value of ["7 g", "0.02 lb", "9"]) {
+      await clip.fill(value);
+      await idle();
+      // The pounds bring a unit conversion of their own, a row more in that list.
+      assert.equal((await results()).includes("0.02 lb"), value === "0.02 lb", value);
+    }
+    const patched = await results();
+    await page.reload();
+    await page.locator('[data-field="attachments[3].mass"]').waitFor({ timeout: 30_000 });
+    await idle();
+    // A number typed alone took the unit the field shows.
+    assert.equal(await page.locator('[data-field="attachments[3].mass"]').inputValue(), "9 kg");
+    assert.equal(await results(), patched);
     await context.close();
   });
 

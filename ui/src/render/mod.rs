@@ -19,6 +19,7 @@ mod form;
 mod map;
 mod number;
 mod offer;
+pub mod patch;
 mod plot;
 mod results;
 mod rows;

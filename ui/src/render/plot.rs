@@ -134,14 +134,17 @@ fn deflection(mode: Option<&ModeReport>, x: f64) -> f64 {
     }
 }
 
+/// The attachments' symbols and labels. The masses are drawn in one path, so that a model with
+/// hundreds of them (cable clips, say) adds one element to the page, not hundreds.
 fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f64) -> String {
-    let mut out = String::new();
+    let mut masses = String::new();
+    let mut others = String::new();
     let ground = AXIS + AMPLITUDE + 22.0;
     for (i, a) in report.beam.attachments.iter().enumerate() {
         let x = px(a.position);
         let y = AXIS - AMPLITUDE * deflection(mode, a.position);
         match a.kind {
-            AttachmentKind::Mass => out.push_str(&symbols::mass(x, y)),
+            AttachmentKind::Mass => masses.push_str(&symbols::mass_d(x, y)),
             AttachmentKind::SprungMass => {
                 let amplitude =
                     mode.and_then(|m| m.sprung.iter().find(|s| s.attachment == i)).map_or(0.0, |s| {
@@ -154,20 +157,26 @@ fn attachments(report: &Report, mode: Option<&ModeReport>, px: &dyn Fn(f64) -> f
                 // The mass rests well above the beam; however the two move, its spring is drawn
                 // at least 22 px long so the mass never seems to pass through the beam.
                 let top = (AXIS - 64.0 - AMPLITUDE * amplitude).max(34.0).min(y - 30.0);
-                out.push_str(&symbols::zigzag(x, top + 8.0, y));
-                out.push_str(&symbols::mass(x, top));
+                others.push_str(&symbols::springs(&symbols::zigzag_d(x, top + 8.0, y)));
+                masses.push_str(&symbols::mass_d(x, top));
             }
             AttachmentKind::Spring => {
-                out.push_str(&symbols::zigzag(x, y, ground));
-                out.push_str(&symbols::ground(x, ground, 24.0));
+                others.push_str(&symbols::springs(&symbols::zigzag_d(x, y, ground)));
+                others.push_str(&symbols::ground(x, ground, 24.0));
             }
-            AttachmentKind::RotationalSpring => out.push_str(&symbols::coil(x, y)),
-            AttachmentKind::Support => out.push_str(&symbols::pin(x, AXIS)),
+            AttachmentKind::RotationalSpring => others.push_str(&symbols::coil(x, y)),
+            AttachmentKind::Support => others.push_str(&symbols::pin(x, AXIS)),
         }
         if !a.label.trim().is_empty() {
             let short: String = a.label.trim().chars().take(28).collect();
-            out.push_str(&symbols::label(x, HEIGHT - 44.0, &escape(&short)));
+            others.push_str(&symbols::label(x, HEIGHT - 44.0, &escape(&short)));
         }
+    }
+    let mut out = others;
+    if !masses.is_empty() {
+        out.push_str(&format!(
+            "<path class=\"mb-mass\" d=\"{masses}\" stroke=\"{INK}\" stroke-width=\"8\" stroke-linejoin=\"round\"/>"
+        ));
     }
     out
 }

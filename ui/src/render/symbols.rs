@@ -31,18 +31,24 @@ pub(crate) fn ground(x: f64, y: f64, width: f64) -> String {
     )
 }
 
-/// A zig-zag spring from (x, y1) to (x, y2).
-pub(crate) fn zigzag(x: f64, y1: f64, y2: f64) -> String {
+/// Springs drawn along the path data `d` (from [`zigzag_d`]).
+pub(crate) fn springs(d: &str) -> String {
+    format!("<path class=\"mb-spring\" d=\"{d}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>")
+}
+
+/// A zig-zag spring from (x, y1) to (x, y2), as path data: the mode plot draws every spring in
+/// one path.
+pub(crate) fn zigzag_d(x: f64, y1: f64, y2: f64) -> String {
     let turns = 6;
     let lead = (y2 - y1) * 0.15;
     let step = (y2 - y1 - 2.0 * lead) / turns as f64;
-    let mut d = format!("M{} {} L{} {}", n(x), n(y1), n(x), n(y1 + lead));
+    let mut d = format!("M{} {}L{} {}", n(x), n(y1), n(x), n(y1 + lead));
     for i in 0..turns {
         let side = if i % 2 == 0 { 6.0 } else { -6.0 };
-        d.push_str(&format!(" L{} {}", n(x + side), n(y1 + lead + step * (i as f64 + 0.5))));
+        d.push_str(&format!("L{} {}", n(x + side), n(y1 + lead + step * (i as f64 + 0.5))));
     }
-    d.push_str(&format!(" L{} {} L{} {}", n(x), n(y2 - lead), n(x), n(y2)));
-    format!("<path class=\"mb-spring\" d=\"{d}\" fill=\"none\" stroke=\"{INK}\" stroke-width=\"1.6\"/>")
+    d.push_str(&format!("L{} {}L{} {}", n(x), n(y2 - lead), n(x), n(y2)));
+    d
 }
 
 /// A coiled rotational spring around (x, y).
@@ -107,7 +113,7 @@ pub(crate) fn end(kind: &str, x: f64, y: f64, direction: f64, has_rotational: bo
             )
         }
         "elastic" => {
-            let mut out = zigzag(x, y + 2.0, y + 30.0);
+            let mut out = springs(&zigzag_d(x, y + 2.0, y + 30.0));
             out.push_str(&ground(x, y + 30.0, 24.0));
             if has_rotational {
                 out.push_str(&coil(x, y));
@@ -133,13 +139,12 @@ pub(crate) fn end_icon(kind: &str, right: bool, has_rotational: bool) -> String 
     )
 }
 
-/// A mass drawn as a rounded block centred on (x, y).
-pub(crate) fn mass(x: f64, y: f64) -> String {
-    format!(
-        "<rect class=\"mb-mass\" x=\"{}\" y=\"{}\" width=\"16\" height=\"16\" rx=\"4\" fill=\"{INK}\"/>",
-        n(x - 8.0),
-        n(y - 8.0)
-    )
+/// A mass as path data: a square 8 wide centred on (x, y), which the mode plot strokes 8 wide
+/// with round joins, so that it shows as a block 16 wide with corners rounded to 4 (the stroke
+/// covers the inside, whatever its fill). The plot
+/// draws every mass in one path, since a model may carry hundreds of them.
+pub(crate) fn mass_d(x: f64, y: f64) -> String {
+    format!("M{} {}h8v8h-8z", n(x - 4.0), n(y - 4.0))
 }
 
 /// A text label, already escaped by the caller.

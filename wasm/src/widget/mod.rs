@@ -69,6 +69,7 @@ fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64,
         opened: callback(&calculator, |c, text: JsValue| c.on_file(text.as_string())),
     };
     if let Ok(mut c) = calculator.try_borrow_mut() {
+        c.set_draw_later(callback(&calculator, |c, _: JsValue| c.on_later()));
         c.go_live(callbacks, replies);
     }
     // Every mode's shape is drawn for print only, as the page is printed or print is previewed.

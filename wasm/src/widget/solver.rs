@@ -58,13 +58,14 @@ impl Solver {
         }
     }
 
-    /// Takes a worker's message: what the answer is worth and its text, or `None` when the
-    /// worker reports that it could not load its engine (the caller then calls
+    /// Takes a worker's message: what the answer is worth and its text (a JavaScript string, not
+    /// copied into the engine until it is read: a long model's answer is a megabyte), or `None`
+    /// when the worker reports that it could not load its engine (the caller then calls
     /// [`Solver::fail`]). Hands the worker the next scenario, if one waits.
-    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, String)> {
+    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue)> {
         let data = event.data();
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
-        let answer = Reflect::get(&data, &"answer".into()).ok()?.as_string()?;
+        let answer = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);

@@ -8,7 +8,16 @@ use crate::widget::storage;
 use crate::worker::latest::{Expiry, Purpose, Verdict};
 use crate::worker::message;
 use modebench::{Error, Report};
+use wasm_bindgen::JsValue;
 use web_sys::MessageEvent;
+
+/// An answer whose modes times attachments pass this is drawn in a task after the one that read
+/// it: each mode's shape has samples at every attachment and between them, and they are most
+/// of an answer (0.98 of the 1.17 MB of 20 modes of an 800-attachment model). Reading and
+/// drawing such a model take some 10 ms each on a loaded two-core machine, and together they
+/// would be a long task. A documented scenario's answer (the camera boom's: 4 modes, 1
+/// attachment, 30 KB) is drawn at once, as quickly as it came.
+const LONG_ANSWER: usize = 2_000;
 
 impl Calculator {
     /// Takes a message from the worker.
@@ -19,14 +28,16 @@ impl Calculator {
             return;
         };
         self.show_solving();
+        // Only an answer that will be used is copied into the engine and read.
+        let read = |answer: &JsValue| message::read(&answer.as_string().unwrap_or_default());
         match verdict {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(message::read(&answer), answer);
+                self.confirmed(read(&answer), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(message::read(&answer), answer),
-            Verdict::Current(Purpose::Edit) => self.solved(message::read(&answer), answer),
+            Verdict::Current(Purpose::Restore) => self.restored(read(&answer), answer),
+            Verdict::Current(Purpose::Edit) => self.solved(read(&answer), answer),
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }
@@ -34,7 +45,7 @@ impl Calculator {
 
     /// The page's example, solved in this browser: if the results on show are exactly these,
     /// nothing is redrawn; otherwise (or if a mode was chosen meanwhile) they are replaced.
-    fn confirmed(&mut self, outcome: Result<Report, Error>, answer: String) {
+    fn confirmed(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         // An edit made since then is the reader's newest input; its answer decides what shows.
         let edited = self.edited_at.is_some();
         match outcome {
@@ -56,7 +67,7 @@ impl Calculator {
 
     /// The reader's stored case, solved within the budget: it replaces the example on show
     /// (greyed under its error if it has one).
-    fn restored(&mut self, outcome: Result<Report, Error>, answer: String) {
+    fn restored(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         let Some((doc, mode)) = self.saved.take() else { return };
         self.doc = doc;
         self.view.mode = mode;
@@ -71,8 +82,12 @@ impl Calculator {
         self.draw_all();
     }
 
-    /// The newest edit, solved: its results, or its error beside its field.
-    fn solved(&mut self, outcome: Result<Report, Error>, answer: String) {
+    /// The newest edit, solved: its results, or its error beside its field. A long model's
+    /// answer is drawn in a task of its own, after the one that read it: each stays short, so
+    /// the page can take a keystroke or draw a frame between them. If a newer answer comes
+    /// before the drawing, the newer is drawn.
+    fn solved(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
+        let long = outcome.as_ref().is_ok_and(|r| r.modes.len() * r.beam.attachments.len() > LONG_ANSWER);
         match outcome {
             Ok(report) => {
                 self.last = Some(report);
@@ -81,19 +96,26 @@ impl Calculator {
             }
             Err(error) => self.error = Some(error),
         }
-        self.draw_results();
-        self.stamp();
+        self.waiting_draw = true;
+        if !long || !self.draw_later() {
+            self.on_later();
+        }
+    }
+
+    /// Draws the results left to draw by [`Calculator::solved`], if any (a newer answer may
+    /// have drawn them already).
+    pub(in crate::widget) fn on_later(&mut self) {
+        if std::mem::take(&mut self.waiting_draw) {
+            self.draw_results();
+            self.stamp();
+        }
     }
 
     /// Keeps the worker's answer for the report on show, and leaves it on the calculator's root
     /// as `modebenchAnswer` for the tap-test panel, whose engine matches its peaks with the
     /// report's modes (the page's engine neither reads nor analyses recordings).
-    fn keep_answer(&mut self, answer: String) {
-        let _ = js_sys::Reflect::set(
-            self.root.as_ref(),
-            &wasm_bindgen::JsValue::from_str("modebenchAnswer"),
-            &wasm_bindgen::JsValue::from_str(&answer),
-        );
+    fn keep_answer(&mut self, answer: JsValue) {
+        let _ = js_sys::Reflect::set(self.root.as_ref(), &JsValue::from_str("modebenchAnswer"), &answer);
         self.answer = Some(answer);
     }
 

@@ -67,7 +67,9 @@ impl Calculator {
 
     /// Draws every mode's shape for the printed sheet, as the page is about to be printed: a
     /// large model's twenty shapes take longer to draw than a keystroke may, so they are not
-    /// drawn with every answer (the results' redraw removes them again).
+    /// drawn with every answer (the results' redraw removes them again: the elements they add
+    /// leave the results with more elements than their last drawing, so the next answer draws
+    /// the results whole instead of patching them).
     pub(in crate::widget) fn on_print(&mut self) {
         for old in dom::all(&self.root, ".mb-sheet-shapes") {
             old.remove();
@@ -197,7 +199,7 @@ impl Calculator {
         let (name, kind, file) = if csv {
             (export::file_name(&self.doc, "-results", "csv"), "text/csv", Some(export::results_csv(report)))
         } else {
-            let file = export::results_json(&self.doc, answer);
+            let file = answer.as_string().and_then(|answer| export::results_json(&self.doc, &answer));
             (export::file_name(&self.doc, "-results", "json"), "application/json", file)
         };
         match file {

@@ -10,6 +10,7 @@ mod answers;
 mod cases;
 mod events;
 mod focus;
+mod patch;
 
 use super::io::Io;
 use super::solver::{Callbacks, Solver};
@@ -67,12 +68,20 @@ pub(super) struct Calculator {
     /// The page script's helpers for links and files, and the callbacks for their replies.
     io: Io,
     replies: Option<Replies>,
-    /// The worker's answer for the report on show, as it wrote it, for the results' JSON file.
-    answer: Option<String>,
+    /// The worker's answer for the report on show, as it wrote it (a JavaScript string), for
+    /// the results' JSON file.
+    answer: Option<wasm_bindgen::JsValue>,
+    /// Whether results read from an answer wait to be drawn, and the callback that draws them in
+    /// a task of their own.
+    waiting_draw: bool,
+    draw_later: Option<js_sys::Function>,
     /// What the case bar's status line says.
     note: String,
     /// The printed sheet's head as last drawn.
     sheet: String,
+    /// The inside of the results element as last drawn by [`Calculator::draw_results`], from
+    /// which the next drawing is patched; `None` when something else has drawn there since.
+    results_shown: Option<crate::render::patch::Drawing>,
 }
 
 impl Calculator {
@@ -105,6 +114,9 @@ impl Calculator {
             answer: None,
             note: String::new(),
             sheet: String::new(),
+            results_shown: None,
+            waiting_draw: false,
+            draw_later: None,
         };
         c.load_example();
         c
@@ -131,6 +143,21 @@ impl Calculator {
         self.show_sheet();
         self.show_solving();
         self.open_incoming();
+    }
+
+    /// Gives the calculator the callback that draws results left for a task of their own.
+    pub(super) fn set_draw_later(&mut self, callback: js_sys::Function) {
+        self.draw_later = Some(callback);
+    }
+
+    /// Asks for the results to be drawn in a task of their own; false when that cannot be done.
+    fn draw_later(&self) -> bool {
+        match (&self.draw_later, web_sys::window()) {
+            (Some(callback), Some(window)) => {
+                window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, 0).is_ok()
+            }
+            _ => false,
+        }
     }
 
     fn load_example(&mut self) {
@@ -178,12 +205,20 @@ impl Calculator {
             dom::first(&self.root, ".mb-results").filter(|_| self.built_results && self.last.is_none());
         let kept = kept.map(|results| results.outer_html());
         self.root.set_inner_html(&html);
+        self.results_shown = None;
         match (kept, dom::first(&self.root, ".mb-results")) {
             (Some(built), Some(results)) => {
                 results.set_outer_html(&built);
                 self.show_built_results();
             }
-            _ => self.built_results = false,
+            _ => {
+                self.built_results = false;
+                // What the results element now holds, for the next answer to be patched over
+                // (drawn again here: the calculator's markup does not hand its parts back).
+                let stale = self.error.is_some();
+                let html = render::results_inner(self.last.as_ref(), stale, &self.view);
+                self.results_shown = Some(crate::render::patch::Drawing::new(html));
+            }
         }
         self.show_offer();
         self.tie_errors();
@@ -236,11 +271,8 @@ impl Calculator {
             let class = if self.error.is_some() { "mb-results mb-stale" } else { "mb-results" };
             results.set_class_name(class);
             let _ = results.remove_attribute("aria-busy");
-            results.set_inner_html(&render::results_inner(
-                self.last.as_ref(),
-                self.error.is_some(),
-                &self.view,
-            ));
+            let html = render::results_inner(self.last.as_ref(), self.error.is_some(), &self.view);
+            self.results_shown = Some(patch::draw(&results, self.results_shown.as_ref(), html));
         }
         if let Some(summary) = dom::first(&self.root, ".mb-summary") {
             summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
@@ -265,22 +297,24 @@ impl Calculator {
         self.grey_summary(true);
     }
 
-    fn mark_error(&self) {
-        for old in dom::all(&self.root, ".mb-editor .mb-field-error") {
-            old.remove();
-        }
-        for field in dom::all(&self.root, ".mb-editor .mb-invalid, .mb-editor .mb-unfilled") {
-            let _ = field.class_list().remove_2("mb-invalid", "mb-unfilled");
-        }
-        for input in dom::all(&self.root, ".mb-editor [aria-describedby]") {
-            let _ = input.remove_attribute("aria-describedby");
-        }
-        for input in dom::all(&self.root, ".mb-editor [aria-invalid]") {
-            let _ = input.remove_attribute("aria-invalid");
-        }
+    /// Takes the last error's marks out of the editor and places the error's, if any.
+    fn mark_error(&mut self) {
+        self.unmark();
         let Some(error) = &self.error else { return };
         self.place_error(error);
         self.tie_errors();
+    }
+
+    fn unmark(&mut self) {
+        for message in dom::all(&self.root, ".mb-editor .mb-field-error") {
+            message.remove();
+        }
+        let marks = ".mb-editor :is(.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
+        for mark in dom::all(&self.root, marks) {
+            let _ = mark.class_list().remove_2("mb-invalid", "mb-unfilled");
+            let _ = mark.remove_attribute("aria-describedby");
+            let _ = mark.remove_attribute("aria-invalid");
+        }
     }
 
     /// Puts the message for `error` beside its field, or above the editor.
