@@ -49,8 +49,8 @@ impl Fit {
 
 /// What one fit works on: the DFT of `n` samples zero-padded to `m`, bins `lo..=hi`.
 pub struct Band<'a> {
-    /// The spectrum, bins 0..=m/2.
-    pub spectrum: &'a [C64],
+    /// The spectrum, bins 0..=m/2, as the single-precision transform gives it.
+    pub spectrum: &'a [Complex<f32>],
     /// FFT length.
     pub m: usize,
     /// Samples transformed (the ring-down's length).
@@ -119,7 +119,8 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
     let kc = 0.5 * (band.lo + band.hi) as f64;
     let half = 0.5 * (band.hi - band.lo) as f64;
     let n = band.n as f64;
-    let data: Vec<C64> = bins.iter().map(|&k| band.spectrum[k]).collect();
+    let data: Vec<C64> =
+        bins.iter().map(|&k| C64::new(band.spectrum[k].re as f64, band.spectrum[k].im as f64)).collect();
     let energy: f64 = data.iter().map(|c| c.norm_sqr()).sum();
     if energy <= 0.0 {
         return None;
