@@ -82,10 +82,12 @@ impl Envelope {
         }
     }
 
-    /// Samples within one block, after the record's first two.
+    /// Samples within one block, after the record's first two. The run of equal magnitudes is
+    /// counted without a branch; only a run reaching three samples is looked at further.
     fn push_run(&mut self, part: &[f32]) {
         let (mut sum, mut tk, mut peak) = (self.sum, self.tk, self.peak);
         let [mut a, mut b] = self.prev;
+        let (mut last, mut count) = self.run;
         for &x in part {
             let x = if x.is_finite() { x } else { 0.0 };
             let v = x as f64;
@@ -95,15 +97,14 @@ impl Envelope {
             tk += (b as f64) * (b as f64) - (a as f64) * v;
             let m = x.abs();
             peak = peak.max(m);
-            if m == self.run.0 {
-                self.peak = peak;
-                self.track_flat(x);
-            } else {
-                self.run = (m, 1);
+            count = if m == last { count + 1 } else { 1 };
+            last = m;
+            if count == 3 && m > 0.0 && m >= peak * 0.999 && self.run_values.len() < 1 << 20 {
+                self.run_values.push(m);
             }
             (a, b) = (b, x);
         }
-        (self.sum, self.tk, self.peak, self.prev) = (sum, tk, peak, [a, b]);
+        (self.sum, self.tk, self.peak, self.prev, self.run) = (sum, tk, peak, [a, b], (last, count));
         self.samples += part.len();
         self.filled += part.len();
     }

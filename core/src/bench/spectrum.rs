@@ -10,7 +10,9 @@
 //! in the tests) leaves no sidelobe over a 60 dB noise floor, which a rectangular cut would.
 
 use realfft::num_complex::Complex;
-use realfft::RealFftPlanner;
+use realfft::{RealFftPlanner, RealToComplex};
+use std::cell::RefCell;
+use std::sync::Arc;
 
 /// The 4-term Blackman–Harris coefficients.
 const BH: [f64; 4] = [0.35875, 0.48829, 0.14128, 0.01168];
@@ -51,19 +53,50 @@ pub fn fft_length(longest: usize) -> usize {
 /// below any record's noise and a 16-bit file's quantisation (96 dB). Half the memory traffic
 /// of double precision, and twice the lanes of SIMD, where most of the analysis's time was.
 pub struct Transformer {
-    planner: RealFftPlanner<f32>,
+    fft: Plan,
     input: Vec<f32>,
     output: Vec<Complex<f32>>,
+    scratch: Vec<Complex<f32>>,
     m: usize,
+}
+
+/// A planned forward real transform.
+type Plan = Arc<dyn RealToComplex<f32>>;
+
+/// The most plans kept between analyses: the analysis uses two lengths (the ring-downs' and the
+/// noise floor's), and a plan of 2²¹ points holds some 8 MB of twiddle factors.
+const PLANS_KEPT: usize = 4;
+
+thread_local! {
+    /// Plans kept between analyses, the latest used first. Planning a transform of 2¹⁸ points
+    /// (its twiddle factors, a sine and cosine each) costs about as much as running it twice,
+    /// and a reader analyses record after record of much the same length.
+    static PLANS: RefCell<Vec<(usize, Plan)>> = const { RefCell::new(Vec::new()) };
+}
+
+/// The forward real transform of length `m`, from the kept plans or planned anew.
+fn plan(m: usize) -> Plan {
+    PLANS.with(|plans| {
+        let mut plans = plans.borrow_mut();
+        let fft = match plans.iter().position(|(len, _)| *len == m) {
+            Some(i) => plans.remove(i).1,
+            None => RealFftPlanner::<f32>::new().plan_fft_forward(m),
+        };
+        plans.insert(0, (m, Arc::clone(&fft)));
+        plans.truncate(PLANS_KEPT);
+        fft
+    })
 }
 
 impl Transformer {
     /// A transformer of length `m` (even).
     pub fn new(m: usize) -> Transformer {
+        let fft = plan(m);
         Transformer {
-            planner: RealFftPlanner::new(),
             input: vec![0.0; m],
             output: vec![Complex::default(); m / 2 + 1],
+            scratch: vec![Complex::default(); fft.get_scratch_len()],
+            fft,
             m,
         }
     }
@@ -80,9 +113,8 @@ impl Transformer {
             None => head.copy_from_slice(&samples[..n]),
         }
         tail.fill(0.0);
-        let fft = self.planner.plan_fft_forward(self.m);
         // The lengths match by construction, so the transform cannot fail.
-        if fft.process(&mut self.input, &mut self.output).is_err() {
+        if self.fft.process_with_scratch(&mut self.input, &mut self.output, &mut self.scratch).is_err() {
             self.output.iter_mut().for_each(|c| *c = Complex::default());
         }
         &self.output
