@@ -158,9 +158,21 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
             c * g + c.conj() * h + C64::new(p[4], p[5]) + C64::new(p[6], p[7]) * u + C64::new(p[8], p[9]) * q;
         (cols, value)
     };
+    // The model's value alone (the same sums as `columns`, without the derivatives).
+    let value = |p: &SVector<f64, 10>, e: &[C64; 4], j: usize| -> C64 {
+        let k = bins[j];
+        let c = C64::new(p[2], p[3]);
+        let u = (k as f64 - kc) / half.max(1.0);
+        let q = if CURVED { u * u } else { 0.0 };
+        let (a, b) = fixed[j].at(e[0], e[1]);
+        let g = a / b;
+        let (a, b) = fixed[j].at(e[2], e[3]);
+        let h = a / b;
+        c * g + c.conj() * h + C64::new(p[4], p[5]) + C64::new(p[6], p[7]) * u + C64::new(p[8], p[9]) * q
+    };
     let cost = |p: &SVector<f64, 10>| -> f64 {
         let e = exps(p);
-        data.iter().enumerate().map(|(j, x)| (x - columns(p, &e, j).1).norm_sqr()).sum()
+        data.iter().enumerate().map(|(j, x)| (x - value(p, &e, j)).norm_sqr()).sum()
     };
     // Normal equations of the linearised problem over the parameters `free`.
     let normal = |p: &SVector<f64, 10>, free: usize| -> (SMatrix<f64, 10, 10>, SVector<f64, 10>) {
@@ -172,9 +184,16 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
             let r = x - value;
             for j in 10 - free..10 {
                 g[j] += (cols[j].conj() * r).re;
-                for l in 10 - free..10 {
+                for l in j..10 {
                     a[(j, l)] += (cols[j].conj() * cols[l]).re;
                 }
+            }
+        }
+        // The matrix is symmetric: Re(conj(c_j)·c_l) = Re(conj(c_l)·c_j), the same products
+        // summed in the same order, so the lower half is copied bit for bit.
+        for j in 0..10 {
+            for l in 0..j {
+                a[(j, l)] = a[(l, j)];
             }
         }
         for j in 0..10 {
