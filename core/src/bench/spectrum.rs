@@ -44,10 +44,9 @@ const STEP_BLOCK: usize = 256;
 
 /// The FFT length for segments of up to `longest` samples: at least twice it (the zero padding
 /// the peak's interpolation and the fits were made for), and the smallest such length whose half
-/// is 2ᵃ·3ᵇ·5ᶜ (a ≥ 3, b ≤ 3, c ≤ 2), for which the mixed-radix transform is about as quick per
-/// point as for a power of two. Above 5400 such halves lie at most 8 % apart, where powers of two
-/// lie twice apart: a power of two padded a segment of 70,000 samples to 262,144 points, this
-/// pads it to 147,456.
+/// is 2ᵃ·3ᵇ·5ᶜ (a ≥ 3, b ≤ 3, c ≤ 2), small factors the mixed-radix transform has butterflies
+/// for. Above 5400 such halves lie at most 8 % apart, where powers of two lie twice apart: a
+/// power of two padded a segment of 70,000 samples to 262,144 points, this pads it to 147,456.
 pub fn fft_length(longest: usize) -> usize {
     let half = longest.max(8);
     let mut best = usize::MAX;
@@ -75,13 +74,14 @@ pub struct Transformer {
 type Plan = Arc<dyn RealToComplex<f32>>;
 
 /// The most plans kept between analyses: the analysis uses two lengths (the ring-downs' and the
-/// noise floor's), and a plan of 2²¹ points holds some 8 MB of twiddle factors.
+/// noise floor's), and a plan of 2²¹ points holds some 10 MB of twiddle factors.
 const PLANS_KEPT: usize = 4;
 
 thread_local! {
-    /// Plans kept between analyses, the latest used first. Planning a transform of 2¹⁸ points
-    /// (its twiddle factors, a sine and cosine each) costs about as much as running it twice,
-    /// and a reader analyses record after record of much the same length.
+    /// Plans kept between analyses, the latest used first. Planning a transform of 2¹⁷ points
+    /// (its twiddle factors, a sine and cosine each) takes some 22 million instructions, running
+    /// it 2.5 million (docs/performance.md), and a reader analyses record after record of much
+    /// the same length.
     static PLANS: RefCell<Vec<(usize, Plan)>> = const { RefCell::new(Vec::new()) };
 }
 
