@@ -61,7 +61,7 @@ pub fn fft_length(longest: usize) -> usize {
 /// precision: the samples arrive as `f32`, and the transform's rounding (relative to the
 /// segment's whole energy about 10⁻⁷·√log₂m, some 130 dB under it at 2¹⁸ points) lies far
 /// below any record's noise and a 16-bit file's quantisation (96 dB). Half the memory traffic
-/// of double precision, and twice the lanes of SIMD, where most of the analysis's time was.
+/// of double precision, and twice the lanes in the native SIMD (AVX, SSE) transforms.
 pub struct Transformer {
     fft: Plan,
     input: Vec<f32>,
