@@ -1,10 +1,11 @@
 //! Speed of the tap test (printed by criterion; figures go in docs/performance.md): a 10 s record
 //! at 48 kHz, mono, three modes struck four times, through the whole analysis (taps, spectra,
-//! noise floor, peaks, fitted and half-power damping) — goal 20 ms. Then the same steps in
+//! noise floor, peaks, fitted and half-power damping) — goal 20 ms; and the same record read from
+//! a 16-bit WAV file, as the browser's panel reads it. Then the same steps in
 //! numpy/scipy (`tests/python/tap_timing.py`) on the same samples, and the ratio.
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use modebench::bench::{analyse_samples, BenchOptions};
+use modebench::bench::{analyse_samples, analyse_wav, BenchOptions};
 use modebench_tests::random::Rng;
 use modebench_tests::ringdown::{self, Mode, Record};
 use std::hint::black_box;
@@ -26,6 +27,12 @@ fn tap_test(c: &mut Criterion) {
     assert_eq!(report.peaks.len(), 3, "{:?}", report.peaks);
     c.bench_function("tap test, 10 s at 48 kHz, 4 taps, 3 modes", |b| {
         b.iter(|| analyse_samples(black_box(&r.samples), r.rate_hz, &options))
+    });
+    // The same record as the panel opens a file: a 16-bit WAV read twice (taps, then ring-downs).
+    let file = ringdown::wav_int(&r.samples, 1, 48_000, 16);
+    assert_eq!(analyse_wav(&file, &options).expect("the WAV analyses").peaks.len(), 3);
+    c.bench_function("tap test, the same as a 16-bit WAV file", |b| {
+        b.iter(|| analyse_wav(black_box(&file), &options))
     });
 }
 

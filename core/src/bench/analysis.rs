@@ -279,7 +279,7 @@ fn run(
         sum_w += w.iter().sum::<f64>();
         sum_w2 += w.iter().map(|v| v * v).sum::<f64>();
         let spec = t.forward(seg, Some(&w));
-        let tap_power: Vec<f64> = spec[lo_b..=hi_b].iter().map(|c| c.norm_sqr()).collect();
+        let tap_power: Vec<f64> = spec[lo_b..=hi_b].iter().map(spectrum::power).collect();
         for (p, q) in power.iter_mut().zip(&tap_power) {
             *p += q;
         }
@@ -291,10 +291,10 @@ fn run(
     let count = segments.len().max(1) as f64;
     let scale = (2.0 * count / sum_w.max(1e-300)).powi(2);
     let db: Vec<f64> = power.iter().map(|p| 10.0 * (p / count * scale).max(1e-30).log10()).collect();
-    // The noise's power per sample at each bin of the range, and on the spectrum's scale.
-    let noise = spectrum::noise_floor(&quiet, m, lo_b..hi_b + 1);
-    let floor: Vec<f64> =
-        noise.iter().map(|f| 10.0 * (f * sum_w2 / count * scale).max(1e-30).log10()).collect();
+    // The noise's power per sample at each bin of the range (dB), and on the spectrum's scale.
+    let noise_db = spectrum::noise_floor_db(&quiet, m, lo_b..hi_b + 1);
+    let shift = 10.0 * (sum_w2 / count * scale).max(1e-300).log10();
+    let floor: Vec<f64> = noise_db.iter().map(|f| (f + shift).max(-300.0)).collect();
     let mut found = peaks::find(&db, &floor, 0..width);
 
     // The fits, tap by tap, and the rectangular power average for the half-power cross-check.
@@ -326,7 +326,7 @@ fn run(
         fitted_length += ring.len() as f64;
         let spec = t.forward(ring, None);
         for (r, c) in rect.iter_mut().zip(spec) {
-            *r += c.norm_sqr();
+            *r += spectrum::power(c);
         }
         for (i, p) in found.iter().enumerate() {
             let band = Band { spectrum: spec, m, n: ring.len(), lo: bands[i].0, hi: bands[i].1 };
@@ -347,7 +347,8 @@ fn run(
                 return p.over_floor_db >= 30.0 && p.prominence_db >= 10.0;
             }
             let explained: f64 = f.iter().map(|(g, _, _)| g.energy).sum();
-            let per_bin: f64 = f.iter().map(|(_, _, n)| noise[p.bin] * *n as f64).sum();
+            let noise = 10f64.powf(noise_db[p.bin] / 10.0);
+            let per_bin: f64 = f.iter().map(|(_, _, n)| noise * *n as f64).sum();
             let significance = f.iter().map(|(g, _, _)| g.significance).sum::<f64>() / f.len() as f64;
             explained >= STANDS_OUT * per_bin && significance >= STANDS_OUT
         })

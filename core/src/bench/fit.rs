@@ -49,8 +49,8 @@ impl Fit {
 
 /// What one fit works on: the DFT of `n` samples zero-padded to `m`, bins `lo..=hi`.
 pub struct Band<'a> {
-    /// The spectrum, bins 0..=m/2.
-    pub spectrum: &'a [C64],
+    /// The spectrum, bins 0..=m/2, as the single-precision transform gives it.
+    pub spectrum: &'a [Complex<f32>],
     /// FFT length.
     pub m: usize,
     /// Samples transformed (the ring-down's length).
@@ -119,7 +119,8 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
     let kc = 0.5 * (band.lo + band.hi) as f64;
     let half = 0.5 * (band.hi - band.lo) as f64;
     let n = band.n as f64;
-    let data: Vec<C64> = bins.iter().map(|&k| band.spectrum[k]).collect();
+    let data: Vec<C64> =
+        bins.iter().map(|&k| C64::new(band.spectrum[k].re as f64, band.spectrum[k].im as f64)).collect();
     let energy: f64 = data.iter().map(|c| c.norm_sqr()).sum();
     if energy <= 0.0 {
         return None;
@@ -157,9 +158,21 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
             c * g + c.conj() * h + C64::new(p[4], p[5]) + C64::new(p[6], p[7]) * u + C64::new(p[8], p[9]) * q;
         (cols, value)
     };
+    // The model's value alone (the same sums as `columns`, without the derivatives).
+    let value = |p: &SVector<f64, 10>, e: &[C64; 4], j: usize| -> C64 {
+        let k = bins[j];
+        let c = C64::new(p[2], p[3]);
+        let u = (k as f64 - kc) / half.max(1.0);
+        let q = if CURVED { u * u } else { 0.0 };
+        let (a, b) = fixed[j].at(e[0], e[1]);
+        let g = a / b;
+        let (a, b) = fixed[j].at(e[2], e[3]);
+        let h = a / b;
+        c * g + c.conj() * h + C64::new(p[4], p[5]) + C64::new(p[6], p[7]) * u + C64::new(p[8], p[9]) * q
+    };
     let cost = |p: &SVector<f64, 10>| -> f64 {
         let e = exps(p);
-        data.iter().enumerate().map(|(j, x)| (x - columns(p, &e, j).1).norm_sqr()).sum()
+        data.iter().enumerate().map(|(j, x)| (x - value(p, &e, j)).norm_sqr()).sum()
     };
     // Normal equations of the linearised problem over the parameters `free`.
     let normal = |p: &SVector<f64, 10>, free: usize| -> (SMatrix<f64, 10, 10>, SVector<f64, 10>) {
@@ -171,9 +184,16 @@ pub fn fit(band: &Band, omega0: f64, sigma0: f64) -> Option<Fit> {
             let r = x - value;
             for j in 10 - free..10 {
                 g[j] += (cols[j].conj() * r).re;
-                for l in 10 - free..10 {
+                for l in j..10 {
                     a[(j, l)] += (cols[j].conj() * cols[l]).re;
                 }
+            }
+        }
+        // The matrix is symmetric: Re(conj(c_j)·c_l) = Re(conj(c_l)·c_j), the same products
+        // summed in the same order, so the lower half is copied bit for bit.
+        for j in 0..10 {
+            for l in 0..j {
+                a[(j, l)] = a[(l, j)];
             }
         }
         for j in 0..10 {

@@ -142,7 +142,7 @@ fn half_width(db: &[f64], k: usize, level: f64) -> f64 {
 
 #[cfg(test)]
 mod tests {
-    use super::super::spectrum::{falling_window, fft_length, Transformer};
+    use super::super::spectrum::{falling_window, fft_length, power, Transformer};
     use super::*;
 
     /// The definition walked plainly, each side to its end: the check of the walk that stops
@@ -202,7 +202,7 @@ mod tests {
                     .map(|i| ((-sigma * i as f64).exp() * (omega * i as f64 + 0.4).cos()) as f32)
                     .collect();
                 let db: Vec<f64> =
-                    t.forward(&x, Some(&w)).iter().map(|c| 10.0 * c.norm_sqr().max(1e-300).log10()).collect();
+                    t.forward(&x, Some(&w)).iter().map(|c| 10.0 * power(c).max(1e-300).log10()).collect();
                 let floor = vec![-300.0; db.len()];
                 let peaks = find(&db, &floor, 10..db.len() - 10);
                 let p = peaks.iter().max_by(|a, b| a.level_db.total_cmp(&b.level_db)).unwrap();
