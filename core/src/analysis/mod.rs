@@ -247,7 +247,12 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
                 })
                 .filter(|e| e.is_finite())
                 .sum();
-            Some(fe.mesh_error.get(j)? + fe.round_off.get(j)? + interior)
+            // The mesh errs in the bending energy; compression cancels part of that energy, so
+            // the error is scaled by bending energy over ω²T (`ModeShape::bending_to_kinetic`).
+            let compressed = (0..model.segments().len()).any(|s| model.axial_force(s) < 0.0);
+            let ratio = if compressed { m.shape.bending_to_kinetic(model) } else { 1.0 };
+            let amplified = if ratio.is_finite() { ratio.max(1.0) } else { 1.0 };
+            Some(fe.mesh_error.get(j)? * amplified + fe.round_off.get(j)? + interior)
         });
         let accuracy = (!m.rigid_body).then(|| {
             let quotient = m.shape.rayleigh_quotient(model).sqrt();

@@ -106,6 +106,15 @@ impl Member {
         }
     }
 
+    /// As [`Member::strain_density`] without the axial force's part: the energy the beam's own
+    /// stiffness stores, which compression partly cancels.
+    pub(crate) fn elastic_density(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
+        match self {
+            Member::Column(c) => c.bending_density(omega, state, x),
+            _ => self.strain_density(omega, state, x),
+        }
+    }
+
     /// Pieces the station sweep cuts this member into for frequencies up to `omega_max`: short
     /// enough that each piece's transfer matrix is close to the identity and accurately summed
     /// (λ ≤ [`SWEEP_LAMBDA`] for a slender piece), and so far below the piece's own first

@@ -53,6 +53,26 @@ impl ModeShape {
     }
 }
 
+impl ModeShape {
+    /// The beam's own strain energy in this mode (bending and shear, the axial force's work
+    /// left out) over its kinetic energy per ω² times ω²: 1 for a beam with no springs and no
+    /// axial force (U = ω²T), below 1 where springs or tension carry part of the stiffness, and
+    /// above it under compression, which cancels part of the bending energy: near buckling U is
+    /// many times ω²T. An error made in the bending energy (a finite element's) is an error of
+    /// ω² relative to U, so it shows in ω amplified by this ratio.
+    pub fn bending_to_kinetic(&self, model: &Model) -> f64 {
+        let mut bending = 0.0;
+        for p in &self.pieces {
+            let half = 0.5 * p.length;
+            for (xi, weight) in GAUSS {
+                let x = half * (1.0 + xi);
+                bending += weight * half * p.member.elastic_density(self.omega, p.state, x);
+            }
+        }
+        bending / (self.omega * self.omega * inner(model, self, self))
+    }
+}
+
 /// A stiffness that is not rigid; a rigid one holds its point still and stores no energy.
 fn finite(k: f64) -> f64 {
     if k.is_finite() {
