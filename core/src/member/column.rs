@@ -77,11 +77,13 @@ impl Column {
         moment * moment / self.ei + self.p * theta * theta
     }
 
-    /// The bending part alone of [`Column::strain_density`], M²/EI.
-    pub(crate) fn bending_density(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
+    /// [`Column::strain_density`] and its bending part alone, M²/EI, from one evaluation.
+    pub(crate) fn densities(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
         let h = self.length;
-        let moment = self.at(omega, state, x)[2] * self.ei / (h * h);
-        moment * moment / self.ei
+        let y = self.at(omega, state, x);
+        let (theta, moment) = (y[1] / h, y[2] * self.ei / (h * h));
+        let bending = moment * moment / self.ei;
+        (bending + self.p * theta * theta, bending)
     }
 }
 

@@ -106,12 +106,15 @@ impl Member {
         }
     }
 
-    /// As [`Member::strain_density`] without the axial force's part: the energy the beam's own
-    /// stiffness stores, which compression partly cancels.
-    pub(crate) fn elastic_density(&self, omega: f64, state: [f64; 4], x: f64) -> f64 {
+    /// [`Member::strain_density`], and the same without the axial force's part (the energy the
+    /// beam's own stiffness stores, which compression partly cancels), from one evaluation.
+    pub(crate) fn densities(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
         match self {
-            Member::Column(c) => c.bending_density(omega, state, x),
-            _ => self.strain_density(omega, state, x),
+            Member::Column(c) => c.densities(omega, state, x),
+            _ => {
+                let d = self.strain_density(omega, state, x);
+                (d, d)
+            }
         }
     }
 
