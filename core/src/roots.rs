@@ -226,16 +226,6 @@ impl Search {
         Err(no_convergence(self.skip + 1, "the elimination broke down at every trial frequency near a root"))
     }
 
-    /// Drops the samples taken within rounding of the k-th frequency, just found at ω, whose
-    /// count is neither k − 1 nor k. There the matrix is singular to working precision: an
-    /// elimination step's pivot is rounding noise, and the next pivot, divided by it, can take
-    /// either sign, so the count may be off by one in either direction; left in place, such a
-    /// sample would bracket a phantom frequency beside the real one.
-    fn forget_tipped_counts(&mut self, omega: f64, k: usize, tolerance: f64) {
-        let window = 2.0 * (tolerance + f64::EPSILON) * omega;
-        self.samples.retain(|s| (s.omega - omega).abs() > window || s.below + 1 == k || s.below == k);
-    }
-
     /// Indices of the tightest sampled interval with count(lo) < k ≤ count(hi).
     fn bracket(&self, k: usize) -> (usize, usize) {
         let hi = self.samples.iter().position(|s| s.below >= k).unwrap_or(self.samples.len() - 1);

@@ -6,6 +6,8 @@ use modebench_tests::fuzz;
 use std::time::{Duration, Instant};
 
 const SEED: u64 = 0x6D6F_6465_6265_6E63;
+/// Cases between two progress lines of a thread.
+const SLICE: u64 = 25_000;
 
 fn main() {
     let cases: u64 =
@@ -17,7 +19,23 @@ fn main() {
         .map(|t| {
             let first = t * share;
             let count = share.min(cases.saturating_sub(first));
-            std::thread::spawn(move || fuzz::run(SEED, first, count, Duration::from_secs(1)))
+            std::thread::spawn(move || {
+                // In slices, each followed by a line of counts on stderr: a run of half an hour
+                // or more on a shared machine shows how far it got, even if it is stopped.
+                let mut counts = fuzz::Counts::default();
+                let mut done = 0;
+                while done < count {
+                    let slice = SLICE.min(count - done);
+                    counts.add(&fuzz::run(SEED, first + done, slice, Duration::from_secs(1))?);
+                    done += slice;
+                    eprintln!(
+                        "thread {t}: cases {first}..{} done after {:.0} s: {counts:?}",
+                        first + done,
+                        started.elapsed().as_secs_f64()
+                    );
+                }
+                Ok::<_, String>(counts)
+            })
         })
         .collect();
     let mut counts = fuzz::Counts::default();

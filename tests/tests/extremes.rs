@@ -6,7 +6,7 @@
 
 use modebench::analysis::WarningCode;
 use modebench::Report;
-use modebench_tests::check;
+use modebench_tests::{check, reference};
 use serde_json::{json, Value};
 
 /// A uniform bar 1 m long of 1 kg/m with the given EI, its ends and attachments.
@@ -106,5 +106,58 @@ fn a_check_that_rounding_limits_says_so_and_never_advises_more_elements() {
         assert!(note.message.contains("rounding"), "{case}: {}", note.message);
         assert!(!note.message.contains("use more elements"), "{case}: {}", note.message);
         assert!(note.message.contains("softest spring"), "{case}: the cause is not named: {}", note.message);
+    }
+}
+
+#[test]
+fn a_near_rigid_spring_on_a_thin_rod_loses_no_mode_to_rounding() {
+    // A generated model: a guided–elastic rod about 1 mm thick, titanium then glass-fibre, with a
+    // 1.5e7 N·m/rad rotational spring and a 2e7 lbf/in spring, some 10⁸ times stiffer than the
+    // rod beside them. Near mode 4 the count is rounding over a part in 10¹⁰ of ω (it flips
+    // between 3, 4 and 5 there), and the exact method once took one of those flips for a fifth
+    // frequency: mode 4 twice, the true mode 5 (1587 Hz) missing, every later mode shifted.
+    // Against the global dynamic stiffness factored in MPFR with the Wittrick–Williams count
+    // (tests/python/global_roots.py, a reference independent of the engine's sweep), each
+    // frequency must be proven to 1e-7 (mode 1 is good to only a few parts in 10⁸ here, as its
+    // report says) and the count between neighbours must be their index: no mode missed or
+    // listed twice.
+    let scenario = json!({
+        "left": "guided",
+        "right": { "type": "elastic", "translational": "rigid", "rotational": "133844.5708097182 kN*m/rad" },
+        "excitations": [{ "frequency": "1138.727335680116 rpm", "harmonics": 1 }],
+        "attachments": [
+            { "type": "rotational-spring", "position": 0.057899693597195864, "stiffness": "15369297.352832053 N*m/rad" },
+            { "type": "spring", "position": "0.28110478175373377 ft", "stiffness": "20193127.57916881 lbf/in" }
+        ],
+        "segments": [
+            { "length": "4.791259190930345 cm", "material": "titanium-ti6al4v",
+              "section": { "shape": "round", "diameter": "1.0217844993010574 mm" },
+              "extra_mass": { "lining": "0.22712712138646485 kg/m" } },
+            { "length": "0.15255812219729925 ft", "material": "gfrp-pultruded",
+              "section": { "shape": "round", "diameter": 0.0014200309082816097 } }
+        ]
+    });
+    let report = solve(&scenario);
+    let model = modebench::Scenario::from_value(&scenario).and_then(|s| s.to_model()).expect("valid").model;
+    let omegas: Vec<f64> = report.modes.iter().map(|m| m.frequency_hz * std::f64::consts::TAU).collect();
+    let mut value = reference::model_json("rod", &model, omegas.len());
+    value["omegas"] = json!(omegas);
+    value["rigid"] = json!(model.rigid_body_modes());
+    let request = json!({ "models": [value], "proven": 1e-7 }).to_string();
+    if let Some(out) = reference::run("global_roots.py", &["gmpy2"], &request) {
+        let out: Value = serde_json::from_str(&out).expect("the reference prints JSON");
+        let problems = out["rod"]["problems"].as_array().expect("a list of problems");
+        assert!(problems.is_empty(), "against tests/python/global_roots.py: {problems:?} ({omegas:?})");
+    }
+    check_the_check(&report, "thin rod on near-rigid springs");
+    assert!(report.warnings.iter().all(|w| w.code.id() != "fe-disagrees"), "{:?}", report.warnings);
+    for m in &report.modes {
+        let (d, e, a) =
+            (m.fe_difference.unwrap_or(0.0), m.fe_error.unwrap_or(0.0), m.accuracy.unwrap_or(0.0));
+        assert!(
+            d.abs() <= 10.0 * (e + a) + 1e-9,
+            "mode {}: FE differs by {d:e}, its estimate {e:e}",
+            m.number
+        );
     }
 }

@@ -76,6 +76,15 @@ impl Column {
         let (theta, moment) = (y[1] / h, y[2] * self.ei / (h * h));
         moment * moment / self.ei + self.p * theta * theta
     }
+
+    /// [`Column::strain_density`] and its bending part alone, M²/EI, from one evaluation.
+    pub(crate) fn densities(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
+        let h = self.length;
+        let y = self.at(omega, state, x);
+        let (theta, moment) = (y[1] / h, y[2] * self.ei / (h * h));
+        let bending = moment * moment / self.ei;
+        (bending + self.p * theta * theta, bending)
+    }
 }
 
 #[cfg(test)]

@@ -106,6 +106,18 @@ impl Member {
         }
     }
 
+    /// [`Member::strain_density`], and the same without the axial force's part (the energy the
+    /// beam's own stiffness stores, which compression partly cancels), from one evaluation.
+    pub(crate) fn densities(&self, omega: f64, state: [f64; 4], x: f64) -> (f64, f64) {
+        match self {
+            Member::Column(c) => c.densities(omega, state, x),
+            _ => {
+                let d = self.strain_density(omega, state, x);
+                (d, d)
+            }
+        }
+    }
+
     /// Pieces the station sweep cuts this member into for frequencies up to `omega_max`: short
     /// enough that each piece's transfer matrix is close to the identity and accurately summed
     /// (λ ≤ [`SWEEP_LAMBDA`] for a slender piece), and so far below the piece's own first

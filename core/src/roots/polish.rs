@@ -1,7 +1,9 @@
 //! Polishing one isolated frequency: Brent's method on the determinant, deflated by the
 //! frequencies already found, inside an interval the count says holds exactly that one. Every
 //! evaluation goes through the search's budget, and Brent's loop has its own cap, so a
-//! determinant that is only noise ends the polish rather than prolonging it.
+//! determinant that is only noise ends the polish rather than prolonging it. Once a frequency is
+//! polished, the counts that rounding tipped near it are dropped, so that they cannot bracket a
+//! phantom one beside it.
 
 use super::{Evaluator, Search};
 use crate::error::Result;
@@ -12,6 +14,10 @@ const SETTLED: f64 = 1e-6;
 /// Most iterations of Brent's method on one interval: far past the ten or so a root takes; the
 /// search's budget of evaluations usually stops a polish on noise before this does.
 const BRENT_STEPS: usize = 200;
+/// Relative distance from a root within which a count that contradicts it is taken for the
+/// rounding of a nearly singular matrix (see [`Search::forget_tipped_counts`]): far wider than any
+/// model double precision can solve shows, far narrower than two distinct modes of a beam lie.
+const NOISE_LIMIT: f64 = 1e-7;
 
 impl Search {
     /// The one frequency in the sampled interval (lo, hi] (counts k − 1 and k), by Brent's
@@ -68,6 +74,53 @@ impl Search {
             (Some(root), None) => Ok(root),
             (None, None) => Ok(0.5 * (a.omega + b.omega)),
         }
+    }
+
+    /// Drops the samples taken within rounding of the k-th frequency, just found at ω, whose
+    /// count is neither k − 1 nor k or contradicts another count. There the matrix is singular to
+    /// working precision: an elimination step's pivot is rounding noise, and the next pivot,
+    /// divided by it, can take either sign, so the count may be off by one in either direction;
+    /// left in place, such a sample would bracket a phantom frequency beside the real one (the
+    /// k-th found twice, and every later one shifted by one).
+    ///
+    /// How wide that window is depends on the model: about ε times the ratio of its stiffest to
+    /// its softest parts, so a near-rigid spring on a thin rod widens it to a part in 10¹⁰. The
+    /// counts themselves say how wide it is: a count cannot fall as ω rises (it is the number of
+    /// frequencies below ω), so a sample whose count is above a later one's or below an earlier
+    /// one's, or that puts the k-th frequency on the wrong side of ω, is rounding, and twice the
+    /// distance to the farthest such sample is dropped. Contradictions farther than
+    /// [`NOISE_LIMIT`] are not the rounding near one root; they are left for the checks on the
+    /// whole list to refuse.
+    pub(super) fn forget_tipped_counts(&mut self, omega: f64, k: usize, tolerance: f64) {
+        let n = self.samples.len();
+        let mut before = vec![0usize; n];
+        let mut after = vec![usize::MAX; n];
+        for i in 1..n {
+            before[i] = before[i - 1].max(self.samples[i - 1].below);
+        }
+        for i in (0..n.saturating_sub(1)).rev() {
+            after[i] = after[i + 1].min(self.samples[i + 1].below);
+        }
+        let contradicts = |i: usize| {
+            let s = &self.samples[i];
+            s.below > after[i]
+                || s.below < before[i]
+                || (s.omega < omega && s.below >= k)
+                || (s.omega > omega && s.below < k)
+        };
+        let seen = (0..n)
+            .filter(|&i| (self.samples[i].omega - omega).abs() <= NOISE_LIMIT * omega && contradicts(i))
+            .map(|i| (self.samples[i].omega - omega).abs())
+            .fold(0.0, f64::max);
+        let window = (2.0 * (tolerance + f64::EPSILON) * omega).max(2.0 * seen);
+        let keep: Vec<bool> = (0..n)
+            .map(|i| {
+                let s = &self.samples[i];
+                (s.omega - omega).abs() > window || ((s.below + 1 == k || s.below == k) && !contradicts(i))
+            })
+            .collect();
+        let mut flags = keep.into_iter();
+        self.samples.retain(|_| flags.next().unwrap_or(true));
     }
 
     /// Evaluates the sample at `index` again on the search's discretisation (its first value

@@ -20,12 +20,20 @@ impl ModeShape {
     /// order in the shape's error: how far its root lies from the frequency the shape was
     /// computed at measures that frequency's error.
     pub fn rayleigh_quotient(&self, model: &Model) -> f64 {
-        let mut strain = 0.0;
+        self.energies(model).0
+    }
+
+    /// Rayleigh's quotient (see [`ModeShape::rayleigh_quotient`]) and the beam's own strain
+    /// energy over ω²T (see [`ModeShape::bending_to_kinetic`]), from one pass over the pieces.
+    pub fn energies(&self, model: &Model) -> (f64, f64) {
+        let (mut strain, mut bending) = (0.0, 0.0);
         for p in &self.pieces {
             let half = 0.5 * p.length;
             for (xi, weight) in GAUSS {
                 let x = half * (1.0 + xi);
-                strain += weight * half * p.member.strain_density(self.omega, p.state, x);
+                let (all, own) = p.member.densities(self.omega, p.state, x);
+                strain += weight * half * all;
+                bending += weight * half * own;
             }
         }
         let (kt_left, kr_left) = model.left().springs();
@@ -49,7 +57,20 @@ impl ModeShape {
                 _ => {}
             }
         }
-        strain / inner(model, self, self)
+        let kinetic = inner(model, self, self);
+        (strain / kinetic, bending / (self.omega * self.omega * kinetic))
+    }
+}
+
+impl ModeShape {
+    /// The beam's own strain energy in this mode (bending and shear, the axial force's work
+    /// left out) over its kinetic energy per ω² times ω²: 1 for a beam with no springs and no
+    /// axial force (U = ω²T), below 1 where springs or tension carry part of the stiffness, and
+    /// above it under compression, which cancels part of the bending energy: near buckling U is
+    /// many times ω²T. An error made in the bending energy (a finite element's) is an error of
+    /// ω² relative to U, so it shows in ω amplified by this ratio.
+    pub fn bending_to_kinetic(&self, model: &Model) -> f64 {
+        self.energies(model).1
     }
 }
 
