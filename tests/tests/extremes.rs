@@ -161,3 +161,53 @@ fn a_near_rigid_spring_on_a_thin_rod_loses_no_mode_to_rounding() {
         );
     }
 }
+
+#[test]
+fn a_uniform_cantilever_cut_finely_lists_no_phantom_frequency() {
+    // A generated model: a plain uniform bar free at one end and clamped at the other (a guided
+    // end with a support on it), 20 modes asked for. Cut into 78 pieces for the search's widest
+    // reference frequency, the sweep once counted 20 frequencies below 1376 Hz where there are
+    // 19 (one station's pivot within rounding of zero), and mode 20 was listed at 1,371.9 Hz
+    // beside mode 19 at 1,361.3 Hz instead of at 1,512.6 Hz. The cantilever's frequencies are
+    // (λₙ²/2πL²)·√(EI/m) with λₙL the roots of its frequency equation cos λL·cosh λL = −1
+    // (Blevins, Formulas for Natural Frequency and Mode Shape, table 8-1), found here by
+    // bisection of cos x + 1/cosh x on ((n − 1)π, nπ], where it changes sign once.
+    let scenario = json!({
+        "modes": 20,
+        "left": "free",
+        "right": "guided",
+        "attachments": [{ "type": "support", "position": "2.491786990944599 ft" }],
+        "segments": [{
+            "length": "0.7594966748399139 m",
+            "material": { "density": "15684.28366118102 kg/m^3", "youngs_modulus": "16.195575482391035 GPa" },
+            "section": { "shape": "rectangle", "depth": "0.4979451512950644 cm", "width": "0.182259823119632 in" }
+        }]
+    });
+    let report = solve(&scenario);
+    let model = modebench::Scenario::from_value(&scenario).and_then(|s| s.to_model()).expect("valid").model;
+    let segment = &model.segments()[0];
+    let (l, ei, m) = (model.length(), segment.flexural_rigidity, segment.mass_per_length);
+    let lambda = |n: usize| {
+        let f = |x: f64| x.cos() + 1.0 / x.cosh();
+        let (mut a, mut b) = ((n as f64 - 1.0) * std::f64::consts::PI, n as f64 * std::f64::consts::PI);
+        for _ in 0..200 {
+            let c = 0.5 * (a + b);
+            if f(a).signum() == f(c).signum() {
+                a = c;
+            } else {
+                b = c;
+            }
+        }
+        0.5 * (a + b)
+    };
+    assert!((lambda(1) - 1.875_104_07).abs() < 1e-8 && (lambda(4) - 10.995_540_73).abs() < 1e-8);
+    assert_eq!(report.modes.len(), 20);
+    for mode in &report.modes {
+        let n = mode.number;
+        let want = lambda(n).powi(2) / (std::f64::consts::TAU * l * l) * (ei / m).sqrt();
+        let error = modebench_tests::relative_error(want, mode.frequency_hz);
+        assert!(error < 1e-9, "mode {n}: {} Hz against {want} Hz ({error:e})", mode.frequency_hz);
+    }
+    check_the_check(&report, "uniform cantilever, 20 modes");
+    assert!(report.warnings.iter().all(|w| w.code.id() != "fe-disagrees"), "{:?}", report.warnings);
+}
