@@ -33,8 +33,9 @@ pub(crate) fn run(project: &Project) -> Result<()> {
 const RATIO_ROUNDS: usize = 3;
 
 /// Builds the solver engine with the timing exports, then runs the native benchmarks of the two
-/// budget workloads and the same workloads in that engine in headless Chromium, in turns; both
-/// print their figures (docs/performance.md records them).
+/// budget workloads (criterion's, and `--bench ratio`, which times batches as the browser side
+/// does) and the same workloads in that engine in headless Chromium, in turns; both print their
+/// figures (docs/performance.md records them).
 pub(crate) fn ratio(project: &Project) -> Result<()> {
     let timing = engine::build_timing(project)?;
     for round in 1..=RATIO_ROUNDS {
@@ -52,6 +53,7 @@ pub(crate) fn ratio(project: &Project) -> Result<()> {
             "3",
             "exact frequencies|finite elements",
         ]))?;
+        run::status(&mut project.cargo(["bench", "-p", "modebench-tests", "--bench", "ratio"]))?;
         run::step(&format!("Round {round} of {RATIO_ROUNDS}: WebAssembly in Chromium"));
         run::status(
             run::cmd("node", ["ratio.mjs"])
