@@ -35,12 +35,15 @@ use crate::roots::Evaluation;
 /// thousands of waves at the frequencies asked for.
 pub(crate) const MAX_PIECES: usize = 200_000;
 
-/// How many pieces each member of `system` is cut into for frequencies up to `reference`.
-pub(crate) fn pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
+/// How many pieces each member of `system` is cut into for frequencies up to `reference`, a
+/// slender piece without axial force up to λ = `slender` (see [`Member::sweep_pieces`]).
+pub(crate) fn pieces(system: &System, reference: f64, slender: f64) -> Result<Vec<usize>> {
     let mut total = 0usize;
     let mut out = Vec::with_capacity(system.members.len());
     for (span, member) in system.layout.spans.iter().zip(&system.members) {
-        let n = member.sweep_pieces(reference).ok_or_else(|| too_short_in_shear(reference, span.segment))?;
+        let n = member
+            .sweep_pieces(reference, slender)
+            .ok_or_else(|| too_short_in_shear(reference, span.segment))?;
         total = total.saturating_add(n);
         if total > MAX_PIECES {
             if let Member::Column(c) = member {
