@@ -19,6 +19,8 @@ pub use modebench_ui::{catalog, doc, render};
 
 pub mod worker;
 
+// Natively for its tests; in WebAssembly only in the build that measures (feature `timing`).
+#[cfg(any(not(target_arch = "wasm32"), feature = "timing"))]
 pub mod timing;
 
 #[cfg(feature = "bench")]

@@ -1,7 +1,7 @@
 //! The native benchmarks' two budget workloads as exports of a WebAssembly build, so that a
 //! browser can time them against `tests/benches/engine.rs` (WebAssembly ÷ native, recorded in
-//! docs/performance.md). The exports are compiled only with the `timing` feature, which no
-//! shipped engine has (without them the linker leaves this module out): `cargo xtask ratio`
+//! docs/performance.md). In WebAssembly the module is compiled only with the `timing` feature,
+//! which no shipped engine has (natively it is compiled for its tests): `cargo xtask ratio`
 //! builds the solver engine with it, as the site's is built otherwise, and
 //! `tests/browser/ratio.mjs` times the exports in Chromium.
 //!
