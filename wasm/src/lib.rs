@@ -9,13 +9,19 @@
 //!   the page's main thread; `solver` the worker's entry point (`solveScenario`); `api` (the
 //!   default) adds `solve`, `parseQuantity`, `listSections`, `listMaterials` and `listUnits` for
 //!   integrators; `bench` the tap-test panel's engine ([`bench`]: `analyseFile`, `analyseSamples`,
-//!   `analyseTimed`), loaded by the bench worker only when the reader opens the panel.
+//!   `analyseTimed`), loaded by the bench worker only when the reader opens the panel; `timing`
+//!   the budget workloads ([`timing`]: `benchExact`, `benchElements`), for measuring
+//!   WebAssembly against native only, never in a shipped engine.
 //!
 //! This crate holds no formula: every number it shows comes from the `modebench` core.
 
 pub use modebench_ui::{catalog, doc, render};
 
 pub mod worker;
+
+// Natively for its tests; in WebAssembly only in the build that measures (feature `timing`).
+#[cfg(any(not(target_arch = "wasm32"), feature = "timing"))]
+pub mod timing;
 
 #[cfg(feature = "bench")]
 pub mod bench;

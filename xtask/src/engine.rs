@@ -56,7 +56,7 @@ pub(crate) fn build(project: &Project) -> Result<()> {
     }
     std::fs::create_dir_all(&scratch)?;
     for engine in &ENGINES {
-        build_one(project, engine, &scratch)?;
+        build_one(project, engine, &scratch, &out)?;
     }
     for engine in &ENGINES {
         println!("{}: {} bytes", engine.name, size(&out.join(format!("{}_bg.wasm", engine.name)))?);
@@ -100,7 +100,12 @@ pub(crate) fn bind_for_single_file(project: &Project) -> Result<()> {
 /// (binaryen 108) rewrites the table of JavaScript references that wasm-bindgen adds, and the
 /// engine then fails to start. Optimising first and binding second avoids that, and the binding
 /// step adds only a little glue.
-fn build_one(project: &Project, engine: &Engine, scratch: &std::path::Path) -> Result<()> {
+fn build_one(
+    project: &Project,
+    engine: &Engine,
+    scratch: &std::path::Path,
+    out: &std::path::Path,
+) -> Result<()> {
     run::step(&format!(
         "Build the browser engine {} (WebAssembly, feature `{}`)",
         engine.name, engine.feature
@@ -133,18 +138,33 @@ fn build_one(project: &Project, engine: &Engine, scratch: &std::path::Path) -> R
     run::status(
         run::cmd(
             "wasm-bindgen",
-            [
-                "--target",
-                "web",
-                "--no-typescript",
-                "--out-name",
-                engine.name,
-                "--out-dir",
-                path_str(&project.engine_dir())?,
-            ],
+            ["--target", "web", "--no-typescript", "--out-name", engine.name, "--out-dir", path_str(out)?],
         )
         .arg(&input),
     )
+}
+
+/// The solver engine as [`build`] builds it, with the `timing` feature's exports (the native
+/// benchmarks' two budget workloads) added, into `build/timing/`, for `cargo xtask ratio`. Its
+/// size is printed but is not the shipped engine's.
+pub(crate) fn build_timing(project: &Project) -> Result<std::path::PathBuf> {
+    let out = project.root.join("build").join("timing");
+    let scratch = out.join("wasm-opt");
+    if out.exists() {
+        std::fs::remove_dir_all(&out).with_context(|| format!("emptying {}", out.display()))?;
+    }
+    std::fs::create_dir_all(&scratch)?;
+    let solver =
+        ENGINES.iter().find(|e| e.feature == "solver").context("the solver engine is one of ENGINES")?;
+    let timing =
+        Engine { feature: "solver,timing", name: solver.name, profile: solver.profile, level: solver.level };
+    build_one(project, &timing, &scratch, &out)?;
+    println!(
+        "{} with the timing exports: {} bytes",
+        timing.name,
+        size(&out.join(format!("{}_bg.wasm", timing.name)))?
+    );
+    Ok(out)
 }
 
 fn size(path: &std::path::Path) -> Result<u64> {

@@ -26,6 +26,8 @@ usage: cargo xtask <command>
   test    everything CI runs: formatting, lints, docs, native and WebAssembly tests,
           the site build and the browser tests
   bench   the engine benchmarks and the browser budgets
+  ratio   the two budget workloads natively and in the solver engine in Chromium, in
+          turns: WebAssembly ÷ native
   tools   install whatever the commands above need and is missing";
 
 fn main() -> ExitCode {
@@ -70,6 +72,10 @@ fn dispatch() -> Result<()> {
         "bench" => {
             tools::ensure(&project, tools::Needs::BROWSER)?;
             bench::run(&project)
+        }
+        "ratio" => {
+            tools::ensure(&project, tools::Needs::BROWSER)?;
+            bench::ratio(&project)
         }
         "tools" => tools::ensure(&project, tools::Needs::ALL),
         "" | "help" | "--help" | "-h" => {

@@ -149,7 +149,7 @@ fn explain(model: &Model, e: crate::error::Error) -> crate::error::Error {
 /// How many pieces the sweep cuts each member of `system` into up to `reference` (for the
 /// buckling search, which sweeps at ω = 0 with its own members).
 pub(crate) fn sweep_pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
-    sweep::pieces(system, reference)
+    sweep::pieces(system, reference, crate::member::SWEEP_LAMBDA)
 }
 
 /// The station sweep's count and determinant at ω.
@@ -163,7 +163,7 @@ struct Natural(System);
 
 impl roots::Spectrum for Natural {
     fn evaluator(&self, reference: f64) -> Result<roots::Evaluator<'_>> {
-        let pieces = sweep::pieces(&self.0, reference)?;
+        let pieces = sweep::pieces(&self.0, reference, crate::member::COUNT_LAMBDA)?;
         Ok(Box::new(move |omega| checked(&self.0, &pieces, omega)))
     }
 }

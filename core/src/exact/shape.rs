@@ -74,7 +74,7 @@ pub(crate) fn shapes(model: &Model, omega: f64, count: usize) -> Result<Vec<Mode
     let held = plain.stations.iter().all(|s| s.w.is_none() && s.theta.is_none() && s.sprung.is_empty());
     let layout = if held { Layout::new(model, &|_| 2)? } else { plain };
     let system = System::new(model, layout);
-    let pieces = sweep::pieces(&system, omega)?;
+    let pieces = sweep::pieces(&system, omega, crate::member::SWEEP_LAMBDA)?;
     let mut out: Vec<ModeShape> = Vec::with_capacity(count);
     if omega == 0.0 {
         // Rigid-body modes: the motions w = a + b·x that no restraint resists, the sprung masses

@@ -35,12 +35,15 @@ use crate::roots::Evaluation;
 /// thousands of waves at the frequencies asked for.
 pub(crate) const MAX_PIECES: usize = 200_000;
 
-/// How many pieces each member of `system` is cut into for frequencies up to `reference`.
-pub(crate) fn pieces(system: &System, reference: f64) -> Result<Vec<usize>> {
+/// How many pieces each member of `system` is cut into for frequencies up to `reference`, a
+/// slender piece without axial force up to λ = `slender` (see [`Member::sweep_pieces`]).
+pub(crate) fn pieces(system: &System, reference: f64, slender: f64) -> Result<Vec<usize>> {
     let mut total = 0usize;
     let mut out = Vec::with_capacity(system.members.len());
     for (span, member) in system.layout.spans.iter().zip(&system.members) {
-        let n = member.sweep_pieces(reference).ok_or_else(|| too_short_in_shear(reference, span.segment))?;
+        let n = member
+            .sweep_pieces(reference, slender)
+            .ok_or_else(|| too_short_in_shear(reference, span.segment))?;
         total = total.saturating_add(n);
         if total > MAX_PIECES {
             if let Member::Column(c) = member {
@@ -209,9 +212,10 @@ fn carry(t: &Transfer, z: &Basis) -> Basis {
     out
 }
 
-/// The squared weights that make the four rows of a state comparable (each a length): w, θ·ℓ,
-/// Q·ℓ³/EI, M·ℓ²/EI, with ℓ the beam's length and EI its first segment's. Orthonormalising in
-/// this measure keeps the two columns well apart whatever the units.
+/// The weights of the inner product, from the scales that make the four rows of a state
+/// comparable (each a length): w, θ·ℓ, Q·ℓ³/EI, M·ℓ²/EI, with ℓ the beam's length and EI its
+/// first segment's, each scale to the fourth power. Orthonormalising in this measure keeps the
+/// two columns well apart whatever the units.
 struct Metric([f64; 4]);
 
 impl Metric {
@@ -219,7 +223,7 @@ impl Metric {
         let length = system.layout.stations.last().map_or(1.0, |s| s.x).max(f64::MIN_POSITIVE);
         let ei = system.members.first().map_or(1.0, Member::flexural_rigidity);
         let weights = [1.0, length, length.powi(3) / ei, length * length / ei];
-        Metric(weights.map(|w| w * w))
+        Metric(weights.map(|w| (w * w) * (w * w)))
     }
 
     /// Gram–Schmidt on the two columns; returns the product of their lengths before scaling,
@@ -233,23 +237,30 @@ impl Metric {
     /// count at the next station, which rests on them, came out wrong.
     fn orthonormalise(&self, z: &mut Basis) -> f64 {
         let d = &self.0;
-        let dot =
-            |z: &Basis, a: usize, b: usize| (0..4).map(|r| d[r] * d[r] * z[r][a] * z[r][b]).sum::<f64>();
-        let motion = |z: &Basis, c: usize| (0..2).map(|r| d[r] * d[r] * z[r][c] * z[r][c]).sum::<f64>();
+        let term = |z: &Basis, r: usize, a: usize, b: usize| d[r] * z[r][a] * z[r][b];
+        let motion = |z: &Basis, c: usize| term(z, 0, c, c) + term(z, 1, c, c);
+        let dot = |z: &Basis, a: usize, b: usize| {
+            term(z, 0, a, b) + term(z, 1, a, b) + term(z, 2, a, b) + term(z, 3, a, b)
+        };
+        let squares = [dot(z, 0, 0), dot(z, 1, 1)];
         // (w, θ) as a share of each column, compared without dividing: m₁/n₁ < m₀/n₀.
         let (first, second) =
-            if motion(z, 1) * dot(z, 0, 0) < motion(z, 0) * dot(z, 1, 1) { (1, 0) } else { (0, 1) };
-        let n0 = dot(z, first, first).sqrt();
+            if motion(z, 1) * squares[0] < motion(z, 0) * squares[1] { (1, 0) } else { (0, 1) };
+        // Scaled by reciprocals: the columns' lengths only need to be near 1, and the factor
+        // below takes the lengths themselves.
+        let n0 = squares[first].sqrt();
+        let inverse = 1.0 / n0;
         for row in z.iter_mut() {
-            row[first] /= n0;
+            row[first] *= inverse;
         }
         let p = dot(z, first, second);
         for row in z.iter_mut() {
             row[second] -= p * row[first];
         }
         let n1 = dot(z, second, second).sqrt();
+        let inverse = 1.0 / n1;
         for row in z.iter_mut() {
-            row[second] /= n1;
+            row[second] *= inverse;
         }
         n0 * n1
     }

@@ -79,17 +79,20 @@ impl Euler {
 /// Krylov–Duncan functions scaled to stay finite as β → 0:
 /// [K₁(βx), K₂(βx)/β, K₃(βx)/β², K₄(βx)/β³] with Kᵢ(z) = Σ z^(4k+i−1)/(4k+i−1)!.
 ///
-/// Each is xⁱ⁻¹ times a power series in u = β⁴x⁴ with coefficients 1/(4k+i−1)!. For u up to
-/// [`HORNER_LIMIT`] (λ = βx ≤ 1.5, all the sweep and the shapes use) seven terms are summed by
-/// Horner's rule, the seventh below 1e-19 of the first; beyond it the terms are summed until they
-/// stop changing the sums.
+/// Each is xⁱ⁻¹ times a power series in u = β⁴x⁴ with coefficients 1/(4k+i−1)!, whose terms
+/// are all positive, so the sums lose nothing to cancellation. For u up to [`HORNER_LIMIT`]
+/// (λ = βx ≤ 3, all the sweep and the shapes use) nine terms are summed by Horner's rule, the
+/// ninth below 1e-20 of the first; beyond it the terms are summed until they stop changing the
+/// sums.
 pub(super) fn krylov(beta4: f64, x: f64) -> [f64; 4] {
     let u = beta4 * x.powi(4);
     let powers = [1.0, x, x * x, x * x * x];
     if u <= HORNER_LIMIT {
         return std::array::from_fn(|i| {
             let c = &HORNER[i];
-            let sum = c[0] + u * (c[1] + u * (c[2] + u * (c[3] + u * (c[4] + u * (c[5] + u * c[6])))));
+            let sum = c[0]
+                + u * (c[1]
+                    + u * (c[2] + u * (c[3] + u * (c[4] + u * (c[5] + u * (c[6] + u * (c[7] + u * c[8])))))));
             powers[i] * sum
         });
     }
@@ -109,16 +112,17 @@ pub(super) fn krylov(beta4: f64, x: f64) -> [f64; 4] {
     out
 }
 
-/// Largest u = (βx)⁴ summed by [`HORNER`]: λ = 1.5 and a little over.
-const HORNER_LIMIT: f64 = 5.2;
+/// Largest u = (βx)⁴ summed by [`HORNER`]: λ = 3 and a little over. The ninth term of the
+/// first series is then u⁸/32! ≈ 8e-21 of the sum.
+const HORNER_LIMIT: f64 = 81.8;
 
-/// 1/(4k + i)! for i = 0..3 and k = 0..6, computed at compile time.
-const HORNER: [[f64; 7]; 4] = {
-    let mut out = [[0.0; 7]; 4];
+/// 1/(4k + i)! for i = 0..3 and k = 0..8, computed at compile time.
+const HORNER: [[f64; 9]; 4] = {
+    let mut out = [[0.0; 9]; 4];
     let mut i = 0;
     while i < 4 {
         let mut k = 0;
-        while k < 7 {
+        while k < 9 {
             let n = 4 * k + i;
             let mut f = 1.0;
             let mut j = 2;
@@ -140,9 +144,9 @@ mod tests {
 
     #[test]
     fn both_ways_of_summing_the_krylov_functions_agree() {
-        // Horner's seven terms and the open-ended sum, on either side of the switch, against the
+        // Horner's nine terms and the open-ended sum, on either side of the switch, against the
         // closed forms (cosh z ± cos z)/2 and (sinh z ± sin z)/2 (their definitions).
-        for lambda in [0.0, 0.3, 1.0, 1.5, 1.51, 2.0] {
+        for lambda in [0.0, 0.3, 1.0, 1.5, 1.51, 2.0, 2.9, 3.0, 3.01, 3.5] {
             let x = 0.7;
             let beta: f64 = lambda / x;
             let k = krylov(beta.powi(4), x);

@@ -119,13 +119,15 @@ impl Member {
     }
 
     /// Pieces the station sweep cuts this member into for frequencies up to `omega_max`: short
-    /// enough that each piece's transfer matrix is close to the identity and accurately summed
-    /// (λ ≤ [`SWEEP_LAMBDA`] for a slender piece), and so far below the piece's own first
+    /// enough that each piece's transfer matrix is accurately summed and well conditioned
+    /// (λ ≤ `slender` for a slender piece without axial force: [`COUNT_LAMBDA`] for the count
+    /// and determinant, [`SWEEP_LAMBDA`] for mode shapes, whose energies are integrated piece by
+    /// piece; λ ≤ [`SWEEP_LAMBDA`] for a beam-column), and so far below the piece's own first
     /// clamped–clamped frequency (λ = 4.730) that the pieces add no poles and nothing to J₀.
     /// `None` when a shear-flexible member would need more than its limit of pieces.
-    pub(crate) fn sweep_pieces(&self, omega_max: f64) -> Option<usize> {
+    pub(crate) fn sweep_pieces(&self, omega_max: f64, slender: f64) -> Option<usize> {
         match self {
-            Member::Euler(e) => Some(count((e.lambda(omega_max) / SWEEP_LAMBDA).ceil())),
+            Member::Euler(e) => Some(count((e.lambda(omega_max) / slender).ceil())),
             // Also |P|·h²/EI ≤ 1 per piece (see `column`).
             Member::Column(c) => {
                 Some(count((c.lambda(omega_max) / SWEEP_LAMBDA).max(c.load_parameter()).ceil()))
@@ -162,10 +164,19 @@ impl Member {
     }
 }
 
-/// Largest λ of a slender piece in the station sweep. Its transfer matrix's entries then stay
-/// below cosh 1.5 ≈ 2.4 (in units of the piece), so carrying a stiffness across it amplifies
-/// rounding by no more than a few units.
+/// Largest λ of a slender piece in the station sweep of a mode shape, and of a beam-column's
+/// piece. Its transfer matrix's entries then stay below cosh 1.5 ≈ 2.4 (in units of the piece),
+/// so carrying a stiffness across it amplifies rounding by no more than a few units, and the
+/// six-point Gauss rule integrates a shape's energies over it to about 1e-14.
 pub(crate) const SWEEP_LAMBDA: f64 = 1.5;
+
+/// Largest λ of a slender piece without axial force in the sweep that counts and takes the
+/// determinant (the root search's, most of an exact solve's time). Its Krylov–Duncan functions
+/// are sums of positive terms (no cancellation; nine terms to full precision), its entries stay
+/// below cosh 3 ≈ 10 in units of the piece, and λ = 3 is well below the piece's first
+/// clamped–clamped frequency (λ = 4.730), so J₀ stays zero. Twice [`SWEEP_LAMBDA`] halves the
+/// pieces each trial frequency's sweep carries.
+pub(crate) const COUNT_LAMBDA: f64 = 3.0;
 
 /// A piece count from a float, at least 1, saturating past what any layout accepts (the layout
 /// then reports the problem) and treating NaN the same way.
