@@ -21,7 +21,7 @@ const BH: [f64; 4] = [0.35875, 0.48829, 0.14128, 0.01168];
 /// near 0 at the last. One cosine per sample: cos 2x = 2c² − 1 and cos 3x = c(4c² − 3) with
 /// c = cos x (Chebyshev's polynomials), as the window is taken for every sample of every tap.
 /// The cosines themselves come by the angle-addition formula from a table of one block's
-/// steps and one exact cosine and sine per block of [`STEP_BLOCK`] samples, so each is within a
+/// steps and one exact cosine and sine per block of 256 samples, so each is within a
 /// few units in the last place of the library's and no error accumulates along the window.
 pub fn falling_window(n: usize) -> Vec<f64> {
     // x = 2π(n + i)/2n = π + πi/n, so cos x = −cos(πi/n).
