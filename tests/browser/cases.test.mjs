@@ -6,7 +6,7 @@ import { readFile, mkdtemp, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { TEST_TIMEOUT_MS, allSame, closeAll, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
+import { TEST_TIMEOUT_MS, allSame, closeAll, same, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -88,7 +88,8 @@ describe("cases", () => {
     await page.click('[data-action="undo"]');
     await settled(page);
     assert.equal(await page.inputValue(TIP_MASS), "3.4 kg");
-    assert.equal(await mode1(page), heavier);
+    // Solved again, perhaps from other hints than before: the same to round-off.
+    assert.ok(same(await mode1(page), heavier), `${await mode1(page)} against ${heavier}`);
 
     // Removing a row is undone too.
     await page.click('[data-action="remove"][data-list="attachments"]');
@@ -120,7 +121,8 @@ describe("cases", () => {
     const opened = await openCase(received);
     assert.deepEqual(opened.scenario, sent.scenario);
     assert.equal(await received.inputValue(TIP_MASS), "3.4 kg");
-    assert.equal(await mode1(received), hz);
+    // Solved afresh in the other browser, not from the sender's last answer: the same to round-off.
+    assert.ok(same(await mode1(received), hz), `${await mode1(received)} against ${hz}`);
     assert.equal(new URL(received.url()).hash, "", "the link's case leaves the address once opened");
     // A reload shows the case kept, not the link's again.
     await received.reload();
