@@ -34,3 +34,18 @@ pub fn relative_difference(expected: f64, got: f64) -> f64 {
         (got - expected) / expected
     }
 }
+
+/// Every mode's finite-element check lies within ten times its own error estimate (mesh and
+/// rounding, plus the exact value's), as the report states them: what the fuzz run asserts of
+/// every solved model, for the regression tests of the models it once stopped on.
+pub fn assert_fe_within_its_estimate(report: &modebench::Report) {
+    for m in &report.modes {
+        let (d, e, a) =
+            (m.fe_difference.unwrap_or(0.0), m.fe_error.unwrap_or(0.0), m.accuracy.unwrap_or(0.0));
+        assert!(
+            d.abs() <= 10.0 * (e + a) + 1e-9,
+            "mode {}: FE differs by {d:e}, its estimate {e:e}",
+            m.number
+        );
+    }
+}

@@ -151,15 +151,7 @@ fn a_near_rigid_spring_on_a_thin_rod_loses_no_mode_to_rounding() {
     }
     check_the_check(&report, "thin rod on near-rigid springs");
     assert!(report.warnings.iter().all(|w| w.code.id() != "fe-disagrees"), "{:?}", report.warnings);
-    for m in &report.modes {
-        let (d, e, a) =
-            (m.fe_difference.unwrap_or(0.0), m.fe_error.unwrap_or(0.0), m.accuracy.unwrap_or(0.0));
-        assert!(
-            d.abs() <= 10.0 * (e + a) + 1e-9,
-            "mode {}: FE differs by {d:e}, its estimate {e:e}",
-            m.number
-        );
-    }
+    modebench_tests::assert_fe_within_its_estimate(&report);
 }
 
 #[test]
