@@ -203,3 +203,41 @@ fn a_uniform_cantilever_cut_finely_lists_no_phantom_frequency() {
     check_the_check(&report, "uniform cantilever, 20 modes");
     assert!(report.warnings.iter().all(|w| w.code.id() != "fe-disagrees"), "{:?}", report.warnings);
 }
+
+#[test]
+fn a_near_rigid_bounce_the_check_cannot_resolve_is_left_blank_not_compared() {
+    // A generated model: a titanium I-beam 17.9 m long and 2 m deep (EI about 3e10 N·m²), guided
+    // at one end and held at the other by a 2.4 N/m spring and a 46 N·m/rad one. Its first mode
+    // is the whole beam bouncing on the soft spring, at ω² = k/M (rigid-body dynamics, a fact of
+    // the theory; the beam's own bending moves it by about k·L³/3EI, some 1e-7). The check's
+    // largest eigenvalue is some 1e17 times that mode's, so the check cannot see it at all: it
+    // once lost it, listed mode 2's frequency in its place, and compared that with mode 1 (a
+    // factor 8.3e3 apart) while estimating its own error there at 9e-7. Its column must be
+    // blank where it lost the mode, and every value it does show must lie within its estimate.
+    let scenario = json!({
+        "modes": 10,
+        "left": "guided",
+        "right": { "type": "elastic", "translational": "0.002438850510490454 kN/m",
+                   "rotational": "45.963776929687384 N*m/rad" },
+        "segments": [{
+            "length": "17.893458905598163 m",
+            "material": "titanium-ti6al4v",
+            "section": { "shape": "i-beam", "depth": "2024.8874095003866 mm", "flange_width": "4.5942469269437405 ft",
+                         "flange_thickness": "9.310108718572883 cm", "web_thickness": "5.645593121515844 cm" }
+        }]
+    });
+    let report = solve(&scenario);
+    let model = modebench::Scenario::from_value(&scenario).and_then(|s| s.to_model()).expect("valid").model;
+    let mass: f64 = model.segments().iter().map(|s| s.mass_per_length * s.length).sum();
+    let k = 2.438850510490454;
+    check(
+        "guided I-beam on a 2.4 N/m spring",
+        "ω² = k/M; fact of the theory",
+        hz(k / mass),
+        report.modes[0].frequency_hz,
+        1e-6,
+    );
+    check_the_check(&report, "guided I-beam on a 2.4 N/m spring");
+    modebench_tests::assert_fe_within_its_estimate(&report);
+    assert!(report.modes[0].fe_frequency_hz.is_none(), "{:?}", report.modes[0]);
+}

@@ -173,6 +173,11 @@ const INTERIOR_LIMIT: f64 = 1e-5;
 /// Most times the check is solved again for such attachments.
 const REMESHES: usize = 3;
 
+/// A finite-element frequency whose estimated round-off reaches this fraction of itself is not
+/// resolved at all: the check's count cannot tell that mode from zero, so it may have lost it
+/// and shifted every later mode of its list (see `fe_unresolved`).
+const UNRESOLVED: f64 = 0.5;
+
 /// An exact frequency whose estimated relative error exceeds this is flagged.
 pub const TRUSTED: f64 = 1e-9;
 
@@ -236,6 +241,13 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
     for (i, m) in exact_modes.into_iter().enumerate() {
         let elastic = (!m.rigid_body).then(|| i - rigid);
         let fe_omega = elastic.and_then(|j| fe.omegas.get(j).copied());
+        // The check's round-off falls as 1/ω² (`fe::FeSolution::round_off`); it is taken at the
+        // lower of its frequency and the exact one, since a check that lost this mode to
+        // rounding lists a higher frequency here, whose estimate would flatter it.
+        let round_off = |j: usize| {
+            let (r, f) = (*fe.round_off.get(j)?, fe_omega?);
+            Some(if m.omega > 0.0 && m.omega < f { r * (f / m.omega).powi(2) } else { r })
+        };
         // Rayleigh's quotient of the shape, and its bending energy over ω²T, from one pass.
         let (quotient, bending) = if m.rigid_body { (0.0, 1.0) } else { m.shape.energies(model) };
         let fe_error = elastic.and_then(|j| {
@@ -254,7 +266,7 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
             let compressed = (0..model.segments().len()).any(|s| model.axial_force(s) < 0.0);
             let ratio = if compressed { bending } else { 1.0 };
             let amplified = if ratio.is_finite() { ratio.max(1.0) } else { 1.0 };
-            Some(fe.mesh_error.get(j)? * amplified + fe.round_off.get(j)? + interior)
+            Some(fe.mesh_error.get(j)? * amplified + round_off(j)? + interior)
         });
         let accuracy = (!m.rigid_body).then(|| {
             let quotient = quotient.sqrt();
@@ -272,7 +284,7 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
                 multiplicity: m.multiplicity,
                 fe: f,
                 error,
-                round_off: fe.round_off.get(j).copied().unwrap_or(0.0),
+                round_off: round_off(j).unwrap_or(0.0),
                 accuracy,
             });
         }
@@ -312,6 +324,16 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
             ),
         });
     }
+    // A mode the check cannot resolve at all leaves its whole list in doubt: its count may have
+    // missed that mode and shifted every later one, with no copy to show it.
+    if let Some(c) = compared.iter().find(|c| c.round_off >= UNRESOLVED) {
+        warnings.push(warnings::fe_unresolved(model, c.number, c.round_off));
+        for m in modes.iter_mut() {
+            m.fe_omega = None;
+            m.fe_error = None;
+        }
+        compared.clear();
+    }
     let disagreement = warnings::fe_comparison(model, &compared);
     let disagrees = disagreement.is_some();
     if let Some((_, Some(from))) = &disagreement {
@@ -325,6 +347,8 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
     warnings.extend(disagreement.map(|(w, _)| w));
     if fe_failed {
         warnings.push(warnings::fe_unsolved(model));
+    } else if compared.is_empty() {
+        // Nothing was compared: no elastic mode, or the note above on a mode it cannot resolve.
     } else if disagrees {
         // The note above says which column is at fault.
     } else if let Some(worst) = modes.iter().find(|m| m.fe_difference().is_some_and(|d| d.abs() > 1e-3)) {

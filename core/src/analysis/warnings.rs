@@ -270,6 +270,21 @@ pub(super) fn fe_unsolved(model: &Model) -> Warning {
     }
 }
 
+/// The note when rounding in the check's matrices reaches `round_off` of mode `number`'s own
+/// frequency (at least half of it): the check cannot tell that mode from zero, and its whole
+/// column is left blank.
+pub(super) fn fe_unresolved(model: &Model, number: usize, round_off: f64) -> Warning {
+    Warning {
+        code: WarningCode::FeUnconverged,
+        message: format!(
+            "The finite-element check cannot resolve mode {number}: rounding in its matrices is as large as that \
+             frequency (up to {round_off:.0e} of it){}, so it may have lost the mode and shifted the ones after it. \
+             Its column is left blank; more elements would make it worse. The exact results do not depend on it.",
+            contrast_cause(model)
+        ),
+    }
+}
+
 /// Words naming the likely cause of lost modes: segments of very different stiffness side by
 /// side (empty when there are none).
 fn contrast_cause(model: &Model) -> String {
