@@ -2,7 +2,9 @@
 //! made on their results: the other theory's frequencies where shear matters
 //! ([`comparison`]), and the separation of each mode from the excitations ([`margins`]).
 
+mod buckling;
 pub mod comparison;
+mod fundamental;
 pub mod margins;
 mod warnings;
 
@@ -12,8 +14,8 @@ pub use warnings::{Warning, WarningCode};
 
 use warnings::{merged_points, Compared};
 
-use crate::bounds::{self, Equivalent};
-use crate::error::{Error, ErrorKind, Result};
+use crate::bounds::Equivalent;
+use crate::error::{ErrorKind, Result};
 use crate::exact::{self, ModeShape};
 use crate::fe::{self, Mesh};
 use crate::model::Model;
@@ -119,54 +121,6 @@ fn point_loads(model: &Model, index: usize, shape: &ModeShape, omega: f64) -> (f
     }
 }
 
-/// Compression within this fraction of the critical load gets a warning.
-const NEAR_BUCKLING: f64 = 0.5;
-/// A critical load factor this close above 1 is the critical load itself, found to within the
-/// root search's tolerance: the fundamental is zero there and the beam is treated as buckled.
-const AT_BUCKLING: f64 = 1e-9;
-
-/// The critical load factor of the axial forces: an error when the beam has buckled, and a
-/// warning when the compression is more than half of what buckles it.
-fn buckling(model: &Model, warnings: &mut Vec<Warning>) -> Result<Option<f64>> {
-    let factor = crate::axial::critical_load_factor(model)?;
-    if let Some(mu) = factor {
-        if mu <= 1.0 + AT_BUCKLING {
-            return Err(Error::new(
-                ErrorKind::Model,
-                format!(
-                    "the beam has buckled under these loads: the axial forces are {:.3} times the load that buckles \
-                     it, and a buckled beam has no natural frequencies about its straight shape. Reduce the \
-                     compression or add supports",
-                    1.0 / mu
-                ),
-            )
-            .at(most_compressed(model)));
-        }
-        if 1.0 / mu > NEAR_BUCKLING {
-            warnings.push(Warning {
-                code: WarningCode::NearBuckling,
-                message: format!(
-                    "The axial compression is {:.0} % of the load that buckles the beam (critical load factor \
-                     {mu:.3}). Frequencies fall steeply as it approaches 100 %, and small changes in the load, a \
-                     temperature or an imperfection move them a lot; the applicable code sets the margin against \
-                     buckling.",
-                    100.0 / mu
-                ),
-            });
-        }
-    }
-    Ok(factor)
-}
-
-/// The axial force of the segment in most compression: where a buckled beam's message is shown,
-/// as the force to reduce first.
-fn most_compressed(model: &Model) -> crate::path::FieldPath {
-    let segment = (0..model.segments().len())
-        .min_by(|a, b| model.axial_force(*a).total_cmp(&model.axial_force(*b)))
-        .unwrap_or(0);
-    crate::path::FieldPath::item("segments", segment).key(crate::schema::AXIAL_FORCE.name)
-}
-
 /// An attachment inside a finite element whose estimated error in some mode exceeds this gets a
 /// node of its own: about the mesh's own error at its coarsest (see `fe::WAVE_PER_ELEMENT`).
 const INTERIOR_LIMIT: f64 = 1e-5;
@@ -191,7 +145,7 @@ pub fn analyse(model: &Model, options: &Options) -> Result<Analysis> {
 pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Result<Analysis> {
     let options = &options.checked(model)?;
     let mut warnings = Vec::new();
-    let critical_load_factor = buckling(model, &mut warnings)?;
+    let critical_load_factor = buckling::factor(model, &mut warnings)?;
     let exact_modes = exact::modes_with_hints(model, options.modes, hints)?;
     let rigid = model.rigid_body_modes();
     let last = exact_modes.last().map_or(1.0, |m| m.omega);
@@ -363,41 +317,7 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
                     .to_string(),
         });
     }
-    let fundamental = match modes.get(rigid) {
-        Some(first) if rigid == 0 => {
-            let position = options.report_point.unwrap_or_else(|| bounds::largest_deflection(&first.shape));
-            let equivalent = bounds::equivalent(&first.shape, first.omega, position);
-            if equivalent.is_none() {
-                warnings.push(Warning {
-                    code: WarningCode::ReportPointAtNode,
-                    message: "Mode 1 barely moves at the chosen report point, so no equivalent mass is given there."
-                        .to_string(),
-                });
-            }
-            let (rayleigh, dunkerley) = trusted_bounds(
-                first.omega,
-                bounds::rayleigh(model, &first.shape, first.omega),
-                bounds::dunkerley(model)?,
-            );
-            if rayleigh.withheld || dunkerley.withheld {
-                warnings.push(Warning {
-                    code: WarningCode::Accuracy,
-                    message: "Rayleigh's or Dunkerley's bound came out on the wrong side of the exact mode 1, which \
-                              happens only when the model's stiffnesses differ by more than double precision resolves \
-                              (an extremely stiff spring or support on a very flexible beam): the bound is not shown, \
-                              and mode 1 itself may be inaccurate. Check the stiffnesses."
-                        .to_string(),
-                });
-            }
-            Some(Fundamental {
-                omega: first.omega,
-                rayleigh: rayleigh.value,
-                dunkerley: dunkerley.value,
-                equivalent,
-            })
-        }
-        _ => None,
-    };
+    let fundamental = fundamental::of(model, options, &modes, rigid, &mut warnings)?;
     Ok(Analysis {
         rigid_body_modes: rigid,
         modes,
@@ -407,23 +327,4 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
         critical_load_factor,
         warnings,
     })
-}
-
-/// A bound as shown: its value, or none when it was withheld.
-struct Shown {
-    value: Option<f64>,
-    withheld: bool,
-}
-
-/// Rayleigh's upper and Dunkerley's lower bound on mode 1 as they may be shown. Both hold in
-/// exact arithmetic for every model they are computed for; a computed one on the wrong side of
-/// the exact value (beyond 1e-9, the exact value's own accuracy) shows that round-off has taken
-/// over, and a bound that is not one is not shown as one.
-fn trusted_bounds(omega: f64, rayleigh: Option<f64>, dunkerley: Option<f64>) -> (Shown, Shown) {
-    const SLACK: f64 = 1e-9;
-    let check = |value: Option<f64>, holds: &dyn Fn(f64) -> bool| match value {
-        Some(v) if !holds(v) => Shown { value: None, withheld: true },
-        value => Shown { value, withheld: false },
-    };
-    (check(rayleigh, &|r| r >= omega * (1.0 - SLACK)), check(dunkerley, &|d| d <= omega * (1.0 + SLACK)))
 }
