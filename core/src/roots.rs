@@ -21,6 +21,8 @@ use crate::error::{Error, ErrorKind, Result};
 
 mod polish;
 
+pub(crate) use polish::brent;
+
 /// What one factorisation at a trial ω gives.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub(crate) struct Evaluation {

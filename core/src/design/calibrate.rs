@@ -193,55 +193,22 @@ fn one(frequencies: &Frequencies<'_>, p0: &[f64], u: Unknown, m: Measured) -> Re
     })
 }
 
-/// Brent's method on a sign-changing bracket of the input (the same method the root finder
-/// uses, here on whole solves).
-fn refine(g: &dyn Fn(f64) -> Result<f64>, mut a: f64, mut fa: f64, mut b: f64, mut fb: f64) -> Result<f64> {
-    let (mut c, mut fc) = (a, fa);
-    let mut d = b - a;
-    let mut e = d;
-    for _ in 0..100 {
-        if fb.signum() == fc.signum() {
-            (c, fc) = (a, fa);
-            d = b - a;
-            e = d;
+/// The root of `g` in a sign-changing bracket of the input, by Brent's method (the root
+/// finder's, [`crate::roots::brent`]), to 1e-12 of the input; the first error a solve gives
+/// ends the search with that error.
+fn refine(g: &dyn Fn(f64) -> Result<f64>, a: f64, fa: f64, b: f64, fb: f64) -> Result<f64> {
+    let mut failure = None;
+    let root = crate::roots::brent(a, fa, b, fb, 2e-12, &mut |x| match g(x) {
+        Ok(v) => Some(v),
+        Err(e) => {
+            failure = Some(e);
+            None
         }
-        if fc.abs() < fb.abs() {
-            (a, fa) = (b, fb);
-            (b, fb) = (c, fc);
-            (c, fc) = (a, fa);
-        }
-        let tol = 2.0 * f64::EPSILON * b.abs() + 1e-12 * b.abs().max(1e-300);
-        let m = 0.5 * (c - b);
-        if m.abs() <= tol || fb == 0.0 {
-            return Ok(b);
-        }
-        if e.abs() >= tol && fa.abs() > fb.abs() {
-            let s = fb / fa;
-            let (mut p, mut q) = if a == c {
-                (2.0 * m * s, 1.0 - s)
-            } else {
-                let (qa, r) = (fa / fc, fb / fc);
-                (s * (2.0 * m * qa * (qa - r) - (b - a) * (r - 1.0)), (qa - 1.0) * (r - 1.0) * (s - 1.0))
-            };
-            if p > 0.0 {
-                q = -q;
-            } else {
-                p = -p;
-            }
-            if 2.0 * p < (3.0 * m * q - (tol * q).abs()).min((e * q).abs()) {
-                e = d;
-                d = p / q;
-            } else {
-                d = m;
-                e = m;
-            }
-        } else {
-            d = m;
-            e = m;
-        }
-        (a, fa) = (b, fb);
-        b += if d.abs() > tol { d } else { tol.copysign(m) };
-        fb = g(b)?;
+    });
+    match (failure, root) {
+        (Some(e), _) => Err(e),
+        (None, Some(root)) => Ok(root),
+        // `brent` gives up only when the function does; the arm keeps the match whole.
+        (None, None) => Ok(0.5 * (a + b)),
     }
-    Ok(b)
 }

@@ -137,8 +137,9 @@ impl Search {
 }
 
 /// Brent's method (Brent, *Algorithms for Minimization without Derivatives*, 1973, ch. 4) on a
-/// sign-changing bracket; `None` if the function stops being defined.
-fn brent(
+/// sign-changing bracket, to `tolerance` relative to the root; `None` if the function stops
+/// being defined. The root polish and the calibration's search over an input both use it.
+pub(crate) fn brent(
     mut a: f64,
     mut fa: f64,
     mut b: f64,
