@@ -274,12 +274,17 @@ pub(super) fn fe_unsolved(model: &Model) -> Warning {
 /// frequency (at least half of it): the check cannot tell that mode from zero, and its whole
 /// column is left blank.
 pub(super) fn fe_unresolved(model: &Model, number: usize, round_off: f64) -> Warning {
+    let size = if round_off >= 1.0 {
+        format!("about {} times itself", crate::error::roughly(round_off))
+    } else {
+        format!("about {:.0} % of itself", 100.0 * round_off)
+    };
     Warning {
         code: WarningCode::FeUnconverged,
         message: format!(
-            "The finite-element check cannot resolve mode {number}: rounding in its matrices is as large as that \
-             frequency (up to {round_off:.0e} of it){}, so it may have lost the mode and shifted the ones after it. \
-             Its column is left blank; more elements would make it worse. The exact results do not depend on it.",
+            "The finite-element check cannot resolve mode {number}: rounding in its matrices could move that \
+             frequency by {size}{}, so the check may have lost the mode and shifted the ones after it. Its column is \
+             left blank; more elements would make it worse. The exact results do not depend on it.",
             contrast_cause(model)
         ),
     }
