@@ -260,8 +260,9 @@ mod tests {
     fn the_search_spends_few_factorisations_per_mode() {
         // A regression guard on the work, counted, not timed: each evaluation is one sweep.
         let (_, work) = search(&budget(), 10, &[]).unwrap();
+        // Measured: 65 (72 before the polish ended on its own steps' prediction).
         let per_mode = work.evaluations as f64 / 10.0;
-        assert!(per_mode <= 8.0, "{per_mode} evaluations per mode");
+        assert!(per_mode <= 7.0, "{per_mode} evaluations per mode");
     }
 
     #[test]
@@ -278,7 +279,7 @@ mod tests {
         for (c, w) in cold.iter().zip(&warm) {
             assert!((c.omega - w.omega).abs() <= 1e-13 * c.omega, "{} vs {}", c.omega, w.omega);
         }
-        // Measured: 49 warm against 72 cold. The hints isolate every root at once; what remains
+        // Measured: 43 warm against 66 cold. The hints isolate every root at once; what remains
         // is the polish, which a hint cannot shorten much because the edit moved every root.
         assert!(
             warm_work.evaluations * 4 <= cold_work.evaluations * 3,
