@@ -9,9 +9,7 @@
 //! found (0 on an error), so that nothing is optimised away and the caller can check the work
 //! was done; the caller times the call.
 
-mod beam;
-
-pub use beam::budget_beam;
+pub use modebench::model::budget_beam;
 
 #[cfg(all(target_arch = "wasm32", feature = "timing"))]
 use wasm_bindgen::prelude::*;
@@ -53,13 +51,6 @@ pub fn bench_elements(runs: u32) -> usize {
 #[cfg(all(test, not(target_arch = "wasm32")))]
 mod tests {
     use super::*;
-
-    /// The beam timed in WebAssembly is the benchmarks' beam (the test kit's, which this crate
-    /// cannot reach in WebAssembly), or the two figures would not divide.
-    #[test]
-    fn the_beam_is_the_benchmarks_beam() {
-        assert_eq!(budget_beam(), modebench_tests::models::budget_beam());
-    }
 
     /// Both workloads find their 10 frequencies, and the exact ones agree with finite elements
     /// to the mesh's error (the two methods are independent; 200 Hermite elements put the 10th

@@ -138,10 +138,7 @@ fn the_design_tools_are_quick_enough_for_the_worker() {
     }
 }
 
-#[path = "../src/timing/beam.rs"]
-#[allow(unreachable_pub)]
-mod beam;
-use beam::budget_beam as budget_model;
+use modebench::model::budget_beam as budget_model;
 
 /// The native engine benchmarks' two budget workloads in WebAssembly, for the ratio of the two
 /// (recorded in docs/performance.md): the exact method's first 10 frequencies of the budget beam,

@@ -222,39 +222,7 @@ mod tests {
     use super::*;
     use crate::model::{Attachment, End, ModelParts, Segment, Theory};
 
-    fn beam(attachments: Vec<Attachment>) -> Model {
-        let segment = |length, ei, m| Segment {
-            length,
-            flexural_rigidity: ei,
-            mass_per_length: m,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        };
-        Model::new(ModelParts {
-            segments: vec![segment(1.5, 4.0e6, 40.0), segment(2.0, 2.5e6, 32.0), segment(1.5, 4.0e6, 40.0)],
-            left: End::Pinned,
-            right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
-            attachments,
-            theory: Theory::EulerBernoulli,
-        })
-        .unwrap()
-    }
-
-    /// The budget beam of the benchmarks: three segments and ten attachments of every kind.
-    fn budget() -> Model {
-        beam(vec![
-            Attachment::Mass { position: 0.4, mass: 12.0, rotary_inertia: 0.3 },
-            Attachment::Spring { position: 0.9, stiffness: 2.0e6 },
-            Attachment::Mass { position: 1.3, mass: 30.0, rotary_inertia: 0.0 },
-            Attachment::SprungMass { position: 1.8, mass: 45.0, stiffness: 8.0e5 },
-            Attachment::RotationalSpring { position: 2.2, stiffness: 5.0e4 },
-            Attachment::Support { position: 2.6 },
-            Attachment::Mass { position: 3.1, mass: 8.0, rotary_inertia: 0.1 },
-            Attachment::Spring { position: 3.5, stiffness: 1.0e6 },
-            Attachment::Mass { position: 4.0, mass: 20.0, rotary_inertia: 0.0 },
-            Attachment::SprungMass { position: 4.6, mass: 15.0, stiffness: 3.0e5 },
-        ])
-    }
+    use crate::model::budget_beam as budget;
 
     #[test]
     fn the_search_spends_few_factorisations_per_mode() {

@@ -5,10 +5,12 @@
 //! the scenario's field names (`segments[1].length`, `attachments[2].position`) so that a message
 //! points at what the user typed.
 
+mod budget;
 mod check;
 mod kinds;
 mod options;
 
+pub use budget::budget_beam;
 pub use kinds::{AttachmentKind, EndKind};
 pub use options::Options;
 
