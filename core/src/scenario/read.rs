@@ -78,13 +78,17 @@ struct Reader {
     written: Vec<(FieldPath, String)>,
 }
 
+// Not inlined, like the JSON reader's methods (`json.rs` says why): each is called at a dozen
+// places or more.
 impl Reader {
+    #[inline(never)]
     fn read(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         self.written.push((path.clone(), q.to_string()));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
 
     /// A stiffness that may also be written "rigid".
+    #[inline(never)]
     fn spring(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
@@ -96,6 +100,7 @@ impl Reader {
     }
 
     /// Adds what the user typed to an error about a value read here, found by its path.
+    #[inline(never)]
     fn typed(&self, e: Error) -> Error {
         match self.written.iter().find(|(path, _)| *path == e.path) {
             Some((_, typed)) => e.with_value(typed),
@@ -103,6 +108,7 @@ impl Reader {
         }
     }
 
+    #[inline(never)]
     fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
         self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
@@ -391,6 +397,7 @@ fn section_name(s: &section::SectionInput) -> String {
     name.to_string()
 }
 
+#[inline(never)]
 fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
     Ok(match end {
         EndInput::Free => End::Free,
