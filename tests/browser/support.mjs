@@ -8,6 +8,7 @@
 
 import { spawn } from "node:child_process";
 import { readFileSync, readdirSync } from "node:fs";
+import { gzipSync } from "node:zlib";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { chromium } from "playwright-core";
@@ -118,6 +119,43 @@ export async function startSite(dir = DIST) {
   server.unref();
   server.stdout.unref();
   return { url, stop: () => server.kill() };
+}
+
+// Every file a page fetches, gzipped one by one as a static host would send them: those it
+// needs to go live, and those its calculators' workers fetch once it is live (their script and
+// the solver engine), counted apart. `budgets.mjs` prints the figures; `site.test.mjs` holds the
+// first to its budget.
+export const WORKER_FILES = /(^|\/)(solve-worker\.js|modebench_solver[^/]*)$/;
+
+export async function pageWeight(browser, url) {
+  const { context } = await isolatedContext(browser);
+  const page = await context.newPage();
+  const files = new Set();
+  // What the service worker fetches to keep the whole site for offline use runs in the
+  // background once the page is live, and is no part of what the page waits for.
+  context.on("response", (response) => {
+    if (response.status() === 200 && !response.request().serviceWorker()) {
+      files.add(new URL(response.url()).pathname);
+    }
+  });
+  await page.goto(url);
+  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 }).catch(() => {});
+  await page.waitForSelector('.mb-calc[data-live="true"]:not([data-solving])', { timeout: 10_000 }).catch(() => {});
+  await context.close();
+  const weigh = () => ({ raw: 0, gzipped: 0, files: 0, parts: [] });
+  const [own, worker] = [weigh(), weigh()];
+  const prefix = new URL(url).pathname.replace(/[^/]*$/, "");
+  for (const path of files) {
+    const relative = decodeURIComponent(path.slice(prefix.length)) || "index.html";
+    const bytes = readFileSync(join(DIST, relative));
+    const size = gzipSync(bytes).length;
+    const part = WORKER_FILES.test(relative) ? worker : own;
+    part.raw += bytes.length;
+    part.gzipped += size;
+    part.files += 1;
+    part.parts.push(`${relative} ${(size / 1000).toFixed(1)}`);
+  }
+  return { own, worker };
 }
 
 // What this process started and has not ended yet.
