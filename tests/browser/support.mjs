@@ -32,7 +32,7 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // that keep close stations, taut and buckled beams and hostile input from giving wrong answers
 // or unreadable messages added 11.5 KB (612.4 KB), and the budget became 616 KB: a debt again,
 // recorded in docs/performance.md with where the solver's size goes. On 2026-12-03 it was paid
-// (615.6 → 605.9 KB: errors, field paths and the scenario reader no longer copied into every
+// (615.6 → 603.9 KB: errors, field paths and the scenario reader no longer copied into every
 // place that calls them) and the budget returned to 606 KB. The whole calculator page gzipped,
 // printed by `budgets.mjs`, became a test too (`site.test.mjs`) the same day, when it stood at
 // 201.8 KB; the page's engine then gave back 9 KB, 2.8 KB of it gzipped.
