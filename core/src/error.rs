@@ -144,8 +144,17 @@ pub struct Error {
 impl Error {
     /// A new error without a path; attach one with [`Error::at`]. Quote user text in `message`
     /// through [`echo`].
+    ///
+    /// This and the other builders below are generic only in their argument's conversion, which
+    /// is all that is inlined at a call site; the work is one function not inlined. Errors are
+    /// made at some hundreds of places in the core, which the solver's engine builds for speed,
+    /// and each place carried its own copy of the work (`docs/performance.md`, 2026-12-03).
     pub fn new(kind: ErrorKind, message: impl Into<String>) -> Self {
-        let message = message.into();
+        Error::with_message(kind, message.into())
+    }
+
+    #[inline(never)]
+    fn with_message(kind: ErrorKind, message: String) -> Self {
         let message =
             if message.chars().count() > MESSAGE_LIMIT { cut(&message, MESSAGE_LIMIT) } else { message };
         Error { kind, path: FieldPath::root(), value: None, si: None, message }
@@ -153,15 +162,25 @@ impl Error {
 
     /// Sets the field path, prefixing any path already present (`segments[0]` + `section.wall`).
     #[must_use]
-    pub fn at(mut self, outer: impl Into<FieldPath>) -> Self {
-        self.path = outer.into().join(&self.path);
+    pub fn at(self, outer: impl Into<FieldPath>) -> Self {
+        self.at_path(outer.into())
+    }
+
+    #[inline(never)]
+    fn at_path(mut self, outer: FieldPath) -> Self {
+        self.path = outer.join(&self.path);
         self
     }
 
     /// Records the offending value as the user wrote it.
     #[must_use]
-    pub fn with_value(mut self, value: impl fmt::Display) -> Self {
-        self.value = Some(echo(&value.to_string()));
+    pub fn with_value(self, value: impl fmt::Display) -> Self {
+        self.with_text(&value.to_string())
+    }
+
+    #[inline(never)]
+    fn with_text(mut self, value: &str) -> Self {
+        self.value = Some(echo(value));
         self
     }
 

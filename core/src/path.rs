@@ -26,6 +26,7 @@ impl FieldPath {
     }
 
     /// An item of a top-level list: `segments[2]`.
+    #[inline(never)]
     pub fn item(list: &str, index: usize) -> FieldPath {
         FieldPath::root().key(list).index(index)
     }
@@ -33,6 +34,7 @@ impl FieldPath {
     /// This path followed by an object key. A key the user typed is cut like any echo of user
     /// text, so that a pasted paragraph cannot swamp a message.
     #[must_use]
+    #[inline(never)]
     pub fn key(&self, key: &str) -> FieldPath {
         let key =
             if key.chars().count() > crate::error::ECHO_LIMIT { crate::error::echo(key) } else { key.into() };
@@ -45,6 +47,10 @@ impl FieldPath {
         self.then(Step::Index(index))
     }
 
+    // Not inlined, nor are `item`, `key` and `join`: paths are built at a hundred places, none
+    // of them in a solver's inner loop, and the solver's engine, built for speed, would otherwise
+    // carry a copy of each at every one.
+    #[inline(never)]
     fn then(&self, step: Step) -> FieldPath {
         let mut steps = self.0.clone();
         steps.push(step);
@@ -53,6 +59,7 @@ impl FieldPath {
 
     /// This path followed by another (`segments[0]` then `section.wall`).
     #[must_use]
+    #[inline(never)]
     pub fn join(&self, inner: &FieldPath) -> FieldPath {
         FieldPath(self.0.iter().chain(&inner.0).cloned().collect())
     }

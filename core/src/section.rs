@@ -370,6 +370,11 @@ impl Reader {
             Kind::SecondMoment => schema::SECOND_MOMENT,
             _ => schema::DIMENSION,
         };
+        // The message's words are made only for a value refused: the design study reads sections
+        // thousands of times a solve.
+        if range.contains(value, false) {
+            return Ok(value);
+        }
         let (what, unit) = (format!("the {}", field.replace('_', " ")), kind.si_unit());
         match range.refuse(value, &what, unit, false) {
             None => Ok(value),

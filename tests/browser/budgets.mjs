@@ -9,7 +9,7 @@ import { readFileSync, statSync } from "node:fs";
 import { cpus } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
-import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, openLive, startSite } from "./support.mjs";
+import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, openLive, pageWeight, startSite } from "./support.mjs";
 
 // Kilobytes are 1000 bytes here, the stricter reading of each budget.
 const KB = 1000;
@@ -31,42 +31,6 @@ function line(what, value, unit, budget) {
     verdict = `budget ${String(limit).padStart(4)} ${unit}  ${value <= budget ? "within" : "OVER"}`;
   }
   console.log(`${what.padEnd(52)} ${shown.padStart(8)} ${unit.padEnd(3)} ${verdict}`);
-}
-
-// Every file a page fetches, gzipped one by one as a static host would send them: those it
-// needs to go live, and those its calculators' workers fetch once it is live (their script and
-// the solver engine), counted apart.
-const WORKER_FILES = /(^|\/)(solve-worker\.js|modebench_solver[^/]*)$/;
-
-async function pageWeight(browser, url) {
-  const { context } = await isolatedContext(browser);
-  const page = await context.newPage();
-  const files = new Set();
-  // What the service worker fetches to keep the whole site for offline use runs in the
-  // background once the page is live, and is no part of what the page waits for.
-  context.on("response", (response) => {
-    if (response.status() === 200 && !response.request().serviceWorker()) {
-      files.add(new URL(response.url()).pathname);
-    }
-  });
-  await page.goto(url);
-  await page.waitForSelector('.mb-calc[data-live="true"]', { timeout: 10_000 }).catch(() => {});
-  await page.waitForSelector('.mb-calc[data-live="true"]:not([data-solving])', { timeout: 10_000 }).catch(() => {});
-  await context.close();
-  const weigh = () => ({ raw: 0, gzipped: 0, files: 0, parts: [] });
-  const [own, worker] = [weigh(), weigh()];
-  const prefix = new URL(url).pathname.replace(/[^/]*$/, "");
-  for (const path of files) {
-    const relative = decodeURIComponent(path.slice(prefix.length)) || "index.html";
-    const bytes = readFileSync(join(DIST, relative));
-    const size = gzipSync(bytes).length;
-    const part = WORKER_FILES.test(relative) ? worker : own;
-    part.raw += bytes.length;
-    part.gzipped += size;
-    part.files += 1;
-    part.parts.push(`${relative} ${(size / KB).toFixed(1)}`);
-  }
-  return { own, worker };
 }
 
 // Milliseconds from navigation start to the moment the first calculator carries live results

@@ -8,6 +8,7 @@ import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
 import {
   BROKEN_NUMBER,
+  BUDGET,
   DIST,
   ENGINES,
   SCREENSHOTS,
@@ -16,6 +17,7 @@ import {
   closeAll,
   isolatedContext,
   launch,
+  pageWeight,
   pages,
   startSite,
   watchedPage,
@@ -134,6 +136,19 @@ describe("the site as files", () => {
     for (const { name, file, budget } of ENGINES) {
       const bytes = statSync(join(DIST, "assets", file)).size;
       assert.ok(bytes <= budget, `the ${name} is ${bytes} bytes, over its budget of ${budget} (was it shrunk by wasm-opt?)`);
+    }
+  });
+
+  test("a calculator page with everything it fetches to go live fits its gzipped budget", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // Each file gzipped alone, as a static host sends it; the worker's script and engine, fetched
+    // once the page is live, are not counted. `cargo xtask bench` prints the same figures.
+    for (const file of ["sensor-boom.html", "fan-floor-beam.html"]) {
+      const { own } = await pageWeight(browser, site.url + file);
+      assert.ok(own.parts.some((part) => part.startsWith("assets/modebench_page_bg.wasm ")), `${file} went live: ${own.parts.join(", ")}`);
+      assert.ok(
+        own.gzipped <= BUDGET.pageGzipBytes,
+        `${file} weighs ${own.gzipped} bytes gzipped, over its budget of ${BUDGET.pageGzipBytes}: ${own.parts.join(", ")}`,
+      );
     }
   });
 

@@ -72,9 +72,16 @@ impl<T: FromJson> FromJson for Option<T> {
     }
 }
 
+/// A plain loop: collecting an iterator of options builds an adapter per item type, some 14 KB
+/// of the page's engine over the report's lists (`docs/performance.md`, 2026-12-03).
 impl<T: FromJson> FromJson for Vec<T> {
     fn from_json(value: &Value) -> Option<Vec<T>> {
-        value.as_array()?.iter().map(T::from_json).collect()
+        let items = value.as_array()?;
+        let mut read = Vec::with_capacity(items.len());
+        for item in items {
+            read.push(T::from_json(item)?);
+        }
+        Some(read)
     }
 }
 

@@ -3,6 +3,10 @@
 //!
 //! The scenario is read by hand rather than by derived deserialisers: the messages are ours, and
 //! the browser build stays small (generic deserialiser code for tagged enums is large).
+//!
+//! The reader's methods are not inlined: each is called at dozens of places, reading a scenario
+//! is a small part of a solve, and the solver's engine builds the core for speed, which would
+//! otherwise copy each method into every place that calls it (`docs/performance.md`).
 
 use crate::error::{Error, ErrorKind, Result};
 use crate::path::FieldPath;
@@ -39,17 +43,20 @@ impl<'a> Node<'a> {
         &self.path
     }
 
+    #[inline(never)]
     fn error(&self, kind: ErrorKind, message: String) -> Error {
         Error::new(kind, message).at(&self.path)
     }
 
     /// An error about this node's type: "expected …, not a list".
+    #[inline(never)]
     pub(crate) fn expected(&self, what: &str) -> Error {
         let e = self.error(ErrorKind::Syntax, format!("expected {what}, not {}", describe(self.value)));
         self.with_shown_value(e)
     }
 
     /// Records this node's value on an error, as the user wrote it where that is short.
+    #[inline(never)]
     fn with_shown_value(&self, e: Error) -> Error {
         match self.value {
             Value::String(s) => e.with_value(s),
@@ -59,6 +66,7 @@ impl<'a> Node<'a> {
         }
     }
 
+    #[inline(never)]
     fn child_path(&self, name: &str) -> FieldPath {
         self.path.key(name)
     }
@@ -69,6 +77,7 @@ impl<'a> Node<'a> {
     }
 
     /// Checks that the node is an object whose field names are all in `allowed`.
+    #[inline(never)]
     pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
         let map = self.object(what)?;
         let allowed_here = allowed.join(", ");
@@ -95,12 +104,14 @@ impl<'a> Node<'a> {
     }
 
     /// A field of this object, when present and not null.
+    #[inline(never)]
     pub(crate) fn get(&self, name: &str) -> Option<Node<'a>> {
         let value = self.value.as_object()?.get(name).filter(|v| !v.is_null())?;
         Some(Node { value, path: self.child_path(name) })
     }
 
     /// A field that must be present.
+    #[inline(never)]
     pub(crate) fn require(&self, name: &str, what: &str) -> Result<Node<'a>> {
         self.get(name).ok_or_else(|| {
             Error::new(ErrorKind::Missing, format!("this needs {what} (field \"{name}\")"))
@@ -109,12 +120,14 @@ impl<'a> Node<'a> {
     }
 
     /// The items of a list.
+    #[inline(never)]
     pub(crate) fn items(&self, what: &str) -> Result<Vec<Node<'a>>> {
         let list = self.value.as_array().ok_or_else(|| self.expected(what))?;
         Ok(list.iter().enumerate().map(|(i, value)| Node { value, path: self.path.index(i) }).collect())
     }
 
     /// The text of a string.
+    #[inline(never)]
     pub(crate) fn text(&self, what: &str) -> Result<&'a str> {
         self.value.as_str().ok_or_else(|| self.expected(what))
     }
@@ -125,6 +138,7 @@ impl<'a> Node<'a> {
     }
 
     /// A number or a text with a unit.
+    #[inline(never)]
     pub(crate) fn quantity(&self) -> Result<Quantity> {
         match self.value {
             Value::Number(n) => Ok(Quantity::Number(n.as_f64().unwrap_or(f64::NAN))),
@@ -134,21 +148,25 @@ impl<'a> Node<'a> {
     }
 
     /// An optional quantity field.
+    #[inline(never)]
     pub(crate) fn quantity_at(&self, name: &str) -> Result<Option<Quantity>> {
         self.get(name).map(|n| n.quantity()).transpose()
     }
 
     /// A required quantity field.
+    #[inline(never)]
     pub(crate) fn require_quantity(&self, name: &str, what: &str) -> Result<Quantity> {
         self.require(name, what)?.quantity()
     }
 
     /// An optional text field.
+    #[inline(never)]
     pub(crate) fn text_at(&self, name: &str) -> Result<Option<String>> {
         self.get(name).map(|n| n.text("a text").map(str::to_string)).transpose()
     }
 
     /// A whole number for `field`; its range is checked with the model, in one place.
+    #[inline(never)]
     pub(crate) fn whole(&self, field: &crate::schema::Field) -> Result<usize> {
         let allowed = field.range.words("", false);
         if !self.value.is_number() {

@@ -29,35 +29,26 @@ pub(crate) fn scenario(n: &Node<'_>) -> Result<Scenario> {
         report_point: n.quantity_at("report_point")?,
         left: end(&n.require("left", "the support at the left end")?)?,
         right: end(&n.require("right", "the support at the right end")?)?,
-        segments: n
-            .require("segments", "a list of segments")?
-            .items("a list of segments")?
-            .iter()
-            .map(segment)
-            .collect::<Result<_>>()?,
-        attachments: list("attachments", "a list of attachments")?
-            .iter()
-            .map(attachment)
-            .collect::<Result<_>>()?,
-        excitations: list("excitations", "a list of excitations")?
-            .iter()
-            .map(excitation)
-            .collect::<Result<_>>()?,
+        segments: each(&n.require("segments", "a list of segments")?.items("a list of segments")?, segment)?,
+        attachments: each(&list("attachments", "a list of attachments")?, attachment)?,
+        excitations: each(&list("excitations", "a list of excitations")?, excitation)?,
         margin: n.quantity_at("margin")?,
-        tolerances: list("tolerances", "a list of tolerances")?
-            .iter()
-            .map(super::design::tolerance)
-            .collect::<Result<_>>()?,
-        measured: list("measured", "a list of measured frequencies")?
-            .iter()
-            .map(super::design::measured)
-            .collect::<Result<_>>()?,
-        calibrate: list("calibrate", "a list of inputs to calibrate")?
-            .iter()
-            .map(super::design::range)
-            .collect::<Result<_>>()?,
+        tolerances: each(&list("tolerances", "a list of tolerances")?, super::design::tolerance)?,
+        measured: each(&list("measured", "a list of measured frequencies")?, super::design::measured)?,
+        calibrate: each(&list("calibrate", "a list of inputs to calibrate")?, super::design::range)?,
         resize: n.get("resize").map(|r| super::design::resize(&r)).transpose()?,
     })
+}
+
+/// Each item read, stopping at the first error. A plain loop: collecting an iterator of results
+/// builds an adapter for each type of item, which the solver's engine, built for speed, carries
+/// with the item's reader inlined into it.
+fn each<T>(items: &[Node<'_>], read: fn(&Node<'_>) -> Result<T>) -> Result<Vec<T>> {
+    let mut read_items = Vec::with_capacity(items.len());
+    for item in items {
+        read_items.push(read(item)?);
+    }
+    Ok(read_items)
 }
 
 pub(crate) fn unit_system(n: &Node<'_>) -> Result<UnitSystem> {

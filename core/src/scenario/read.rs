@@ -71,24 +71,29 @@ pub struct SegmentEcho {
 }
 
 #[derive(Default)]
-struct Reader {
+struct Reader<'a> {
     conversions: Vec<(FieldPath, Conversion)>,
     /// Every value read, as written, by path: model checks see SI numbers, but an error should
-    /// show what the user typed ("-3 kg", not "-3").
-    written: Vec<(FieldPath, String)>,
+    /// show what the user typed ("-3 kg", not "-3"). Kept as the scenario's own values, written
+    /// out only for an error: the design study reads scenarios thousands of times a solve.
+    written: Vec<(FieldPath, &'a Quantity)>,
 }
 
-impl Reader {
-    fn read(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
-        self.written.push((path.clone(), q.to_string()));
+// Not inlined, like the JSON reader's methods (`json.rs` says why): each is called at a dozen
+// places or more.
+impl<'a> Reader<'a> {
+    #[inline(never)]
+    fn read(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+        self.written.push((path.clone(), q));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
 
     /// A stiffness that may also be written "rigid".
-    fn spring(&mut self, q: &Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+    #[inline(never)]
+    fn spring(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
-                self.written.push((path.clone(), q.to_string()));
+                self.written.push((path.clone(), q));
                 return Ok(f64::INFINITY);
             }
         }
@@ -96,6 +101,7 @@ impl Reader {
     }
 
     /// Adds what the user typed to an error about a value read here, found by its path.
+    #[inline(never)]
     fn typed(&self, e: Error) -> Error {
         match self.written.iter().find(|(path, _)| *path == e.path) {
             Some((_, typed)) => e.with_value(typed),
@@ -103,6 +109,7 @@ impl Reader {
         }
     }
 
+    #[inline(never)]
     fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
         self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
@@ -203,7 +210,7 @@ fn segment_of(path: &FieldPath) -> Option<usize> {
 /// A segment, how it was described, and what its section and material were made of.
 type ReadSegment = (Segment, SegmentEcho, Option<SectionOrigin>);
 
-fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<ReadSegment> {
+fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -> Result<ReadSegment> {
     let at = |field: &str| path.key(field);
     let length = match &s.length {
         Some(q) => r.read(q, Kind::Length, &at("length"))?,
@@ -338,9 +345,9 @@ fn read_segment(r: &mut Reader, s: &SegmentInput, path: &FieldPath) -> Result<Re
 }
 
 /// The segment's axial force, N: the force typed plus the thermal one; `None` when neither.
-fn axial_force(
-    r: &mut Reader,
-    s: &SegmentInput,
+fn axial_force<'a>(
+    r: &mut Reader<'a>,
+    s: &'a SegmentInput,
     path: &FieldPath,
     thermal: Option<f64>,
 ) -> Result<Option<f64>> {
@@ -391,14 +398,15 @@ fn section_name(s: &section::SectionInput) -> String {
     name.to_string()
 }
 
-fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
+#[inline(never)]
+fn read_end<'a>(r: &mut Reader<'a>, end: &'a EndInput, path: &FieldPath) -> Result<End> {
     Ok(match end {
         EndInput::Free => End::Free,
         EndInput::Pinned => End::Pinned,
         EndInput::Clamped => End::Clamped,
         EndInput::Guided => End::Guided,
         EndInput::Elastic { translational, rotational } => {
-            let mut spring = |q: &Option<Quantity>, kind, field: &str| match q {
+            let mut spring = |q: &'a Option<Quantity>, kind, field: &str| match q {
                 Some(q) => r.spring(q, kind, &path.key(field)),
                 None => Ok(0.0),
             };
@@ -413,7 +421,7 @@ fn read_end(r: &mut Reader, end: &EndInput, path: &FieldPath) -> Result<End> {
 /// An attachment: its position, then each field the schema gives its type, in its kind
 /// (stiffnesses may be written "rigid"; an optional field left out is 0), made into the model's
 /// attachment by its kind.
-fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Result<Attachment> {
+fn read_attachment<'a>(r: &mut Reader<'a>, a: &'a AttachmentInput, path: &FieldPath) -> Result<Attachment> {
     let position = r.read(&a.position, schema::POSITION.kind, &path.key(schema::POSITION.name))?;
     let own = schema::find(&schema::ATTACHMENTS, a.kind.id()).map_or(&[][..], |c| c.fields);
     let mut values = Vec::with_capacity(own.len());
@@ -432,7 +440,11 @@ fn read_attachment(r: &mut Reader, a: &AttachmentInput, path: &FieldPath) -> Res
     a.kind.model(position, &value).map_err(|e| r.typed(e.at(path)))
 }
 
-fn read_excitation(r: &mut Reader, e: &ExcitationInput, path: &FieldPath) -> Result<ExcitationRead> {
+fn read_excitation<'a>(
+    r: &mut Reader<'a>,
+    e: &'a ExcitationInput,
+    path: &FieldPath,
+) -> Result<ExcitationRead> {
     let at = |field: &str| path.key(field);
     let f = r.read(&e.frequency, schema::FREQUENCY.kind, &at(schema::FREQUENCY.name))?;
     model::value(&schema::FREQUENCY, f).map_err(|err| err.at(path).with_value(&e.frequency))?;

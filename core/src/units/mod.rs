@@ -143,6 +143,10 @@ pub struct Conversion {
 /// A [`Quantity::Number`] is taken as SI and produces no conversion record; it must be finite.
 /// Errors carry the offending value but no path: the caller adds the field path with
 /// [`Error::at`].
+///
+/// Not inlined, nor is [`convert_field`]: the readers call them at dozens of places, and the
+/// solver's engine builds the core for speed, which would copy them into each.
+#[inline(never)]
 pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
     match quantity {
         Quantity::Number(value) if value.is_finite() => Ok(Converted { si: *value, conversion: None }),
@@ -155,6 +159,7 @@ pub fn convert(quantity: &Quantity, kind: Kind) -> Result<Converted, Error> {
 
 /// [`convert`] for the value written in `field`: an error names the field, and a conversion
 /// applied is recorded in `conversions` with the field's name.
+#[inline(never)]
 pub fn convert_field(
     quantity: &Quantity,
     kind: Kind,
