@@ -157,6 +157,18 @@ pub fn solve_scenario(scenario: &str) -> String {
     crate::worker::message::solve(scenario)
 }
 
+/// Solves a scenario as [`solve_scenario`] does and returns two texts: the answer whole, and
+/// the answer the page draws (every mode's shape cut to the samples its plot needs), or
+/// `undefined` in its place when the answer is an error. The solving worker posts both; the
+/// page reads the second and keeps the first for the results file and the tap-test panel.
+#[cfg(feature = "solver")]
+#[wasm_bindgen(js_name = solveForPage)]
+pub fn solve_for_page(scenario: &str) -> js_sys::Array {
+    let (whole, drawn) = crate::worker::message::solve_for_page(scenario);
+    let drawn = drawn.map_or(JsValue::UNDEFINED, |d| JsValue::from_str(&d));
+    js_sys::Array::of2(&JsValue::from_str(&whole), &drawn)
+}
+
 /// The version of this module.
 #[wasm_bindgen]
 pub fn version() -> String {

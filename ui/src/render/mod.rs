@@ -31,7 +31,7 @@ pub use errors::{field_error_html, is_unfilled, message, needed_html, placement}
 pub use escape::escape;
 pub use form::Editing;
 pub use offer::offer_html;
-pub use plot::plot_svg;
+pub use plot::{plot_svg, thin_shapes, THIN_TOLERANCE};
 pub use results::{results_html, results_inner, stale_note, View};
 pub use summary::summary_html;
 

@@ -117,6 +117,65 @@ fn shape_line(mode: &ModeReport, px: &dyn Fn(f64) -> f64) -> String {
     )
 }
 
+/// How far, in the plot's units, a thinned shape may pass from any sample it leaves out: the
+/// plot writes its coordinates to a tenth of a unit (its 720 units are drawn some 700 pixels
+/// wide), so the drawing is the same to the eye.
+pub const THIN_TOLERANCE: f64 = 0.1;
+
+/// Every mode's shape cut to the samples that draw it, within [`THIN_TOLERANCE`] of every
+/// sample left out, in this plot (its width and the largest deflection it draws): what the
+/// calculator's worker sends the page for drawing. A long model's shapes have a sample at every
+/// attachment and several between (1,605 a mode with 800 masses) and a smooth mode needs a few
+/// dozen; the page reads, keeps and draws the fewer. The deflection at an attachment,
+/// interpolated between the samples kept, is within the same distance of the full shape's.
+pub fn thin_shapes(report: &mut Report) {
+    let length = report.beam.length;
+    let scale = if length > 0.0 && length.is_finite() { (RIGHT - LEFT) / length } else { 0.0 };
+    for mode in &mut report.modes {
+        let keep = kept_samples(&mode.shape.x, &mode.shape.w, scale);
+        let shape = &mut mode.shape;
+        shape.x = keep.iter().map(|&i| shape.x[i]).collect();
+        shape.w = keep.iter().map(|&i| shape.w[i]).collect();
+    }
+}
+
+/// The indices of the samples to keep (the two ends always), by Ramer–Douglas–Peucker on the
+/// vertical distance in plot units, which bounds both the drawn line's departure and the error
+/// of a deflection interpolated between the kept samples. A sample that is not finite is never
+/// kept (the plot skips it).
+fn kept_samples(x: &[f64], w: &[f64], scale: f64) -> Vec<usize> {
+    let finite: Vec<usize> =
+        (0..x.len().min(w.len())).filter(|&i| x[i].is_finite() && w[i].is_finite()).collect();
+    if finite.len() <= 2 {
+        return finite;
+    }
+    let y = |i: usize| AMPLITUDE * w[i].clamp(-1.5, 1.5);
+    let mut keep = vec![false; finite.len()];
+    let last = finite.len() - 1;
+    keep[0] = true;
+    keep[last] = true;
+    let mut spans = vec![(0, last)];
+    while let Some((a, b)) = spans.pop() {
+        let (ia, ib) = (finite[a], finite[b]);
+        let run = (x[ib] - x[ia]) * scale;
+        let (ya, yb) = (y(ia), y(ib));
+        let mut worst = (0.0, a);
+        for (k, &i) in finite.iter().enumerate().take(b).skip(a + 1) {
+            let t = if run > 0.0 { (x[i] - x[ia]) * scale / run } else { 0.0 };
+            let off = (y(i) - (ya + t * (yb - ya))).abs();
+            if off > worst.0 {
+                worst = (off, k);
+            }
+        }
+        if worst.0 > THIN_TOLERANCE {
+            keep[worst.1] = true;
+            spans.push((a, worst.1));
+            spans.push((worst.1, b));
+        }
+    }
+    finite.iter().zip(&keep).filter(|(_, k)| **k).map(|(i, _)| *i).collect()
+}
+
 /// The deflection of a mode at `x`, interpolated between samples; 0 without a shape.
 fn deflection(mode: Option<&ModeReport>, x: f64) -> f64 {
     let Some(m) = mode else { return 0.0 };

@@ -22,7 +22,7 @@ const LONG_ANSWER: usize = 2_000;
 impl Calculator {
     /// Takes a message from the worker.
     pub(in crate::widget) fn on_answer(&mut self, event: &MessageEvent) {
-        let Some((verdict, answer)) = self.solver.answered(event) else {
+        let Some((verdict, view, answer)) = self.solver.answered(event) else {
             // The worker could not solve at all: its engine did not load.
             self.on_worker_error();
             return;
@@ -34,10 +34,10 @@ impl Calculator {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(read(&answer), answer);
+                self.confirmed(read(&view), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(read(&answer), answer),
-            Verdict::Current(Purpose::Edit) => self.solved(read(&answer), answer),
+            Verdict::Current(Purpose::Restore) => self.restored(read(&view), answer),
+            Verdict::Current(Purpose::Edit) => self.solved(read(&view), answer),
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }

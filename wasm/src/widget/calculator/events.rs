@@ -1,6 +1,6 @@
 //! What the reader does to a calculator: typing, choosing, ticking, adding and removing rows,
 //! choosing a mode, restoring the page's example and opening set-aside edits again. Each edit
-//! is stored at once and handed to the worker; nothing here solves.
+//! is handed to the worker and stored at once; nothing here solves.
 
 use super::Calculator;
 use crate::doc::{self, text, Edit, List};
@@ -35,6 +35,10 @@ impl Calculator {
         }
         // Edits build on the report on show: a new row takes sensible values from it.
         doc::apply(&mut self.doc, &edit, self.last.as_ref());
+        // The worker starts on the edit first; the case is stored (all of it, up to tens of
+        // milliseconds with hundreds of rows) and the editor redrawn while it solves, in this
+        // same task, so that nothing typed waits for a later one to be kept.
+        self.solver.submit(Purpose::Edit, text::write(&self.doc));
         self.store();
         if edit.is_structural() {
             self.draw_editor(false);
@@ -47,7 +51,6 @@ impl Calculator {
         if matches!(&edit, Edit::Text { path, .. } if path == "title") {
             self.show_case_names();
         }
-        self.solver.submit(Purpose::Edit, text::write(&self.doc));
         self.show_solving();
     }
 
