@@ -61,14 +61,13 @@ impl Solver {
     /// Takes a worker's message: what the answer is worth, the text to draw and the whole
     /// answer's (JavaScript strings, not copied into the engine until read: a long model's whole
     /// answer is a megabyte, and the page reads only the one to draw, its shapes cut to what the
-    /// plot needs), or `None` when the worker reports that it could not load its engine (the
-    /// caller then calls [`Solver::fail`]). Hands the worker the next scenario, if one waits.
+    /// plot needs; the worker sends both with every answer), or `None` when the worker reports
+    /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next scenario, if one waits.
     pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue, JsValue)> {
         let data = event.data();
         let field = |name: &str| Reflect::get(&data, &name.into()).ok().filter(JsValue::is_string);
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
-        let answer = field("answer")?;
-        let view = field("view").unwrap_or_else(|| answer.clone());
+        let (answer, view) = (field("answer")?, field("view")?);
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);
