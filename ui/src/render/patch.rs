@@ -144,11 +144,8 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
                 continue;
             }
             let mark = patches.len();
-            let whole = y.end - y.start;
-            let patched = same_shell(old, x, new, y)
-                && children(old, x, new, y, patches)
-                && cheaper_in_parts(&patches[mark..], whole);
-            if !patched {
+            let patched = same_shell(old, x, new, y) && children(old, x, new, y, patches);
+            if !patched || patches.len() > mark + 1 && y.end - y.start < WHOLE_BELOW {
                 patches.truncate(mark);
                 patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
             }
@@ -173,20 +170,14 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
     true
 }
 
-/// What one replacement costs the page beyond its markup, in bytes of markup that cost as much:
-/// each is a call into the browser that starts its HTML parser, finds the element's place and
-/// invalidates its style. Chromium's profile of the camera boom's edits (one mass changed: 58
-/// replacements of 7 KB in all, cells of the mode table and lines of the frequency map) put
-/// 75 µs on each, most of it whatever the size; 2 KB is a round figure, not a fit.
-const REPLACEMENT_BYTES: usize = 2_000;
-
-/// Whether `parts`, the replacements inside one element, cost less than replacing that element
-/// whole (`whole` bytes of new markup): a table's rows that all changed go as one table body, a
-/// long list with one row changed as that row.
-fn cheaper_in_parts(parts: &[Patch], whole: usize) -> bool {
-    let bytes: usize = parts.iter().map(|p| p.html.len()).sum();
-    bytes + REPLACEMENT_BYTES * parts.len() < whole + REPLACEMENT_BYTES
-}
+/// An element whose new markup is shorter than this, bytes, is replaced whole rather than in
+/// two or more parts: each replacement is a call into the browser that starts its HTML parser,
+/// finds the element's place and invalidates its style, and Chromium's profile of the camera
+/// boom's edits (one mass changed: 58 replacements of 7 KB in all, cells of the mode table and
+/// lines of the frequency map) put 75 µs on each, most of it whatever the size. So a table's
+/// rows that all changed go as one table body, a chart as one drawing, and a long list with one
+/// row changed as that row. A round figure, not a fit.
+const WHOLE_BELOW: usize = 8_000;
 
 /// Reads a drawing as a tree under an unnamed block; with the number of elements. `None` when
 /// it is not well formed as our markup always is: every element closed by an end tag or `/>`

@@ -65,9 +65,10 @@ impl Solver {
     /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next scenario, if one waits.
     pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue, JsValue)> {
         let data = event.data();
-        let field = |name: &str| Reflect::get(&data, &name.into()).ok().filter(JsValue::is_string);
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
-        let (answer, view) = (field("answer")?, field("view")?);
+        let answer = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
+        // Sent with every answer; were it missing, reading it would say the answer is unreadable.
+        let view = Reflect::get(&data, &"view".into()).ok()?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);

@@ -47,7 +47,7 @@ impl Calculator {
     /// nothing is redrawn; otherwise (or if a mode was chosen meanwhile) they are replaced.
     fn confirmed(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         // An edit made since then is the reader's newest input; its answer decides what shows.
-        let edited = self.edited_at.is_some();
+        let edited = self.edited;
         match outcome {
             Ok(report) => {
                 let redraw = !self.shows(&report) || self.view.mode != 0;
@@ -107,7 +107,6 @@ impl Calculator {
     pub(in crate::widget) fn on_later(&mut self) {
         if std::mem::take(&mut self.waiting_draw) {
             self.draw_results();
-            self.stamp();
         }
     }
 

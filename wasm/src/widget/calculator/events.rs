@@ -27,7 +27,7 @@ impl Calculator {
     /// Applies an edit, stores it and hands it to the worker. A structural edit redraws the
     /// editor at once; the results follow with the answer.
     fn edit(&mut self, edit: Edit, focus: Option<(&'static str, String)>) {
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.keep_saved_case();
         let undoable = cases::undo_words(&edit);
         if let Some(what) = &undoable {
@@ -211,7 +211,7 @@ impl Calculator {
 
     /// Shows the page's example again in place of the open case; one undo puts the case back.
     fn restore(&mut self) {
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.keep_saved_case();
         self.cases.restore_example(&self.example);
         self.note = "The page's example is back in this case; “Undo” puts your values back.".into();
@@ -231,7 +231,7 @@ impl Calculator {
             self.show_offer();
             return;
         };
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.saved = None;
         storage::clear_set_aside(&self.key);
         self.doc = doc;
