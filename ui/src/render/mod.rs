@@ -45,7 +45,11 @@ use serde_json::Value;
 pub fn widget_html(scenario_json: &str) -> String {
     let (doc, outcome) = match doc::read(scenario_json) {
         Ok(doc) => {
-            let outcome = doc::solve(&doc);
+            // Drawn as the live calculator draws it, from each shape's samples that its plot needs.
+            let outcome = doc::solve(&doc).map(|mut report| {
+                thin_shapes(&mut report);
+                report
+            });
             (doc, outcome)
         }
         Err(e) => (Value::Object(serde_json::Map::new()), Err(e)),
