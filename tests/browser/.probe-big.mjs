@@ -1,0 +1,25 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { DIST, launch, isolatedContext } from "./support.mjs";
+const url = process.env.MODEBENCH_URL;
+const browser = await launch();
+const { context } = await isolatedContext(browser);
+const page = await context.newPage();
+await page.goto(url + "sensor-boom.html");
+const raw = readFileSync(join(DIST, "sensor-boom.html"), "utf8");
+const attribute = raw.match(/data-modebench="([^"]*)"/)[1];
+const s = JSON.parse(attribute.replaceAll("&quot;", '"').replaceAll("&lt;", "<").replaceAll("&gt;", ">").replaceAll("&amp;", "&"));
+s.modes = 20; s.elements = 2000;
+s.attachments.push({ type: "spring", position: "700 mm", stiffness: "2e5 N/m" });
+for (let i = 1; i <= 800; i++) s.attachments.push({ type: "mass", position: `${(i * 1.8).toFixed(1)} mm`, mass: "5 g" });
+const r = await page.evaluate(async (text) => {
+  const engine = await import(new URL("assets/modebench_solver.js", document.baseURI).href);
+  await engine.default();
+  const f = engine.solveForPage ?? ((t) => [engine.solveScenario(t)]);
+  f(text);
+  const t0 = performance.now();
+  const [whole, view] = f(text);
+  return { ms: performance.now() - t0, whole: whole.length, view: view?.length };
+}, JSON.stringify(s));
+console.log(JSON.stringify(r));
+await browser.close();
