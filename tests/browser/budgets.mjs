@@ -356,10 +356,12 @@ try {
       console.log("  edit: the calculator never went live or never redrew");
     }
   }
-  const frames = PARTS.has("design") ? await designFrames(browser, site.url + DESIGN_PAGE) : null;
-  if (PARTS.has("design")) console.log(`\n${DESIGN_PAGE}: typing into the resizing range, its sweep solved in the worker`);
-  if (!PARTS.has("design")) {
-    // not measured
+  const frames = PARTS.has("design") ? await designFrames(browser, site.url + DESIGN_PAGE) : undefined;
+  if (frames !== undefined) {
+    console.log(`\n${DESIGN_PAGE}: typing into the resizing range, its sweep solved in the worker`);
+  }
+  if (frames === undefined) {
+    // Not asked for.
   } else if (frames && frames.length) {
     // Headless Chromium draws at 60 Hz: a page that keeps up shows frames 16.7 ms apart, and an
     // interval of twice that is one frame dropped.
