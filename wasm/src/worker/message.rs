@@ -30,11 +30,11 @@ pub fn solve(scenario: &str) -> String {
 }
 
 /// Solves a scenario given as JSON text and writes the answer twice, as JSON text: whole (for
-/// the results file and the tap-test panel), and, for a report, as the page draws it, every mode's shape cut to the
-/// samples its plot needs ([`crate::render::thin_shapes`]; `None` for an error, which is drawn
-/// as it is). This is the worker's whole job; the page never calls it. The page reads only the
-/// second: a long model's whole answer is a megabyte, nearly all of it shapes the plot would
-/// draw to the same tenth of a pixel with a few dozen samples each.
+/// the results file and the tap-test panel), and, for a report, as the page draws it, every
+/// mode's shape cut to the samples its plot needs ([`crate::render::thin_shapes`]; `None` for
+/// an error, which is drawn as it is). This is the worker's whole job; the page never calls it.
+/// The page reads only the second: a long model's whole answer is over a megabyte, most of it
+/// shapes that the plot draws to the same tenth of a unit with a few dozen samples each.
 pub fn solve_for_page(scenario: &str) -> (String, Option<String>) {
     let hints = LAST.with(|last| last.borrow().clone());
     match doc::read(scenario).and_then(|d| doc::solve_with_hints(&d, &hints)) {
