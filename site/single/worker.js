@@ -2,7 +2,7 @@
 // solver engine's glue (wasm-bindgen's
 // `no-modules` output, defining `wasm_bindgen`) comes before this, and SOLVER_BASE64, the
 // solver engine in base64, before that. It answers as `assets/solve-worker.js` does on the site:
-// { id, scenario } in, { id, answer } or { id, failed } out.
+// { id, scenario } in, { id, answer, view } or { id, failed } out.
 
 const ready = (async () => {
   const binary = atob(SOLVER_BASE64);
@@ -21,5 +21,6 @@ self.addEventListener("message", async (event) => {
     self.postMessage({ id, failed: String(error) });
     return;
   }
-  self.postMessage({ id, answer: wasm_bindgen.solveScenario(scenario) });
+  const [answer, view] = wasm_bindgen.solveForPage(scenario);
+  self.postMessage({ id, answer, view });
 });

@@ -17,6 +17,9 @@ const PAGES = ["sensor-boom.html", "fan-floor-beam.html"];
 const COLD_RUNS = 7;
 const EDITS = 30;
 const TYPING_PAUSE_MS = 150;
+// Which parts to measure: all by default, or those named in MODEBENCH_BUDGETS (a comma-separated
+// list of sizes, weight, cold, edit, design), to time one part again without the others.
+const PARTS = new Set((process.env.MODEBENCH_BUDGETS ?? "sizes,weight,cold,edit,design").split(","));
 
 function median(values) {
   const sorted = [...values].sort((a, b) => a - b);
@@ -147,13 +150,19 @@ async function editTimes(browser, url, pause) {
   // style and layout the browser then does before the results can be seen.
   const { context } = await isolatedContext(browser);
   await context.addInitScript(() => {
-    const spent = { input: 0, answer: 0 };
+    const spent = { input: 0, answer: 0, posted: 0, arrived: 0 };
     window.__spent = spent;
     let started = 0;
     document.addEventListener("input", () => (started = performance.now()), true);
-    window.addEventListener("input", () => (spent.input += performance.now() - started));
-    const timed = (f) => (...args) => {
+    window.addEventListener("input", () => {
+      spent.posted = performance.now();
+      spent.input += spent.posted - started;
+    });
+    const timed = (f, message) => (...args) => {
       const start = performance.now();
+      if (message && !spent.arrived) {
+        spent.arrived = start;
+      }
       try {
         return f(...args);
       } finally {
@@ -163,7 +172,7 @@ async function editTimes(browser, url, pause) {
     const onmessage = Object.getOwnPropertyDescriptor(Worker.prototype, "onmessage");
     Object.defineProperty(Worker.prototype, "onmessage", {
       set(f) {
-        onmessage.set.call(this, f && timed(f));
+        onmessage.set.call(this, f && timed(f, true));
       },
       get() {
         return onmessage.get.call(this);
@@ -182,13 +191,13 @@ async function editTimes(browser, url, pause) {
   await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
   await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
   const times = [];
-  const parts = { input: [], answer: [], layout: [] };
+  const parts = { input: [], worker: [], answer: [], layout: [] };
+  let slowest = null;
   for (let edit = 0; edit < EDITS; edit += 1) {
     const value = `${(2.0 + 0.1 * (edit % 20)).toFixed(1)} kg`;
     const result = await page.evaluate(async ([value, pause]) => {
       await new Promise((resolve) => setTimeout(resolve, pause));
-      window.__spent.input = 0;
-      window.__spent.answer = 0;
+      Object.assign(window.__spent, { input: 0, answer: 0, posted: 0, arrived: 0 });
       const root = document.querySelector(".mb-calc");
       const input = root.querySelector('[data-field="attachments[0].mass"]');
       const hz = () => root.querySelector('tr[data-mode="1"] td[data-hz]')?.dataset.hz;
@@ -201,7 +210,11 @@ async function editTimes(browser, url, pause) {
             const drawn = performance.now();
             root.getBoundingClientRect();
             const end = performance.now();
-            resolve({ ms: end - start, layout: end - drawn, ...window.__spent });
+            const { input, answer, posted, arrived } = window.__spent;
+            // The worker's part: from the keystroke handled to its answer taken (the solve and
+            // both messages, and any wait for the page's thread).
+            const worker = arrived && posted ? arrived - posted : 0;
+            resolve({ ms: end - start, layout: end - drawn, input, answer, worker });
             return true;
           }
           return false;
@@ -219,6 +232,9 @@ async function editTimes(browser, url, pause) {
     }, [value, pause]);
     if (result !== null && edit >= 3) {
       times.push(result.ms);
+      if (slowest === null || result.ms > slowest.ms) {
+        slowest = result;
+      }
       for (const part of Object.keys(parts)) {
         parts[part].push(result[part]);
       }
@@ -227,7 +243,7 @@ async function editTimes(browser, url, pause) {
   await context.close();
   const figures = (values) => ({ median: median(values), max: Math.max(...values) });
   return times.length
-    ? { ...figures(times), parts: Object.fromEntries(Object.entries(parts).map(([k, v]) => [k, figures(v)])) }
+    ? { ...figures(times), slowest, parts: Object.fromEntries(Object.entries(parts).map(([k, v]) => [k, figures(v)])) }
     : null;
 }
 
@@ -238,7 +254,7 @@ try {
   console.log(`Machine: ${cpus().length} × ${cpus()[0]?.model ?? "unknown CPU"}; Chromium ${browser.version()}; Node ${process.version}`);
   console.log("");
 
-  for (const { name, file, budget } of ENGINES) {
+  for (const { name, file, budget } of PARTS.has("sizes") ? ENGINES : []) {
     const engine = join(DIST, "assets", file);
     const bytes = statSync(engine, { throwIfNoEntry: false })?.size;
     if (bytes === undefined) {
@@ -253,15 +269,16 @@ try {
   for (const file of PAGES) {
     const url = site.url + file;
     console.log(`\n${file}`);
-    const { own, worker } = await pageWeight(browser, url);
-    line(`  whole page gzipped (${own.files} files, ${(own.raw / KB).toFixed(0)} KB raw)`, own.gzipped, "KB", BUDGET.pageGzipBytes);
-    console.log(`    gzipped KB by file: ${own.parts.join(", ")}`);
-    line(`  then its worker's (${worker.files} files, ${(worker.raw / KB).toFixed(0)} KB raw)`, worker.gzipped, "KB");
-    console.log(`    gzipped KB by file: ${worker.parts.join(", ")}`);
+    const { own, worker } = PARTS.has("weight") ? await pageWeight(browser, url) : {};
+    if (own) line(`  whole page gzipped (${own.files} files, ${(own.raw / KB).toFixed(0)} KB raw)`, own.gzipped, "KB", BUDGET.pageGzipBytes);
+    if (own) console.log(`    gzipped KB by file: ${own.parts.join(", ")}`);
+    if (own) line(`  then its worker's (${worker.files} files, ${(worker.raw / KB).toFixed(0)} KB raw)`, worker.gzipped, "KB");
+    if (own) console.log(`    gzipped KB by file: ${worker.parts.join(", ")}`);
     // The browser's default window, then the tablets the site is made for: how much of the page
     // the browser lays out early depends on the height of the view.
-    console.log(`  cold load to first live result, median of ${COLD_RUNS}, and the slowest`);
-    for (const { name, width, height } of [{ name: "default", width: 1280, height: 720 }, ...TABLETS]) {
+    const views = PARTS.has("cold") ? [{ name: "default", width: 1280, height: 720 }, ...TABLETS] : [];
+    if (views.length) console.log(`  cold load to first live result, median of ${COLD_RUNS}, and the slowest`);
+    for (const { name, width, height } of views) {
       const cold = await coldLoad(browser, url, { width, height });
       const where = `    ${width} × ${height} (${name})`;
       if (cold) {
@@ -277,6 +294,9 @@ try {
         console.log(`${where}: the calculator never went live`);
       }
     }
+    if (!PARTS.has("edit")) {
+      continue;
+    }
     const edit = await editTimes(browser, url, TYPING_PAUSE_MS);
     const crowded = await editTimes(browser, url, 0);
     if (edit && crowded) {
@@ -286,19 +306,27 @@ try {
       // The page's own share of each edit (the rest is the worker's solve and the messages).
       for (const [part, words] of [
         ["input", "keystroke handled (stored, posted)"],
+        ["worker", "worker (solve, messages)"],
         ["answer", "answer handled (read, drawn)"],
         ["layout", "then style and layout"],
       ]) {
         const { median: m, max } = edit.parts[part];
         console.log(`${`    of which ${words}, median / slowest`.padEnd(52)} ${m.toFixed(1).padStart(8)} / ${max.toFixed(1)} ms`);
       }
+      const s = edit.slowest;
+      const split = ["input", "worker", "answer", "layout"].map((k) => `${k} ${s[k].toFixed(1)}`).join(", ");
+      console.log(`    the slowest edit: ${split} ms`);
     } else {
       console.log("  edit: the calculator never went live or never redrew");
     }
   }
-  const frames = await designFrames(browser, site.url + DESIGN_PAGE);
-  console.log(`\n${DESIGN_PAGE}: typing into the resizing range, its sweep solved in the worker`);
-  if (frames && frames.length) {
+  const frames = PARTS.has("design") ? await designFrames(browser, site.url + DESIGN_PAGE) : undefined;
+  if (frames !== undefined) {
+    console.log(`\n${DESIGN_PAGE}: typing into the resizing range, its sweep solved in the worker`);
+  }
+  if (frames === undefined) {
+    // Not asked for.
+  } else if (frames && frames.length) {
     // Headless Chromium draws at 60 Hz: a page that keeps up shows frames 16.7 ms apart, and an
     // interval of twice that is one frame dropped.
     const frame = 16.7; // 1000 / 60, as the budget is printed

@@ -205,4 +205,24 @@ describe("the live calculator", () => {
     assert.ok(same(await mode1(page), edited), `${await mode1(page)} against ${edited}`);
     await context.close();
   });
+
+  test("a reload straight after a keystroke keeps it, answered or not", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // The case is stored in the keystroke's own task, after the edit is posted to the worker:
+    // a reload asked for in that same task, before any answer can come back, still finds every
+    // character typed.
+    const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
+    await page.locator(TIP_MASS).click();
+    await page.locator(TIP_MASS).press("Control+A");
+    await page.locator(TIP_MASS).pressSequentially("3.4", { delay: 20 });
+    await page.evaluate((field) => {
+      const input = document.querySelector(field);
+      input.value = "3.45 kg";
+      input.dispatchEvent(new Event("input", { bubbles: true }));
+      location.reload();
+    }, TIP_MASS);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    await page.waitForFunction((field) => document.querySelector(field)?.value === "3.45 kg", TIP_MASS);
+    await context.close();
+  });
 });

@@ -13,7 +13,7 @@
 //! ```
 //!
 //! Which of these a build exports depends on its features: `mountAll` with `page`,
-//! `solveScenario` (the worker's entry point) with `solver`, the rest with `api`; `version`
+//! `solveForPage` (the worker's entry point) with `solver`, the rest with `api`; `version`
 //! always. Pages load a `page` build and their worker a `solver` build.
 //!
 //! Every failure is thrown as a JS `Error` carrying `path` (the scenario field, `""` for the
@@ -150,11 +150,27 @@ pub fn mount_all(worker: Option<String>, io: Option<js_sys::Object>) -> usize {
 }
 
 /// Solves a scenario given as JSON text and returns the answer as JSON text: `{"report": …}`
-/// or `{"error": {kind, path, value, message}}`. The solving worker's whole job; it never throws.
-#[cfg(feature = "solver")]
+/// or `{"error": {kind, path, value, message}}`; it never throws. For integrators: the
+/// calculator's worker calls [`solve_for_page`], and the solver's engine exports only that, so
+/// that the whole solve is not compiled into it twice.
+#[cfg(feature = "api")]
 #[wasm_bindgen(js_name = solveScenario)]
 pub fn solve_scenario(scenario: &str) -> String {
     crate::worker::message::solve(scenario)
+}
+
+/// Solves a scenario given as JSON text and returns two texts: the answer whole, `{"report": …}`
+/// or `{"error": {kind, path, value, message}}`, and the answer the page draws (every mode's
+/// shape cut to the samples its plot needs; the same text for an error). The solving worker's
+/// whole job: it posts both, and the page reads the second and keeps the first for the results
+/// file and the tap-test panel. It never throws.
+#[cfg(feature = "solver")]
+#[wasm_bindgen(js_name = solveForPage)]
+pub fn solve_for_page(scenario: &str) -> js_sys::Array {
+    let (whole, drawn) = crate::worker::message::solve_for_page(scenario);
+    let whole = JsValue::from_str(&whole);
+    let drawn = drawn.map_or_else(|| whole.clone(), |d| JsValue::from_str(&d));
+    js_sys::Array::of2(&whole, &drawn)
 }
 
 /// The version of this module.

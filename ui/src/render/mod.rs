@@ -31,7 +31,7 @@ pub use errors::{field_error_html, is_unfilled, message, needed_html, placement}
 pub use escape::escape;
 pub use form::Editing;
 pub use offer::offer_html;
-pub use plot::plot_svg;
+pub use plot::{plot_svg, thin_shapes, THIN_TOLERANCE};
 pub use results::{results_html, results_inner, stale_note, View};
 pub use summary::summary_html;
 
@@ -45,7 +45,11 @@ use serde_json::Value;
 pub fn widget_html(scenario_json: &str) -> String {
     let (doc, outcome) = match doc::read(scenario_json) {
         Ok(doc) => {
-            let outcome = doc::solve(&doc);
+            // Drawn as the live calculator draws it, from each shape's samples that its plot needs.
+            let outcome = doc::solve(&doc).map(|mut report| {
+                thin_shapes(&mut report);
+                report
+            });
             (doc, outcome)
         }
         Err(e) => (Value::Object(serde_json::Map::new()), Err(e)),

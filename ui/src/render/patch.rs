@@ -8,7 +8,8 @@
 //! tag or `/>`, text and attribute values escaped), compared from the top, and each element that
 //! differs is replaced whole, unless its start tag is the same and it has no text beside its
 //! children, in which case only the children that differ are (see `children` for rows that
-//! came or went). An element is named by its place in document order under the block, which is
+//! came or went), when that is cheaper: each replacement costs the page a call into the
+//! browser's parser, so an element with many small changes inside is replaced whole. An element is named by its place in document order under the block, which is
 //! the order of `querySelectorAll("*")`; the page checks that the block holds as many elements as
 //! the old drawing before it replaces anything, and draws the block whole otherwise. (It does not
 //! check each target's tag: that cost the page's engine 1.5 KB of its budget, and the browser
@@ -115,8 +116,10 @@ fn bare(n: &Node) -> bool {
 }
 
 /// Adds the patches that make `a`'s children `b`'s, given the same shell; false when `a` itself
-/// should be replaced instead (it has no child to patch; never so for the block). The children alike at either end are kept; those between are patched
-/// pair by pair when as many came as went, and otherwise replaced together: the new ones are
+/// should be replaced instead (it has no child to patch; never so for the block). The children
+/// alike at either end are kept; those between are patched pair by pair when as many came as
+/// went (each pair's element replaced whole where that is cheaper than its parts), and otherwise
+/// replaced together: the new ones are
 /// written in place of the first old one (or, when none went, together with a kept neighbour),
 /// and the other old ones replaced by nothing.
 fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
@@ -137,9 +140,13 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
     }
     if gone.len() == came.len() {
         for (x, y) in gone.iter().zip(came) {
-            let kept = old[x.start..x.end] == new[y.start..y.end]
-                || same_shell(old, x, new, y) && children(old, x, new, y, patches);
-            if !kept {
+            if old[x.start..x.end] == new[y.start..y.end] {
+                continue;
+            }
+            let mark = patches.len();
+            let patched = same_shell(old, x, new, y) && children(old, x, new, y, patches);
+            if !patched || patches.len() > mark + 1 && y.end - y.start < WHOLE_BELOW {
+                patches.truncate(mark);
                 patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
             }
         }
@@ -162,6 +169,15 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
     }
     true
 }
+
+/// An element whose new markup is shorter than this, bytes, is replaced whole rather than in
+/// two or more parts: each replacement is a call into the browser that starts its HTML parser,
+/// finds the element's place and invalidates its style, and Chromium's profile of the camera
+/// boom's edits (one mass changed: 58 replacements of 7 KB in all, cells of the mode table and
+/// lines of the frequency map) put 75 µs on each, most of it whatever the size. So a table's
+/// rows that all changed go as one table body, a chart as one drawing, and a long list with one
+/// row changed as that row. A round figure, not a fit.
+const WHOLE_BELOW: usize = 8_000;
 
 /// Reads a drawing as a tree under an unnamed block; with the number of elements. `None` when
 /// it is not well formed as our markup always is: every element closed by an end tag or `/>`

@@ -117,6 +117,66 @@ fn shape_line(mode: &ModeReport, px: &dyn Fn(f64) -> f64) -> String {
     )
 }
 
+/// How far, in the plot's units, a thinned shape may pass from any sample it leaves out: the
+/// plot writes its coordinates to a tenth of a unit (its 720 units are drawn some 700 pixels
+/// wide), so the drawing is the same to the eye.
+pub const THIN_TOLERANCE: f64 = 0.1;
+
+/// Every mode's shape cut to the samples that draw it, within [`THIN_TOLERANCE`] of every
+/// sample left out, in this plot (its width and the largest deflection it draws): what the
+/// calculator's worker sends the page for drawing. A long model's shapes have a sample at every
+/// attachment and several between (1,605 a mode with 800 masses) and a smooth mode needs a few
+/// dozen; the page reads, keeps and draws the fewer. The deflection at an attachment,
+/// interpolated between the samples kept, is within the same distance of the full shape's.
+pub fn thin_shapes(report: &mut Report) {
+    let length = report.beam.length;
+    let scale = if length > 0.0 && length.is_finite() { (RIGHT - LEFT) / length } else { 0.0 };
+    for mode in &mut report.modes {
+        let shape = &mut mode.shape;
+        let keep = kept_samples(&shape.x, &shape.w, scale);
+        for (k, &i) in keep.iter().enumerate() {
+            shape.x[k] = shape.x[i];
+            shape.w[k] = shape.w[i];
+        }
+        shape.x.truncate(keep.len());
+        shape.w.truncate(keep.len());
+    }
+}
+
+/// The indices of the samples to keep, the two ends always: from each sample kept, the chord
+/// runs as far along as it can while every sample it passes lies within [`THIN_TOLERANCE`] of it
+/// vertically in plot units, which bounds both the drawn line's departure and the error of a
+/// deflection interpolated between the kept samples. Every sample is finite, as in every
+/// report (`Report::is_finite` is checked before a report leaves the solve). Written for its
+/// size in the solver's engine, one loop and no sorting: its cost, a few passes over each
+/// chord's samples, is far below the solve's.
+fn kept_samples(x: &[f64], w: &[f64], scale: f64) -> Vec<usize> {
+    let n = x.len().min(w.len());
+    let y = |i: usize| AMPLITUDE * w[i].clamp(-1.5, 1.5);
+    let off = |a: usize, b: usize, i: usize| {
+        let run = (x[b] - x[a]) * scale;
+        let t = if run > 0.0 { (x[i] - x[a]) * scale / run } else { 0.0 };
+        (y(i) - y(a) - t * (y(b) - y(a))).abs()
+    };
+    let mut keep = Vec::new();
+    let mut a = 0;
+    for b in 0..n {
+        // The chord from the last sample kept to `b` would leave a sample too far: the one
+        // before `b` is kept, and the next chord starts there.
+        if b > a + 1 && (a + 1..b).any(|i| off(a, b, i) > THIN_TOLERANCE) {
+            keep.push(a);
+            a = b - 1;
+        }
+    }
+    if n > 0 {
+        keep.push(a);
+    }
+    if n > 1 {
+        keep.push(n - 1);
+    }
+    keep
+}
+
 /// The deflection of a mode at `x`, interpolated between samples; 0 without a shape.
 fn deflection(mode: Option<&ModeReport>, x: f64) -> f64 {
     let Some(m) = mode else { return 0.0 };

@@ -58,19 +58,22 @@ impl Solver {
         }
     }
 
-    /// Takes a worker's message: what the answer is worth and its text (a JavaScript string, not
-    /// copied into the engine until it is read: a long model's answer is a megabyte), or `None`
-    /// when the worker reports that it could not load its engine (the caller then calls
-    /// [`Solver::fail`]). Hands the worker the next scenario, if one waits.
-    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue)> {
+    /// Takes a worker's message: what the answer is worth, the text to draw and the whole
+    /// answer's (JavaScript strings, not copied into the engine until read: a long model's whole
+    /// answer is a megabyte, and the page reads only the one to draw, its shapes cut to what the
+    /// plot needs; the worker sends both with every answer), or `None` when the worker reports
+    /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next scenario, if one waits.
+    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue, JsValue)> {
         let data = event.data();
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
         let answer = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
+        // Sent with every answer; were it missing, reading it would say the answer is unreadable.
+        let view = Reflect::get(&data, &"view".into()).ok()?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);
         }
-        Some((verdict, answer))
+        Some((verdict, view, answer))
     }
 
     /// Gives up a solve that has run past its budget: stops the worker, starts a fresh one and

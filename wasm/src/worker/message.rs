@@ -24,23 +24,39 @@ thread_local! {
     static LAST: RefCell<Vec<f64>> = const { RefCell::new(Vec::new()) };
 }
 
-/// Solves a scenario given as JSON text and writes the answer as JSON text. This is the
-/// worker's whole job; the page never calls it.
+/// Solves a scenario given as JSON text and writes the answer as JSON text.
 pub fn solve(scenario: &str) -> String {
+    solve_for_page(scenario).0
+}
+
+/// Solves a scenario given as JSON text and writes the answer twice, as JSON text: whole (for
+/// the results file and the tap-test panel), and, for a report, as the page draws it, every
+/// mode's shape cut to the samples its plot needs ([`crate::render::thin_shapes`]; `None` for
+/// an error, which is drawn as it is). This is the worker's whole job; the page never calls it.
+/// The page reads only the second: a long model's whole answer is over a megabyte, most of it
+/// shapes that the plot draws to the same tenth of a unit with a few dozen samples each.
+pub fn solve_for_page(scenario: &str) -> (String, Option<String>) {
     let hints = LAST.with(|last| last.borrow().clone());
-    let answer = match doc::read(scenario).and_then(|d| doc::solve_with_hints(&d, &hints)) {
+    match doc::read(scenario).and_then(|d| doc::solve_with_hints(&d, &hints)) {
         Ok(report) => {
             let hz = report.modes.iter().filter(|m| !m.rigid_body).map(|m| m.frequency_hz).collect();
             LAST.with(|last| *last.borrow_mut() = hz);
-            Answer::Report(Box::new(report))
+            let mut answer = Answer::Report(Box::new(report));
+            let whole = write(&answer);
+            if let Answer::Report(report) = &mut answer {
+                crate::render::thin_shapes(report);
+            }
+            (whole, Some(write(&answer)))
         }
-        Err(error) => Answer::Error(error),
-    };
-    serde_json::to_string(&answer).unwrap_or_else(|e| {
-        // A report holds only finite numbers and strings, so this is a defect; say so as an answer.
-        let error = unreadable(&e.to_string());
-        serde_json::to_string(&Answer::Error(error)).unwrap_or_default()
-    })
+        Err(error) => (write(&Answer::Error(error)), None),
+    }
+}
+
+/// The answer as JSON text. A report holds only finite numbers and strings, so writing it cannot
+/// fail; were it to, the empty text would reach the page as an answer it cannot read, which it
+/// says is a defect to report.
+fn write(answer: &Answer) -> String {
+    serde_json::to_string(answer).unwrap_or_default()
 }
 
 /// Reads the worker's answer: the report, or the error that the scenario drew.
@@ -113,6 +129,38 @@ mod tests {
         assert_eq!(read(&solve(BOOM)), Ok(direct));
     }
 
+    /// The answer the page draws differs from the whole one only in its shapes, each cut to
+    /// samples of the whole one (the ends kept), and only where the cut loses nothing the plot
+    /// shows (the bound itself is checked in the plot's own tests).
+    #[test]
+    fn the_drawn_answer_is_the_whole_one_with_fewer_samples() {
+        let (whole, drawn) = solve_for_page(BOOM);
+        let (Ok(whole), Some(Ok(drawn))) = (read(&whole), drawn.as_deref().map(read)) else {
+            panic!("the example solves")
+        };
+        assert_eq!(whole.modes.len(), drawn.modes.len());
+        let mut fewer = 0;
+        for (a, b) in whole.modes.iter().zip(&drawn.modes) {
+            let (ax, bx) = (&a.shape.x, &b.shape.x);
+            assert!(bx.len() >= 2 && bx.len() <= ax.len());
+            assert_eq!((bx[0], bx[bx.len() - 1]), (ax[0], ax[ax.len() - 1]), "mode {}'s ends", a.number);
+            for (x, w) in bx.iter().zip(&b.shape.w) {
+                let i = ax.iter().position(|v| v == x).expect("a sample of the whole shape");
+                assert_eq!(*w, a.shape.w[i]);
+            }
+            fewer += ax.len() - bx.len();
+            let mut a = a.clone();
+            a.shape = b.shape.clone();
+            assert_eq!(&a, b, "mode {} differs in more than its shape", a.number);
+        }
+        assert!(fewer > 0, "nothing was cut");
+        let mut same = whole.clone();
+        same.modes = drawn.modes.clone();
+        assert_eq!(same, drawn);
+        // An error is drawn as it comes.
+        assert_eq!(solve_for_page("{\"left\": ").1, None);
+    }
+
     #[test]
     fn an_input_error_crosses_with_its_path_and_value() {
         let text = BOOM.replace("\"2.8 kg\"", "\"2.8 kgs\"");
@@ -130,6 +178,9 @@ mod tests {
     fn an_unreadable_answer_is_an_error_not_a_panic() {
         let Err(error) = read("{\"report\": 3}") else { panic!("not a report") };
         assert!(error.message.contains("could not be read"), "{}", error.message);
+        // What the worker sends should a report ever fail to be written.
+        let Err(error) = read("") else { panic!("no answer") };
+        assert!(error.message.contains("please report this"), "{}", error.message);
     }
 
     #[test]

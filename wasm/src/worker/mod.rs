@@ -1,7 +1,7 @@
 //! Solving in a Web Worker, off the page's main thread: the messages both sides exchange
 //! ([`message`]) and which scenario the worker solves next ([`latest`]). Both are plain Rust,
 //! tested natively; the page's side of the worker is in the widget, the worker's entry point in
-//! the JS API (`solveScenario`).
+//! the JS API (`solveForPage`).
 
 pub mod latest;
 pub mod message;

@@ -99,14 +99,33 @@ fn carrying_out_the_plan_gives_the_new_drawing() {
 fn one_value_typed_into_a_long_model_replaces_a_small_part_of_its_results() {
     // 200 extra masses: the inputs as modelled and the conversions have a row for each, and one
     // mass changed changes one row of each, the frequencies, the plot and the bounds. The long
-    // lists are patched row by row, never replaced whole.
+    // lists are patched row by row, never replaced whole; the mode table's four rows, which all
+    // change, go as one.
     let (old, new) = (results(&boom(200, "2.0 kg")), results(&boom(200, "2.5 kg")));
     let Plan::Patches { patches, .. } = plan(&old, &new) else { panic!("a plan of patches") };
     let spans = spans(&old);
     let tags: Vec<&str> = patches.iter().map(|p| &old[spans[p.index].2 .0..spans[p.index].2 .1]).collect();
-    assert!(tags.iter().all(|t| !matches!(*t, "details" | "table" | "tbody" | "ul")), "{tags:?}");
+    assert!(tags.iter().all(|t| !matches!(*t, "details" | "table" | "ul")), "{tags:?}");
+    let rows: usize = patches.iter().map(|p| p.html.matches("<tr").count()).sum();
+    assert!(rows <= 4, "{rows} rows replaced: {tags:?}");
     let replaced: usize = patches.iter().map(|p| p.html.len()).sum();
     assert!(replaced * 3 < new.len(), "{replaced} of {} bytes replaced: {tags:?}", new.len());
+    assert!(patches.len() <= 10, "{} replacements: {tags:?}", patches.len());
+}
+
+#[test]
+fn many_small_changes_inside_one_element_replace_it_whole() {
+    // One mass of the camera boom changed: every cell of the mode table and most lines of the
+    // frequency map change. Each replacement costs the page a call into its parser, so the
+    // table's body and the map go whole, in a handful of replacements instead of dozens.
+    let (old, new) = (results(&boom(0, "2.0 kg")), results(&boom(0, "2.1 kg")));
+    let (text, plan) = carry_out(&old, &new);
+    assert_eq!(text, new);
+    let Plan::Patches { patches, .. } = plan else { panic!("a plan of patches") };
+    assert!(patches.len() <= 12, "{} replacements", patches.len());
+    let spans = spans(&old);
+    let tags: Vec<&str> = patches.iter().map(|p| &old[spans[p.index].2 .0..spans[p.index].2 .1]).collect();
+    assert!(tags.contains(&"tbody"), "{tags:?}");
 }
 
 #[test]
@@ -147,9 +166,10 @@ fn markup_that_is_not_well_formed_is_drawn_whole() {
 #[test]
 fn children_that_came_or_went_are_written_in_place_of_the_old_ones() {
     // A list that gains a row in the middle, loses one, gains one at either end, and loses all
-    // but one: the rows alike at both ends are kept.
+    // but one: the rows alike at both ends are kept. Its rows are long, as a long model's are, so
+    // that replacing them one by one is cheaper than the list whole.
     let list = |rows: &[&str]| {
-        let items: String = rows.iter().map(|r| format!("<li>{r}</li>")).collect();
+        let items: String = rows.iter().map(|r| format!("<li>{}</li>", r.repeat(5_000))).collect();
         format!("<h4>t</h4><ul class=\"x\">{items}</ul><p>end</p>")
     };
     let cases: [(&[&str], &[&str]); 6] = [

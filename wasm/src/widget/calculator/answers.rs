@@ -12,17 +12,17 @@ use wasm_bindgen::JsValue;
 use web_sys::MessageEvent;
 
 /// An answer whose modes times attachments pass this is drawn in a task after the one that read
-/// it: each mode's shape has samples at every attachment and between them, and they are most
-/// of an answer (0.98 of the 1.17 MB of 20 modes of an 800-attachment model). Reading and
-/// drawing such a model take some 10 ms each on a loaded two-core machine, and together they
-/// would be a long task. A documented scenario's answer (the camera boom's: 4 modes, 1
-/// attachment, 30 KB) is drawn at once, as quickly as it came.
+/// it: its results have rows for every attachment, and the answer read is large even with its
+/// shapes cut to what the plot draws (324 KB for 20 modes of an 800-attachment model, 1.17 MB
+/// whole). Reading and drawing such a model take up to some 10 ms each on a loaded two-core
+/// machine, and together they would be a long task. A documented scenario's answer (the camera
+/// boom's: 4 modes, 1 attachment, 14 KB read) is drawn at once, as quickly as it came.
 const LONG_ANSWER: usize = 2_000;
 
 impl Calculator {
     /// Takes a message from the worker.
     pub(in crate::widget) fn on_answer(&mut self, event: &MessageEvent) {
-        let Some((verdict, answer)) = self.solver.answered(event) else {
+        let Some((verdict, view, answer)) = self.solver.answered(event) else {
             // The worker could not solve at all: its engine did not load.
             self.on_worker_error();
             return;
@@ -34,10 +34,10 @@ impl Calculator {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(read(&answer), answer);
+                self.confirmed(read(&view), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(read(&answer), answer),
-            Verdict::Current(Purpose::Edit) => self.solved(read(&answer), answer),
+            Verdict::Current(Purpose::Restore) => self.restored(read(&view), answer),
+            Verdict::Current(Purpose::Edit) => self.solved(read(&view), answer),
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }
@@ -47,7 +47,7 @@ impl Calculator {
     /// nothing is redrawn; otherwise (or if a mode was chosen meanwhile) they are replaced.
     fn confirmed(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         // An edit made since then is the reader's newest input; its answer decides what shows.
-        let edited = self.edited_at.is_some();
+        let edited = self.edited;
         match outcome {
             Ok(report) => {
                 let redraw = !self.shows(&report) || self.view.mode != 0;
@@ -107,7 +107,6 @@ impl Calculator {
     pub(in crate::widget) fn on_later(&mut self) {
         if std::mem::take(&mut self.waiting_draw) {
             self.draw_results();
-            self.stamp();
         }
     }
 

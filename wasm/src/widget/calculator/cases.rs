@@ -101,7 +101,7 @@ impl Calculator {
 
     /// Puts the open case in the editor and hands it to the worker, after the cases changed.
     fn show_open_case(&mut self, focus: &str) {
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         // A stored case still waiting to be shown is in the list already; whatever the reader
         // chose now is shown instead.
         self.saved = None;

@@ -1,6 +1,6 @@
 //! What the reader does to a calculator: typing, choosing, ticking, adding and removing rows,
 //! choosing a mode, restoring the page's example and opening set-aside edits again. Each edit
-//! is stored at once and handed to the worker; nothing here solves.
+//! is handed to the worker and stored at once; nothing here solves.
 
 use super::Calculator;
 use crate::doc::{self, text, Edit, List};
@@ -27,7 +27,7 @@ impl Calculator {
     /// Applies an edit, stores it and hands it to the worker. A structural edit redraws the
     /// editor at once; the results follow with the answer.
     fn edit(&mut self, edit: Edit, focus: Option<(&'static str, String)>) {
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.keep_saved_case();
         let undoable = cases::undo_words(&edit);
         if let Some(what) = &undoable {
@@ -35,6 +35,10 @@ impl Calculator {
         }
         // Edits build on the report on show: a new row takes sensible values from it.
         doc::apply(&mut self.doc, &edit, self.last.as_ref());
+        // The worker starts on the edit first; the case is stored (all of it, up to tens of
+        // milliseconds with hundreds of rows) and the editor redrawn while it solves, in this
+        // same task, so that nothing typed waits for a later one to be kept.
+        self.solver.submit(Purpose::Edit, text::write(&self.doc));
         self.store();
         if edit.is_structural() {
             self.draw_editor(false);
@@ -47,7 +51,6 @@ impl Calculator {
         if matches!(&edit, Edit::Text { path, .. } if path == "title") {
             self.show_case_names();
         }
-        self.solver.submit(Purpose::Edit, text::write(&self.doc));
         self.show_solving();
     }
 
@@ -208,7 +211,7 @@ impl Calculator {
 
     /// Shows the page's example again in place of the open case; one undo puts the case back.
     fn restore(&mut self) {
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.keep_saved_case();
         self.cases.restore_example(&self.example);
         self.note = "The page's example is back in this case; “Undo” puts your values back.".into();
@@ -228,7 +231,7 @@ impl Calculator {
             self.show_offer();
             return;
         };
-        self.edited_at = Some(dom::now());
+        self.edited = true;
         self.saved = None;
         storage::clear_set_aside(&self.key);
         self.doc = doc;

@@ -50,9 +50,9 @@ pub(super) struct Calculator {
     error: Option<Error>,
     view: View,
     solver: Solver,
-    /// When the newest edit was made (`performance.now()`, ms), for `data-update-ms`; `None`
-    /// before the reader's first.
-    edited_at: Option<f64>,
+    /// Whether the reader has edited since the page opened: the example's confirmation then
+    /// redraws nothing, as the newest edit's answer decides what shows.
+    edited: bool,
     /// The reader's stored case and the mode they looked at, not on show yet: it is tried once
     /// the page shows its example, and shown if it is solved within the budget.
     saved: Option<(Value, usize)>,
@@ -103,7 +103,7 @@ impl Calculator {
             error: None,
             view: View::default(),
             solver: Solver::new(worker_url, budget_ms),
-            edited_at: None,
+            edited: false,
             saved,
             built_results: true,
             cases,
@@ -189,7 +189,6 @@ impl Calculator {
                     == Some(format!("{}", m.frequency_hz))
             })
     }
-
     /// Draws the whole calculator; before any report has come, around the results the page was
     /// built with.
     fn draw_all(&mut self) {
@@ -393,16 +392,6 @@ impl Calculator {
     /// for tests and style alike.
     fn show_solving(&self) {
         let _ = self.root.toggle_attribute_with_force("data-solving", self.solver.busy());
-    }
-
-    /// Records how long the last update took, from the edit to its results drawn (the worker's
-    /// round trip included), on the root's `data-update-ms`, so that the page can be checked
-    /// for responsiveness.
-    fn stamp(&self) {
-        if let Some(edited_at) = self.edited_at {
-            let ms = dom::now() - edited_at;
-            let _ = self.root.set_attribute("data-update-ms", &format!("{ms:.1}"));
-        }
     }
 
     /// After the editor was redrawn, gives the focus back to the control that had it.
