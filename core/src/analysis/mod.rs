@@ -127,9 +127,10 @@ const INTERIOR_LIMIT: f64 = 1e-5;
 /// Most times the check is solved again for such attachments.
 const REMESHES: usize = 3;
 
-/// A finite-element frequency whose estimated round-off reaches this fraction of itself is not
-/// resolved at all: the check's count cannot tell that mode from zero, so it may have lost it
-/// and shifted every later mode of its list (see `fe_unresolved`).
+/// A finite-element frequency whose estimated round-off reaches this fraction of itself, and
+/// which differs from the exact one by more than its mesh explains, is not resolved at all: the
+/// check's count cannot tell that mode from zero, so it may have lost it and shifted every later
+/// mode of its list (see `fe_unresolved`).
 const UNRESOLVED: f64 = 0.5;
 
 /// An exact frequency whose estimated relative error exceeds this is flagged.
@@ -279,8 +280,15 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
         });
     }
     // A mode the check cannot resolve at all leaves its whole list in doubt: its count may have
-    // missed that mode and shifted every later one, with no copy to show it.
-    if let Some(c) = compared.iter().find(|c| c.round_off >= UNRESOLVED) {
+    // missed that mode and shifted every later one, with no copy to show it. The round-off
+    // estimate is a bound, often far above the check's real error, so a check that still agrees
+    // with the exact value within its mesh's error is kept; only one that disagrees by more
+    // than the mesh explains, where nothing but that rounding could account for it, is dropped.
+    let unresolved = |c: &&Compared| {
+        let mesh = (c.error - c.round_off).max(0.0);
+        c.round_off >= UNRESOLVED && c.difference().abs() > 10.0 * (mesh + c.accuracy) + 1e-9
+    };
+    if let Some(c) = compared.iter().find(unresolved) {
         warnings.push(warnings::fe_unresolved(model, c.number, c.round_off));
         for m in modes.iter_mut() {
             m.fe_omega = None;

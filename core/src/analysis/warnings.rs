@@ -114,7 +114,7 @@ pub(super) struct Compared {
 
 impl Compared {
     /// (FE − exact)/exact.
-    fn difference(&self) -> f64 {
+    pub(super) fn difference(&self) -> f64 {
         (self.fe - self.exact) / self.exact
     }
 }
