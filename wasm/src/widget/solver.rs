@@ -62,7 +62,8 @@ impl Solver {
     /// answer's (JavaScript strings, not copied into the engine until read: a long model's whole
     /// answer is a megabyte, and the page reads only the one to draw, its shapes cut to what the
     /// plot needs; the worker sends both with every answer), or `None` when the worker reports
-    /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next scenario, if one waits.
+    /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the
+    /// worker the next scenario, if one waits.
     pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue, JsValue)> {
         let data = event.data();
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
