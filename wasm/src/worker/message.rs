@@ -24,9 +24,10 @@ thread_local! {
     static LAST: RefCell<Vec<f64>> = const { RefCell::new(Vec::new()) };
 }
 
-/// Solves a scenario given as JSON text and writes the answer as JSON text.
+/// Solves a scenario given as JSON text and writes the answer as JSON text: the whole answer,
+/// for integrators (the page's worker calls [`solve_for_page`]).
 pub fn solve(scenario: &str) -> String {
-    solve_for_page(scenario).0
+    write(&answer(scenario))
 }
 
 /// Solves a scenario given as JSON text and writes the answer twice, as JSON text: whole (for
@@ -36,19 +37,28 @@ pub fn solve(scenario: &str) -> String {
 /// The page reads only the second: a long model's whole answer is over a megabyte, most of it
 /// shapes that the plot draws to the same tenth of a unit with a few dozen samples each.
 pub fn solve_for_page(scenario: &str) -> (String, Option<String>) {
+    let mut answer = answer(scenario);
+    let whole = write(&answer);
+    match &mut answer {
+        Answer::Report(report) => {
+            crate::render::thin_shapes(report);
+            (whole, Some(write(&answer)))
+        }
+        Answer::Error(_) => (whole, None),
+    }
+}
+
+/// The report or the error a scenario draws, its search started from the frequencies of the
+/// last report this worker sent (which a report then replaces).
+fn answer(scenario: &str) -> Answer {
     let hints = LAST.with(|last| last.borrow().clone());
     match doc::read(scenario).and_then(|d| doc::solve_with_hints(&d, &hints)) {
         Ok(report) => {
             let hz = report.modes.iter().filter(|m| !m.rigid_body).map(|m| m.frequency_hz).collect();
             LAST.with(|last| *last.borrow_mut() = hz);
-            let mut answer = Answer::Report(Box::new(report));
-            let whole = write(&answer);
-            if let Answer::Report(report) = &mut answer {
-                crate::render::thin_shapes(report);
-            }
-            (whole, Some(write(&answer)))
+            Answer::Report(Box::new(report))
         }
-        Err(error) => (write(&Answer::Error(error)), None),
+        Err(error) => Answer::Error(error),
     }
 }
 
