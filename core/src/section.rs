@@ -370,18 +370,13 @@ impl Reader {
             Kind::SecondMoment => schema::SECOND_MOMENT,
             _ => schema::DIMENSION,
         };
-        // The message's words are made only for a value refused: the design study reads sections
-        // thousands of times a solve.
+        // Words only for a refused value: the design study reads sections thousands of times a solve.
         if range.contains(value, false) {
             return Ok(value);
         }
         let (what, unit) = (format!("the {}", field.replace('_', " ")), kind.si_unit());
-        match range.refuse(value, &what, unit, false) {
-            None => Ok(value),
-            Some((error, message)) => {
-                Err(Error::new(error, message).at(field).with_value(quantity).with_si(value, unit))
-            }
-        }
+        let Some((error, message)) = range.refuse(value, &what, unit, false) else { return Ok(value) };
+        Err(Error::new(error, message).at(field).with_value(quantity).with_si(value, unit))
     }
 
     fn shear_coefficient(&mut self, quantity: &Quantity) -> Result<f64, Error> {

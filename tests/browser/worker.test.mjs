@@ -54,6 +54,20 @@ function slowBoom() {
 // What the calculator stores for a case, as the widget writes it.
 const stored = (scenario) => JSON.stringify({ version: 1, scenario, mode: 0 });
 
+// The boom's stored case set to `scenario` before the page's first load only (a reload then
+// finds what the page itself stored).
+async function seedCase(page, scenario) {
+  await page.addInitScript(
+    ([key, value]) => {
+      if (!sessionStorage.getItem("seeded")) {
+        localStorage.setItem(key, value);
+        sessionStorage.setItem("seeded", "yes");
+      }
+    },
+    ["modebench:/" + BOOM + "#0", stored(scenario)],
+  );
+}
+
 // Solves scenarios with the solver engine itself, here on the page's main thread: the reference
 // the calculator's results are checked against, and the proof that a case is slow to solve.
 async function solveHere(page, scenarios) {
@@ -75,16 +89,10 @@ describe("solving off the main thread", () => {
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
     // The reader's stored case is the slow model; a generous budget lets every solve finish.
-    await page.addInitScript(
-      ([key, value]) => {
-        globalThis.modebenchSolveBudgetMs = 60_000;
-        if (!sessionStorage.getItem("seeded")) {
-          localStorage.setItem(key, value);
-          sessionStorage.setItem("seeded", "yes");
-        }
-      },
-      ["modebench:/" + BOOM + "#0", stored(slow)],
-    );
+    await page.addInitScript(() => {
+      globalThis.modebenchSolveBudgetMs = 60_000;
+    });
+    await seedCase(page, slow);
     await page.goto(site.url + BOOM);
     const stiffness = page.locator('[data-field="attachments[1].stiffness"]');
     await stiffness.waitFor({ timeout: 60_000 });
@@ -149,15 +157,7 @@ describe("solving off the main thread", () => {
     });
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
-    await page.addInitScript(
-      ([key, value]) => {
-        if (!sessionStorage.getItem("seeded")) {
-          localStorage.setItem(key, value);
-          sessionStorage.setItem("seeded", "yes");
-        }
-      },
-      ["modebench:/" + BOOM + "#0", stored(stiff)],
-    );
+    await seedCase(page, stiff);
     await page.goto(site.url + BOOM);
     const spring = page.locator('[data-field="attachments[2].stiffness"]');
     await spring.waitFor({ timeout: 30_000 });
@@ -293,15 +293,7 @@ describe("solving off the main thread", () => {
     });
     const { context } = await isolatedContext(browser);
     const page = await context.newPage();
-    await page.addInitScript(
-      ([key, value]) => {
-        if (!sessionStorage.getItem("seeded")) {
-          localStorage.setItem(key, value);
-          sessionStorage.setItem("seeded", "yes");
-        }
-      },
-      ["modebench:/" + BOOM + "#0", stored(crowded)],
-    );
+    await seedCase(page, crowded);
     const idle = () =>
       page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"), null, { timeout: 30_000 });
     await page.goto(site.url + BOOM);
