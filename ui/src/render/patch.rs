@@ -1,18 +1,20 @@
-//! Which elements of a block of the calculator's markup changed between two drawings of it, so
-//! that the page replaces only those. A model with hundreds of attachments has hundreds of rows
-//! in its results (the inputs as modelled, the unit conversions); typing one value changes one
-//! row of each and the frequencies, and replacing the whole block would have the browser parse,
-//! style and lay out every row again on every answer.
+//! What changed between two drawings of a block of the calculator's markup, as the fewest and
+//! cheapest changes to the drawn block. A model with hundreds of attachments has hundreds of rows
+//! in its results (the inputs as modelled, the unit conversions), and typing one value changes
+//! every frequency, margin and line of the plot: replacing the elements that changed would have
+//! the browser parse, style and lay out all of them again on every answer.
 //!
 //! Both drawings are read as trees of elements (our own markup: every element closed by an end
-//! tag or `/>`, text and attribute values escaped), compared from the top, and each element that
-//! differs is replaced whole, unless its start tag is the same and it has no text beside its
-//! children, in which case only the children that differ are (see `children` for rows that
-//! came or went), when that is cheaper: each replacement costs the page a call into the
-//! browser's parser, so an element with many small changes inside is replaced whole. An element is named by its place in document order under the block, which is
-//! the order of `querySelectorAll("*")`; the page checks that the block holds as many elements as
-//! the old drawing before it replaces anything, and draws the block whole otherwise. (It does not
-//! check each target's tag: that cost the page's engine 1.5 KB of its budget, and the browser
+//! tag or `/>`, text and attribute values escaped) and compared from the top. Where an element
+//! differs but keeps its tag name, it is kept and changed in place: its attributes that differ
+//! are set or removed, its text is set where it holds text only, and its children are compared
+//! in turn where it holds elements only (see `children` for rows that came or went). Setting a
+//! text or an attribute starts no parser and leaves the element's style as it was, unless a rule
+//! reads that attribute. An element whose tag name changed, or which holds text beside elements,
+//! is replaced whole. An element is named by its place in document order under the block, which
+//! is the order of `querySelectorAll("*")`; the page checks that the block holds as many elements
+//! as the old drawing before it changes anything, and draws the block whole otherwise. (It does
+//! not check each target's tag: that cost the page's engine 1.5 KB of its budget, and the browser
 //! reads this markup, which has nothing it would move or add, element for element as written.)
 
 /// What to do to the drawn block to make it the new drawing.
@@ -23,23 +25,42 @@ pub enum Plan {
     /// Replace the block's whole content: the drawings differ at its top level, or a drawing
     /// could not be read as a tree of elements.
     Whole,
-    /// Replace these elements.
+    /// Change these elements.
     Patches {
         /// How many elements the old drawing has under the block, which the page checks
-        /// against its own count before replacing anything.
+        /// against its own count before changing anything.
         elements: usize,
-        /// The elements to replace, none inside another.
+        /// The changes, none inside an element that another replaces.
         patches: Vec<Patch>,
     },
 }
 
-/// One element to replace.
+/// One change to one element.
 #[derive(Clone, Debug, PartialEq)]
 pub struct Patch {
-    /// Its place among the block's elements in document order, from 0.
+    /// The element's place among the block's elements in document order, from 0.
     pub index: usize,
-    /// Its new markup, the element whole.
-    pub html: String,
+    /// What to do to it.
+    pub edit: Edit,
+}
+
+/// What to do to an element.
+#[derive(Clone, Debug, PartialEq)]
+pub enum Edit {
+    /// Replace it whole by this markup (one element, several, or none).
+    Replace(String),
+    /// Make its content this text (unescaped): it held text only, and holds text only.
+    Text(String),
+    /// Set this attribute to this value (unescaped).
+    Set(String, String),
+    /// Remove this attribute.
+    Remove(String),
+}
+
+impl Patch {
+    fn replace(index: usize, html: &str) -> Patch {
+        Patch { index, edit: Edit::Replace(html.to_string()) }
+    }
 }
 
 /// An element of a drawing: where it lies in the text, and its children.
@@ -115,13 +136,13 @@ fn bare(n: &Node) -> bool {
     at == n.close_start
 }
 
-/// Adds the patches that make `a`'s children `b`'s, given the same shell; false when `a` itself
-/// should be replaced instead (it has no child to patch; never so for the block). The children
-/// alike at either end are kept; those between are patched pair by pair when as many came as
-/// went (each pair's element replaced whole where that is cheaper than its parts), and otherwise
-/// replaced together: the new ones are
-/// written in place of the first old one (or, when none went, together with a kept neighbour),
-/// and the other old ones replaced by nothing.
+/// Adds the patches that make `a`'s children `b`'s, given that neither holds text beside its
+/// children; false when `a` itself should be replaced instead (it has no child to patch; never
+/// so for the block). The children alike at either end are kept; those between are changed pair
+/// by pair when as many came as went (in place where they can be, see `in_place`; whole where
+/// that is cheaper than several replacements inside), and otherwise replaced together: the new
+/// ones are written in place of the first old one (or, when none went, together with a kept
+/// neighbour), and the other old ones replaced by nothing.
 fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
     let (xs, ys) = (&a.children, &b.children);
     let same = |i: usize, j: usize| old[xs[i].start..xs[i].end] == new[ys[j].start..ys[j].end];
@@ -144,10 +165,11 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
                 continue;
             }
             let mark = patches.len();
-            let patched = same_shell(old, x, new, y) && children(old, x, new, y, patches);
-            if !patched || patches.len() > mark + 1 && y.end - y.start < WHOLE_BELOW {
+            let changed = in_place(old, x, new, y, patches);
+            let replaced = patches[mark..].iter().filter(|p| matches!(p.edit, Edit::Replace(_))).count();
+            if !changed || replaced > 1 && y.end - y.start < WHOLE_BELOW {
                 patches.truncate(mark);
-                patches.push(Patch { index: x.index, html: new[y.start..y.end].to_string() });
+                patches.push(Patch::replace(x.index, &new[y.start..y.end]));
             }
         }
         return true;
@@ -163,20 +185,134 @@ fn children(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
         None if head > 0 => (xs[head - 1].index, ys[head - 1].start, to),
         None => (xs[head].index, from, ys[head + came.len()].end),
     };
-    patches.push(Patch { index, html: new[from..to].to_string() });
+    patches.push(Patch::replace(index, &new[from..to]));
     for x in gone.iter().skip(1) {
-        patches.push(Patch { index: x.index, html: String::new() });
+        patches.push(Patch::replace(x.index, ""));
     }
     true
 }
 
-/// An element whose new markup is shorter than this, bytes, is replaced whole rather than in
-/// two or more parts: each replacement is a call into the browser that starts its HTML parser,
-/// finds the element's place and invalidates its style, and Chromium's profile of the camera
-/// boom's edits (one mass changed: 58 replacements of 7 KB in all, cells of the mode table and
-/// lines of the frequency map) put 75 µs on each, most of it whatever the size. So a table's
-/// rows that all changed go as one table body, a chart as one drawing, and a long list with one
-/// row changed as that row. A round figure, not a fit.
+/// Adds the changes that make element `a` element `b` in place; false when `a` should be
+/// replaced whole instead: its tag name changed, or it holds text beside elements and that
+/// changed, or an attribute or a text could not be read.
+fn in_place(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) -> bool {
+    if old[a.tag.0..a.tag.1] != new[b.tag.0..b.tag.1] {
+        return false;
+    }
+    if old[a.start..a.open_end] != new[b.start..b.open_end] {
+        let (Some(was), Some(now)) =
+            (attributes(&old[a.tag.1..a.open_end]), attributes(&new[b.tag.1..b.open_end]))
+        else {
+            return false;
+        };
+        for &(name, value) in &now {
+            if !was.contains(&(name, value)) {
+                let Some(value) = unescape(value) else { return false };
+                patches.push(Patch { index: a.index, edit: Edit::Set(name.to_string(), value) });
+            }
+        }
+        for &(name, _) in &was {
+            if !now.iter().any(|&(n, _)| n == name) {
+                patches.push(Patch { index: a.index, edit: Edit::Remove(name.to_string()) });
+            }
+        }
+    }
+    let (was, now) = (&old[a.open_end..a.close_start], &new[b.open_end..b.close_start]);
+    if was == now {
+        return true;
+    }
+    if a.children.is_empty() && b.children.is_empty() {
+        let Some(text) = unescape(now) else { return false };
+        patches.push(Patch { index: a.index, edit: Edit::Text(text) });
+        return true;
+    }
+    (bare(a) && bare(b) || same_gaps(old, a, new, b)) && children(old, a, new, b, patches)
+}
+
+/// Whether two elements hold as many children, with the same text (or none) between them and
+/// at either end, so that their children can be changed pair by pair and the text left as it is.
+fn same_gaps(old: &str, a: &Node, new: &str, b: &Node) -> bool {
+    let gaps = |text: &str, n: &Node| {
+        let mut at = n.open_end;
+        let mut out = Vec::with_capacity(n.children.len() + 1);
+        for c in &n.children {
+            out.push((at, c.start));
+            at = c.end;
+        }
+        out.push((at, n.close_start));
+        out.into_iter().map(|(from, to)| text[from..to].to_string()).collect::<Vec<_>>()
+    };
+    a.children.len() == b.children.len() && gaps(old, a) == gaps(new, b)
+}
+
+/// The attributes of a start tag, from just after its name to its end (`>` or `/>`), as
+/// (name, value as written); a bare name has the empty value. `None` for anything our markup
+/// never writes.
+fn attributes(tag: &str) -> Option<Vec<(&str, &str)>> {
+    let mut out = Vec::new();
+    let mut rest = tag.strip_suffix('>')?;
+    rest = rest.strip_suffix('/').unwrap_or(rest);
+    loop {
+        rest = rest.trim_start();
+        if rest.is_empty() {
+            return Some(out);
+        }
+        let name_end = rest.find(|c: char| c == '=' || c.is_ascii_whitespace()).unwrap_or(rest.len());
+        let name = &rest[..name_end];
+        if name.is_empty()
+            || !name.bytes().all(|c| c.is_ascii_alphanumeric() || c == b'-' || c == b':' || c == b'_')
+        {
+            return None;
+        }
+        rest = &rest[name_end..];
+        let Some(after) = rest.strip_prefix('=') else {
+            out.push((name, ""));
+            continue;
+        };
+        let quote = after.chars().next().filter(|&q| q == '"' || q == '\'')?;
+        let close = after[1..].find(quote)?;
+        out.push((name, &after[1..1 + close]));
+        rest = &after[2 + close..];
+    }
+}
+
+/// Text or an attribute value as the browser reads it: the escapes [`super::escape`] writes and
+/// numeric character references undone. `None` for any other reference (our markup has none).
+fn unescape(raw: &str) -> Option<String> {
+    let mut out = String::with_capacity(raw.len());
+    let mut rest = raw;
+    while let Some(at) = rest.find('&') {
+        out.push_str(&rest[..at]);
+        let end = rest[at..].find(';')? + at;
+        let name = &rest[at + 1..end];
+        let c = match name {
+            "amp" => '&',
+            "lt" => '<',
+            "gt" => '>',
+            "quot" => '"',
+            "apos" => '\'',
+            _ => {
+                let digits = name.strip_prefix('#')?;
+                let code = match digits.strip_prefix(['x', 'X']) {
+                    Some(hex) => u32::from_str_radix(hex, 16).ok()?,
+                    None => digits.parse().ok()?,
+                };
+                char::from_u32(code).filter(|&c| c != '\0')?
+            }
+        };
+        out.push(c);
+        rest = &rest[end + 1..];
+    }
+    out.push_str(rest);
+    Some(out)
+}
+
+/// An element whose new markup is shorter than this, bytes, is replaced whole rather than by two
+/// or more replacements inside it: each replacement is a call into the browser that starts its
+/// HTML parser, finds the element's place and invalidates its style, and Chromium's profile of
+/// the camera boom's edits (58 replacements of 7 KB in all) put 75 µs on each, most of it
+/// whatever the size. Texts and attributes set in place do not count: they start no parser.
+/// A round figure, not a fit.
 const WHOLE_BELOW: usize = 8_000;
 
 /// Reads a drawing as a tree under an unnamed block; with the number of elements. `None` when

@@ -1,7 +1,8 @@
 //! The plan of replacements, checked by carrying it out on the old text: the result must be the
 //! new text exactly, for the calculator's own results drawn before and after an edit.
 
-use super::{parse, Drawing, Node, Plan};
+use super::{attributes, parse, unescape, Drawing, Edit, Node, Plan};
+use crate::render::escape;
 use crate::render::{results_inner, View};
 
 /// The span of every element of a drawing and its tag name, by document-order place.
@@ -25,37 +26,152 @@ fn plan(old: &str, new: &str) -> Plan {
     super::plan(&Drawing::new(old.to_string()), &Drawing::new(new.to_string()))
 }
 
-/// `old` with the plan carried out, as the page does it.
+/// A drawing as the browser holds it: elements with their attributes read, and text.
+#[derive(Clone, Debug)]
+enum Item {
+    Element { tag: String, attributes: Vec<(String, String)>, closed: bool, children: Vec<Item> },
+    Text(String),
+}
+
+/// Reads markup as the browser would (our markup only).
+fn items(text: &str) -> Vec<Item> {
+    fn read(text: &str, at: &mut usize, out: &mut Vec<Item>) {
+        while *at < text.len() {
+            let rest = &text[*at..];
+            if rest.starts_with("</") {
+                *at += rest.find('>').expect("end tag") + 1;
+                return;
+            }
+            if !rest.starts_with('<') {
+                let end = rest.find('<').unwrap_or(rest.len());
+                out.push(Item::Text(unescape(&rest[..end]).unwrap_or_else(|| rest[..end].to_string())));
+                *at += end;
+                continue;
+            }
+            let end = rest.find('>').expect("start tag") + 1;
+            let name_end = rest[1..].find(|c: char| !c.is_ascii_alphanumeric()).expect("tag name") + 1;
+            let pairs = attributes(&rest[name_end..end]).expect("attributes");
+            let attributes =
+                pairs.iter().map(|(n, v)| (n.to_string(), unescape(v).expect("value"))).collect();
+            let closed = rest[..end].ends_with("/>");
+            *at += end;
+            let mut children = Vec::new();
+            if !closed {
+                read(text, at, &mut children);
+            }
+            out.push(Item::Element { tag: rest[1..name_end].to_string(), attributes, closed, children });
+        }
+    }
+    let mut out = Vec::new();
+    read(text, &mut 0, &mut out);
+    out
+}
+
+/// Writes items back as markup, attributes in name order, so that two drawings the browser
+/// holds alike are written alike.
+fn write(items: &[Item]) -> String {
+    let mut out = String::new();
+    for item in items {
+        match item {
+            Item::Text(t) => out.push_str(&escape(t)),
+            Item::Element { tag, attributes, closed, children } => {
+                let mut sorted = attributes.clone();
+                sorted.sort();
+                out.push_str(&format!("<{tag}"));
+                for (n, v) in sorted {
+                    out.push_str(&format!(" {n}=\"{}\"", escape(&v)));
+                }
+                if *closed {
+                    out.push_str("/>");
+                } else {
+                    out.push_str(&format!(">{}</{tag}>", write(children)));
+                }
+            }
+        }
+    }
+    out
+}
+
+/// Calls `f` with the list that holds the element at document-order place `n` and its place
+/// there; false when there is no such element.
+fn at(list: &mut Vec<Item>, n: usize, seen: &mut usize, f: &mut dyn FnMut(&mut Vec<Item>, usize)) -> bool {
+    for i in 0..list.len() {
+        if let Item::Element { .. } = &list[i] {
+            if *seen == n {
+                f(list, i);
+                return true;
+            }
+            *seen += 1;
+            let Item::Element { children, .. } = &mut list[i] else { unreachable!() };
+            if at(children, n, seen, f) {
+                return true;
+            }
+        }
+    }
+    false
+}
+
+/// `old` with the plan carried out, as the page does it, and written back; with the plan.
 fn carry_out(old: &str, new: &str) -> (String, Plan) {
     let plan = plan(old, new);
     let text = match &plan {
-        Plan::Same => old.to_string(),
-        Plan::Whole => new.to_string(),
+        Plan::Same => write(&items(old)),
+        Plan::Whole => write(&items(new)),
         Plan::Patches { elements, patches } => {
             let spans = spans(old);
             assert_eq!(spans.len(), *elements);
-            let mut targets: Vec<_> = patches
-                .iter()
-                .map(|p| {
-                    let (start, end, _) = &spans[p.index];
-                    (*start, *end, p.html.as_str())
-                })
-                .collect();
-            targets.sort_by_key(|t| t.0);
-            // No patch lies inside another: the page replaces each target once.
-            assert!(targets.windows(2).all(|w| w[0].1 <= w[1].0), "nested patches");
-            let mut out = String::new();
-            let mut at = 0;
-            for (start, end, html) in targets {
-                out.push_str(&old[at..start]);
-                out.push_str(html);
-                at = end;
+            let mut held = items(old);
+            // Texts and attributes first: they move no element. Then the replacements from the
+            // last, so that each one's place is still as in the old drawing; none lies inside
+            // another (the page finds every target before it replaces any).
+            let mut replaced: Vec<(usize, &str)> = Vec::new();
+            for p in patches {
+                if let Edit::Replace(html) = &p.edit {
+                    replaced.push((p.index, html));
+                    continue;
+                }
+                let found = at(&mut held, p.index, &mut 0, &mut |list, i| {
+                    let Item::Element { attributes, children, .. } = &mut list[i] else { unreachable!() };
+                    match &p.edit {
+                        Edit::Text(t) => *children = vec![Item::Text(t.clone())],
+                        Edit::Set(n, v) => match attributes.iter_mut().find(|(name, _)| name == n) {
+                            Some(a) => a.1 = v.clone(),
+                            None => attributes.push((n.clone(), v.clone())),
+                        },
+                        Edit::Remove(n) => attributes.retain(|(name, _)| name != n),
+                        Edit::Replace(_) => unreachable!(),
+                    }
+                });
+                assert!(found, "patch {p:?} names no element of the old drawing");
             }
-            out.push_str(&old[at..]);
-            out
+            replaced.sort_by_key(|r| std::cmp::Reverse(r.0));
+            let ends: Vec<(usize, usize)> = replaced.iter().map(|r| (spans[r.0].0, spans[r.0].1)).collect();
+            let mut sorted = ends.clone();
+            sorted.sort();
+            assert!(sorted.windows(2).all(|w| w[0].1 <= w[1].0), "nested replacements");
+            for (index, html) in replaced {
+                let found = at(&mut held, index, &mut 0, &mut |list, i| {
+                    list.splice(i..=i, items(html));
+                });
+                assert!(found, "replacement {index} names no element of the old drawing");
+            }
+            write(&held)
         }
     };
     (text, plan)
+}
+
+/// The markup of the replacements in a plan, with the tag of each element they replace.
+fn replacements<'a>(old: &'a str, plan: &'a Plan) -> Vec<(&'a str, &'a str)> {
+    let Plan::Patches { patches, .. } = plan else { panic!("a plan of patches: {plan:?}") };
+    let spans = spans(old);
+    patches
+        .iter()
+        .filter_map(|p| match &p.edit {
+            Edit::Replace(html) => Some((&old[spans[p.index].2 .0..spans[p.index].2 .1], html.as_str())),
+            _ => None,
+        })
+        .collect()
 }
 
 fn results(json: &str) -> String {
@@ -78,6 +194,11 @@ fn boom(extra: usize, tip_mass: &str) -> String {
     scenario.to_string()
 }
 
+/// A drawing as the browser holds it, written back.
+fn held(text: &str) -> String {
+    write(&items(text))
+}
+
 #[test]
 fn carrying_out_the_plan_gives_the_new_drawing() {
     let cases = [
@@ -86,46 +207,48 @@ fn carrying_out_the_plan_gives_the_new_drawing() {
         // A row more: the echo's tables change length, the rest in place.
         (boom(60, "2.0 kg"), boom(61, "2.0 kg")),
         (boom(3, "2.0 kg"), boom(0, "2.0 kg")),
+        // A mass far out of range: warnings come, and go again.
+        (boom(0, "2.0 kg"), boom(0, "200 kg")),
+        (boom(0, "200 kg"), boom(0, "2.0 kg")),
     ];
     for (a, b) in &cases {
         let (old, new) = (results(a), results(b));
         let (text, plan) = carry_out(&old, &new);
-        assert_eq!(text, new);
+        assert_eq!(text, held(&new));
         assert!(matches!(plan, Plan::Patches { .. }), "{plan:?}");
     }
 }
 
 #[test]
-fn one_value_typed_into_a_long_model_replaces_a_small_part_of_its_results() {
+fn one_value_typed_into_a_long_model_changes_a_small_part_of_its_results_in_place() {
     // 200 extra masses: the inputs as modelled and the conversions have a row for each, and one
-    // mass changed changes one row of each, the frequencies, the plot and the bounds. The long
-    // lists are patched row by row, never replaced whole; the mode table's four rows, which all
-    // change, go as one.
+    // mass changed changes one row of each, the frequencies, the plot and the bounds: texts and
+    // attributes set in place, no element replaced, and far fewer changes than elements.
     let (old, new) = (results(&boom(200, "2.0 kg")), results(&boom(200, "2.5 kg")));
-    let Plan::Patches { patches, .. } = plan(&old, &new) else { panic!("a plan of patches") };
-    let spans = spans(&old);
-    let tags: Vec<&str> = patches.iter().map(|p| &old[spans[p.index].2 .0..spans[p.index].2 .1]).collect();
-    assert!(tags.iter().all(|t| !matches!(*t, "details" | "table" | "ul")), "{tags:?}");
-    let rows: usize = patches.iter().map(|p| p.html.matches("<tr").count()).sum();
-    assert!(rows <= 4, "{rows} rows replaced: {tags:?}");
-    let replaced: usize = patches.iter().map(|p| p.html.len()).sum();
-    assert!(replaced * 3 < new.len(), "{replaced} of {} bytes replaced: {tags:?}", new.len());
-    assert!(patches.len() <= 10, "{} replacements: {tags:?}", patches.len());
+    // The frequency map gains a mark (mode 2 comes too close to an excitation), and is the only
+    // element written whole.
+    let plan = plan(&old, &new);
+    let written = replacements(&old, &plan);
+    assert!(written.iter().all(|(tag, _)| *tag == "svg") && written.len() <= 1, "{written:?}");
+    let Plan::Patches { patches, elements } = &plan else { panic!("a plan of patches") };
+    assert!(patches.len() * 10 < *elements, "{} changes of {elements} elements", patches.len());
 }
 
 #[test]
-fn many_small_changes_inside_one_element_replace_it_whole() {
-    // One mass of the camera boom changed: every cell of the mode table and most lines of the
-    // frequency map change. Each replacement costs the page a call into its parser, so the
-    // table's body and the map go whole, in a handful of replacements instead of dozens.
+fn one_mass_changed_sets_texts_and_attributes_and_replaces_nothing() {
+    // One mass of the camera boom changed: every cell of the mode table and every line of the
+    // frequency map and the plot change, and none changes its kind: the page sets their texts
+    // and attributes and parses no markup.
     let (old, new) = (results(&boom(0, "2.0 kg")), results(&boom(0, "2.1 kg")));
     let (text, plan) = carry_out(&old, &new);
-    assert_eq!(text, new);
-    let Plan::Patches { patches, .. } = plan else { panic!("a plan of patches") };
-    assert!(patches.len() <= 12, "{} replacements", patches.len());
-    let spans = spans(&old);
-    let tags: Vec<&str> = patches.iter().map(|p| &old[spans[p.index].2 .0..spans[p.index].2 .1]).collect();
-    assert!(tags.contains(&"tbody"), "{tags:?}");
+    assert_eq!(text, held(&new));
+    assert_eq!(replacements(&old, &plan), vec![]);
+    let Plan::Patches { patches, .. } = &plan else { panic!("a plan of patches") };
+    assert!(patches.iter().any(|p| matches!(p.edit, Edit::Text(_))), "{patches:?}");
+    assert!(
+        patches.iter().any(|p| matches!(&p.edit, Edit::Set(n, _) if n == "points")),
+        "the plot's line: {patches:?}"
+    );
 }
 
 #[test]
@@ -134,12 +257,13 @@ fn the_same_drawing_needs_nothing_and_text_at_the_top_replaces_the_whole() {
     assert_eq!(plan(&old, &old), Plan::Same);
     // A stale note put first is written with the first element, which is kept.
     let stale = format!("<p class=\"mb-stale-note\">x</p>{old}");
-    let (text, Plan::Patches { patches, .. }) = carry_out(&old, &stale) else { panic!("patches") };
-    assert_eq!(text, stale);
-    assert_eq!(patches.len(), 1);
-    assert!(patches[0].html.len() < 200, "{patches:?}");
+    let (text, plan) = carry_out(&old, &stale);
+    assert_eq!(text, held(&stale));
+    let written = replacements(&old, &plan);
+    assert_eq!(written.len(), 1);
+    assert!(written[0].1.len() < 200, "{written:?}");
     // Text beside the block's elements: the block is drawn whole.
-    assert_eq!(plan(&old, &format!("x{old}")), Plan::Whole);
+    assert_eq!(super::plan(&Drawing::new(old.clone()), &Drawing::new(format!("x{old}"))), Plan::Whole);
 }
 
 #[test]
@@ -156,11 +280,45 @@ fn markup_that_is_not_well_formed_is_drawn_whole() {
     let old = "<p title=\"a&gt;b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>1</p>";
     let new = "<p title=\"a&gt;b\">x<svg><path d=\"M0 0\"/><rect/></svg></p><p>2</p>";
     let (text, plan) = carry_out(old, new);
-    assert_eq!(text, new);
-    let Plan::Patches { elements, patches } = plan else { panic!("patches") };
-    assert_eq!(elements, 5);
-    assert_eq!(patches.len(), 1);
-    assert_eq!(patches[0].index, 4);
+    assert_eq!(text, held(new));
+    assert_eq!(
+        plan,
+        Plan::Patches { elements: 5, patches: vec![super::Patch { index: 4, edit: Edit::Text("2".into()) }] }
+    );
+}
+
+#[test]
+fn texts_and_attributes_are_set_as_the_browser_reads_them() {
+    // Escaped text and values are handed over unescaped (the page sets them as text, not
+    // markup); an attribute that went is removed and one that came is set.
+    let old = "<table><tr><td class=\"a\">1 &lt; 2</td><td>x</td></tr></table><svg><path d=\"M0 0\" class=\"m1\"/></svg>";
+    let new = "<table><tr><td class=\"b &amp; c\">3 &gt; 2 &#39;q&#39;</td><td hidden>x</td></tr></table><svg><path d=\"M1 1\"/></svg>";
+    let (text, plan) = carry_out(old, new);
+    assert_eq!(text, held(new));
+    let Plan::Patches { patches, .. } = plan else { panic!("patches") };
+    let edits: Vec<(usize, Edit)> = patches.into_iter().map(|p| (p.index, p.edit)).collect();
+    assert_eq!(
+        edits,
+        vec![
+            (2, Edit::Set("class".into(), "b & c".into())),
+            (2, Edit::Text("3 > 2 'q'".into())),
+            (3, Edit::Set("hidden".into(), String::new())),
+            (5, Edit::Set("d".into(), "M1 1".into())),
+            (5, Edit::Remove("class".into())),
+        ]
+    );
+    // A tag that changed, and a reference our markup never writes, replace the element whole.
+    for (old, new) in [("<p><b>1</b></p>", "<p><i>1</i></p>"), ("<p><b>1</b></p>", "<p><b>&nbsp;</b></p>")] {
+        let (text, plan) = carry_out(old, new);
+        assert_eq!(text, held(new));
+        assert_eq!(
+            plan,
+            Plan::Patches {
+                elements: 2,
+                patches: vec![super::Patch { index: 1, edit: Edit::Replace(new[3..new.len() - 4].into()) }]
+            }
+        );
+    }
 }
 
 #[test]
@@ -183,18 +341,27 @@ fn children_that_came_or_went_are_written_in_place_of_the_old_ones() {
     for (before, after) in cases {
         let (old, new) = (list(before), list(after));
         let (text, plan) = carry_out(&old, &new);
-        assert_eq!(text, new, "{before:?} to {after:?}");
-        let Plan::Patches { patches, .. } = plan else { panic!("{before:?} to {after:?}: patches") };
+        assert_eq!(text, held(&new), "{before:?} to {after:?}");
         // Only rows are written, never the list whole, and fewer rows than the list has.
-        let written: usize = patches.iter().map(|p| p.html.matches("<li>").count()).sum();
-        assert!(written < after.len().max(2), "{before:?} to {after:?}: {patches:?}");
+        let written: usize =
+            replacements(&old, &plan).iter().map(|(_, html)| html.matches("<li>").count()).sum();
+        assert!(written < after.len().max(2), "{before:?} to {after:?}: {plan:?}");
     }
-    // An element with text between its children is replaced whole when they change.
-    let (old, new) = ("<p>a <b>1</b></p>", "<p>a <b>2</b></p>");
-    let (text, plan) = carry_out(old, new);
-    assert_eq!(text, new);
-    assert_eq!(
-        plan,
-        Plan::Patches { elements: 2, patches: vec![super::Patch { index: 0, html: new.to_string() }] }
-    );
+    // An element with text between its children keeps that text while it stays the same, and
+    // is replaced whole when it changes or a child comes.
+    let cases = [
+        ("<p>a <b>1</b></p>", "<p>a <b>2</b></p>", Edit::Text("2".into()), 1),
+        ("<p>a <b>1</b></p>", "<p>c <b>1</b></p>", Edit::Replace("<p>c <b>1</b></p>".into()), 0),
+        (
+            "<p>a <b>1</b></p>",
+            "<p>a <b>1</b><b>2</b></p>",
+            Edit::Replace("<p>a <b>1</b><b>2</b></p>".into()),
+            0,
+        ),
+    ];
+    for (old, new, edit, index) in cases {
+        let (text, plan) = carry_out(old, new);
+        assert_eq!(text, held(new));
+        assert_eq!(plan, Plan::Patches { elements: 2, patches: vec![super::Patch { index, edit }] });
+    }
 }

@@ -1,8 +1,9 @@
-//! Draws the results over the drawing before them by replacing only the elements that changed
-//! ([`render::patch`]), so that an answer for a model with hundreds of rows costs the page the
-//! rows that changed, not all of them.
+//! Draws the results over the drawing before them by changing only what changed
+//! ([`render::patch`]): texts and attributes set in place, elements replaced only where their
+//! kind changed, so that an answer costs the page no parsing and no styling of what it already
+//! shows.
 
-use crate::render::patch::{self, Drawing, Plan};
+use crate::render::patch::{self, Drawing, Edit, Plan};
 use wasm_bindgen::JsCast;
 use web_sys::Element;
 
@@ -18,7 +19,7 @@ pub(super) fn draw(block: &Element, shown: Option<&Drawing>, html: String) -> Dr
         Plan::Whole => true,
         Plan::Patches { elements, patches } => {
             // Only the targets are taken out of the list, not its thousands of other elements;
-            // every one is found before any is replaced.
+            // every one is found before any is replaced, and none lies inside one replaced.
             let all = block.query_selector_all("*").ok().filter(|l| l.length() as usize == elements);
             let mut targets = Vec::new();
             for p in &patches {
@@ -31,7 +32,16 @@ pub(super) fn draw(block: &Element, shown: Option<&Drawing>, html: String) -> Dr
             let whole = targets.len() < patches.len();
             if !whole {
                 for (e, p) in targets.iter().zip(&patches) {
-                    e.set_outer_html(&p.html);
+                    match &p.edit {
+                        Edit::Replace(html) => e.set_outer_html(html),
+                        Edit::Text(text) => e.set_text_content(Some(text)),
+                        Edit::Set(name, value) => {
+                            let _ = e.set_attribute(name, value);
+                        }
+                        Edit::Remove(name) => {
+                            let _ = e.remove_attribute(name);
+                        }
+                    }
                 }
             }
             whole
