@@ -52,7 +52,9 @@ impl FieldPath {
     // carry a copy of each at every one.
     #[inline(never)]
     fn then(&self, step: Step) -> FieldPath {
-        let mut steps = self.0.clone();
+        // Room for the new step from the start: a clone has none, and the push would move it.
+        let mut steps = Vec::with_capacity(self.0.len() + 1);
+        steps.extend(self.0.iter().cloned());
         steps.push(step);
         FieldPath(steps)
     }

@@ -30,6 +30,11 @@ fn engine(c: &mut Criterion) {
     c.bench_function("solve a documented scenario (sensor boom, all methods)", |b| {
         b.iter(|| modebench::solve_json(black_box(scenario)).expect("solves"))
     });
+    // The slowest documented page to edit: US units throughout, tolerances and a resizing study.
+    let fan = include_str!("../../docs/scenarios/fan-floor-beam-us.json");
+    c.bench_function("solve a documented scenario (fan floor beam, all methods)", |b| {
+        b.iter(|| modebench::solve_json(black_box(fan)).expect("solves"))
+    });
     let close = serde_json::json!({
         "modes": 4, "left": "pinned", "right": "pinned",
         "segments": [{ "length": 1, "flexural_rigidity": 1, "mass_per_length": 1 }],

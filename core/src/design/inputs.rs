@@ -325,8 +325,18 @@ pub fn frequencies(doc: &Value, paths: &[FieldPath], values: &[f64]) -> Result<V
 /// difference, the next point of a sweep, a bisection), and the root finder that is handed
 /// nearby frequencies isolates them in a fraction of the work. Its answers are the same roots,
 /// found by the same count and polished to the same tolerance.
+///
+/// The scenario is made ready once: its tolerances typed with their values split off, as every
+/// reading would (a scenario that cannot be is read as it is, to draw the same error each time).
+/// Every trial writes all the inputs into that one copy and reads it: writing an input
+/// overwrites what the trial before wrote there, and turns a preset material or a named end
+/// into its values the first time, as it would in a fresh copy, so each reading is the
+/// scenario's own with the trial's values, without a copy of the whole made and dropped each
+/// time.
 pub struct Evaluator<'a> {
-    doc: &'a Value,
+    trial: std::cell::RefCell<Value>,
+    /// Whether `trial` is ready, so that the reader need not look for tolerances again.
+    ready: bool,
     paths: &'a [FieldPath],
     hints: std::cell::RefCell<Vec<f64>>,
 }
@@ -334,7 +344,16 @@ pub struct Evaluator<'a> {
 impl<'a> Evaluator<'a> {
     /// The evaluator of the inputs at `paths` of `doc`.
     pub fn new(doc: &'a Value, paths: &'a [FieldPath]) -> Evaluator<'a> {
-        Evaluator { doc, paths, hints: std::cell::RefCell::new(Vec::new()) }
+        let (trial, ready) = match crate::scenario::tolerant::normalise(doc) {
+            Ok(ready) => (ready.into_owned(), true),
+            Err(_) => (doc.clone(), false),
+        };
+        Evaluator {
+            trial: std::cell::RefCell::new(trial),
+            ready,
+            paths,
+            hints: std::cell::RefCell::new(Vec::new()),
+        }
     }
 
     /// The elastic frequencies (Hz) with the inputs set to `values`.
@@ -345,11 +364,13 @@ impl<'a> Evaluator<'a> {
 
     /// The scenario read and checked with the inputs set to `values`, not solved.
     pub fn read(&self, values: &[f64]) -> Result<crate::scenario::Inputs> {
-        let mut trial = self.doc.clone();
+        let mut trial = self.trial.borrow_mut();
         for (path, v) in self.paths.iter().zip(values) {
             set(&mut trial, path, *v)?;
         }
-        Scenario::from_value(&trial)?.to_model()
+        let scenario =
+            if self.ready { Scenario::from_ready_value(&trial)? } else { Scenario::from_value(&trial)? };
+        scenario.to_model()
     }
 
     /// The first `modes` elastic frequencies (Hz) of a model read by [`Evaluator::read`],
@@ -369,32 +390,4 @@ impl<'a> Evaluator<'a> {
 }
 
 #[cfg(test)]
-mod tests {
-    use super::*;
-    use serde_json::json;
-
-    #[test]
-    fn values_go_where_the_scenario_reads_them() {
-        let mut doc = json!({
-            "left": "pinned", "right": "free",
-            "segments": [{ "length": "1.2 m", "section": { "shape": "round", "diameter": "20 mm" }, "material": "steel" }],
-        });
-        let at = |text: &str| FieldPath::parse(text).unwrap_or_default();
-        // A pinned end is translation rigid and rotation free; a preset's modulus is its own.
-        assert_eq!(input_at(&doc, &at("left.rotational")).map(|i| i.value), Ok(0.0));
-        assert_eq!(input_at(&doc, &at("left.translational")).map(|i| i.value), Ok(f64::INFINITY));
-        let e = input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value).unwrap_or(0.0);
-        assert_eq!(Some(e), crate::material::preset("steel").map(|m| m.youngs_modulus));
-        assert_eq!(input_at(&doc, &at("segments[0].section.diameter")).map(|i| i.value), Ok(0.02));
-        // Writing turns them into springs and properties the reader takes back as written.
-        assert!(set(&mut doc, &at("left.rotational"), 5e3).is_ok());
-        assert!(set(&mut doc, &at("segments[0].material.youngs_modulus"), 1.9e11).is_ok());
-        assert_eq!(doc["left"], json!({ "type": "elastic", "translational": "rigid", "rotational": 5e3 }));
-        assert_eq!(input_at(&doc, &at("segments[0].material.youngs_modulus")).map(|i| i.value), Ok(1.9e11));
-        assert!(Scenario::from_value(&doc).and_then(|s| s.to_model()).is_ok());
-        // What is not a numeric input of the beam is refused with its path.
-        let e = input_at(&doc, &at("segments[0].section.shape")).err().map(|e| e.path.to_string());
-        assert_eq!(e.as_deref(), Some("segments[0].section.shape"));
-        assert!(input_at(&doc, &at("margin")).is_err());
-    }
-}
+mod tests;

@@ -80,7 +80,7 @@ impl<'a> Node<'a> {
     #[inline(never)]
     pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
         let map = self.object(what)?;
-        let allowed_here = allowed.join(", ");
+        let allowed_here = || allowed.join(", ");
         match map.keys().find(|k| !allowed.contains(&k.as_str())) {
             // An empty name has no place of its own: the error stands at the object holding it.
             Some(unknown) if unknown.is_empty() => {
@@ -89,14 +89,15 @@ impl<'a> Node<'a> {
                     ErrorKind::Syntax,
                     format!(
                         "{whose} a field with an empty name; give its name or remove it (allowed here: \
-                         {allowed_here})"
+                         {})",
+                        allowed_here()
                     ),
                 ))
             }
             // The path ends with the unknown name, so the message need not repeat it.
             Some(unknown) => Err(Error::new(
                 ErrorKind::Syntax,
-                format!("this field name is not known; allowed here: {allowed_here}"),
+                format!("this field name is not known; allowed here: {}", allowed_here()),
             )
             .at(self.child_path(unknown))),
             None => Ok(map),

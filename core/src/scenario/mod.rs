@@ -193,7 +193,13 @@ impl Scenario {
     #[inline(never)]
     pub fn from_value(value: &serde_json::Value) -> Result<Scenario> {
         let value = tolerant::normalise(value)?;
-        parse::scenario(&json::Node::root(&value))
+        Scenario::from_ready_value(&value)
+    }
+
+    /// Reads a scenario whose tolerances typed with values [`tolerant::normalise`] has already
+    /// split off; `from_value` for one that has none.
+    pub(crate) fn from_ready_value(value: &serde_json::Value) -> Result<Scenario> {
+        parse::scenario(&json::Node::root(value))
     }
 }
 
