@@ -33,7 +33,7 @@ pub use form::Editing;
 pub use offer::offer_html;
 pub use plot::{plot_svg, thin_shapes, THIN_TOLERANCE};
 pub use results::{results_html, results_inner, stale_note, View};
-pub use summary::summary_html;
+pub use summary::{summary_html, summary_inner};
 
 use crate::doc;
 use modebench::{Error, Report};

@@ -14,10 +14,13 @@ const SHOWN: usize = 6;
 /// that says so when nothing has been solved yet.
 pub fn summary_html(report: Option<&Report>, stale: bool) -> String {
     let class = if stale { "mb-summary mb-stale-summary" } else { "mb-summary" };
+    format!("<div class=\"{class}\" aria-hidden=\"true\">{}</div>", summary_inner(report, stale))
+}
+
+/// What the summary element holds, for the page to draw over its last drawing.
+pub fn summary_inner(report: Option<&Report>, stale: bool) -> String {
     let Some(report) = report else {
-        return format!(
-            "<div class=\"{class}\" aria-hidden=\"true\"><span class=\"mb-summary-title\">No results yet</span></div>"
-        );
+        return "<span class=\"mb-summary-title\">No results yet</span>".to_string();
     };
     let mut items = String::new();
     for m in report.modes.iter().take(SHOWN) {
@@ -42,5 +45,5 @@ pub fn summary_html(report: Option<&Report>, stale: bool) -> String {
         ));
     }
     let title = if stale { "Earlier results" } else { "Modes" };
-    format!("<div class=\"{class}\" aria-hidden=\"true\"><span class=\"mb-summary-title\">{title}</span>{items}</div>")
+    format!("<span class=\"mb-summary-title\">{title}</span>{items}")
 }

@@ -82,6 +82,8 @@ pub(super) struct Calculator {
     /// The inside of the results element as last drawn by [`Calculator::draw_results`], from
     /// which the next drawing is patched; `None` when something else has drawn there since.
     results_shown: Option<crate::render::patch::Drawing>,
+    /// What the one-line summary holds, as last drawn there (`None` when unknown), likewise.
+    summary_shown: Option<crate::render::patch::Drawing>,
 }
 
 impl Calculator {
@@ -115,6 +117,7 @@ impl Calculator {
             note: String::new(),
             sheet: String::new(),
             results_shown: None,
+            summary_shown: None,
             waiting_draw: false,
             draw_later: None,
         };
@@ -205,6 +208,7 @@ impl Calculator {
         let kept = kept.map(|results| results.outer_html());
         self.root.set_inner_html(&html);
         self.results_shown = None;
+        self.summary_shown = None;
         match (kept, dom::first(&self.root, ".mb-results")) {
             (Some(built), Some(results)) => {
                 results.set_outer_html(&built);
@@ -274,7 +278,10 @@ impl Calculator {
             self.results_shown = Some(patch::draw(&results, self.results_shown.as_ref(), html));
         }
         if let Some(summary) = dom::first(&self.root, ".mb-summary") {
-            summary.set_outer_html(&render::summary_html(self.last.as_ref(), self.error.is_some()));
+            let stale = self.error.is_some();
+            let _ = summary.class_list().toggle_with_force("mb-stale-summary", stale);
+            let html = render::summary_inner(self.last.as_ref(), stale);
+            self.summary_shown = Some(patch::draw(&summary, self.summary_shown.as_ref(), html));
         }
         self.mark_error();
         self.show_sheet();
