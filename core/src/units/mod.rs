@@ -172,7 +172,39 @@ pub fn convert_field(
 }
 
 /// Reads a quantity string such as "27.2 in" for a field of the given kind and converts it to SI.
+///
+/// The same few texts are read again and again (the design study reads the scenario some forty
+/// times on every edit, and writing each conversion's record in words is most of the cost of
+/// reading one), so the last texts read without error are remembered, with what they gave.
 pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
+    let found = READ.with(|read| {
+        read.borrow().iter().find(|(k, t, _)| *k == kind && t == text).map(|(_, _, c)| c.clone())
+    });
+    if let Some(converted) = found {
+        return Ok(converted);
+    }
+    let converted = parse_afresh(text, kind)?;
+    READ.with(|read| {
+        let mut read = read.borrow_mut();
+        if read.len() >= REMEMBERED {
+            read.clear();
+        }
+        read.push((kind, text.to_string(), converted.clone()));
+    });
+    Ok(converted)
+}
+
+/// How many texts [`parse`] remembers: more than a large scenario writes with units. A list,
+/// not a map: it is looked through in well under a microsecond, and a hash map would add its
+/// hashing code to the engines.
+const REMEMBERED: usize = 128;
+
+thread_local! {
+    /// The texts [`parse`] read last, by kind, with what each gave.
+    static READ: std::cell::RefCell<Vec<(Kind, String, Converted)>> = const { std::cell::RefCell::new(Vec::new()) };
+}
+
+fn parse_afresh(text: &str, kind: Kind) -> Result<Converted, Error> {
     let shown = crate::error::echo(text);
     let parsed = parse::parse_text(text).map_err(|mut e| {
         if e.kind == ErrorKind::UnknownUnit {

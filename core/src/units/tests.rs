@@ -361,3 +361,18 @@ fn a_value_without_its_number_is_answered_with_an_example_of_its_own_kind() {
     let empty = parse(" ", Kind::Mass).unwrap_err();
     assert!(empty.message.contains("as in \"27.2 kg\""), "{empty}");
 }
+
+#[test]
+fn a_text_read_again_gives_what_it_gave_the_first_time() {
+    // The reader remembers texts it has read; reading one again (and after more than it
+    // remembers) gives the same value and the same record, and a refused text is refused again.
+    let first = parse("0.283 lb/in^3", Kind::Density).expect("reads");
+    for i in 0..300 {
+        assert!(parse(&format!("{i} mm"), Kind::Length).is_ok());
+        assert_eq!(parse("0.283 lb/in^3", Kind::Density), Ok(first.clone()));
+    }
+    // The same text for another kind is read for that kind.
+    assert!(parse("0.283 lb/in^3", Kind::Length).is_err());
+    assert_eq!(parse("12 furlongs", Kind::Length), parse("12 furlongs", Kind::Length));
+    assert!(parse("12 furlongs", Kind::Length).is_err());
+}
