@@ -113,19 +113,6 @@ fn read(doc: &Value, path: &FieldPath, text: &str) -> Result<(String, f64)> {
     Ok((value, d / v.abs()))
 }
 
-/// Whether [`typed`] would find anything, `top` for the whole scenario.
-fn any_typed(value: &Value, top: bool) -> bool {
-    match value {
-        Value::String(s) => split(s).is_some(),
-        Value::Object(map) => map.iter().any(|(k, v)| {
-            let request = top && matches!(k.as_str(), "tolerances" | "measured" | "calibrate" | "resize");
-            !(request || k == "title" || k == "label") && any_typed(v, false)
-        }),
-        Value::Array(items) => items.iter().any(|v| any_typed(v, false)),
-        _ => false,
-    }
-}
-
 /// The paths and texts of every string of the scenario holding a "±" or "+/-", leaving out
 /// titles, labels and the design requests (which hold paths and ranges, not values).
 fn typed(value: &Value, at: FieldPath, out: &mut Vec<(FieldPath, String)>) {
@@ -152,12 +139,6 @@ fn typed(value: &Value, at: FieldPath, out: &mut Vec<(FieldPath, String)>) {
 /// The scenario with every value typed with its tolerance split into the value and an entry of
 /// `tolerances`; the scenario itself when none is.
 pub fn normalise(doc: &Value) -> Result<Cow<'_, Value>> {
-    // Most scenarios hold no tolerance typed with a value: they are looked through once without
-    // naming any path (naming each field's path costs allocations, and the design tools read a
-    // scenario dozens of times on every edit).
-    if !any_typed(doc, true) {
-        return Ok(Cow::Borrowed(doc));
-    }
     let mut found = Vec::new();
     typed(doc, FieldPath::root(), &mut found);
     if found.is_empty() {
