@@ -312,11 +312,13 @@ impl Calculator {
     }
 
     fn unmark(&mut self) {
-        for message in dom::all(&self.root, ".mb-editor .mb-field-error") {
-            message.remove();
-        }
-        let marks = ".mb-editor :is(.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
+        // One look through the editor, on every answer: the messages go, the marks come off.
+        let marks = ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
         for mark in dom::all(&self.root, marks) {
+            if mark.class_list().contains("mb-field-error") {
+                mark.remove();
+                continue;
+            }
             let _ = mark.class_list().remove_2("mb-invalid", "mb-unfilled");
             let _ = mark.remove_attribute("aria-describedby");
             let _ = mark.remove_attribute("aria-invalid");
