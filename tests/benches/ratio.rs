@@ -4,8 +4,8 @@
 //!
 //! Two ways to run it:
 //!
-//! - on its own, `cargo bench -p modebench-tests --bench ratio`: each workload warmed by a few
-//!   batches, then 15 batches (`MODEBENCH_BATCHES` for another number; `MODEBENCH_ONLY=exact` or
+//! - on its own, `cargo bench -p modebench-tests --bench ratio`: each workload warmed by one
+//!   batch, then 15 batches (`MODEBENCH_BATCHES` for another number; `MODEBENCH_ONLY=exact` or
 //!   `=elements` for one workload, as for counting its instructions with callgrind), the median
 //!   and the fastest batch per solve printed;
 //! - as the native half of a paired run, `cargo bench -p modebench-tests --bench ratio --

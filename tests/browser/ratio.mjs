@@ -21,7 +21,12 @@
 //
 //   MODEBENCH_TIMING_ENGINE=build/timing node tests/browser/ratio.mjs
 //
-// MODEBENCH_PAIRS (default 21), MODEBENCH_WARMUP (warm-up batches per side, default 8),
+// MODEBENCH_TIMING_ENGINE_B=DIR adds a second engine (another build of the same timing engine)
+// on a page of its own: each round then times native, engine A and engine B, the order turned
+// by one place each round, and B ÷ A is printed from the same rounds, an A/B of two builds in
+// one run.
+//
+// MODEBENCH_PAIRS (rounds; default 21), MODEBENCH_WARMUP (warm-up batches per side, default 8),
 // MODEBENCH_ONLY=exact or =elements for one workload, MODEBENCH_NATIVE for the command that
 // starts the native side (default: `cargo bench -q -p modebench-tests --bench ratio -- --serve`
 // from the repository's root; `cargo xtask ratio` builds it first).
@@ -40,10 +45,11 @@ const ENGINE = resolve(process.env.MODEBENCH_TIMING_ENGINE ?? join(ROOT, "build"
 const PAIRS = Number(process.env.MODEBENCH_PAIRS ?? 21);
 const WARMUP = Number(process.env.MODEBENCH_WARMUP ?? 8);
 const ONLY = process.env.MODEBENCH_ONLY ?? "";
+const AGAINST = process.env.MODEBENCH_TIMING_ENGINE_B ? resolve(process.env.MODEBENCH_TIMING_ENGINE_B) : "";
 const NATIVE = process.env.MODEBENCH_NATIVE ?? "cargo bench -q -p modebench-tests --bench ratio -- --serve";
-// A secure origin (localhost is one) so that the page can be cross-origin isolated; requests to
-// it are answered by interception, so nothing need listen on the port.
-const ORIGIN = "http://localhost:8131";
+// Pages on a secure origin (localhost is one) so that they can be cross-origin isolated;
+// requests to it are answered by interception, so nothing need listen on the port.
+const PORT = 8131;
 const TYPES = { ".html": "text/html", ".js": "text/javascript", ".wasm": "application/wasm" };
 const ISOLATED = { "Cross-Origin-Opener-Policy": "same-origin", "Cross-Origin-Embedder-Policy": "require-corp" };
 // Shortest batch, in milliseconds, either side may take: fifty steps of a coarse page clock and
@@ -91,13 +97,15 @@ function startNative() {
   };
 }
 
-const native = startNative();
-const browser = await launch();
-try {
+// A page with the engine in `dir` loaded and kept between batches, on a cross-origin isolated
+// page of its own origin; the page clock's step is the smallest nonzero difference between
+// successive readings.
+async function openEngine(browser, dir, index) {
+  const origin = `http://localhost:${PORT + index}`;
   const context = await browser.newContext();
   await context.route("**/*", async (route) => {
     const url = new URL(route.request().url());
-    if (url.origin !== ORIGIN) {
+    if (url.origin !== origin) {
       return route.abort();
     }
     if (url.pathname === "/") {
@@ -114,93 +122,114 @@ try {
     return route.fulfill({
       contentType: TYPES[name.slice(name.lastIndexOf("."))],
       headers: ISOLATED,
-      body: readFileSync(join(ENGINE, name)),
+      body: readFileSync(join(dir, name)),
     });
   });
   const page = await context.newPage();
   page.on("console", (message) => console.log(`page: ${message.text()}`));
-  await page.goto(`${ORIGIN}/`);
-  // The engine is kept on the page between batches; the clock's step is the smallest nonzero
-  // difference between successive readings.
+  await page.goto(`${origin}/`);
   const clock = await page.evaluate(async () => {
     const engine = await import("/modebench_solver.js");
     await engine.default();
     globalThis.timingEngine = engine;
     let step = Infinity;
-    for (let changes = 0; changes < 200; ) {
+    for (let changes = 0; changes < 200; changes++) {
       const a = performance.now();
       let b = performance.now();
       while (b === a) {
         b = performance.now();
       }
       step = Math.min(step, b - a);
-      changes++;
     }
     return { step: step * 1000, isolated: globalThis.crossOriginIsolated };
   });
-  const inBrowser = (bench, runs) =>
-    page.evaluate(
-      ([bench, runs]) => {
-        const start = performance.now();
-        const found = globalThis.timingEngine[bench](runs);
-        return { micros: (performance.now() - start) * 1000, found };
-      },
-      [bench, runs],
-    );
+  return {
+    clock,
+    // The batch's time in microseconds and the frequencies found.
+    batch: (bench, runs) =>
+      page.evaluate(
+        ([bench, runs]) => {
+          const start = performance.now();
+          const found = globalThis.timingEngine[bench](runs);
+          return { micros: (performance.now() - start) * 1000, found };
+        },
+        [bench, runs],
+      ),
+  };
+}
 
-  console.log(`Chromium ${browser.version()}, engine ${ENGINE}`);
+const native = startNative();
+const browser = await launch();
+try {
+  // One page per engine, each on its own origin's port.
+  const engines = [];
+  for (const [i, dir] of [ENGINE, ...(AGAINST ? [AGAINST] : [])].entries()) {
+    engines.push({ label: i === 0 ? "Chromium" : "Chromium, engine B", dir, ...(await openEngine(browser, dir, i)) });
+  }
+  console.log(`Chromium ${browser.version()}, engine ${ENGINE}${AGAINST ? `, engine B ${AGAINST}` : ""}`);
   console.log(
-    `page clock: steps of ${clock.step.toFixed(1)} µs, cross-origin isolated: ${clock.isolated}; native side: ${NATIVE}`,
+    `page clock: steps of ${engines[0].clock.step.toFixed(1)} µs, cross-origin isolated: ${engines[0].clock.isolated}; ` +
+      `native side: ${NATIVE}`,
   );
-  for (const { key, name, runs, bench } of WORKLOADS) {
+  const sides = [{ label: "native", batch: (w) => native.batch(w.key, w.runs) }].concat(
+    engines.map((e) => ({ label: e.label, batch: (w) => e.batch(w.bench, w.runs) })),
+  );
+  for (const workload of WORKLOADS) {
+    const { key, name, runs } = workload;
     if (ONLY && ONLY !== key) {
       continue;
     }
     for (let i = 0; i < WARMUP; i++) {
-      await native.batch(key, runs);
-      await inBrowser(bench, runs);
-    }
-    const pairs = [];
-    let found = { native: 10, browser: 10 };
-    for (let i = 0; i < PAIRS; i++) {
-      let n, w;
-      if (i % 2 === 0) {
-        n = await native.batch(key, runs);
-        w = await inBrowser(bench, runs);
-      } else {
-        w = await inBrowser(bench, runs);
-        n = await native.batch(key, runs);
+      for (const side of sides) {
+        await side.batch(workload);
       }
-      found = { native: Math.min(found.native, n.found), browser: Math.min(found.browser, w.found) };
-      pairs.push({ native: n.micros / runs, browser: w.micros / runs, short: Math.min(n.micros, w.micros) < SHORTEST_MS * 1000 });
     }
-    const ratios = pairs.map((p) => p.browser / p.native).sort((a, b) => a - b);
-    const side = (s) => {
-      const xs = pairs.map((p) => p[s]);
-      return { median: median(xs), fastest: Math.min(...xs) };
+    // Each round times every side once, the order turned by one place each round.
+    const rounds = [];
+    for (let i = 0; i < PAIRS; i++) {
+      const round = new Array(sides.length);
+      for (let j = 0; j < sides.length; j++) {
+        const k = (i + j) % sides.length;
+        round[k] = await sides[k].batch(workload);
+      }
+      rounds.push(round);
+    }
+    console.log(`${name}, ${PAIRS} rounds of batches of ${runs} solves (after ${WARMUP} warm-up batches each side):`);
+    const perSolve = (k) => rounds.map((r) => r[k].micros / runs);
+    const summary = (k) => ({ median: median(perSolve(k)), fastest: Math.min(...perSolve(k)) });
+    const paired = (k, against, words) => {
+      const ratios = rounds.map((r) => r[k].micros / r[against].micros).sort((a, b) => a - b);
+      const [x, y] = [summary(k), summary(against)];
+      console.log(
+        `  ${words}, median of the pairs' ratios: ${median(ratios).toFixed(2)} ` +
+          `(pairs from ${ratios[0].toFixed(2)} to ${ratios[ratios.length - 1].toFixed(2)}; ` +
+          `middle half ${ratios[Math.floor(ratios.length / 4)].toFixed(2)}–` +
+          `${ratios[Math.floor((3 * ratios.length) / 4)].toFixed(2)}); ` +
+          `÷ by medians ${(x.median / y.median).toFixed(2)}, by fastest batches ${(x.fastest / y.fastest).toFixed(2)}`,
+      );
     };
-    const [n, w] = [side("native"), side("browser")];
-    const notes = [];
-    if (found.native !== 10 || found.browser !== 10) {
-      notes.push(`found ${found.native} natively and ${found.browser} in Chromium, not 10: the figure is not the workload's`);
+    for (let k = 1; k < sides.length; k++) {
+      paired(k, 0, `${sides[k].label} ÷ native`);
     }
-    const short = pairs.filter((p) => p.short).length;
+    if (sides.length === 3) {
+      paired(2, 1, "engine B ÷ engine A");
+    }
+    console.log(
+      "  " +
+        sides
+          .map((side, k) => {
+            const { median, fastest } = summary(k);
+            return `${side.label} ${median.toFixed(1)} µs per solve (fastest batch ${fastest.toFixed(1)})`;
+          })
+          .join(", "),
+    );
+    const found = sides.map((side, k) => [side.label, Math.min(...rounds.map((r) => r[k].found))]);
+    for (const [label, least] of found.filter(([, least]) => least !== 10)) {
+      console.log(`  note: ${label} found ${least} frequencies in some batch, not 10: the figure is not the workload's`);
+    }
+    const short = rounds.filter((r) => r.some((b) => b.micros < SHORTEST_MS * 1000)).length;
     if (short) {
-      notes.push(`${short} pairs had a batch under ${SHORTEST_MS} ms`);
-    }
-    console.log(`${name}, ${PAIRS} pairs of batches of ${runs} solves (after ${WARMUP} warm-up batches each side):`);
-    console.log(
-      `  Chromium ÷ native, median of the pairs' ratios: ${median(ratios).toFixed(2)} ` +
-        `(pairs from ${ratios[0].toFixed(2)} to ${ratios[ratios.length - 1].toFixed(2)}; ` +
-        `middle half ${ratios[Math.floor(ratios.length / 4)].toFixed(2)}–${ratios[Math.floor((3 * ratios.length) / 4)].toFixed(2)})`,
-    );
-    console.log(
-      `  native ${n.median.toFixed(1)} µs per solve (fastest batch ${n.fastest.toFixed(1)}), ` +
-        `Chromium ${w.median.toFixed(1)} µs (fastest batch ${w.fastest.toFixed(1)}); ` +
-        `÷ by medians ${(w.median / n.median).toFixed(2)}, by fastest batches ${(w.fastest / n.fastest).toFixed(2)}`,
-    );
-    for (const note of notes) {
-      console.log(`  note: ${note}`);
+      console.log(`  note: ${short} rounds had a batch under ${SHORTEST_MS} ms`);
     }
   }
 } finally {

@@ -1,0 +1,209 @@
+// WebAssembly ÷ native, measured in pairs: the solver engine built with the `timing` feature
+// (`cargo xtask ratio` builds it as the site's solver engine is built, into build/timing/) loaded
+// in headless Chromium, and the native ratio bench (`tests/benches/ratio.rs --serve`) started
+// beside it; batches of the same workload alternate between the two, so that the two sides of
+// each ratio are timed within a second of each other. A shared virtual machine changes speed over
+// minutes: timing the sides minutes apart paired a fast native moment with a slow browser one.
+//
+// The workloads: `exact` (the exact method's 10 modes of the budget beam; the engine's
+// `benchExact`) and `elements` (200 finite elements, 10 modes, the same beam; `benchElements`).
+// For each: warm-up batches on both sides first (V8 compiles a module's functions at its
+// baseline tier and tiers the hot ones up while they run; a few seconds of solving is far more
+// than it needs), then PAIRS pairs, the order inside a pair alternating (native first, then the
+// browser first) so that neither side always runs just after the other. Printed: the median of
+// the pairs' ratios (the figure docs/performance.md records) with their spread, and each side's
+// median and fastest batch per solve. Never fails on a figure.
+//
+// The page's clock: Chromium coarsens `performance.now()` (100 µs steps on a page that is not
+// cross-origin isolated, 5 µs on one that is). The page here is served cross-origin isolated
+// from a secure origin, so its steps are fine; the step is measured and printed, and the batch
+// sizes keep every batch at 20 ms or more on both sides (a batch under that is flagged).
+//
+//   MODEBENCH_TIMING_ENGINE=build/timing node tests/browser/ratio.mjs
+//
+// MODEBENCH_PAIRS (default 21), MODEBENCH_WARMUP (warm-up batches per side, default 8),
+// MODEBENCH_ONLY=exact or =elements for one workload, MODEBENCH_NATIVE for the command that
+// starts the native side (default: `cargo bench -q -p modebench-tests --bench ratio -- --serve`
+// from the repository's root; `cargo xtask ratio` builds it first).
+//
+// The engine's files are handed to the page by request interception, so no server is needed and
+// nothing leaves the browser. It runs on the page's main thread: the same V8 and the same
+// compiled module as the calculator's worker, without the worker's messages around each solve.
+
+import { spawn } from "node:child_process";
+import { readFileSync } from "node:fs";
+import { join, resolve } from "node:path";
+import { createInterface } from "node:readline";
+import { ROOT, closeAll, launch } from "./support.mjs";
+
+const ENGINE = resolve(process.env.MODEBENCH_TIMING_ENGINE ?? join(ROOT, "build", "timing"));
+const PAIRS = Number(process.env.MODEBENCH_PAIRS ?? 21);
+const WARMUP = Number(process.env.MODEBENCH_WARMUP ?? 8);
+const ONLY = process.env.MODEBENCH_ONLY ?? "";
+const NATIVE = process.env.MODEBENCH_NATIVE ?? "cargo bench -q -p modebench-tests --bench ratio -- --serve";
+// A secure origin (localhost is one) so that the page can be cross-origin isolated; requests to
+// it are answered by interception, so nothing need listen on the port.
+const ORIGIN = "http://localhost:8131";
+const TYPES = { ".html": "text/html", ".js": "text/javascript", ".wasm": "application/wasm" };
+const ISOLATED = { "Cross-Origin-Opener-Policy": "same-origin", "Cross-Origin-Embedder-Policy": "require-corp" };
+// Shortest batch, in milliseconds, either side may take: fifty steps of a coarse page clock and
+// long enough that the machine's scheduling does not decide it.
+const SHORTEST_MS = 20;
+
+// Solves per batch: at the figures of 2026-12-03 (exact 66–90 µs natively, 85–145 µs in
+// Chromium; FE 490–670 µs and 530–620 µs) every batch lasts 20 ms or more on both sides.
+const WORKLOADS = [
+  { key: "exact", name: "exact, 10 modes, budget beam", runs: 300, bench: "benchExact" },
+  { key: "elements", name: "finite elements, 200 elements, 10 modes, budget beam", runs: 60, bench: "benchElements" },
+];
+
+const median = (xs) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+
+// The native side: one process for the whole run, asked for one batch at a time.
+function startNative() {
+  const child = spawn(NATIVE, { cwd: ROOT, shell: true, stdio: ["pipe", "pipe", "inherit"] });
+  const lines = createInterface({ input: child.stdout });
+  const waiting = [];
+  lines.on("line", (line) => waiting.shift()?.resolve(line));
+  child.on("exit", (code) => {
+    for (const w of waiting.splice(0)) {
+      w.reject(new Error(`the native side (${NATIVE}) ended with ${code}`));
+    }
+  });
+  return {
+    // The batch's time in microseconds and the frequencies found.
+    async batch(key, runs) {
+      const answer = new Promise((resolve, reject) => waiting.push({ resolve, reject }));
+      child.stdin.write(`${key} ${runs}\n`);
+      const line = await answer;
+      const [k, n, micros, found] = line.split(" ");
+      if (k !== key || Number(n) !== runs || !Number.isFinite(Number(micros))) {
+        throw new Error(`the native side answered ${JSON.stringify(line)} to "${key} ${runs}"`);
+      }
+      return { micros: Number(micros), found: Number(found) };
+    },
+    end() {
+      child.stdin.end("quit\n");
+    },
+  };
+}
+
+const native = startNative();
+const browser = await launch(process.env.XARGS ? process.env.XARGS.split(" ") : []);
+try {
+  const context = await browser.newContext();
+  await context.route("**/*", async (route) => {
+    const url = new URL(route.request().url());
+    if (url.origin !== ORIGIN) {
+      return route.abort();
+    }
+    if (url.pathname === "/") {
+      return route.fulfill({
+        contentType: TYPES[".html"],
+        headers: ISOLATED,
+        body: "<!doctype html><title>timing</title>",
+      });
+    }
+    const name = url.pathname.slice(1);
+    if (!/^modebench_solver(_bg\.wasm|\.js)$/.test(name)) {
+      return route.fulfill({ status: 404, body: "" });
+    }
+    return route.fulfill({
+      contentType: TYPES[name.slice(name.lastIndexOf("."))],
+      headers: ISOLATED,
+      body: readFileSync(join(ENGINE, name)),
+    });
+  });
+  const page = await context.newPage();
+  page.on("console", (message) => console.log(`page: ${message.text()}`));
+  await page.goto(`${ORIGIN}/`);
+  // The engine is kept on the page between batches; the clock's step is the smallest nonzero
+  // difference between successive readings.
+  const clock = await page.evaluate(async () => {
+    const engine = await import("/modebench_solver.js");
+    await engine.default();
+    globalThis.timingEngine = engine;
+    let step = Infinity;
+    for (let changes = 0; changes < 200; ) {
+      const a = performance.now();
+      let b = performance.now();
+      while (b === a) {
+        b = performance.now();
+      }
+      step = Math.min(step, b - a);
+      changes++;
+    }
+    return { step: step * 1000, isolated: globalThis.crossOriginIsolated };
+  });
+  const inBrowser = (bench, runs) =>
+    page.evaluate(
+      ([bench, runs]) => {
+        const start = performance.now();
+        const found = globalThis.timingEngine[bench](runs);
+        return { micros: (performance.now() - start) * 1000, found };
+      },
+      [bench, runs],
+    );
+
+  console.log(`Chromium ${browser.version()}, engine ${ENGINE}`);
+  console.log(
+    `page clock: steps of ${clock.step.toFixed(1)} µs, cross-origin isolated: ${clock.isolated}; native side: ${NATIVE}`,
+  );
+  for (const { key, name, runs, bench } of WORKLOADS) {
+    if (ONLY && ONLY !== key) {
+      continue;
+    }
+    for (let i = 0; i < WARMUP; i++) {
+      await native.batch(key, runs);
+      await inBrowser(bench, runs);
+    }
+    const pairs = [];
+    let found = { native: 10, browser: 10 };
+    for (let i = 0; i < PAIRS; i++) {
+      let n, w;
+      if (i % 2 === 0) {
+        n = await native.batch(key, runs);
+        w = await inBrowser(bench, runs);
+      } else {
+        w = await inBrowser(bench, runs);
+        n = await native.batch(key, runs);
+      }
+      found = { native: Math.min(found.native, n.found), browser: Math.min(found.browser, w.found) };
+      pairs.push({ native: n.micros / runs, browser: w.micros / runs, short: Math.min(n.micros, w.micros) < SHORTEST_MS * 1000 });
+    }
+    const ratios = pairs.map((p) => p.browser / p.native).sort((a, b) => a - b);
+    const side = (s) => {
+      const xs = pairs.map((p) => p[s]);
+      return { median: median(xs), fastest: Math.min(...xs) };
+    };
+    const [n, w] = [side("native"), side("browser")];
+    const notes = [];
+    if (found.native !== 10 || found.browser !== 10) {
+      notes.push(`found ${found.native} natively and ${found.browser} in Chromium, not 10: the figure is not the workload's`);
+    }
+    const short = pairs.filter((p) => p.short).length;
+    if (short) {
+      notes.push(`${short} pairs had a batch under ${SHORTEST_MS} ms`);
+    }
+    console.log(`${name}, ${PAIRS} pairs of batches of ${runs} solves (after ${WARMUP} warm-up batches each side):`);
+    console.log(
+      `  Chromium ÷ native, median of the pairs' ratios: ${median(ratios).toFixed(2)} ` +
+        `(pairs from ${ratios[0].toFixed(2)} to ${ratios[ratios.length - 1].toFixed(2)}; ` +
+        `middle half ${ratios[Math.floor(ratios.length / 4)].toFixed(2)}–${ratios[Math.floor((3 * ratios.length) / 4)].toFixed(2)})`,
+    );
+    console.log(
+      `  native ${n.median.toFixed(1)} µs per solve (fastest batch ${n.fastest.toFixed(1)}), ` +
+        `Chromium ${w.median.toFixed(1)} µs (fastest batch ${w.fastest.toFixed(1)}); ` +
+        `÷ by medians ${(w.median / n.median).toFixed(2)}, by fastest batches ${(w.fastest / n.fastest).toFixed(2)}`,
+    );
+    for (const note of notes) {
+      console.log(`  note: ${note}`);
+    }
+  }
+} finally {
+  native.end();
+  await closeAll();
+}
