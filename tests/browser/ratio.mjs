@@ -9,10 +9,11 @@
 // `benchExact`) and `elements` (200 finite elements, 10 modes, the same beam; `benchElements`).
 // For each: warm-up batches on both sides first (V8 compiles a module's functions at its
 // baseline tier and tiers the hot ones up while they run; a few seconds of solving is far more
-// than it needs), then PAIRS pairs, the order inside a pair alternating (native first, then the
-// browser first) so that neither side always runs just after the other. Printed: the median of
-// the pairs' ratios (the figure docs/performance.md records) with their spread, and each side's
-// median and fastest batch per solve. Never fails on a figure.
+// than it needs), then PAIRS rounds, each one batch of every side back to back, the order turned
+// by one place each round (with one engine: native first, then the browser first) so that no
+// side always runs just after another. Printed: the median of the rounds' ratios (the figure
+// docs/performance.md records) with their spread, and each side's median and fastest batch per
+// solve. Never fails on a figure.
 //
 // The page's clock: Chromium coarsens `performance.now()` (100 µs steps on a page that is not
 // cross-origin isolated, 5 µs on one that is). The page here is served cross-origin isolated
@@ -52,8 +53,9 @@ const NATIVE = process.env.MODEBENCH_NATIVE ?? "cargo bench -q -p modebench-test
 const PORT = 8131;
 const TYPES = { ".html": "text/html", ".js": "text/javascript", ".wasm": "application/wasm" };
 const ISOLATED = { "Cross-Origin-Opener-Policy": "same-origin", "Cross-Origin-Embedder-Policy": "require-corp" };
-// Shortest batch, in milliseconds, either side may take: fifty steps of a coarse page clock and
-// long enough that the machine's scheduling does not decide it.
+// Shortest batch, in milliseconds, either side may take: 200 steps of the clock of a page that
+// is not isolated, 4,000 of this one's, and long enough that one slice of the scheduler does not
+// decide it.
 const SHORTEST_MS = 20;
 
 // Solves per batch: at the figures of 2026-12-03 (exact 66–90 µs natively, 85–145 µs in
