@@ -27,7 +27,7 @@ use std::time::Instant;
 
 /// The workloads by the names both sides use: (key, what it is, batch size on its own).
 const WORKLOADS: [(&str, &str, u32); 2] =
-    [("exact", "exact, 10 modes", 300), ("elements", "finite elements, 200 elements, 10 modes", 60)];
+    [("exact", "exact, 10 modes", 400), ("elements", "finite elements, 200 elements, 10 modes", 60)];
 
 fn solve(model: &Model, key: &str) -> Option<usize> {
     match key {
