@@ -50,6 +50,12 @@ impl LogProduct {
 
     /// Multiplies by `x`, exactly to rounding whatever the range of the factors: powers of two
     /// are moved into `exponent` (an exact operation) whenever the mantissa strays far from 1.
+    ///
+    /// Inlined, so that the common case costs a multiplication and two comparisons in the
+    /// caller's loop: a call there makes the caller save every floating-point value it holds
+    /// (none survives a call in registers, natively or in WebAssembly), which cost the station
+    /// sweep more than the multiplication itself.
+    #[inline(always)]
     pub(crate) fn mul(&mut self, x: f64) {
         // Most factors and products lie well inside both limits, where the steps below come to
         // `mantissa *= x`: take that at the cost of two comparisons (NaN, zero and infinity fail
@@ -60,8 +66,15 @@ impl LogProduct {
             && (FAST_PRODUCT.0..FAST_PRODUCT.1).contains(&m.abs())
         {
             self.mantissa = m;
-            return;
+        } else {
+            self.mul_rescaled(x);
         }
+    }
+
+    /// [`LogProduct::mul`] for a factor or product near the limits, zero, infinite or NaN.
+    #[cold]
+    #[inline(never)]
+    fn mul_rescaled(&mut self, x: f64) {
         if x == 0.0 || !x.is_finite() {
             self.mantissa *= x;
             return;

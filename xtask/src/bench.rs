@@ -1,6 +1,6 @@
 //! `cargo xtask bench`: the engine's benchmarks, then the browser budgets measured on the
 //! built site in headless Chromium. `cargo xtask ratio`: the two budget workloads natively and in
-//! the solver engine in Chromium, in turns, for WebAssembly ÷ native.
+//! the solver engine in Chromium, their batches alternating, for WebAssembly ÷ native.
 
 use anyhow::Result;
 
@@ -28,16 +28,20 @@ pub(crate) fn run(project: &Project) -> Result<()> {
     )
 }
 
-/// How many times `ratio` runs the native benchmarks and then Chromium, in turn: a shared
-/// machine's load moves both figures, and turns put the two sides of each ratio in one window.
+/// How many times `ratio` runs criterion and then the paired run: criterion's figures are
+/// printed beside the pairs' as a check on the native side, and a shared machine's speed drifts
+/// between rounds.
 const RATIO_ROUNDS: usize = 3;
 
-/// Builds the solver engine with the timing exports, then runs the native benchmarks of the two
-/// budget workloads (criterion's, and `--bench ratio`, which times batches as the browser side
-/// does) and the same workloads in that engine in headless Chromium, in turns; both print their
-/// figures (docs/performance.md records them).
+/// Builds the solver engine with the timing exports and the native ratio bench, then, in each
+/// round, criterion's figures for the two budget workloads and the paired run:
+/// `tests/browser/ratio.mjs` loads that engine in headless Chromium, starts the native bench
+/// (`--bench ratio -- --serve`) beside it, and alternates their batches, printing the median of
+/// the pairs' ratios and each side's figures (docs/performance.md records them).
 pub(crate) fn ratio(project: &Project) -> Result<()> {
     let timing = engine::build_timing(project)?;
+    run::step("Build the native ratio bench");
+    run::status(&mut project.cargo(["bench", "--no-run", "-p", "modebench-tests", "--bench", "ratio"]))?;
     for round in 1..=RATIO_ROUNDS {
         run::step(&format!("Round {round} of {RATIO_ROUNDS}: native (criterion)"));
         run::status(&mut project.cargo([
@@ -53,8 +57,7 @@ pub(crate) fn ratio(project: &Project) -> Result<()> {
             "3",
             "exact frequencies|finite elements",
         ]))?;
-        run::status(&mut project.cargo(["bench", "-p", "modebench-tests", "--bench", "ratio"]))?;
-        run::step(&format!("Round {round} of {RATIO_ROUNDS}: WebAssembly in Chromium"));
+        run::step(&format!("Round {round} of {RATIO_ROUNDS}: native and WebAssembly in Chromium, in pairs"));
         run::status(
             run::cmd("node", ["ratio.mjs"])
                 .current_dir(project.browser_tests())

@@ -131,7 +131,7 @@ pub(crate) fn evaluate(system: &System, pieces: &[usize], omega: f64) -> Evaluat
         let (t, det_t12) = match cached {
             Some((m, k, t, d)) if m == member && k == n => (t, d),
             _ => {
-                let t = member.piece_transfer(n, omega);
+                let t = piece_transfer(member, n, omega);
                 (t, det(&t.t12))
             }
         };
@@ -145,6 +145,17 @@ pub(crate) fn evaluate(system: &System, pieces: &[usize], omega: f64) -> Evaluat
         }
     }
     Evaluation { below, sign: factor.sign(), log: factor.ln_abs() }
+}
+
+/// The transfer matrix at ω of one of `n` equal pieces of `member`: a slender member's (the
+/// common case) computed inline, so that its numbers stay in the sweep's registers instead of
+/// passing through memory on the way back from a call.
+#[inline(always)]
+fn piece_transfer(member: &Member, n: usize, omega: f64) -> Transfer {
+    match member.piece(n) {
+        Member::Euler(e) => e.transfer(omega),
+        other => other.transfer(omega),
+    }
 }
 
 /// Applies the station's held unknowns: of the two states, the combination that satisfies a held

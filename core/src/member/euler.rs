@@ -43,9 +43,10 @@ impl Euler {
     /// The transfer matrix of the member at ω in the state (w, θ, Q, M) of [`super::transfer`],
     /// from the Krylov–Duncan functions (summed as series, so only for members with λ below
     /// about 2: the sweep cuts longer ones).
+    #[inline(always)]
     pub(crate) fn transfer(&self, omega: f64) -> Transfer {
         let b4 = self.m * omega * omega / self.ei;
-        let [k1, k2, k3, k4] = krylov(b4, self.length);
+        let [k1, k2, k3, k4] = krylov_inline(b4, self.length);
         let ei = self.ei;
         Transfer::from_full(&[
             [k1, k2, -k4 / ei, k3 / ei],
@@ -85,6 +86,13 @@ impl Euler {
 /// ninth below 1e-20 of the first; beyond it the terms are summed until they stop changing the
 /// sums.
 pub(super) fn krylov(beta4: f64, x: f64) -> [f64; 4] {
+    krylov_inline(beta4, x)
+}
+
+/// [`krylov`], inlined where it is called: the transfer matrix of the station sweep's pieces
+/// (see [`Euler::transfer`]).
+#[inline(always)]
+fn krylov_inline(beta4: f64, x: f64) -> [f64; 4] {
     let u = beta4 * x.powi(4);
     let powers = [1.0, x, x * x, x * x * x];
     if u <= HORNER_LIMIT {

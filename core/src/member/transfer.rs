@@ -32,6 +32,7 @@ pub(crate) struct Transfer {
 
 impl Transfer {
     /// Builds the blocks from a full 4×4 transfer matrix in the order (w, θ, Q, M).
+    #[inline(always)]
     pub(crate) fn from_full(t: &[[f64; 4]; 4]) -> Transfer {
         let block = |r: usize, c: usize| [[t[r][c], t[r][c + 1]], [t[r + 1][c], t[r + 1][c + 1]]];
         let (t11, t12, t21, t22) = (block(0, 0), block(0, 2), block(2, 0), block(2, 2));
