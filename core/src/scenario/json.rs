@@ -20,6 +20,13 @@ pub(crate) struct Node<'a> {
     path: FieldPath,
 }
 
+/// Field names for a message, written only when one is refused.
+#[cold]
+#[inline(never)]
+fn listed(names: &[&str]) -> String {
+    names.join(", ")
+}
+
 /// What kind of JSON a value is, for messages.
 fn describe(v: &Value) -> &'static str {
     match v {
@@ -80,7 +87,6 @@ impl<'a> Node<'a> {
     #[inline(never)]
     pub(crate) fn fields(&self, what: &str, allowed: &[&str]) -> Result<&'a Map<String, Value>> {
         let map = self.object(what)?;
-        let allowed_here = || allowed.join(", ");
         match map.keys().find(|k| !allowed.contains(&k.as_str())) {
             // An empty name has no place of its own: the error stands at the object holding it.
             Some(unknown) if unknown.is_empty() => {
@@ -90,14 +96,14 @@ impl<'a> Node<'a> {
                     format!(
                         "{whose} a field with an empty name; give its name or remove it (allowed here: \
                          {})",
-                        allowed_here()
+                        listed(allowed)
                     ),
                 ))
             }
             // The path ends with the unknown name, so the message need not repeat it.
             Some(unknown) => Err(Error::new(
                 ErrorKind::Syntax,
-                format!("this field name is not known; allowed here: {}", allowed_here()),
+                format!("this field name is not known; allowed here: {}", listed(allowed)),
             )
             .at(self.child_path(unknown))),
             None => Ok(map),

@@ -177,21 +177,21 @@ pub fn convert_field(
 /// times on every edit, and writing each conversion's record in words is most of the cost of
 /// reading one), so the last texts read without error are remembered, with what they gave.
 pub fn parse(text: &str, kind: Kind) -> Result<Converted, Error> {
-    let found = READ.with(|read| {
-        read.borrow().iter().find(|(k, t, _)| *k == kind && t == text).map(|(_, _, c)| c.clone())
-    });
-    if let Some(converted) = found {
-        return Ok(converted);
-    }
-    let converted = parse_afresh(text, kind)?;
     READ.with(|read| {
         let mut read = read.borrow_mut();
-        if read.len() >= REMEMBERED {
-            read.clear();
-        }
-        read.push((kind, text.to_string(), converted.clone()));
-    });
-    Ok(converted)
+        let at = match read.iter().position(|(k, t, _)| *k == kind && t == text) {
+            Some(at) => at,
+            None => {
+                let converted = parse_afresh(text, kind)?;
+                if read.len() >= REMEMBERED {
+                    read.clear();
+                }
+                read.push((kind, text.to_string(), converted));
+                read.len() - 1
+            }
+        };
+        Ok(read[at].2.clone())
+    })
 }
 
 /// How many texts [`parse`] remembers: more than a large scenario writes with units. A list,
