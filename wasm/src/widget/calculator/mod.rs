@@ -313,7 +313,8 @@ impl Calculator {
 
     fn unmark(&mut self) {
         // One look through the editor, on every answer: the messages go, the marks come off.
-        let marks = ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
+        let marks =
+            ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
         for mark in dom::all(&self.root, marks) {
             if mark.class_list().contains("mb-field-error") {
                 mark.remove();
