@@ -232,17 +232,16 @@ fn in_place(old: &str, a: &Node, new: &str, b: &Node, patches: &mut Vec<Patch>) 
 /// Whether two elements hold as many children, with the same text (or none) between them and
 /// at either end, so that their children can be changed pair by pair and the text left as it is.
 fn same_gaps(old: &str, a: &Node, new: &str, b: &Node) -> bool {
-    let gaps = |text: &str, n: &Node| {
-        let mut at = n.open_end;
-        let mut out = Vec::with_capacity(n.children.len() + 1);
-        for c in &n.children {
-            out.push((at, c.start));
-            at = c.end;
-        }
-        out.push((at, n.close_start));
-        out.into_iter().map(|(from, to)| text[from..to].to_string()).collect::<Vec<_>>()
+    // The text before child `i` (after the last child for `i` = their number).
+    let gap = |n: &Node, i: usize| {
+        let from = if i == 0 { n.open_end } else { n.children[i - 1].end };
+        (from, n.children.get(i).map_or(n.close_start, |c| c.start))
     };
-    a.children.len() == b.children.len() && gaps(old, a) == gaps(new, b)
+    a.children.len() == b.children.len()
+        && (0..=a.children.len()).all(|i| {
+            let ((p, q), (r, t)) = (gap(a, i), gap(b, i));
+            old[p..q] == new[r..t]
+        })
 }
 
 /// The attributes of a start tag, from just after its name to its end (`>` or `/>`), as
@@ -276,32 +275,21 @@ fn attributes(tag: &str) -> Option<Vec<(&str, &str)>> {
     }
 }
 
-/// Text or an attribute value as the browser reads it: the escapes [`super::escape`] writes and
-/// numeric character references undone. `None` for any other reference (our markup has none).
+/// Text or an attribute value as the browser reads it: the escapes [`super::escape`] writes
+/// undone. `None` for any other reference (our markup has none), so that the element is
+/// replaced and the browser reads it instead.
 fn unescape(raw: &str) -> Option<String> {
     let mut out = String::with_capacity(raw.len());
     let mut rest = raw;
     while let Some(at) = rest.find('&') {
         out.push_str(&rest[..at]);
-        let end = rest[at..].find(';')? + at;
-        let name = &rest[at + 1..end];
-        let c = match name {
-            "amp" => '&',
-            "lt" => '<',
-            "gt" => '>',
-            "quot" => '"',
-            "apos" => '\'',
-            _ => {
-                let digits = name.strip_prefix('#')?;
-                let code = match digits.strip_prefix(['x', 'X']) {
-                    Some(hex) => u32::from_str_radix(hex, 16).ok()?,
-                    None => digits.parse().ok()?,
-                };
-                char::from_u32(code).filter(|&c| c != '\0')?
-            }
-        };
+        rest = &rest[at..];
+        let (c, len) = [("&amp;", '&'), ("&lt;", '<'), ("&gt;", '>'), ("&quot;", '"'), ("&#39;", '\'')]
+            .into_iter()
+            .find(|(e, _)| rest.starts_with(e))
+            .map(|(e, c)| (c, e.len()))?;
         out.push(c);
-        rest = &rest[end + 1..];
+        rest = &rest[len..];
     }
     out.push_str(rest);
     Some(out)
