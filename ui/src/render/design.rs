@@ -93,7 +93,8 @@ fn moves(report: &Report) -> String {
          <div class=\"mb-table-wrap\"><table class=\"mb-moves-table\"><thead><tr><th scope=\"col\">Mode</th>\
          <th scope=\"col\">Inputs, strongest first: change in frequency for 1 % more of the input</th></tr></thead>\
          <tbody>{rows}</tbody></table></div><p class=\"mb-note\">Each figure is ∂ln f/∂ln p, the logarithmic \
-         derivative of the mode's frequency with respect to the input, by central differences on the exact solver: \
+         derivative of the mode's frequency with respect to the input, from the exact mode shape (for a length or \
+         a position, by central differences on the exact solver): \
          +0.5 % means 1 % more of the input raises the mode 0.5 %; a minus sign lowers it. It holds for small \
          changes; re-solve for large ones.</p></section>"
     )
