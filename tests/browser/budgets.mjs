@@ -9,7 +9,7 @@ import { readFileSync, statSync } from "node:fs";
 import { cpus } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
-import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, openLive, pageWeight, startSite } from "./support.mjs";
+import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, median, openLive, pageWeight, startSite } from "./support.mjs";
 
 // Kilobytes are 1000 bytes here, the stricter reading of each budget.
 const KB = 1000;
@@ -20,11 +20,6 @@ const TYPING_PAUSE_MS = 150;
 // Which parts to measure: all by default, or those named in MODEBENCH_BUDGETS (a comma-separated
 // list of sizes, weight, cold, edit, design), to time one part again without the others.
 const PARTS = new Set((process.env.MODEBENCH_BUDGETS ?? "sizes,weight,cold,edit,design").split(","));
-
-function median(values) {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)];
-}
 
 function line(what, value, unit, budget) {
   const shown = unit === "KB" ? (value / KB).toFixed(1) : value.toFixed(1);

@@ -40,7 +40,7 @@ import { spawn } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { createInterface } from "node:readline";
-import { ROOT, closeAll, launch } from "./support.mjs";
+import { ROOT, closeAll, launch, median } from "./support.mjs";
 
 const ENGINE = resolve(process.env.MODEBENCH_TIMING_ENGINE ?? join(ROOT, "build", "timing"));
 const PAIRS = Number(process.env.MODEBENCH_PAIRS ?? 21);
@@ -65,11 +65,6 @@ const WORKLOADS = [
   { key: "exact", name: "exact, 10 modes, budget beam", runs: 400, bench: "benchExact" },
   { key: "elements", name: "finite elements, 200 elements, 10 modes, budget beam", runs: 60, bench: "benchElements" },
 ];
-
-const median = (xs) => {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
-};
 
 // The native side: one process for the whole run, asked for one batch at a time.
 function startNative() {

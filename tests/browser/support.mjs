@@ -57,6 +57,12 @@ export const BUDGET = {
 // path of edits (or read back from a file and solved afresh) agrees with the first to
 // round-off, not always to the last bit; the engine promises 1e-12 relative, and two results
 // that close are the same answer.
+// The middle value (the mean of the two middle ones for an even count).
+export function median(values) {
+  const s = [...values].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+}
+
 export const SAME = 1e-12;
 export const same = (a, b) => Math.abs(a - b) <= SAME * Math.abs(b);
 export const allSame = (a, b) => a.length === b.length && a.every((x, i) => same(x, b[i]));

@@ -279,7 +279,7 @@ impl Calculator {
         }
         if let Some(summary) = dom::first(&self.root, ".mb-summary") {
             let stale = self.error.is_some();
-            let _ = summary.class_list().toggle_with_force("mb-stale-summary", stale);
+            self.grey_summary(stale);
             let html = render::summary_inner(self.last.as_ref(), stale);
             self.summary_shown = Some(patch::draw(&summary, self.summary_shown.as_ref(), html));
         }
