@@ -4,12 +4,14 @@
 //! redraws only the results, the plot and the error marks, so the input keeps its focus and
 //! caret; structural edits redraw the editor too. What happens on each event is in [`events`],
 //! what happens on each answer from the worker in [`answers`], what is done to the reader's cases
-//! (and their links and files) in [`cases`].
+//! (and their links and files) in [`cases`], how an error is marked beside its field in
+//! [`marks`].
 
 mod answers;
 mod cases;
 mod events;
 mod focus;
+mod marks;
 mod patch;
 
 use super::io::Io;
@@ -21,8 +23,7 @@ use crate::worker::latest::Purpose;
 use modebench::{Error, Report};
 use modebench_ui::cases::Cases;
 use serde_json::Value;
-use wasm_bindgen::JsCast;
-use web_sys::{Element, HtmlInputElement};
+use web_sys::Element;
 
 /// The event by which the tap-test panel hands the calculator the frequencies it measured.
 pub(in crate::widget) const MEASURED_EVENT: &str = "modebench-measured";
@@ -301,65 +302,6 @@ impl Calculator {
             let _ = results.set_attribute("aria-busy", "true");
         }
         self.grey_summary(true);
-    }
-
-    /// Takes the last error's marks out of the editor and places the error's, if any.
-    fn mark_error(&mut self) {
-        self.unmark();
-        let Some(error) = &self.error else { return };
-        self.place_error(error);
-        self.tie_errors();
-    }
-
-    fn unmark(&mut self) {
-        // One look through the editor, on every answer: the messages go, the marks come off.
-        let marks =
-            ".mb-editor :is(.mb-field-error,.mb-invalid,.mb-unfilled,[aria-describedby],[aria-invalid])";
-        for mark in dom::all(&self.root, marks) {
-            if mark.class_list().contains("mb-field-error") {
-                mark.remove();
-                continue;
-            }
-            let _ = mark.class_list().remove_2("mb-invalid", "mb-unfilled");
-            let _ = mark.remove_attribute("aria-describedby");
-            let _ = mark.remove_attribute("aria-invalid");
-        }
-    }
-
-    /// Puts the message for `error` beside its field, or above the editor.
-    fn place_error(&self, error: &Error) {
-        let general = dom::first(&self.root, ".mb-general-errors");
-        let inputs = dom::all(&self.root, ".mb-editor [data-field]");
-        let paths: Vec<String> =
-            inputs.iter().map(|i| i.get_attribute("data-field").unwrap_or_default()).collect();
-        let refs: Vec<&str> = paths.iter().map(String::as_str).collect();
-        let place = render::placement(&error.path, &refs).and_then(|p| paths.iter().position(|q| q == p));
-        match place.and_then(|i| inputs.get(i)) {
-            Some(input) => {
-                // A required field still empty is asked for, not marked wrong.
-                let unfilled = input
-                    .dyn_ref::<HtmlInputElement>()
-                    .filter(|i| i.type_() == "text")
-                    .is_some_and(|i| render::is_unfilled(error, &i.value()));
-                if !unfilled {
-                    let _ = input.set_attribute("aria-invalid", "true");
-                }
-                if let Some(field) = input.closest(".mb-field").ok().flatten() {
-                    let (class, html) = if unfilled {
-                        ("mb-unfilled", render::needed_html(error))
-                    } else {
-                        ("mb-invalid", render::field_error_html(error, false))
-                    };
-                    let _ = field.class_list().add_1(class);
-                    let _ = field.insert_adjacent_html("beforeend", &html);
-                }
-            }
-            None => {
-                if let Some(g) = general {
-                    g.set_inner_html(&render::field_error_html(error, true));
-                }
-            }
-        }
     }
 
     /// Shows the offer to open the reader's set-aside case again under the calculator's head,
