@@ -233,6 +233,47 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
+  test("the worker's warm-up after its first answer sends the page nothing and gives way to an edit", { timeout: TEST_TIMEOUT_MS }, async () => {
+    const { context } = await isolatedContext(browser);
+    // Every request to a worker and every message back, by id.
+    await context.addInitScript(() => {
+      window.__sent = [];
+      window.__answered = [];
+      const post = Worker.prototype.postMessage;
+      Worker.prototype.postMessage = function (message, ...rest) {
+        window.__sent.push(message?.id);
+        return post.call(this, message, ...rest);
+      };
+      const onmessage = Object.getOwnPropertyDescriptor(Worker.prototype, "onmessage");
+      Object.defineProperty(Worker.prototype, "onmessage", {
+        set(f) {
+          onmessage.set.call(this, f && ((event) => (window.__answered.push(event.data?.id), f(event))));
+        },
+        get() {
+          return onmessage.get.call(this);
+        },
+      });
+    });
+    const { page, problems } = await watchedPage(context);
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
+    const [expected] = await solveHere(page, [boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s))]);
+    // Typed at once, while the worker warms up on the page's example.
+    await page.locator(TIP_MASS).fill("3.1 kg");
+    await page.waitForFunction(
+      ([selector, hz, tolerance]) => Math.abs(Number(document.querySelector(selector)?.dataset.hz) - hz) <= tolerance * hz,
+      [MODE_1, expected.hz, SAME],
+    );
+    // Long after any warm-up: one answer for every request, and none for anything else.
+    await page.waitForTimeout(1500);
+    const { sent, answered } = await page.evaluate(() => ({ sent: window.__sent, answered: window.__answered }));
+    assert.ok(sent.length >= 2, `requests: ${sent}`);
+    assert.deepEqual(answered, sent, "the worker answered exactly what it was asked, in order");
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("a stored case too slow to solve leaves the page live on its example, and is offered back", { timeout: TEST_TIMEOUT_MS }, async () => {
     const key = "modebench:/" + BOOM + "#0";
     const mine = boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s));
