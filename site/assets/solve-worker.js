@@ -12,30 +12,35 @@ import init, { solveForPage } from "./modebench_solver.js";
 
 const ready = init();
 
-// After its first answer, the worker solves the same scenario a few times more while the page
-// asks nothing of it. The browser runs new code as compiled quickly and compiles each function
-// again, optimised, once it has run enough, on background threads that share the cores with the
-// page and this worker; without this, that happened during the reader's first edits and slowed
+// After its first answer, the worker solves the same scenario again and again while the page
+// asks nothing of it. The browser runs new code as compiled quickly and compiles a function
+// again, optimised, once it has run enough (a function run once per solve, after a hundred solves
+// or so), on background threads that share the cores with the page and this worker: without the
+// warm-up that compiling, a second and a half of it for a documented example on the two-core
+// machine of docs/performance.md, fell on the reader's first hundred edits and slowed some of
 // them. One solve per task, so that an edit waits at most for the one under way; none once an
-// edit has come. The first solve also compiles the engine (80–140 ms for a documented example on
-// the two-core machine of docs/performance.md), so the warm-up starts only after a first solve
-// under FIRST_MS, and goes on only while a solve takes under WARM_UP_MS: a large model is not
-// warmed up.
-const WARM_UPS = 8;
-const FIRST_MS = 200;
+// edit has come. The first solve also compiles the engine, so the warm-up starts only after a
+// first solve under FIRST_MS and goes on only while each solve takes under WARM_UP_MS, for at most
+// WARM_UPS solves and WARM_UP_TOTAL_MS in all: a large model is not warmed up.
+const WARM_UPS = 120;
+const FIRST_MS = 500;
 const WARM_UP_MS = 25;
+const WARM_UP_TOTAL_MS = 400;
 let warmUps = 0;
+let warmUpLeftMs = 0;
 let answered = false;
 
 function warmUp(scenario) {
   setTimeout(() => {
-    if (warmUps <= 0) {
+    if (warmUps <= 0 || warmUpLeftMs <= 0) {
       return;
     }
     warmUps -= 1;
     const start = performance.now();
     solveForPage(scenario);
-    if (performance.now() - start < WARM_UP_MS) {
+    const ms = performance.now() - start;
+    warmUpLeftMs -= ms;
+    if (ms < WARM_UP_MS) {
       warmUp(scenario);
     }
   }, 0);
@@ -57,6 +62,7 @@ self.addEventListener("message", async (event) => {
   self.postMessage({ id, answer, view });
   if (first && answer.startsWith('{"report"') && performance.now() - start < FIRST_MS) {
     warmUps = WARM_UPS;
+    warmUpLeftMs = WARM_UP_TOTAL_MS;
     warmUp(scenario);
   }
 });
