@@ -278,7 +278,7 @@ fn resolve_custom(
 ) -> Result<ResolvedMaterial, Error> {
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        units::convert_field(quantity, kind, &field.into(), &mut conversions)
+        units::convert_key(quantity, kind, field, &mut conversions)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;
     let e = plausible(e, youngs_modulus, "youngs_modulus", "Young's modulus", MODULUS_RANGE, Kind::Pressure)?;

@@ -72,6 +72,9 @@ pub struct SegmentEcho {
 
 #[derive(Default)]
 struct Reader<'a> {
+    /// Whether only the model and the options are wanted ([`Scenario::to_model_lean`]): no
+    /// conversion records, values as written or section origins kept, the echo left bare.
+    lean: bool,
     conversions: Vec<(FieldPath, Conversion)>,
     /// Every value read, as written, by path: model checks see SI numbers, but an error should
     /// show what the user typed ("-3 kg", not "-3"). Kept as the scenario's own values, written
@@ -84,6 +87,9 @@ struct Reader<'a> {
 impl<'a> Reader<'a> {
     #[inline(never)]
     fn read(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+        if self.lean {
+            return units::convert(q, kind).map(|c| c.si).map_err(|e| e.at(path));
+        }
         self.written.push((path.clone(), q));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
@@ -93,7 +99,9 @@ impl<'a> Reader<'a> {
     fn spring(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
-                self.written.push((path.clone(), q));
+                if !self.lean {
+                    self.written.push((path.clone(), q));
+                }
                 return Ok(f64::INFINITY);
             }
         }
@@ -111,17 +119,32 @@ impl<'a> Reader<'a> {
 
     #[inline(never)]
     fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
+        if self.lean {
+            return;
+        }
         self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
 }
 
 impl Scenario {
     /// Reads every value, checks the model, and returns it with the options and an echo.
+    pub fn to_model(&self) -> Result<Inputs> {
+        self.read_model(false)
+    }
+
+    /// [`Scenario::to_model`] for the design study's trials, which use the model and the options
+    /// only: every value is read and every check made, but the echo is left bare (no unit
+    /// conversions recorded, the segments' echoes holding only their axial forces) and nothing
+    /// is kept to word an error with. An error is therefore the full reading's, read again.
+    pub(crate) fn to_model_lean(&self) -> Result<Inputs> {
+        self.read_model(true).or_else(|_| self.to_model())
+    }
+
     /// Never inlined: the solve and the design study's trials both call it, and the worker's
     /// engine, built for speed, would otherwise carry the whole reader twice.
     #[inline(never)]
-    pub fn to_model(&self) -> Result<Inputs> {
-        let mut r = Reader::default();
+    fn read_model(&self, lean: bool) -> Result<Inputs> {
+        let mut r = Reader { lean, ..Reader::default() };
         let mut segments = Vec::with_capacity(self.segments.len());
         let mut echoes = Vec::with_capacity(self.segments.len());
         let mut origins = Vec::with_capacity(self.segments.len());
@@ -290,6 +313,10 @@ fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -
             }
             None => None,
         };
+        if r.lean {
+            let axial_force = axial_force(r, s, path, thermal)?;
+            return Ok((segment, SegmentEcho { axial_force, ..SegmentEcho::default() }, None));
+        }
         let echo = SegmentEcho {
             section: Some(section_name(section_input)),
             material: Some(mat.name.clone()),

@@ -57,17 +57,28 @@ impl<'a> Evaluator<'a> {
 
     /// The elastic frequencies (Hz) with the inputs set to `values`.
     pub fn frequencies(&self, values: &[f64]) -> Result<Vec<f64>> {
-        let inputs = self.read(values)?;
+        let inputs = self.reading(values, true)?;
         self.solve(&inputs.model, inputs.options.modes)
     }
 
     /// The scenario read and checked with the inputs set to `values`, not solved.
     pub fn read(&self, values: &[f64]) -> Result<crate::scenario::Inputs> {
+        self.reading(values, false)
+    }
+
+    /// The model with the inputs set to `values`, not solved: [`Evaluator::read`]'s model (and
+    /// error), read without the echo that the design tools do not use.
+    pub fn model(&self, values: &[f64]) -> Result<crate::model::Model> {
+        self.reading(values, true).map(|i| i.model)
+    }
+
+    fn reading(&self, values: &[f64], lean: bool) -> Result<crate::scenario::Inputs> {
+        let to_model = |s: &Scenario| if lean { s.to_model_lean() } else { s.to_model() };
         let whole = values.len() >= self.paths.len() && !values.iter().any(|v| v.is_nan());
         if let Some(scenario) = self.typed.as_ref().filter(|_| whole) {
             let mut scenario = scenario.borrow_mut();
             if typed::write(&mut scenario, self.paths, values).is_some() {
-                return scenario.to_model();
+                return to_model(&scenario);
             }
         }
         let mut trial = self.trial.borrow_mut();
@@ -76,10 +87,10 @@ impl<'a> Evaluator<'a> {
         }
         let scenario =
             if self.ready { Scenario::from_ready_value(&trial)? } else { Scenario::from_value(&trial)? };
-        scenario.to_model()
+        to_model(&scenario)
     }
 
-    /// The first `modes` elastic frequencies (Hz) of a model read by [`Evaluator::read`],
+    /// The first `modes` elastic frequencies (Hz) of a model read by [`Evaluator::model`],
     /// started from the frequencies of the last solve.
     pub fn solve(&self, model: &crate::model::Model, modes: usize) -> Result<Vec<f64>> {
         let hints = self.hints.borrow().clone();
