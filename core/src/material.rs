@@ -231,12 +231,8 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
             let mut m = resolve_custom(youngs_modulus, density, poisson.as_ref(), shear_modulus.as_ref())?;
             if let Some(q) = thermal_expansion {
                 let mut conversions = Vec::new();
-                let alpha = units::convert_field(
-                    q,
-                    Kind::ThermalExpansion,
-                    &"thermal_expansion".into(),
-                    &mut conversions,
-                )?;
+                let alpha =
+                    units::convert_key(q, Kind::ThermalExpansion, "thermal_expansion", &mut conversions)?;
                 let field = &crate::schema::MATERIAL_RECORD_FIELDS[1];
                 if let Some((kind, message)) = field.range.refuse(alpha, field.what, field.unit(), false) {
                     return Err(Error::new(kind, message)
