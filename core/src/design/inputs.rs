@@ -2,9 +2,10 @@
 //! JSON), the schema's field there, its value in SI, how to write a new value in, and the
 //! function from input values to natural frequencies that the tools work on.
 //!
-//! A new value is written into a copy of the scenario, which is read and checked again like any
-//! scenario, so every derived property (a section's second moment from its wall, a mass per
-//! length from a density) follows, and a value the model refuses is refused with its message.
+//! A new value is written into a copy of the scenario (the scenario as read, `inputs/typed.rs`,
+//! or its JSON), whose model is read and checked again like any scenario's, so every derived
+//! property (a section's second moment from its wall, a mass per length from a density)
+//! follows, and a value the model refuses is refused with its message.
 //! A preset material's modulus or density becomes a custom material of the preset's properties;
 //! an end's spring on a pinned, clamped, free or guided end makes it an elastic end of the same
 //! springs (pinned: translation rigid, rotation free).
@@ -241,6 +242,7 @@ fn child_keys(v: &Value, name: &str) -> Vec<String> {
 
 /// Writes an SI value (infinite: "rigid") at an input's path, turning a preset material into its
 /// properties and a named end into its springs first.
+#[inline(never)]
 pub fn set(doc: &mut Value, path: &FieldPath, value: f64) -> Result<()> {
     let steps = path.steps();
     let Some((Step::Key(last), parents)) = steps.split_last() else {

@@ -6,9 +6,9 @@
 //! custom one of the preset's values (α too, and the shear modulus where it is not E/2(1+ν)), a
 //! named end becomes an elastic end of its springs ("rigid" for infinite), an absent extra mass,
 //! submerged part or optional field is created, and a value is a number in SI ("rigid" when
-//! infinite). Anything else (a path this writer does not know) leaves the evaluator on the JSON,
-//! and so does a scenario whose typed copy does not read as the JSON written with the same
-//! values would: [`prepare`] checks that once, on values of its own.
+//! infinite). Anything else (a path this writer does not know, or one the JSON writer refuses)
+//! leaves the evaluator on the JSON. The tests hold the typed copy to the JSON written with the
+//! same values, read ([`prepare`]), for every documented scenario and the cases beside them.
 
 use crate::material::MaterialInput;
 use crate::path::{FieldPath, Step};
@@ -25,8 +25,13 @@ enum Target<'s> {
 }
 
 /// The typed copy of `doc` (a scenario made ready, its tolerances split off) with every input at
-/// `paths` made writable, when each path is one this writer knows and the copy, written with
-/// values of its own, reads as the JSON written with them does.
+/// `paths` made writable, when each path is one this writer knows and the JSON writer takes too
+/// (it refuses, for one, to create an extra mass where the scenario holds a null).
+///
+/// The tests also read the JSON written with values of its own and hold the typed copy, written
+/// with the same values, to be the scenario read from it; the solver's engine is spared that
+/// check's code (a comparison of whole scenarios, 12 KB of it).
+#[inline(never)]
 pub(super) fn prepare(doc: &Value, paths: &[FieldPath]) -> Option<Scenario> {
     let mut scenario = Scenario::from_ready_value(doc).ok()?;
     for path in paths {
@@ -38,13 +43,23 @@ pub(super) fn prepare(doc: &Value, paths: &[FieldPath]) -> Option<Scenario> {
     for (path, v) in paths.iter().zip(&probe) {
         super::set(&mut json, path, *v).ok()?;
     }
-    let expected = Scenario::from_ready_value(&json).ok()?;
+    same(&scenario, paths, &probe, &json).then_some(scenario)
+}
+
+/// Whether the typed copy written with `probe` is the scenario read from `json`, written so.
+#[cfg(test)]
+fn same(scenario: &Scenario, paths: &[FieldPath], probe: &[f64], json: &Value) -> bool {
     let mut written = scenario.clone();
-    write(&mut written, paths, &probe)?;
-    (written == expected).then_some(scenario)
+    write(&mut written, paths, probe).is_some() && Scenario::from_ready_value(json).ok() == Some(written)
+}
+
+#[cfg(not(test))]
+fn same(_: &Scenario, _: &[FieldPath], _: &[f64], _: &Value) -> bool {
+    true
 }
 
 /// Writes `values` (SI, none NaN) at `paths` of a scenario that [`prepare`] made.
+#[inline(never)]
 pub(super) fn write(scenario: &mut Scenario, paths: &[FieldPath], values: &[f64]) -> Option<()> {
     for (path, v) in paths.iter().zip(values) {
         let q = quantity(*v);
@@ -65,21 +80,129 @@ fn quantity(v: f64) -> Quantity {
     }
 }
 
+/// The keys the writer knows, each compared once per step: one table, not a comparison of text
+/// at every arm (the solver's engine carries this code).
+#[derive(Clone, Copy, PartialEq)]
+enum K {
+    Left,
+    Right,
+    Attachments,
+    Segments,
+    Position,
+    Section,
+    Material,
+    ExtraMass,
+    Submerged,
+    Length,
+    FlexuralRigidity,
+    MassPerLength,
+    ShearRigidity,
+    RotaryInertiaPerLength,
+    AxialForce,
+    TemperatureChange,
+    Width,
+    Depth,
+    Diameter,
+    OuterDiameter,
+    Wall,
+    FlangeWidth,
+    FlangeThickness,
+    WebThickness,
+    Area,
+    SecondMoment,
+    ShearCoefficient,
+    YoungsModulus,
+    Density,
+    Poisson,
+    ShearModulus,
+    ThermalExpansion,
+    ContentsDensity,
+    Lining,
+    WaterDensity,
+    AddedMassCoefficient,
+    Translational,
+    Rotational,
+}
+
+const KEYS: [(&str, K); 38] = [
+    ("left", K::Left),
+    ("right", K::Right),
+    ("attachments", K::Attachments),
+    ("segments", K::Segments),
+    ("position", K::Position),
+    ("section", K::Section),
+    ("material", K::Material),
+    ("extra_mass", K::ExtraMass),
+    ("submerged", K::Submerged),
+    ("length", K::Length),
+    ("flexural_rigidity", K::FlexuralRigidity),
+    ("mass_per_length", K::MassPerLength),
+    ("shear_rigidity", K::ShearRigidity),
+    ("rotary_inertia_per_length", K::RotaryInertiaPerLength),
+    ("axial_force", K::AxialForce),
+    ("temperature_change", K::TemperatureChange),
+    ("width", K::Width),
+    ("depth", K::Depth),
+    ("diameter", K::Diameter),
+    ("outer_diameter", K::OuterDiameter),
+    ("wall", K::Wall),
+    ("flange_width", K::FlangeWidth),
+    ("flange_thickness", K::FlangeThickness),
+    ("web_thickness", K::WebThickness),
+    ("area", K::Area),
+    ("second_moment", K::SecondMoment),
+    ("shear_coefficient", K::ShearCoefficient),
+    ("youngs_modulus", K::YoungsModulus),
+    ("density", K::Density),
+    ("poisson", K::Poisson),
+    ("shear_modulus", K::ShearModulus),
+    ("thermal_expansion", K::ThermalExpansion),
+    ("contents_density", K::ContentsDensity),
+    ("lining", K::Lining),
+    ("water_density", K::WaterDensity),
+    ("added_mass_coefficient", K::AddedMassCoefficient),
+    ("translational", K::Translational),
+    ("rotational", K::Rotational),
+];
+
+/// A step of a path: a key the writer knows, another key (an attachment's own field), an index.
+#[derive(Clone, Copy)]
+enum Part<'p> {
+    Known(K),
+    Name(&'p str),
+    Index(usize),
+}
+
+fn part(step: &Step) -> Part<'_> {
+    match step {
+        Step::Index(i) => Part::Index(*i),
+        Step::Key(k) => {
+            KEYS.iter().find(|(name, _)| name == k).map_or(Part::Name(k), |(_, key)| Part::Known(*key))
+        }
+    }
+}
+
 /// The place a path names in the typed scenario, turning a preset material or a named end into
 /// its values and creating an absent extra mass or optional field on the way.
+#[inline(never)]
 fn target<'s>(s: &'s mut Scenario, path: &FieldPath) -> Option<Target<'s>> {
-    use Step::{Index, Key};
+    use Part::{Index, Known, Name};
     let steps = path.steps();
-    match steps {
-        [Key(end), Key(k)] if end == "left" || end == "right" => {
-            let end = if end == "left" { &mut s.left } else { &mut s.right };
-            end_spring(end, k)
+    if steps.len() > 5 {
+        return None;
+    }
+    let mut parts = [Part::Index(0); 5];
+    for (p, step) in parts.iter_mut().zip(steps) {
+        *p = part(step);
+    }
+    match parts[..steps.len()] {
+        [Known(K::Left), Known(k)] => end_spring(&mut s.left, k),
+        [Known(K::Right), Known(k)] => end_spring(&mut s.right, k),
+        [Known(K::Attachments), Index(i), Known(K::Position)] => {
+            Some(Target::Value(&mut s.attachments.get_mut(i)?.position))
         }
-        [Key(list), Index(i), Key(k)] if list == "attachments" => {
-            let a = s.attachments.get_mut(*i)?;
-            if k == schema::POSITION.name {
-                return Some(Target::Value(&mut a.position));
-            }
+        [Known(K::Attachments), Index(i), Name(k)] => {
+            let a = s.attachments.get_mut(i)?;
             let own = schema::find(&schema::ATTACHMENTS, a.kind.id())?.fields;
             let rank = |name: &str| own.iter().position(|f| f.name == name);
             let field = own.iter().find(|f| f.name == k && f.form == schema::Form::Quantity)?;
@@ -95,41 +218,41 @@ fn target<'s>(s: &'s mut Scenario, path: &FieldPath) -> Option<Target<'s>> {
             };
             Some(Target::Value(&mut a.values[at].1))
         }
-        [Key(list), Index(i), rest @ ..] if list == "segments" => segment(s.segments.get_mut(*i)?, rest),
+        [Known(K::Segments), Index(i), ref rest @ ..] => segment(s.segments.get_mut(i)?, rest),
         _ => None,
     }
 }
 
-fn segment<'s>(s: &'s mut SegmentInput, rest: &[Step]) -> Option<Target<'s>> {
-    use Step::Key;
+fn segment<'s>(s: &'s mut SegmentInput, rest: &[Part<'_>]) -> Option<Target<'s>> {
+    use Part::Known;
     let optional = Target::Optional;
-    Some(match rest {
-        [Key(k)] => optional(match k.as_str() {
-            "length" => &mut s.length,
-            "flexural_rigidity" => &mut s.flexural_rigidity,
-            "mass_per_length" => &mut s.mass_per_length,
-            "shear_rigidity" => &mut s.shear_rigidity,
-            "rotary_inertia_per_length" => &mut s.rotary_inertia_per_length,
-            "axial_force" => &mut s.axial_force,
-            "temperature_change" => &mut s.temperature_change,
+    Some(match *rest {
+        [Known(k)] => optional(match k {
+            K::Length => &mut s.length,
+            K::FlexuralRigidity => &mut s.flexural_rigidity,
+            K::MassPerLength => &mut s.mass_per_length,
+            K::ShearRigidity => &mut s.shear_rigidity,
+            K::RotaryInertiaPerLength => &mut s.rotary_inertia_per_length,
+            K::AxialForce => &mut s.axial_force,
+            K::TemperatureChange => &mut s.temperature_change,
             _ => return None,
         }),
-        [Key(part), Key(k)] if part == "section" => section(s.section.as_mut()?, k)?,
-        [Key(part), Key(k)] if part == "material" => material(s.material.as_mut()?, k)?,
-        [Key(part), Key(k)] if part == "extra_mass" => {
+        [Known(K::Section), Known(k)] => section(s.section.as_mut()?, k)?,
+        [Known(K::Material), Known(k)] => material(s.material.as_mut()?, k)?,
+        [Known(K::ExtraMass), Known(k)] => {
             let extra = s.extra_mass.get_or_insert_with(Default::default);
-            optional(match k.as_str() {
-                "contents_density" => &mut extra.contents_density,
-                "lining" => &mut extra.lining,
+            optional(match k {
+                K::ContentsDensity => &mut extra.contents_density,
+                K::Lining => &mut extra.lining,
                 _ => return None,
             })
         }
-        [Key(part), Key(sub), Key(k)] if part == "extra_mass" && sub == "submerged" => {
+        [Known(K::ExtraMass), Known(K::Submerged), Known(k)] => {
             let extra = s.extra_mass.get_or_insert_with(Default::default);
             let submerged = extra.submerged.get_or_insert_with(Default::default);
-            optional(match k.as_str() {
-                "water_density" => &mut submerged.water_density,
-                "added_mass_coefficient" => &mut submerged.added_mass_coefficient,
+            optional(match k {
+                K::WaterDensity => &mut submerged.water_density,
+                K::AddedMassCoefficient => &mut submerged.added_mass_coefficient,
                 _ => return None,
             })
         }
@@ -137,32 +260,32 @@ fn segment<'s>(s: &'s mut SegmentInput, rest: &[Step]) -> Option<Target<'s>> {
     })
 }
 
-fn section<'s>(s: &'s mut SectionInput, k: &str) -> Option<Target<'s>> {
+fn section(s: &mut SectionInput, k: K) -> Option<Target<'_>> {
     use Target::{Optional, Value};
     Some(match (s, k) {
-        (SectionInput::Rectangle { width, .. }, "width") => Value(width),
-        (SectionInput::Rectangle { depth, .. }, "depth") => Value(depth),
-        (SectionInput::Round { diameter }, "diameter") => Value(diameter),
-        (SectionInput::Tube { outer_diameter, .. }, "outer_diameter") => Value(outer_diameter),
-        (SectionInput::Tube { wall, .. }, "wall") => Value(wall),
-        (SectionInput::Pipe { outer_diameter, .. }, "outer_diameter") => Optional(outer_diameter),
-        (SectionInput::Pipe { wall, .. }, "wall") => Optional(wall),
-        (SectionInput::RectangularTube { width, .. }, "width") => Value(width),
-        (SectionInput::RectangularTube { depth, .. }, "depth") => Value(depth),
-        (SectionInput::RectangularTube { wall, .. }, "wall") => Value(wall),
-        (SectionInput::IBeam { depth, .. }, "depth") => Value(depth),
-        (SectionInput::IBeam { flange_width, .. }, "flange_width") => Value(flange_width),
-        (SectionInput::IBeam { flange_thickness, .. }, "flange_thickness") => Value(flange_thickness),
-        (SectionInput::IBeam { web_thickness, .. }, "web_thickness") => Value(web_thickness),
-        (SectionInput::Custom { area, .. }, "area") => Value(area),
-        (SectionInput::Custom { second_moment, .. }, "second_moment") => Value(second_moment),
-        (SectionInput::Custom { depth, .. }, "depth") => Optional(depth),
-        (SectionInput::Custom { shear_coefficient, .. }, "shear_coefficient") => Optional(shear_coefficient),
+        (SectionInput::Rectangle { width, .. }, K::Width) => Value(width),
+        (SectionInput::Rectangle { depth, .. }, K::Depth) => Value(depth),
+        (SectionInput::Round { diameter }, K::Diameter) => Value(diameter),
+        (SectionInput::Tube { outer_diameter, .. }, K::OuterDiameter) => Value(outer_diameter),
+        (SectionInput::Tube { wall, .. }, K::Wall) => Value(wall),
+        (SectionInput::Pipe { outer_diameter, .. }, K::OuterDiameter) => Optional(outer_diameter),
+        (SectionInput::Pipe { wall, .. }, K::Wall) => Optional(wall),
+        (SectionInput::RectangularTube { width, .. }, K::Width) => Value(width),
+        (SectionInput::RectangularTube { depth, .. }, K::Depth) => Value(depth),
+        (SectionInput::RectangularTube { wall, .. }, K::Wall) => Value(wall),
+        (SectionInput::IBeam { depth, .. }, K::Depth) => Value(depth),
+        (SectionInput::IBeam { flange_width, .. }, K::FlangeWidth) => Value(flange_width),
+        (SectionInput::IBeam { flange_thickness, .. }, K::FlangeThickness) => Value(flange_thickness),
+        (SectionInput::IBeam { web_thickness, .. }, K::WebThickness) => Value(web_thickness),
+        (SectionInput::Custom { area, .. }, K::Area) => Value(area),
+        (SectionInput::Custom { second_moment, .. }, K::SecondMoment) => Value(second_moment),
+        (SectionInput::Custom { depth, .. }, K::Depth) => Optional(depth),
+        (SectionInput::Custom { shear_coefficient, .. }, K::ShearCoefficient) => Optional(shear_coefficient),
         _ => return None,
     })
 }
 
-fn material<'s>(m: &'s mut MaterialInput, k: &str) -> Option<Target<'s>> {
+fn material(m: &mut MaterialInput, k: K) -> Option<Target<'_>> {
     if let MaterialInput::Preset(id) = m {
         let p = crate::material::preset(id.trim())?;
         let g = p.shear_modulus();
@@ -180,16 +303,16 @@ fn material<'s>(m: &'s mut MaterialInput, k: &str) -> Option<Target<'s>> {
         return None;
     };
     Some(match k {
-        "youngs_modulus" => Target::Value(youngs_modulus),
-        "density" => Target::Value(density),
-        "poisson" => Target::Optional(poisson),
-        "shear_modulus" => Target::Optional(shear_modulus),
-        "thermal_expansion" => Target::Optional(thermal_expansion),
+        K::YoungsModulus => Target::Value(youngs_modulus),
+        K::Density => Target::Value(density),
+        K::Poisson => Target::Optional(poisson),
+        K::ShearModulus => Target::Optional(shear_modulus),
+        K::ThermalExpansion => Target::Optional(thermal_expansion),
         _ => return None,
     })
 }
 
-fn end_spring<'s>(end: &'s mut EndInput, k: &str) -> Option<Target<'s>> {
+fn end_spring(end: &mut EndInput, k: K) -> Option<Target<'_>> {
     let springs = match end {
         EndInput::Free => Some((0.0, 0.0)),
         EndInput::Pinned => Some((f64::INFINITY, 0.0)),
@@ -202,8 +325,8 @@ fn end_spring<'s>(end: &'s mut EndInput, k: &str) -> Option<Target<'s>> {
     }
     let EndInput::Elastic { translational, rotational } = end else { return None };
     Some(Target::Optional(match k {
-        "translational" => translational,
-        "rotational" => rotational,
+        K::Translational => translational,
+        K::Rotational => rotational,
         _ => return None,
     }))
 }
