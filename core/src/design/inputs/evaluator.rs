@@ -27,7 +27,7 @@ pub struct Evaluator<'a> {
     /// Whether `trial` is ready, so that the reader need not look for tolerances again.
     ready: bool,
     /// The typed copy the trials are written into, when every path can be.
-    typed: Option<std::cell::RefCell<Scenario>>,
+    typed: Option<std::cell::RefCell<typed::Typed<'a>>>,
     paths: &'a [FieldPath],
     hints: std::cell::RefCell<Vec<f64>>,
 }
@@ -75,10 +75,10 @@ impl<'a> Evaluator<'a> {
     fn reading(&self, values: &[f64], lean: bool) -> Result<crate::scenario::Inputs> {
         let to_model = |s: &Scenario| if lean { s.to_model_lean() } else { s.to_model() };
         let whole = values.len() >= self.paths.len() && !values.iter().any(|v| v.is_nan());
-        if let Some(scenario) = self.typed.as_ref().filter(|_| whole) {
-            let mut scenario = scenario.borrow_mut();
-            if typed::write(&mut scenario, self.paths, values).is_some() {
-                return to_model(&scenario);
+        if let Some(typed) = self.typed.as_ref().filter(|_| whole) {
+            let mut typed = typed.borrow_mut();
+            if typed.write(values).is_some() {
+                return to_model(&typed.scenario);
             }
         }
         let mut trial = self.trial.borrow_mut();

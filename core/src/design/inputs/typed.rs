@@ -32,10 +32,13 @@ enum Target<'s> {
 /// with the same values, to be the scenario read from it; the solver's engine is spared that
 /// check's code (a comparison of whole scenarios, 12 KB of it).
 #[inline(never)]
-pub(super) fn prepare(doc: &Value, paths: &[FieldPath]) -> Option<Scenario> {
+pub(super) fn prepare<'p>(doc: &Value, paths: &'p [FieldPath]) -> Option<Typed<'p>> {
     let mut scenario = Scenario::from_ready_value(doc).ok()?;
+    let mut places = Vec::with_capacity(paths.len());
     for path in paths {
-        target(&mut scenario, path)?;
+        let place = place(path)?;
+        target(&mut scenario, &place)?;
+        places.push(place);
     }
     // Distinct values, so that a value written to the wrong place shows.
     let probe: Vec<f64> = (0..paths.len()).map(|k| 1.25 + k as f64).collect();
@@ -43,32 +46,43 @@ pub(super) fn prepare(doc: &Value, paths: &[FieldPath]) -> Option<Scenario> {
     for (path, v) in paths.iter().zip(&probe) {
         super::set(&mut json, path, *v).ok()?;
     }
-    same(&scenario, paths, &probe, &json).then_some(scenario)
+    let typed = Typed { scenario, places };
+    same(&typed, &probe, &json).then_some(typed)
 }
 
 /// Whether the typed copy written with `probe` is the scenario read from `json`, written so.
 #[cfg(test)]
-fn same(scenario: &Scenario, paths: &[FieldPath], probe: &[f64], json: &Value) -> bool {
-    let mut written = scenario.clone();
-    write(&mut written, paths, probe).is_some() && Scenario::from_ready_value(json).ok() == Some(written)
+fn same(typed: &Typed<'_>, probe: &[f64], json: &Value) -> bool {
+    let mut written = Typed { scenario: typed.scenario.clone(), places: typed.places.clone() };
+    written.write(probe).is_some() && Scenario::from_ready_value(json).ok() == Some(written.scenario)
 }
 
 #[cfg(not(test))]
-fn same(_: &Scenario, _: &[FieldPath], _: &[f64], _: &Value) -> bool {
+fn same(_: &Typed<'_>, _: &[f64], _: &Value) -> bool {
     true
 }
 
-/// Writes `values` (SI, none NaN) at `paths` of a scenario that [`prepare`] made.
-#[inline(never)]
-pub(super) fn write(scenario: &mut Scenario, paths: &[FieldPath], values: &[f64]) -> Option<()> {
-    for (path, v) in paths.iter().zip(values) {
-        let q = quantity(*v);
-        match target(scenario, path)? {
-            Target::Value(at) => *at = q,
-            Target::Optional(at) => *at = Some(q),
+/// The typed copy of a scenario, and the places of the inputs written into it, their paths'
+/// steps matched with the writer's keys once.
+pub(super) struct Typed<'p> {
+    /// The scenario, with the values last written.
+    pub(super) scenario: Scenario,
+    places: Vec<Place<'p>>,
+}
+
+impl Typed<'_> {
+    /// Writes `values` (SI, none NaN) at the inputs' places, in order.
+    #[inline(never)]
+    pub(super) fn write(&mut self, values: &[f64]) -> Option<()> {
+        for (place, v) in self.places.iter().zip(values) {
+            let q = quantity(*v);
+            match target(&mut self.scenario, place)? {
+                Target::Value(at) => *at = q,
+                Target::Optional(at) => *at = Some(q),
+            }
         }
+        Some(())
     }
-    Some(())
 }
 
 /// A value as [`super::set`] writes it and the scenario reader reads it back.
@@ -182,11 +196,15 @@ fn part(step: &Step) -> Part<'_> {
     }
 }
 
-/// The place a path names in the typed scenario, turning a preset material or a named end into
-/// its values and creating an absent extra mass or optional field on the way.
-#[inline(never)]
-fn target<'s>(s: &'s mut Scenario, path: &FieldPath) -> Option<Target<'s>> {
-    use Part::{Index, Known, Name};
+/// A path's steps, matched with the writer's keys (five at most: the deepest input is an extra
+/// mass's water).
+#[derive(Clone, Copy)]
+struct Place<'p> {
+    parts: [Part<'p>; 5],
+    len: usize,
+}
+
+fn place(path: &FieldPath) -> Option<Place<'_>> {
     let steps = path.steps();
     if steps.len() > 5 {
         return None;
@@ -195,7 +213,15 @@ fn target<'s>(s: &'s mut Scenario, path: &FieldPath) -> Option<Target<'s>> {
     for (p, step) in parts.iter_mut().zip(steps) {
         *p = part(step);
     }
-    match parts[..steps.len()] {
+    Some(Place { parts, len: steps.len() })
+}
+
+/// The place an input has in the typed scenario, turning a preset material or a named end into
+/// its values and creating an absent extra mass or optional field on the way.
+#[inline(never)]
+fn target<'s>(s: &'s mut Scenario, place: &Place<'_>) -> Option<Target<'s>> {
+    use Part::{Index, Known, Name};
+    match place.parts[..place.len] {
         [Known(K::Left), Known(k)] => end_spring(&mut s.left, k),
         [Known(K::Right), Known(k)] => end_spring(&mut s.right, k),
         [Known(K::Attachments), Index(i), Known(K::Position)] => {
