@@ -231,12 +231,8 @@ pub fn resolve(input: &MaterialInput) -> Result<ResolvedMaterial, Error> {
             let mut m = resolve_custom(youngs_modulus, density, poisson.as_ref(), shear_modulus.as_ref())?;
             if let Some(q) = thermal_expansion {
                 let mut conversions = Vec::new();
-                let alpha = units::convert_field(
-                    q,
-                    Kind::ThermalExpansion,
-                    &"thermal_expansion".into(),
-                    &mut conversions,
-                )?;
+                let alpha =
+                    units::convert_key(q, Kind::ThermalExpansion, "thermal_expansion", &mut conversions)?;
                 let field = &crate::schema::MATERIAL_RECORD_FIELDS[1];
                 if let Some((kind, message)) = field.range.refuse(alpha, field.what, field.unit(), false) {
                     return Err(Error::new(kind, message)
@@ -278,7 +274,7 @@ fn resolve_custom(
 ) -> Result<ResolvedMaterial, Error> {
     let mut conversions = Vec::new();
     let mut read = |quantity: &Quantity, kind: Kind, field: &str| {
-        units::convert_field(quantity, kind, &field.into(), &mut conversions)
+        units::convert_key(quantity, kind, field, &mut conversions)
     };
     let e = read(youngs_modulus, Kind::Pressure, "youngs_modulus")?;
     let e = plausible(e, youngs_modulus, "youngs_modulus", "Young's modulus", MODULUS_RANGE, Kind::Pressure)?;

@@ -393,6 +393,6 @@ impl Reader {
     }
 
     fn read(&mut self, quantity: &Quantity, kind: Kind, field: &str) -> Result<f64, Error> {
-        units::convert_field(quantity, kind, &FieldPath::from(field), &mut self.conversions)
+        units::convert_key(quantity, kind, field, &mut self.conversions)
     }
 }

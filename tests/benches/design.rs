@@ -53,7 +53,7 @@ fn design(c: &mut Criterion) {
             sensitivity::through_shapes(
                 &read.model,
                 &solved,
-                &|p: &[f64]| evaluator.read(p).map(|i| i.model),
+                &|p: &[f64]| evaluator.model(p),
                 &|m: &modebench::Model| evaluator.solve(m, 10),
                 black_box(&values),
             )

@@ -2,16 +2,16 @@
 //! JSON), the schema's field there, its value in SI, how to write a new value in, and the
 //! function from input values to natural frequencies that the tools work on.
 //!
-//! A new value is written into a copy of the scenario, which is read and checked again like any
-//! scenario, so every derived property (a section's second moment from its wall, a mass per
-//! length from a density) follows, and a value the model refuses is refused with its message.
+//! A new value is written into a copy of the scenario (the scenario as read, `inputs/typed.rs`,
+//! or its JSON), whose model is read and checked again like any scenario's, so every derived
+//! property (a section's second moment from its wall, a mass per length from a density)
+//! follows, and a value the model refuses is refused with its message.
 //! A preset material's modulus or density becomes a custom material of the preset's properties;
 //! an end's spring on a pinned, clamped, free or guided end makes it an elastic end of the same
 //! springs (pinned: translation rigid, rotation free).
 
 use crate::error::{Error, ErrorKind, Result};
 use crate::path::{FieldPath, Step};
-use crate::scenario::Scenario;
 use crate::schema::{self, Field};
 use crate::units::{self, Kind, Quantity};
 use serde_json::{Map, Value};
@@ -242,6 +242,7 @@ fn child_keys(v: &Value, name: &str) -> Vec<String> {
 
 /// Writes an SI value (infinite: "rigid") at an input's path, turning a preset material into its
 /// properties and a named end into its springs first.
+#[inline(never)]
 pub fn set(doc: &mut Value, path: &FieldPath, value: f64) -> Result<()> {
     let steps = path.steps();
     let Some((Step::Key(last), parents)) = steps.split_last() else {
@@ -320,74 +321,9 @@ pub fn frequencies(doc: &Value, paths: &[FieldPath], values: &[f64]) -> Result<V
     Evaluator::new(doc, paths).frequencies(values)
 }
 
-/// The frequencies of a scenario as functions of some of its inputs, each solve started from the
-/// frequencies of the one before: the design tools try values close to each other (a central
-/// difference, the next point of a sweep, a bisection), and the root finder that is handed
-/// nearby frequencies isolates them in a fraction of the work. Its answers are the same roots,
-/// found by the same count and polished to the same tolerance.
-///
-/// The scenario is made ready once: its tolerances typed with their values split off, as every
-/// reading would (a scenario that cannot be is read as it is, to draw the same error each time).
-/// Every trial writes all the inputs into that one copy and reads it: writing an input
-/// overwrites what the trial before wrote there, and turns a preset material or a named end
-/// into its values the first time, as it would in a fresh copy, so each reading is the
-/// scenario's own with the trial's values, without a copy of the whole made and dropped each
-/// time.
-pub struct Evaluator<'a> {
-    trial: std::cell::RefCell<Value>,
-    /// Whether `trial` is ready, so that the reader need not look for tolerances again.
-    ready: bool,
-    paths: &'a [FieldPath],
-    hints: std::cell::RefCell<Vec<f64>>,
-}
+pub use evaluator::Evaluator;
 
-impl<'a> Evaluator<'a> {
-    /// The evaluator of the inputs at `paths` of `doc`.
-    pub fn new(doc: &'a Value, paths: &'a [FieldPath]) -> Evaluator<'a> {
-        let (trial, ready) = match crate::scenario::tolerant::normalise(doc) {
-            Ok(ready) => (ready.into_owned(), true),
-            Err(_) => (doc.clone(), false),
-        };
-        Evaluator {
-            trial: std::cell::RefCell::new(trial),
-            ready,
-            paths,
-            hints: std::cell::RefCell::new(Vec::new()),
-        }
-    }
-
-    /// The elastic frequencies (Hz) with the inputs set to `values`.
-    pub fn frequencies(&self, values: &[f64]) -> Result<Vec<f64>> {
-        let inputs = self.read(values)?;
-        self.solve(&inputs.model, inputs.options.modes)
-    }
-
-    /// The scenario read and checked with the inputs set to `values`, not solved.
-    pub fn read(&self, values: &[f64]) -> Result<crate::scenario::Inputs> {
-        let mut trial = self.trial.borrow_mut();
-        for (path, v) in self.paths.iter().zip(values) {
-            set(&mut trial, path, *v)?;
-        }
-        let scenario =
-            if self.ready { Scenario::from_ready_value(&trial)? } else { Scenario::from_value(&trial)? };
-        scenario.to_model()
-    }
-
-    /// The first `modes` elastic frequencies (Hz) of a model read by [`Evaluator::read`],
-    /// started from the frequencies of the last solve.
-    pub fn solve(&self, model: &crate::model::Model, modes: usize) -> Result<Vec<f64>> {
-        let hints = self.hints.borrow().clone();
-        let omegas = crate::exact::frequencies_with_hints(model, modes, &hints)?;
-        self.hints.replace(omegas.clone());
-        Ok(omegas.into_iter().map(|w| w / std::f64::consts::TAU).collect())
-    }
-
-    /// Hands the next solve these frequencies (Hz) to start from: the solved scenario's.
-    pub fn with_hints(self, hz: &[f64]) -> Evaluator<'a> {
-        self.hints.replace(hz.iter().map(|f| f * std::f64::consts::TAU).collect());
-        self
-    }
-}
-
+mod evaluator;
 #[cfg(test)]
 mod tests;
+mod typed;

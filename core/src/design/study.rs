@@ -81,7 +81,7 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
     let paths: Vec<FieldPath> = all.iter().map(|i| i.path.clone()).collect();
     let values: Vec<f64> = all.iter().map(|i| i.value).collect();
     let evaluator = inputs::Evaluator::new(&doc, &paths).with_hints(solved.elastic_hz);
-    let model_at = |p: &[f64]| evaluator.read(p).map(|i| i.model);
+    let model_at = |p: &[f64]| evaluator.model(p);
     let solve = |m: &crate::model::Model| evaluator.solve(m, solved.modes.len());
     let work = all.len() * solved.elastic_hz.len();
     if work > MOST_SENSITIVITIES {

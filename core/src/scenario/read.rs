@@ -72,6 +72,9 @@ pub struct SegmentEcho {
 
 #[derive(Default)]
 struct Reader<'a> {
+    /// Whether only the model and the options are wanted ([`Scenario::to_model_lean`]): no
+    /// conversion records, values as written or section origins kept, the echo left bare.
+    lean: bool,
     conversions: Vec<(FieldPath, Conversion)>,
     /// Every value read, as written, by path: model checks see SI numbers, but an error should
     /// show what the user typed ("-3 kg", not "-3"). Kept as the scenario's own values, written
@@ -84,20 +87,35 @@ struct Reader<'a> {
 impl<'a> Reader<'a> {
     #[inline(never)]
     fn read(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+        if self.lean {
+            return units::convert(q, kind).map(|c| c.si).map_err(|e| e.at(path));
+        }
         self.written.push((path.clone(), q));
         units::convert_field(q, kind, path, &mut self.conversions)
     }
 
-    /// A stiffness that may also be written "rigid".
+    /// [`Reader::read`] of the field `key` of `parent`, its path made only where it is kept or
+    /// an error needs it: a lean reading makes none.
     #[inline(never)]
-    fn spring(&mut self, q: &'a Quantity, kind: Kind, path: &FieldPath) -> Result<f64> {
+    fn read_key(&mut self, q: &'a Quantity, kind: Kind, parent: &FieldPath, key: &str) -> Result<f64> {
+        if self.lean {
+            return units::convert(q, kind).map(|c| c.si).map_err(|e| e.at(parent.key(key)));
+        }
+        self.read(q, kind, &parent.key(key))
+    }
+
+    /// A stiffness that may also be written "rigid", the field `key` of `parent`.
+    #[inline(never)]
+    fn spring(&mut self, q: &'a Quantity, kind: Kind, parent: &FieldPath, key: &str) -> Result<f64> {
         if let Quantity::Text(t) = q {
             if matches!(t.trim().to_ascii_lowercase().as_str(), "rigid" | "infinite" | "inf") {
-                self.written.push((path.clone(), q));
+                if !self.lean {
+                    self.written.push((parent.key(key), q));
+                }
                 return Ok(f64::INFINITY);
             }
         }
-        self.read(q, kind, path)
+        self.read_key(q, kind, parent, key)
     }
 
     /// Adds what the user typed to an error about a value read here, found by its path.
@@ -110,18 +128,34 @@ impl<'a> Reader<'a> {
     }
 
     #[inline(never)]
-    fn keep(&mut self, path: &FieldPath, conversions: &[(FieldPath, Conversion)]) {
+    fn keep(&mut self, parent: &FieldPath, key: &str, conversions: &[(FieldPath, Conversion)]) {
+        if self.lean {
+            return;
+        }
+        let path = parent.key(key);
         self.conversions.extend(conversions.iter().map(|(field, c)| (path.join(field), c.clone())));
     }
 }
 
 impl Scenario {
     /// Reads every value, checks the model, and returns it with the options and an echo.
+    pub fn to_model(&self) -> Result<Inputs> {
+        self.read_model(false)
+    }
+
+    /// [`Scenario::to_model`] for the design study's trials, which use the model and the options
+    /// only: every value is read and every check made, but the echo is left bare (no unit
+    /// conversions recorded, the segments' echoes holding only their axial forces) and nothing
+    /// is kept to word an error with. An error is therefore the full reading's, read again.
+    pub(crate) fn to_model_lean(&self) -> Result<Inputs> {
+        self.read_model(true).or_else(|_| self.to_model())
+    }
+
     /// Never inlined: the solve and the design study's trials both call it, and the worker's
     /// engine, built for speed, would otherwise carry the whole reader twice.
     #[inline(never)]
-    pub fn to_model(&self) -> Result<Inputs> {
-        let mut r = Reader::default();
+    fn read_model(&self, lean: bool) -> Result<Inputs> {
+        let mut r = Reader { lean, ..Reader::default() };
         let mut segments = Vec::with_capacity(self.segments.len());
         let mut echoes = Vec::with_capacity(self.segments.len());
         let mut origins = Vec::with_capacity(self.segments.len());
@@ -131,8 +165,8 @@ impl Scenario {
             echoes.push(echo);
             origins.push(origin);
         }
-        let left = read_end(&mut r, &self.left, &"left".into())?;
-        let right = read_end(&mut r, &self.right, &"right".into())?;
+        let left = read_end(&mut r, &self.left, "left")?;
+        let right = read_end(&mut r, &self.right, "right")?;
         let mut attachments = Vec::with_capacity(self.attachments.len());
         for (i, a) in self.attachments.iter().enumerate() {
             attachments.push(read_attachment(&mut r, a, &FieldPath::item("attachments", i))?);
@@ -213,7 +247,7 @@ type ReadSegment = (Segment, SegmentEcho, Option<SectionOrigin>);
 fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -> Result<ReadSegment> {
     let at = |field: &str| path.key(field);
     let length = match &s.length {
-        Some(q) => r.read(q, Kind::Length, &at("length"))?,
+        Some(q) => r.read_key(q, Kind::Length, path, "length")?,
         None => return Err(Error::new(ErrorKind::Missing, "a segment needs a length").at(at("length"))),
     };
     let direct = s.flexural_rigidity.is_some() || s.mass_per_length.is_some();
@@ -254,12 +288,12 @@ fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -
             })));
         }
         let mat = material::resolve(material_input).map_err(|e| e.at(at("material")))?;
-        r.keep(&at("material"), &mat.conversions);
+        r.keep(path, "material", &mat.conversions);
         let props = section::properties(section_input, mat.poisson).map_err(|e| e.at(at("section")))?;
-        r.keep(&at("section"), &props.conversions);
+        r.keep(path, "section", &props.conversions);
         let extra = s.extra_mass.clone().unwrap_or_default();
         let mass = extra_mass::breakdown(&props, mat.density, &extra).map_err(|e| e.at(at("extra_mass")))?;
-        r.keep(&at("extra_mass"), &mass.conversions);
+        r.keep(path, "extra_mass", &mass.conversions);
         let segment = Segment {
             length,
             flexural_rigidity: mat.youngs_modulus * props.second_moment,
@@ -290,6 +324,10 @@ fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -
             }
             None => None,
         };
+        if r.lean {
+            let axial_force = axial_force(r, s, path, thermal)?;
+            return Ok((segment, SegmentEcho { axial_force, ..SegmentEcho::default() }, None));
+        }
         let echo = SegmentEcho {
             section: Some(section_name(section_input)),
             material: Some(mat.name.clone()),
@@ -317,14 +355,14 @@ fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -
         )
         .at(at(missing)));
     };
-    let flexural_rigidity = r.read(ei, Kind::FlexuralRigidity, &at("flexural_rigidity"))?;
-    let mass_per_length = r.read(m, Kind::MassPerLength, &at("mass_per_length"))?;
+    let flexural_rigidity = r.read_key(ei, Kind::FlexuralRigidity, path, "flexural_rigidity")?;
+    let mass_per_length = r.read_key(m, Kind::MassPerLength, path, "mass_per_length")?;
     let shear_rigidity = match &s.shear_rigidity {
-        Some(q) => Some(r.read(q, Kind::ShearRigidity, &at("shear_rigidity"))?),
+        Some(q) => Some(r.read_key(q, Kind::ShearRigidity, path, "shear_rigidity")?),
         None => None,
     };
     let rotary_inertia_per_length = match &s.rotary_inertia_per_length {
-        Some(q) => r.read(q, Kind::RotaryInertiaPerLength, &at("rotary_inertia_per_length"))?,
+        Some(q) => r.read_key(q, Kind::RotaryInertiaPerLength, path, "rotary_inertia_per_length")?,
         None => 0.0,
     };
     let gyration_squared =
@@ -399,15 +437,16 @@ fn section_name(s: &section::SectionInput) -> String {
 }
 
 #[inline(never)]
-fn read_end<'a>(r: &mut Reader<'a>, end: &'a EndInput, path: &FieldPath) -> Result<End> {
+fn read_end<'a>(r: &mut Reader<'a>, end: &'a EndInput, side: &str) -> Result<End> {
     Ok(match end {
         EndInput::Free => End::Free,
         EndInput::Pinned => End::Pinned,
         EndInput::Clamped => End::Clamped,
         EndInput::Guided => End::Guided,
         EndInput::Elastic { translational, rotational } => {
+            let path = &FieldPath::root().key(side);
             let mut spring = |q: &'a Option<Quantity>, kind, field: &str| match q {
-                Some(q) => r.spring(q, kind, &path.key(field)),
+                Some(q) => r.spring(q, kind, path, field),
                 None => Ok(0.0),
             };
             End::Elastic {
@@ -422,16 +461,15 @@ fn read_end<'a>(r: &mut Reader<'a>, end: &'a EndInput, path: &FieldPath) -> Resu
 /// (stiffnesses may be written "rigid"; an optional field left out is 0), made into the model's
 /// attachment by its kind.
 fn read_attachment<'a>(r: &mut Reader<'a>, a: &'a AttachmentInput, path: &FieldPath) -> Result<Attachment> {
-    let position = r.read(&a.position, schema::POSITION.kind, &path.key(schema::POSITION.name))?;
+    let position = r.read_key(&a.position, schema::POSITION.kind, path, schema::POSITION.name)?;
     let own = schema::find(&schema::ATTACHMENTS, a.kind.id()).map_or(&[][..], |c| c.fields);
     let mut values = Vec::with_capacity(own.len());
     for field in own {
-        let at = path.key(field.name);
         let value = match a.value(field.name) {
             Some(q) if matches!(field.kind, Kind::Stiffness | Kind::RotationalStiffness) => {
-                r.spring(q, field.kind, &at)?
+                r.spring(q, field.kind, path, field.name)?
             }
-            Some(q) => r.read(q, field.kind, &at)?,
+            Some(q) => r.read_key(q, field.kind, path, field.name)?,
             None => 0.0,
         };
         values.push((field.name, value));

@@ -171,6 +171,20 @@ pub fn convert_field(
     Ok(converted.si)
 }
 
+/// [`convert_field`] for a field named by its key ("wall"), its path made only for an error or
+/// a conversion recorded: the section and material readers read every field of every trial.
+#[inline(never)]
+pub fn convert_key(
+    quantity: &Quantity,
+    kind: Kind,
+    key: &str,
+    conversions: &mut Vec<(FieldPath, Conversion)>,
+) -> Result<f64, Error> {
+    let converted = convert(quantity, kind).map_err(|e| e.at(key))?;
+    conversions.extend(converted.conversion.map(|c| (FieldPath::from(key), c)));
+    Ok(converted.si)
+}
+
 /// Reads a quantity string such as "27.2 in" for a field of the given kind and converts it to SI.
 ///
 /// The same few texts are read again and again (the design study reads the scenario some forty
