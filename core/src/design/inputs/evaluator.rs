@@ -16,7 +16,7 @@ use serde_json::Value;
 /// The scenario is made ready once: its tolerances typed with their values split off, as every
 /// reading would (a scenario that cannot be is read as it is, to draw the same error each time).
 /// It is then read once into the typed scenario, and every trial writes all the inputs into that
-/// one typed copy ([`typed`]) and makes its model: writing an input overwrites what the trial
+/// one typed copy (`inputs/typed.rs`) and makes its model: writing an input overwrites what the trial
 /// before wrote there, and turns a preset material or a named end into its values the first
 /// time, as it would in a fresh copy, so each reading is the scenario's own with the trial's
 /// values, without the JSON written and read again each time. Where a path is one the typed
