@@ -200,9 +200,11 @@ export async function closeAll() {
   await Promise.all(closing);
 }
 
-// Headless Chromium; `extra` adds switches (the tap-test panel's tests give it a fake microphone).
+// Headless Chromium; `extra` adds switches (the tap-test panel's tests give it a fake microphone),
+// and so does MODEBENCH_CHROMIUM_FLAGS, space-separated, for profiling (DEVELOPERS.md).
 export async function launch(extra = []) {
-  const browser = await launchChromium(extra);
+  const flags = (process.env.MODEBENCH_CHROMIUM_FLAGS ?? "").split(" ").filter(Boolean);
+  const browser = await launchChromium([...extra, ...flags]);
   browsers.add(browser);
   browser.on("disconnected", () => browsers.delete(browser));
   return browser;
