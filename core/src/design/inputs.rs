@@ -241,7 +241,8 @@ fn child_keys(v: &Value, name: &str) -> Vec<String> {
 }
 
 /// Writes an SI value (infinite: "rigid") at an input's path, turning a preset material into its
-/// properties and a named end into its springs first.
+/// properties and a named end into its springs first. Not inlined: the evaluator's trials and
+/// the typed writer's check both call it, in the solver's engine.
 #[inline(never)]
 pub fn set(doc: &mut Value, path: &FieldPath, value: f64) -> Result<()> {
     let steps = path.steps();

@@ -94,8 +94,8 @@ fn quantity(v: f64) -> Quantity {
     }
 }
 
-/// The keys the writer knows, each compared once per step: one table, not a comparison of text
-/// at every arm (the solver's engine carries this code).
+/// The keys the writer knows, matched with a path's steps once, when an evaluator is made: one
+/// table, not a comparison of text at every arm (the solver's engine carries this code).
 #[derive(Clone, Copy, PartialEq)]
 enum K {
     Left,
