@@ -19,6 +19,19 @@ fn paths_of(texts: &[&str]) -> Vec<FieldPath> {
     texts.iter().map(|t| FieldPath::parse(t).unwrap_or_default()).collect()
 }
 
+/// The values `base`, then each moved 1 % up and 1 % down in turn, the others as they are.
+fn each_moved(base: &[f64]) -> Vec<Vec<f64>> {
+    let mut trials = vec![base.to_vec()];
+    for j in 0..base.len() {
+        for factor in [1.01, 0.99] {
+            let mut at = base.to_vec();
+            at[j] *= factor;
+            trials.push(at);
+        }
+    }
+    trials
+}
+
 /// Each trial read by one evaluator of `paths` (which must write them into the typed scenario
 /// when `typed`), held against a fresh copy's reading; the models read, for further checks.
 fn read_alike(doc: &Value, texts: &[&str], trials: &[Vec<f64>], typed: bool) -> Vec<Result<Model>> {
@@ -80,14 +93,7 @@ fn an_evaluator_reads_what_a_fresh_copy_of_the_scenario_reads() {
         // Every path of a documented scenario is one the typed writer knows.
         assert!(evaluator.is_typed(), "{}", file.file_name().to_string_lossy());
         let fresh = |values: &[f64]| fresh(&doc, &paths, values);
-        let mut trials = vec![base.clone()];
-        for j in 0..base.len() {
-            for factor in [1.01, 0.99] {
-                let mut at = base.clone();
-                at[j] *= factor;
-                trials.push(at);
-            }
-        }
+        let mut trials = each_moved(&base);
         trials.push(base.clone());
         for values in &trials {
             let (ours, theirs) = (evaluator.read(values), fresh(values));
@@ -211,14 +217,7 @@ fn section_dimensions_and_positions_are_written_where_the_reader_takes_them() {
         "attachments[0].position",
     ];
     let base = vec![0.04, 0.06, 0.005, 0.0039, 0.2, 0.1, 0.008, 0.0056, 2.5];
-    let mut trials = vec![base.clone()];
-    for j in 0..base.len() {
-        for factor in [1.01, 0.99] {
-            let mut at = base.clone();
-            at[j] *= factor;
-            trials.push(at);
-        }
-    }
+    let trials = each_moved(&base);
     let models = read_alike(&doc, &texts, &trials, true);
     assert!(models.iter().all(Result::is_ok), "{models:?}");
     // Each trial moved the model: the value went somewhere the reader takes it.
@@ -252,14 +251,7 @@ fn the_other_section_shapes_are_written_where_the_reader_takes_them() {
         "segments[2].section.shear_coefficient",
     ];
     let base = vec![0.04, 0.06, 0.08, 0.12, 0.004, 1e-3, 2e-6, 0.1, 0.5];
-    let mut trials = vec![base.clone()];
-    for j in 0..base.len() {
-        for factor in [1.01, 0.99] {
-            let mut at = base.clone();
-            at[j] *= factor;
-            trials.push(at);
-        }
-    }
+    let trials = each_moved(&base);
     let models = read_alike(&doc, &texts, &trials, true);
     assert!(models.iter().all(Result::is_ok), "{models:?}");
     // Each trial moved the model, but for the custom section's depth, which the model does not
