@@ -77,11 +77,18 @@ describe("at the bench", () => {
       const depth = '[data-field="segments[0].section.depth"]';
       await page.locator(depth).scrollIntoViewIfNeeded();
       await type(page, depth, "12 in");
-      const inView = await page.evaluate(() => {
-        const box = document.querySelector(".mb-summary").getBoundingClientRect();
-        return box.height > 0 && box.top >= 0 && box.bottom <= window.innerHeight;
+      const { inView, onTop } = await page.evaluate(() => {
+        const summary = document.querySelector(".mb-summary");
+        const box = summary.getBoundingClientRect();
+        // Drawn over the editor groups it sticks across (each group paints apart, at level zero).
+        const hit = document.elementFromPoint(box.left + box.width / 2, box.top + box.height / 2);
+        return {
+          inView: box.height > 0 && box.top >= 0 && box.bottom <= window.innerHeight,
+          onTop: hit?.closest(".mb-summary") === summary,
+        };
       });
       assert.ok(inView, "the summary of the modes is on screen");
+      assert.ok(onTop, "the summary is drawn over the editor, not under it");
       // It shows what the table shows, for the input as it now stands.
       const table = (await page.locator('table.mb-modes tr[data-mode="1"] .mb-main').first().textContent()).trim();
       const line = await page.locator(".mb-summary").textContent();
