@@ -142,12 +142,14 @@ async function designFrames(browser, url) {
 // the answer read and drawn on the page. `pause` is the quiet time before each edit: 150 ms is
 // a brisk typist's interval between keystrokes (common practice, no source). With no pause the
 // next edit follows the previous answer at once; that figure is printed for reference.
-async function editTimes(browser, url, pause, settle = 0) {
+// `viewport`, when given, is a tablet's: the field typed into is then scrolled into view, as a
+// reader at the bench would have it, rather than the calculator's top.
+async function editTimes(browser, url, pause, settle = 0, viewport = null) {
   // Where the page's own thread spends each edit, beside the round trip: the calculator's
   // handling of the keystroke (stored and posted), its handling of the worker's answer (read
   // and drawn; a long model's drawing comes in a zero-delay task after, timed too), and the
   // style and layout the browser then does before the results can be seen.
-  const { context } = await isolatedContext(browser);
+  const { context } = await isolatedContext(browser, viewport ? { viewport, hasTouch: true } : {});
   await context.addInitScript(() => {
     const spent = { input: 0, answer: 0, posted: 0, arrived: 0 };
     window.__spent = spent;
@@ -187,7 +189,8 @@ async function editTimes(browser, url, pause, settle = 0) {
   }
   // A reader edits a calculator they can see, once its worker has confirmed the page's results.
   await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
-  await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
+  const typedInto = '.mb-calc [data-field="attachments[0].mass"]';
+  await page.locator(viewport ? typedInto : ".mb-calc").first().scrollIntoViewIfNeeded();
   await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
   await page.waitForTimeout(settle);
   const times = [];
@@ -300,6 +303,7 @@ try {
     const edit = await editTimes(browser, url, TYPING_PAUSE_MS);
     const crowded = await editTimes(browser, url, 0);
     const later = await editTimes(browser, url, TYPING_PAUSE_MS, READING_MS);
+    const tablet = await editTimes(browser, url, TYPING_PAUSE_MS, 0, TABLETS[0]);
     if (edit && crowded) {
       line(`  edit → results and plot, median of ${EDITS - 3}`, edit.median, "ms", BUDGET.editMs);
       line(`  edit → results and plot, slowest`, edit.max, "ms", BUDGET.editMs);
@@ -307,6 +311,10 @@ try {
       if (later) {
         line(`  the same, the first typed ${READING_MS / 1000} s after, median`, later.median, "ms");
         line("    slowest", later.max, "ms");
+      }
+      if (tablet) {
+        line(`  on a tablet (${TABLETS[0].width}×${TABLETS[0].height}), typed at once, median`, tablet.median, "ms");
+        line("    slowest", tablet.max, "ms");
       }
       // The page's own share of each edit (the rest is the worker's solve and the messages).
       for (const [part, words] of [
