@@ -7,6 +7,7 @@ use std::path::Path;
 use anyhow::{bail, Context, Result};
 
 use crate::args::BuildOptions;
+use crate::css;
 use crate::embed;
 use crate::markdown;
 use crate::offline;
@@ -103,13 +104,21 @@ fn prepare(out: &Path) -> Result<()> {
         .with_context(|| format!("writing into {}", out.display()))
 }
 
-/// Copies the files (not sub-folders) of `from` into `to`.
+/// Copies the files (not sub-folders) of `from` into `to`, style sheets without their comments
+/// ([`css::without_comments`]).
 fn copy_dir(from: &Path, to: &Path) -> Result<()> {
     for entry in std::fs::read_dir(from).with_context(|| format!("reading {}", from.display()))? {
         let path = entry?.path();
         if path.is_file() {
             let name = path.file_name().context("a file without a name")?;
-            copy(&path, &to.join(name))?;
+            if path.extension().is_some_and(|e| e == "css") {
+                let sheet = std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
+                let out = to.join(name);
+                std::fs::write(&out, css::without_comments(&sheet))
+                    .with_context(|| format!("writing {}", out.display()))?;
+            } else {
+                copy(&path, &to.join(name))?;
+            }
         }
     }
     Ok(())

@@ -9,6 +9,7 @@ mod args;
 mod builder;
 mod calculator;
 mod checks;
+mod css;
 mod embed;
 mod markdown;
 mod math;

@@ -18,6 +18,7 @@ use anyhow::{bail, Context, Result};
 use modebench_ui::render::escape;
 
 use crate::calculator;
+use crate::css;
 use crate::embed;
 use crate::template;
 
@@ -34,11 +35,12 @@ pub(crate) fn write(root: &Path, wasm: &Path, out: &Path) -> Result<u64> {
     let text = |dir: &Path, name: &str| -> Result<String> {
         String::from_utf8(read(dir, name)?).with_context(|| format!("{name} is not UTF-8"))
     };
+    let sheet = |dir: &Path, name: &str| text(dir, name).map(|t| css::without_comments(&t));
     let assets = root.join("site").join("assets");
     let parts = Parts {
         calculator: calculator::render(embed::EXAMPLE, root)?,
-        styles: [text(&assets, "site.css")?, text(&assets, "widget.css")?],
-        print: text(&assets, "print.css")?,
+        styles: [sheet(&assets, "site.css")?, sheet(&assets, "widget.css")?],
+        print: sheet(&assets, "print.css")?,
         page_glue: text(wasm, ENGINE_FILES[0])?,
         page_engine: read(wasm, ENGINE_FILES[1])?,
         solver_glue: text(wasm, ENGINE_FILES[2])?,
