@@ -112,7 +112,8 @@ fn copy_dir(from: &Path, to: &Path) -> Result<()> {
         if path.is_file() {
             let name = path.file_name().context("a file without a name")?;
             if path.extension().is_some_and(|e| e == "css") {
-                let sheet = std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
+                let sheet =
+                    std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
                 let out = to.join(name);
                 std::fs::write(&out, css::without_comments(&sheet))
                     .with_context(|| format!("writing {}", out.display()))?;

@@ -79,7 +79,10 @@ mod tests {
 
     #[test]
     fn a_comment_left_open_runs_to_the_end() {
-        assert_eq!(without_comments(".a { color: red; }\n/* open\n.b { color: blue; }\n"), ".a { color: red; }\n");
+        assert_eq!(
+            without_comments(".a { color: red; }\n/* open\n.b { color: blue; }\n"),
+            ".a { color: red; }\n"
+        );
     }
 
     /// The site's own sheets: no comment left, each smaller, and every brace and semicolon
