@@ -110,15 +110,14 @@ fn copy_dir(from: &Path, to: &Path) -> Result<()> {
     for entry in std::fs::read_dir(from).with_context(|| format!("reading {}", from.display()))? {
         let path = entry?.path();
         if path.is_file() {
-            let name = path.file_name().context("a file without a name")?;
+            let out = to.join(path.file_name().context("a file without a name")?);
             if path.extension().is_some_and(|e| e == "css") {
                 let sheet =
                     std::fs::read_to_string(&path).with_context(|| format!("reading {}", path.display()))?;
-                let out = to.join(name);
                 std::fs::write(&out, css::without_comments(&sheet))
                     .with_context(|| format!("writing {}", out.display()))?;
             } else {
-                copy(&path, &to.join(name))?;
+                copy(&path, &out)?;
             }
         }
     }
