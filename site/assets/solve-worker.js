@@ -1,8 +1,11 @@
 // Solves the scenarios of one calculator, off the page's main thread. The page sends
-// { id, scenario } with the scenario as JSON text and receives { id, answer, view } with the
-// answer as JSON text ({"report": …} or {"error": …}) and the answer the page draws (a report's
-// every mode's shape cut to the samples its plot needs; an error as it is), or { id, failed }
-// when the solver engine could not load. A solve that takes too long is not interrupted here: the page stops this worker and
+// { id, scenario, mode, open } with the scenario as JSON text and the reader's view (the mode
+// plotted; the `data-part` names of the sections left open, one space between them), and receives
+// { id, answer, view, results, summary, mode, open }: the answer as JSON text ({"report": …} or
+// {"error": …}), the answer the page reads (a report's every mode's shape cut to the samples its
+// plot needs; an error as it is), for a report that is not long the results and the one-line
+// summary as the page draws them (undefined otherwise), and the view they were drawn for; or
+// { id, failed } when the solver engine could not load. A solve that takes too long is not interrupted here: the page stops this worker and
 // starts a fresh one.
 //
 // A module worker from the site's own folder, so the pages' policy (scripts from 'self' only,
@@ -30,24 +33,26 @@ let warmUps = 0;
 let warmUpLeftMs = 0;
 let answered = false;
 
-function warmUp(scenario) {
+function warmUp(scenario, mode, open) {
   setTimeout(() => {
     if (warmUps <= 0 || warmUpLeftMs <= 0) {
       return;
     }
     warmUps -= 1;
     const start = performance.now();
-    solveForPage(scenario);
+    solveForPage(scenario, mode, open);
     const ms = performance.now() - start;
     warmUpLeftMs -= ms;
     if (ms < WARM_UP_MS) {
-      warmUp(scenario);
+      warmUp(scenario, mode, open);
     }
   }, 0);
 }
 
 self.addEventListener("message", async (event) => {
   const { id, scenario } = event.data;
+  const mode = event.data.mode ?? 0;
+  const open = event.data.open ?? "";
   const first = !answered;
   answered = true;
   warmUps = 0;
@@ -58,11 +63,11 @@ self.addEventListener("message", async (event) => {
     return;
   }
   const start = performance.now();
-  const [answer, view] = solveForPage(scenario);
-  self.postMessage({ id, answer, view });
+  const [answer, view, results, summary] = solveForPage(scenario, mode, open);
+  self.postMessage({ id, answer, view, results, summary, mode, open });
   if (first && answer.startsWith('{"report"') && performance.now() - start < FIRST_MS) {
     warmUps = WARM_UPS;
     warmUpLeftMs = WARM_UP_TOTAL_MS;
-    warmUp(scenario);
+    warmUp(scenario, mode, open);
   }
 });

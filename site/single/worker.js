@@ -2,7 +2,8 @@
 // solver engine's glue (wasm-bindgen's
 // `no-modules` output, defining `wasm_bindgen`) comes before this, and SOLVER_BASE64, the
 // solver engine in base64, before that. It answers as `assets/solve-worker.js` does on the site:
-// { id, scenario } in, { id, answer, view } or { id, failed } out.
+// { id, scenario, mode, open } in, { id, answer, view, results, summary, mode, open } or
+// { id, failed } out.
 
 const ready = (async () => {
   const binary = atob(SOLVER_BASE64);
@@ -15,12 +16,14 @@ const ready = (async () => {
 
 self.addEventListener("message", async (event) => {
   const { id, scenario } = event.data;
+  const mode = event.data.mode ?? 0;
+  const open = event.data.open ?? "";
   try {
     await ready;
   } catch (error) {
     self.postMessage({ id, failed: String(error) });
     return;
   }
-  const [answer, view] = wasm_bindgen.solveForPage(scenario);
-  self.postMessage({ id, answer, view });
+  const [answer, view, results, summary] = wasm_bindgen.solveForPage(scenario, mode, open);
+  self.postMessage({ id, answer, view, results, summary, mode, open });
 });

@@ -158,6 +158,30 @@ describe("the live calculator", () => {
     await context.close();
   });
 
+  // The worker draws an edit's results for the view on show; the page draws its own whenever
+  // the view changes. Both must agree to the character, or the page would show one thing after
+  // typing and another after a click.
+  test("an edit's results keep the mode chosen and the sections opened, drawn as the page draws them", { timeout: TEST_TIMEOUT_MS }, async () => {
+    const { context, page, problems } = await openLive(browser, site.url + BOOM, { settle: false });
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
+    await page.locator('.mb-calc [data-show-mode="3"]').first().click();
+    const fold = page.locator('.mb-calc details.mb-fold[data-part="model"]').first();
+    await fold.locator("summary").click();
+    await typeAndWait(page, TIP_MASS, "3.1 kg");
+    const caption = await page.locator(".mb-calc svg.mb-plot title").first().textContent();
+    const hz = await page.locator('table.mb-modes tr[data-mode="3"] td[data-hz]').first().getAttribute("data-hz");
+    assert.ok(caption.startsWith("Mode 3: ") && caption.includes(`${Number(hz).toPrecision(4)} Hz`), `${caption} against ${hz} Hz`);
+    assert.equal(await fold.getAttribute("open"), "", "the section opened stays open");
+    const results = () => page.locator(".mb-calc .mb-results").first().innerHTML();
+    const summary = () => page.locator(".mb-calc .mb-summary").first().innerHTML();
+    const afterEdit = [await results(), await summary()];
+    // Choosing the same mode again has the page draw the results itself, over the edit's.
+    await page.locator('.mb-calc [data-show-mode="3"]').first().click();
+    assert.deepEqual([await results(), await summary()], afterEdit);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test("a heavier camera head lowers the first frequency; a lighter one raises it", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     const start = await mode1(page);

@@ -75,9 +75,9 @@ async function solveHere(page, scenarios) {
     const engine = await import(new URL("assets/modebench_solver.js", document.baseURI).href);
     await engine.default();
     return texts.map((text) => {
-      engine.solveForPage(text); // the first run compiles the engine's functions
+      engine.solveForPage(text, 0, ""); // the first run compiles the engine's functions
       const start = performance.now();
-      const answer = JSON.parse(engine.solveForPage(text)[0]);
+      const answer = JSON.parse(engine.solveForPage(text, 0, "")[0]);
       return { ms: performance.now() - start, hz: answer.report?.modes[0].frequency_hz ?? null };
     });
   }, scenarios.map((s) => JSON.stringify(s)));

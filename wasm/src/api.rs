@@ -159,18 +159,27 @@ pub fn solve_scenario(scenario: &str) -> String {
     crate::worker::message::solve(scenario)
 }
 
-/// Solves a scenario given as JSON text and returns two texts: the answer whole, `{"report": …}`
-/// or `{"error": {kind, path, value, message}}`, and the answer the page draws (every mode's
-/// shape cut to the samples its plot needs; the same text for an error). The solving worker's
-/// whole job: it posts both, and the page reads the second and keeps the first for the results
-/// file and the tap-test panel. It never throws.
+/// Solves a scenario given as JSON text for the page, drawn for the reader's view (`mode`, the
+/// mode plotted; `open`, the `data-part` names of the sections left open, one space between
+/// them), and returns four
+/// values: the answer whole, `{"report": …}` or `{"error": {kind, path, value, message}}`; the
+/// answer the page reads (every mode's shape cut to the samples its plot needs; the same text for
+/// an error); and, for a report that is not long, the inside of the results element and of the
+/// one-line summary as the page draws them (`undefined` otherwise). The solving worker's whole
+/// job: it posts them all, and the page draws the markup, reads the second text when it needs the
+/// report, and keeps the first for the results file and the tap-test panel. It never throws.
 #[cfg(feature = "solver")]
 #[wasm_bindgen(js_name = solveForPage)]
-pub fn solve_for_page(scenario: &str) -> js_sys::Array {
-    let (whole, drawn) = crate::worker::message::solve_for_page(scenario);
-    let whole = JsValue::from_str(&whole);
-    let drawn = drawn.map_or_else(|| whole.clone(), |d| JsValue::from_str(&d));
-    js_sys::Array::of2(&whole, &drawn)
+pub fn solve_for_page(scenario: &str, mode: usize, open: &str) -> js_sys::Array {
+    let view = crate::render::View { mode, open: open.split_whitespace().map(str::to_string).collect() };
+    let page = crate::worker::message::solve_for_page(scenario, &view);
+    let whole = JsValue::from_str(&page.whole);
+    let read = page.view.map_or_else(|| whole.clone(), |v| JsValue::from_str(&v));
+    let (results, summary) = match page.drawn {
+        Some(d) => (JsValue::from_str(&d.results), JsValue::from_str(&d.summary)),
+        None => (JsValue::UNDEFINED, JsValue::UNDEFINED),
+    };
+    js_sys::Array::of4(&whole, &read, &results, &summary)
 }
 
 /// The version of this module.

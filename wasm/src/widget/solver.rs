@@ -2,7 +2,9 @@
 //! takes its answers, and stops it and starts a fresh one when a solve runs past the budget.
 //! Which scenario goes next, and which answers count, is decided by [`Latest`].
 
+use crate::render::View;
 use crate::worker::latest::{Expiry, Job, Latest, Purpose, Verdict};
+use crate::worker::message::Drawn;
 use js_sys::{Function, Object, Reflect};
 use wasm_bindgen::JsValue;
 use web_sys::{MessageEvent, Worker, WorkerOptions, WorkerType};
@@ -31,11 +33,47 @@ pub(super) struct Solver {
     worker: Option<Worker>,
     latest: Latest,
     callbacks: Option<Callbacks>,
+    /// The reader's view as of the newest scenario submitted, which the worker draws the
+    /// results for.
+    view: View,
+}
+
+/// A worker's answer, as the page takes it: what it is worth, and its texts as JavaScript
+/// strings, not copied into the engine until read (a long model's whole answer is a megabyte,
+/// and the page reads only what it draws).
+pub(super) struct Answer {
+    pub(super) verdict: Verdict,
+    /// The answer the page reads: its shapes cut to what the plot needs.
+    pub(super) view: JsValue,
+    /// The whole answer, for the results file and the tap-test panel.
+    pub(super) whole: JsValue,
+    /// The message itself, which may hold the results and summary the worker drew.
+    data: JsValue,
+}
+
+impl Answer {
+    /// The results and summary the worker drew, with the view it drew them for; `None` when it
+    /// drew none (an error, or a long answer).
+    pub(super) fn drawn(&self) -> Option<(View, Drawn)> {
+        let get = |key: &str| Reflect::get(&self.data, &key.into()).ok();
+        let results = get("results")?.as_string()?;
+        let summary = get("summary")?.as_string()?;
+        let mode = get("mode")?.as_f64()? as usize;
+        let open = get("open")?.as_string()?;
+        let view = View { mode, open: open.split_whitespace().map(str::to_string).collect() };
+        Some((view, Drawn { results, summary }))
+    }
 }
 
 impl Solver {
     pub(super) fn new(url: &str, budget_ms: f64) -> Solver {
-        Solver { url: url.to_string(), worker: None, latest: Latest::new(budget_ms), callbacks: None }
+        Solver {
+            url: url.to_string(),
+            worker: None,
+            latest: Latest::new(budget_ms),
+            callbacks: None,
+            view: View::default(),
+        }
     }
 
     /// Gives the solver its callbacks and starts the worker, so that it has loaded its engine by
@@ -50,31 +88,31 @@ impl Solver {
         self.latest.budget_ms()
     }
 
-    /// Asks for a scenario to be solved: at once if the worker is free, else after the solve
-    /// under way, in place of any scenario already waiting.
-    pub(super) fn submit(&mut self, purpose: Purpose, text: String) {
+    /// Asks for a scenario to be solved, its results drawn for `view`: at once if the worker is
+    /// free, else after the solve under way, in place of any scenario already waiting.
+    pub(super) fn submit(&mut self, purpose: Purpose, text: String, view: &View) {
+        if self.view != *view {
+            self.view = view.clone();
+        }
         if let Some(job) = self.latest.submit(purpose, text, dom::now()) {
             self.send(job);
         }
     }
 
-    /// Takes a worker's message: what the answer is worth, the text to draw and the whole
-    /// answer's (JavaScript strings, not copied into the engine until read: a long model's whole
-    /// answer is a megabyte, and the page reads only the one to draw, its shapes cut to what the
-    /// plot needs; the worker sends both with every answer), or `None` when the worker reports
-    /// that it could not load its engine (the caller then calls [`Solver::fail`]). Hands the
-    /// worker the next scenario, if one waits.
-    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<(Verdict, JsValue, JsValue)> {
+    /// Takes a worker's message ([`Answer`]), or `None` when the worker reports that it could
+    /// not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next
+    /// scenario, if one waits.
+    pub(super) fn answered(&mut self, event: &MessageEvent) -> Option<Answer> {
         let data = event.data();
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
-        let answer = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
+        let whole = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
         // Sent with every answer; were it missing, reading it would say the answer is unreadable.
         let view = Reflect::get(&data, &"view".into()).ok()?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);
         }
-        Some((verdict, view, answer))
+        Some(Answer { verdict, view, whole, data })
     }
 
     /// Gives up a solve that has run past its budget: stops the worker, starts a fresh one and
@@ -143,6 +181,9 @@ impl Solver {
         let message = Object::new();
         let _ = Reflect::set(&message, &"id".into(), &JsValue::from(job.id));
         let _ = Reflect::set(&message, &"scenario".into(), &JsValue::from_str(&job.text));
+        let _ = Reflect::set(&message, &"mode".into(), &JsValue::from(self.view.mode as f64));
+        // The open sections' names, which have no spaces, one space between them.
+        let _ = Reflect::set(&message, &"open".into(), &JsValue::from_str(&self.view.open.join(" ")));
         let posted = self.worker.as_ref().is_some_and(|w| w.post_message(&message).is_ok());
         if !posted {
             // No worker to solve it: the solve fails as soon as this edit has been handled,

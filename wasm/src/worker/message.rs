@@ -3,6 +3,7 @@
 //! answer comes.
 
 use crate::doc::{self, text};
+use crate::render::View;
 use modebench::report::{report_from_json, FromJson};
 use modebench::{Error, ErrorKind, Report};
 use serde::Serialize;
@@ -30,23 +31,69 @@ pub fn solve(scenario: &str) -> String {
     write(&answer(scenario))
 }
 
-/// Solves a scenario given as JSON text and writes the answer twice, as JSON text: whole (for
-/// the results file and the tap-test panel), and, for a report, as the page draws it, every
-/// mode's shape cut to the samples its plot needs ([`crate::render::thin_shapes`]; `None` for
-/// an error, which is drawn as it is). This is the worker's whole job; the page never calls it.
-/// The page reads only the second: a long model's whole answer is over a megabyte, most of it
-/// shapes that the plot draws to the same tenth of a unit with a few dozen samples each.
-pub fn solve_for_page(scenario: &str) -> (String, Option<String>) {
+/// What the worker sends the page for one scenario ([`solve_for_page`]).
+#[derive(Debug)]
+pub struct ForPage {
+    /// The whole answer, `{"report": …}` or `{"error": …}`: for the results file and the
+    /// tap-test panel.
+    pub whole: String,
+    /// For a report, the answer as the page reads it: every mode's shape cut to the samples its
+    /// plot needs ([`crate::render::thin_shapes`]). `None` for an error, which is read as it is.
+    pub view: Option<String>,
+    /// For a report that is not long ([`drawn_here`]), the results and the one-line summary as
+    /// the page draws them for the reader's `View` (the mode plotted, the sections left open):
+    /// the same markup the page would write from `view`, written here while the page draws the
+    /// frame of the keystroke.
+    pub drawn: Option<Drawn>,
+}
+
+/// The results and the one-line summary of a report, as the page draws them for one view.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Drawn {
+    /// The inside of the results element ([`crate::render::results_inner`]).
+    pub results: String,
+    /// The inside of the one-line summary ([`crate::render::summary_inner`]).
+    pub summary: String,
+}
+
+/// Solves a scenario given as JSON text for the page, drawn for `view` ([`ForPage`]). This is
+/// the worker's whole job; the page never calls it. The page reads only the thinned answer: a
+/// long model's whole answer is over a megabyte, most of it shapes that the plot draws to the
+/// same tenth of a unit with a few dozen samples each.
+pub fn solve_for_page(scenario: &str, view: &View) -> ForPage {
     let mut answer = answer(scenario);
     let whole = write(&answer);
     match &mut answer {
         Answer::Report(report) => {
             crate::render::thin_shapes(report);
-            (whole, Some(write(&answer)))
+            let drawn = drawn_here(report).then(|| Drawn {
+                results: crate::render::results_inner(Some(report), false, view),
+                summary: crate::render::summary_inner(Some(report), false),
+            });
+            ForPage { whole, view: Some(write(&answer)), drawn }
         }
-        Answer::Error(_) => (whole, None),
+        Answer::Error(_) => ForPage { whole, view: None, drawn: None },
     }
 }
+
+/// Whether the worker draws a report's results for the page: unless the report is long (its
+/// modes times attachments past [`LONG_ANSWER`]). Writing the results takes the page's engine,
+/// built for size, about as long as reading the answer, and the worker does it while the page
+/// is still drawing the frame of the keystroke, so an edit's answer is drawn sooner. A long
+/// answer's results are hundreds of rows, which the page draws in a task of its own after
+/// reading it; the worker does not hold its answer back to write them.
+pub fn drawn_here(report: &Report) -> bool {
+    report.modes.len() * report.beam.attachments.len() <= LONG_ANSWER
+}
+
+/// Past this many modes times attachments, an answer is long: its results have rows for every
+/// attachment, and the answer read is large even with its shapes cut to what the plot draws
+/// (324 KB for 20 modes of an 800-attachment model, 1.17 MB whole). Reading and drawing such a
+/// model take up to some 10 ms each on a loaded two-core machine, and together they would be a
+/// long task, so the page draws it in a task after the one that read it. A documented
+/// scenario's answer (the camera boom's: 4 modes, 1 attachment, 14 KB read) is drawn at once, as
+/// quickly as it came.
+pub const LONG_ANSWER: usize = 2_000;
 
 /// The report or the error a scenario draws, its search started from the frequencies of the
 /// last report this worker sent (which a report then replaces).
@@ -144,8 +191,8 @@ mod tests {
     /// shows (the bound itself is checked in the plot's own tests).
     #[test]
     fn the_drawn_answer_is_the_whole_one_with_fewer_samples() {
-        let (whole, drawn) = solve_for_page(BOOM);
-        let (Ok(whole), Some(Ok(drawn))) = (read(&whole), drawn.as_deref().map(read)) else {
+        let page = solve_for_page(BOOM, &View::default());
+        let (Ok(whole), Some(Ok(drawn))) = (read(&page.whole), page.view.as_deref().map(read)) else {
             panic!("the example solves")
         };
         assert_eq!(whole.modes.len(), drawn.modes.len());
@@ -167,8 +214,47 @@ mod tests {
         let mut same = whole.clone();
         same.modes = drawn.modes.clone();
         assert_eq!(same, drawn);
-        // An error is drawn as it comes.
-        assert_eq!(solve_for_page("{\"left\": ").1, None);
+        // An error is read as it comes, and drawn by the page.
+        let error = solve_for_page("{\"left\": ", &View::default());
+        assert_eq!((error.view, error.drawn), (None, None));
+    }
+
+    /// What the worker draws is, character for character, what the page would draw from the
+    /// answer it reads, for the views a reader can choose: another mode plotted, sections open.
+    #[test]
+    fn the_worker_draws_what_the_page_would() {
+        let scenarios = [
+            BOOM,
+            include_str!("../../../docs/scenarios/fan-floor-beam-us.json"),
+            include_str!("../../../docs/scenarios/boom-root-calibration.json"),
+            include_str!("../../../docs/scenarios/hot-line-between-anchors.json"),
+        ];
+        let views = [
+            View::default(),
+            View { mode: 2, open: vec!["model".to_string()] },
+            View { mode: 3, open: vec!["model".to_string(), "conversions".to_string()] },
+        ];
+        for scenario in scenarios {
+            for view in &views {
+                let page = solve_for_page(scenario, view);
+                let (Some(Ok(report)), Some(drawn)) = (page.view.as_deref().map(read), page.drawn) else {
+                    panic!("the example solves, and is drawn by the worker")
+                };
+                assert_eq!(drawn.results, crate::render::results_inner(Some(&report), false, view));
+                assert_eq!(drawn.summary, crate::render::summary_inner(Some(&report), false));
+            }
+        }
+    }
+
+    /// A long answer is left to the page to draw, in a task of its own.
+    #[test]
+    fn a_long_answer_is_not_drawn_by_the_worker() {
+        let Ok(mut report) = modebench::solve_json(BOOM) else { panic!("the example solves") };
+        assert!(drawn_here(&report));
+        let one = report.beam.attachments[0].clone();
+        let modes = report.modes.len();
+        report.beam.attachments = vec![one; LONG_ANSWER / modes + 1];
+        assert!(!drawn_here(&report));
     }
 
     #[test]

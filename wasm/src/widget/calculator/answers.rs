@@ -3,41 +3,39 @@
 //! given up with a message beside the fields.
 
 use super::Calculator;
+use crate::render::View;
 use crate::widget::solver::GREY_AFTER_MS;
 use crate::widget::storage;
 use crate::worker::latest::{Expiry, Purpose, Verdict};
-use crate::worker::message;
+use crate::worker::message::{self, Drawn};
 use modebench::{Error, Report};
 use wasm_bindgen::JsValue;
 use web_sys::MessageEvent;
 
-/// An answer whose modes times attachments pass this is drawn in a task after the one that read
-/// it: its results have rows for every attachment, and the answer read is large even with its
-/// shapes cut to what the plot draws (324 KB for 20 modes of an 800-attachment model, 1.17 MB
-/// whole). Reading and drawing such a model take up to some 10 ms each on a loaded two-core
-/// machine, and together they would be a long task. A documented scenario's answer (the camera
-/// boom's: 4 modes, 1 attachment, 14 KB read) is drawn at once, as quickly as it came.
-const LONG_ANSWER: usize = 2_000;
-
 impl Calculator {
     /// Takes a message from the worker.
     pub(in crate::widget) fn on_answer(&mut self, event: &MessageEvent) {
-        let Some((verdict, view, answer)) = self.solver.answered(event) else {
+        let Some(taken) = self.solver.answered(event) else {
             // The worker could not solve at all: its engine did not load.
             self.on_worker_error();
             return;
         };
         self.show_solving();
         // Only an answer that will be used is copied into the engine and read.
-        let read = |answer: &JsValue| message::read(&answer.as_string().unwrap_or_default());
-        match verdict {
+        let (view, answer) = (&taken.view, taken.whole.clone());
+        match taken.verdict {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(read(&view), answer);
+                self.confirmed(read(view), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(read(&view), answer),
-            Verdict::Current(Purpose::Edit) => self.solved(read(&view), answer),
+            Verdict::Current(Purpose::Restore) => self.restored(read(view), answer),
+            // The results the worker drew are drawn as they came, and the answer read only
+            // when the report is next needed.
+            Verdict::Current(Purpose::Edit) => match taken.drawn() {
+                Some(drawn) => self.solved_drawn(view.clone(), answer, drawn),
+                None => self.solved(read(view), answer),
+            },
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }
@@ -51,7 +49,7 @@ impl Calculator {
         match outcome {
             Ok(report) => {
                 let redraw = !self.shows(&report) || self.view.mode != 0;
-                self.last = Some(report);
+                self.set_last(report);
                 self.keep_answer(answer);
                 if redraw && !edited {
                     self.draw_results();
@@ -73,7 +71,7 @@ impl Calculator {
         self.view.mode = mode;
         match outcome {
             Ok(report) => {
-                self.last = Some(report);
+                self.set_last(report);
                 self.keep_answer(answer);
                 self.error = None;
             }
@@ -87,10 +85,10 @@ impl Calculator {
     /// the page can take a keystroke or draw a frame between them. If a newer answer comes
     /// before the drawing, the newer is drawn.
     fn solved(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
-        let long = outcome.as_ref().is_ok_and(|r| r.modes.len() * r.beam.attachments.len() > LONG_ANSWER);
+        let long = outcome.as_ref().is_ok_and(|r| !message::drawn_here(r));
         match outcome {
             Ok(report) => {
-                self.last = Some(report);
+                self.set_last(report);
                 self.keep_answer(answer);
                 self.error = None;
             }
@@ -100,6 +98,18 @@ impl Calculator {
         if !long || !self.draw_later() {
             self.on_later();
         }
+    }
+
+    /// The newest edit, solved, with the results and summary the worker drew for `drawn.0`:
+    /// they are drawn at once (unless the reader changed the view meanwhile, when the page
+    /// draws its own), and the answer is kept unread until the report is next needed.
+    fn solved_drawn(&mut self, view: JsValue, answer: JsValue, drawn: (View, Drawn)) {
+        self.unread = Some(view);
+        self.drawn = Some(drawn);
+        self.keep_answer(answer);
+        self.error = None;
+        self.waiting_draw = true;
+        self.on_later();
     }
 
     /// Draws the results left to draw by [`Calculator::solved`], if any (a newer answer may
@@ -116,6 +126,24 @@ impl Calculator {
     fn keep_answer(&mut self, answer: JsValue) {
         let _ = js_sys::Reflect::set(self.root.as_ref(), &JsValue::from_str("modebenchAnswer"), &answer);
         self.answer = Some(answer);
+    }
+
+    /// Reads the newest answer, if it was kept unread ([`Calculator::solved_drawn`]), into the
+    /// report on show. The worker drew the results from this very text, so it reads; were it not
+    /// to, the error is kept, and the next drawing shows it.
+    pub(super) fn read_last(&mut self) {
+        let Some(view) = self.unread.take() else { return };
+        match read(&view) {
+            Ok(report) => self.last = Some(report),
+            Err(error) => self.error = Some(error),
+        }
+    }
+
+    /// Makes `report` the report on show, in place of any answer kept unread.
+    pub(super) fn set_last(&mut self, report: Report) {
+        self.last = Some(report);
+        self.unread = None;
+        self.drawn = None;
     }
 
     /// Called by the solve's timer: gives up the solve if it has run past the budget.
@@ -167,4 +195,9 @@ impl Calculator {
             }
         }
     }
+}
+
+/// Reads an answer the worker sent (a JavaScript string) into the engine.
+fn read(answer: &JsValue) -> Result<Report, Error> {
+    message::read(&answer.as_string().unwrap_or_default())
 }

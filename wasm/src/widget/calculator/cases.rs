@@ -74,6 +74,7 @@ impl Calculator {
         for old in dom::all(&self.root, ".mb-sheet-shapes") {
             old.remove();
         }
+        self.read_last();
         let shapes = self.last.as_ref().filter(|_| self.error.is_none()).map(sheet::shapes_html);
         if let (Some(shapes), Some(results)) = (shapes, dom::first(&self.root, ".mb-results")) {
             let _ = results.insert_adjacent_html("beforeend", &shapes);
@@ -191,6 +192,7 @@ impl Calculator {
     }
 
     fn save_results(&mut self, csv: bool) {
+        self.read_last();
         let current = self.error.is_none() && !self.solver.busy();
         let (Some(report), Some(answer), true) = (&self.last, &self.answer, current) else {
             self.say("There are no results for this case yet: correct the field marked, or wait for them.");

@@ -33,12 +33,18 @@ impl Calculator {
         if let Some(what) = &undoable {
             self.cases.record(what);
         }
-        // Edits build on the report on show: a new row takes sensible values from it.
+        // Edits build on the report on show: a new row takes sensible values from it (a value
+        // typed takes nothing from it, so the answer kept unread stays so).
+        if !matches!(edit, Edit::Text { .. }) {
+            self.read_last();
+        }
         doc::apply(&mut self.doc, &edit, self.last.as_ref());
-        // The worker starts on the edit first; the case is stored (all of it, up to tens of
-        // milliseconds with hundreds of rows) and the editor redrawn while it solves, in this
-        // same task, so that nothing typed waits for a later one to be kept.
-        self.solver.submit(Purpose::Edit, text::write(&self.doc));
+        // The worker starts on the edit first, drawing its results for the view on show; the
+        // case is stored (all of it, up to tens of milliseconds with hundreds of rows) and the
+        // editor redrawn while it solves, in this same task, so that nothing typed waits for a
+        // later one to be kept.
+        self.keep_open_sections();
+        self.solver.submit(Purpose::Edit, text::write(&self.doc), &self.view);
         self.store();
         if edit.is_structural() {
             self.draw_editor(false);
@@ -145,7 +151,7 @@ impl Calculator {
         if self.saved.is_none() {
             self.store();
         }
-        if self.last.is_some() || self.error.is_some() {
+        if self.last.is_some() || self.unread.is_some() || self.error.is_some() {
             self.draw_results();
             self.refocus(Some(("data-show-mode", mode.to_string())));
         }
@@ -154,6 +160,7 @@ impl Calculator {
     /// Writes what the design study proposed (the calibration's fitted values, or the resizing's
     /// nearest feasible value) into the case as one step that "Undo" takes back.
     fn apply_design(&mut self, fit: bool) {
+        self.read_last();
         let Some(report) = self.last.as_ref() else { return };
         let proposal = if fit {
             doc::design::fit_changes(&self.doc, report)
@@ -248,7 +255,7 @@ impl Calculator {
     pub(super) fn start_over(&mut self) {
         if self.error.is_none() {
             self.mark_waiting();
-            self.solver.submit(Purpose::Edit, text::write(&self.doc));
+            self.solver.submit(Purpose::Edit, text::write(&self.doc), &self.view);
             self.show_solving();
         }
     }

@@ -46,8 +46,16 @@ pub(super) struct Calculator {
     original: String,
     key: String,
     doc: Value,
-    /// The report of the last scenario solved that is on show (or, greyed, under an error).
+    /// The report of the last scenario solved that is on show (or, greyed, under an error),
+    /// unless a newer answer is kept unread in `unread`.
     last: Option<Report>,
+    /// The newest edit's answer as the worker sent it for reading (a JavaScript string), not
+    /// read yet: the worker drew its results, and it is read ([`Calculator::read_last`]) only when
+    /// the report is next needed. When set, it is the report on show, in place of `last`.
+    unread: Option<wasm_bindgen::JsValue>,
+    /// The results and summary the worker drew for the newest edit, and the view it drew them
+    /// for, until they are drawn.
+    drawn: Option<(View, crate::worker::message::Drawn)>,
     error: Option<Error>,
     view: View,
     solver: Solver,
@@ -103,6 +111,8 @@ impl Calculator {
             key,
             doc: Value::Null,
             last: None,
+            unread: None,
+            drawn: None,
             error: None,
             view: View::default(),
             solver: Solver::new(worker_url, budget_ms),
@@ -137,10 +147,10 @@ impl Calculator {
             self.draw_all();
         } else {
             self.draw_editor(false);
-            self.solver.submit(Purpose::Confirm, text::write(&self.doc));
+            self.solver.submit(Purpose::Confirm, text::write(&self.doc), &self.view);
         }
         if let Some((doc, _)) = &self.saved {
-            self.solver.submit(Purpose::Restore, text::write(doc));
+            self.solver.submit(Purpose::Restore, text::write(doc), &self.view);
         }
         self.show_offer();
         self.show_cases();
@@ -175,7 +185,7 @@ impl Calculator {
     }
 
     /// Remembers which fold-out sections the reader opened, before they are redrawn.
-    fn keep_open_sections(&mut self) {
+    pub(super) fn keep_open_sections(&mut self) {
         self.view.open = dom::all(&self.root, "details.mb-fold[open]")
             .iter()
             .filter_map(|d| d.get_attribute("data-part"))
@@ -196,6 +206,7 @@ impl Calculator {
     /// Draws the whole calculator; before any report has come, around the results the page was
     /// built with.
     fn draw_all(&mut self) {
+        self.read_last();
         self.keep_open_sections();
         let html = render::calculator_inner(
             &self.doc,
@@ -265,7 +276,17 @@ impl Calculator {
     /// any report has come, the results the page was built with stay (greyed under an error).
     fn draw_results(&mut self) {
         self.keep_open_sections();
-        if self.last.is_none() && self.built_results {
+        // What the worker drew is drawn if it was drawn for what the page would draw now: the
+        // results of the newest edit's report, not greyed, in the view on show.
+        let drawn = self.drawn.take().filter(|(view, _)| *view == self.view && self.error.is_none());
+        let (results_html, summary_html) = match drawn {
+            Some((_, drawn)) => (Some(drawn.results), Some(drawn.summary)),
+            None => {
+                self.read_last();
+                (None, None)
+            }
+        };
+        if self.last.is_none() && self.unread.is_none() && self.built_results {
             self.show_built_results();
             self.mark_error();
             return;
@@ -275,13 +296,15 @@ impl Calculator {
             let class = if self.error.is_some() { "mb-results mb-stale" } else { "mb-results" };
             results.set_class_name(class);
             let _ = results.remove_attribute("aria-busy");
-            let html = render::results_inner(self.last.as_ref(), self.error.is_some(), &self.view);
+            let html = results_html.unwrap_or_else(|| {
+                render::results_inner(self.last.as_ref(), self.error.is_some(), &self.view)
+            });
             self.results_shown = Some(patch::draw(&results, self.results_shown.as_ref(), html));
         }
         if let Some(summary) = dom::first(&self.root, ".mb-summary") {
             let stale = self.error.is_some();
             self.grey_summary(stale);
-            let html = render::summary_inner(self.last.as_ref(), stale);
+            let html = summary_html.unwrap_or_else(|| render::summary_inner(self.last.as_ref(), stale));
             self.summary_shown = Some(patch::draw(&summary, self.summary_shown.as_ref(), html));
         }
         self.mark_error();
