@@ -161,13 +161,13 @@ pub fn solve_scenario(scenario: &str) -> String {
 
 /// Solves a scenario given as JSON text for the page, drawn for the reader's view (`mode`, the
 /// mode plotted; `open`, the `data-part` names of the sections left open, one space between
-/// them), and returns four
-/// values: the answer whole, `{"report": …}` or `{"error": {kind, path, value, message}}`; the
-/// answer the page reads (every mode's shape cut to the samples its plot needs; the same text for
-/// an error); and, for a report that is not long, the inside of the results element and of the
-/// one-line summary as the page draws them (`undefined` otherwise). The solving worker's whole
-/// job: it posts them all, and the page draws the markup, reads the second text when it needs the
-/// report, and keeps the first for the results file and the tap-test panel. It never throws.
+/// them), and returns four values: the answer whole, `{"report": …}` or
+/// `{"error": {kind, path, value, message}}`; the answer the page reads (every mode's shape cut
+/// to the samples its plot needs; the same text for an error); and, for a report that is not
+/// long, the inside of the results element and of the one-line summary as the page draws them
+/// (`undefined` otherwise). The solving worker's whole job: it posts them all, and the page draws
+/// the markup, reads the second text when it needs the report, and keeps the first for the
+/// results file and the tap-test panel. It never throws.
 #[cfg(feature = "solver")]
 #[wasm_bindgen(js_name = solveForPage)]
 pub fn solve_for_page(scenario: &str, mode: usize, open: &str) -> js_sys::Array {

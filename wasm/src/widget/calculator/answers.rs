@@ -22,19 +22,19 @@ impl Calculator {
         };
         self.show_solving();
         // Only an answer that will be used is copied into the engine and read.
-        let (view, answer) = (&taken.view, taken.whole.clone());
+        let (text, answer) = (&taken.view, taken.whole.clone());
         match taken.verdict {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
             Verdict::Current(Purpose::Confirm) | Verdict::Overtaken(Purpose::Confirm) => {
-                self.confirmed(read(view), answer);
+                self.confirmed(read(text), answer);
             }
-            Verdict::Current(Purpose::Restore) => self.restored(read(view), answer),
+            Verdict::Current(Purpose::Restore) => self.restored(read(text), answer),
             // The results the worker drew are drawn as they came, and the answer read only
             // when the report is next needed.
             Verdict::Current(Purpose::Edit) => match taken.drawn() {
-                Some(drawn) => self.solved_drawn(view.clone(), answer, drawn),
-                None => self.solved(read(view), answer),
+                Some(drawn) => self.solved_drawn(text.clone(), answer, drawn),
+                None => self.solved(read(text), answer),
             },
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
@@ -102,9 +102,10 @@ impl Calculator {
 
     /// The newest edit, solved, with the results and summary the worker drew for `drawn.0`:
     /// they are drawn at once (unless the reader changed the view meanwhile, when the page
-    /// draws its own), and the answer is kept unread until the report is next needed.
-    fn solved_drawn(&mut self, view: JsValue, answer: JsValue, drawn: (View, Drawn)) {
-        self.unread = Some(view);
+    /// draws its own), and the answer's `text` for reading is kept unread until the report is
+    /// next needed.
+    fn solved_drawn(&mut self, text: JsValue, answer: JsValue, drawn: (View, Drawn)) {
+        self.unread = Some(text);
         self.drawn = Some(drawn);
         self.keep_answer(answer);
         self.error = None;
@@ -132,8 +133,8 @@ impl Calculator {
     /// report on show. The worker drew the results from this very text, so it reads; were it not
     /// to, the error is kept, and the next drawing shows it.
     pub(super) fn read_last(&mut self) {
-        let Some(view) = self.unread.take() else { return };
-        match read(&view) {
+        let Some(text) = self.unread.take() else { return };
+        match read(&text) {
             Ok(report) => self.last = Some(report),
             Err(error) => self.error = Some(error),
         }
