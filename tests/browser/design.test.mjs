@@ -192,16 +192,20 @@ describe("design work on the page", () => {
     // on the bands: hundreds of solves, all in the calculator's worker. The page's thread only
     // draws the answers, so no task on it may reach 50 ms, the browser's own threshold of a long
     // task (common practice, no source).
+    // The keystrokes are watched, not the click that reaches the field: scrolling it into view
+    // lays out that part of the page for the first time, and the test driver's click checks its
+    // target with its own hit tests (a trace of one such click, 88 ms on a loaded two-core
+    // machine, was the browser's mouse-press handling, with no task of the calculator's in it).
     const { context, page, problems } = await openLive(FLOOR);
+    const field = page.locator('[data-field="tolerances[0].plus_minus"]');
+    await field.click();
+    await field.press("Control+A");
     await page.evaluate(() => {
       window.__longTasks = [];
       new PerformanceObserver((list) => window.__longTasks.push(...list.getEntries().map((e) => e.duration))).observe({
         type: "longtask",
       });
     });
-    const field = page.locator('[data-field="tolerances[0].plus_minus"]');
-    await field.click();
-    await field.press("Control+A");
     await field.pressSequentially("4.5 %", { delay: 80 });
     await page.waitForFunction(
       () => !document.querySelector(".mb-calc").hasAttribute("data-solving")
