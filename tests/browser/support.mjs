@@ -47,7 +47,7 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // 300) it stood at 613,867 B. On 2026-12-04 it rose to 716 KB, and the page's engine by 2.9 KB
 // (1.0 KB gzipped), for an edit's answer drawn sooner: the worker now also writes the results
 // and the one-line summary as the page draws them (`worker::message::solve_for_page`), with the
-// drawing code built for speed there (98.8 KB in all, 712,645 B), while the page draws the
+// drawing code built for speed there (98.8 KB in all, 712,654 B), while the page draws the
 // keystroke's frame, and the page draws that markup without reading the answer first. The
 // page's part of an edit's answer fell from 3.9 to 2.4 ms (camera boom) and 3.2 to 1.8 ms (fan
 // beam); docs/performance.md has the A/B. The solver loads after the page is live, so its

@@ -170,11 +170,11 @@ pub fn solve_scenario(scenario: &str) -> String {
 /// results file and the tap-test panel. It never throws.
 #[cfg(feature = "solver")]
 #[wasm_bindgen(js_name = solveForPage)]
-pub fn solve_for_page(scenario: &str, mode: usize, open: &str) -> js_sys::Array {
-    let view = crate::render::View { mode, open: open.split_whitespace().map(str::to_string).collect() };
-    let page = crate::worker::message::solve_for_page(scenario, &view);
+pub fn solve_for_page(scenario: &str, mode: f64, open: &str) -> js_sys::Array {
+    use crate::worker::message;
+    let page = message::solve_for_page(scenario, &message::view_from_message(mode, open));
     let whole = JsValue::from_str(&page.whole);
-    let read = page.view.map_or_else(|| whole.clone(), |v| JsValue::from_str(&v));
+    let read = page.thinned.map_or_else(|| whole.clone(), |v| JsValue::from_str(&v));
     let (results, summary) = match page.drawn {
         Some(d) => (JsValue::from_str(&d.results), JsValue::from_str(&d.summary)),
         None => (JsValue::UNDEFINED, JsValue::UNDEFINED),

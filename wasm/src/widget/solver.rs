@@ -4,7 +4,7 @@
 
 use crate::render::View;
 use crate::worker::latest::{Expiry, Job, Latest, Purpose, Verdict};
-use crate::worker::message::Drawn;
+use crate::worker::message::{self, Drawn};
 use js_sys::{Function, Object, Reflect};
 use wasm_bindgen::JsValue;
 use web_sys::{MessageEvent, Worker, WorkerOptions, WorkerType};
@@ -44,7 +44,7 @@ pub(super) struct Solver {
 pub(super) struct Answer {
     pub(super) verdict: Verdict,
     /// The answer the page reads: its shapes cut to what the plot needs.
-    pub(super) view: JsValue,
+    pub(super) thinned: JsValue,
     /// The whole answer, for the results file and the tap-test panel.
     pub(super) whole: JsValue,
     /// The message itself, which may hold the results and summary the worker drew.
@@ -58,9 +58,7 @@ impl Answer {
         let get = |key: &str| Reflect::get(&self.data, &key.into()).ok();
         let results = get("results")?.as_string()?;
         let summary = get("summary")?.as_string()?;
-        let mode = get("mode")?.as_f64()? as usize;
-        let open = get("open")?.as_string()?;
-        let view = View { mode, open: open.split_whitespace().map(str::to_string).collect() };
+        let view = message::view_from_message(get("mode")?.as_f64()?, &get("open")?.as_string()?);
         Some((view, Drawn { results, summary }))
     }
 }
@@ -91,9 +89,7 @@ impl Solver {
     /// Asks for a scenario to be solved, its results drawn for `view`: at once if the worker is
     /// free, else after the solve under way, in place of any scenario already waiting.
     pub(super) fn submit(&mut self, purpose: Purpose, text: String, view: &View) {
-        if self.view != *view {
-            self.view = view.clone();
-        }
+        self.view.clone_from(view);
         if let Some(job) = self.latest.submit(purpose, text, dom::now()) {
             self.send(job);
         }
@@ -107,12 +103,12 @@ impl Solver {
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
         let whole = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
         // Sent with every answer; were it missing, reading it would say the answer is unreadable.
-        let view = Reflect::get(&data, &"view".into()).ok()?;
+        let thinned = Reflect::get(&data, &"view".into()).ok()?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);
         }
-        Some(Answer { verdict, view, whole, data })
+        Some(Answer { verdict, thinned, whole, data })
     }
 
     /// Gives up a solve that has run past its budget: stops the worker, starts a fresh one and
@@ -178,13 +174,13 @@ impl Solver {
         let later = |callback: &Function, ms: i32| {
             let _ = window.set_timeout_with_callback_and_timeout_and_arguments_0(callback, ms);
         };
-        let message = Object::new();
-        let _ = Reflect::set(&message, &"id".into(), &JsValue::from(job.id));
-        let _ = Reflect::set(&message, &"scenario".into(), &JsValue::from_str(&job.text));
-        let _ = Reflect::set(&message, &"mode".into(), &JsValue::from(self.view.mode as f64));
-        // The open sections' names, which have no spaces, one space between them.
-        let _ = Reflect::set(&message, &"open".into(), &JsValue::from_str(&self.view.open.join(" ")));
-        let posted = self.worker.as_ref().is_some_and(|w| w.post_message(&message).is_ok());
+        let request = Object::new();
+        let _ = Reflect::set(&request, &"id".into(), &JsValue::from(job.id));
+        let _ = Reflect::set(&request, &"scenario".into(), &JsValue::from_str(&job.text));
+        let (mode, open) = message::view_to_message(&self.view);
+        let _ = Reflect::set(&request, &"mode".into(), &JsValue::from(mode));
+        let _ = Reflect::set(&request, &"open".into(), &JsValue::from_str(&open));
+        let posted = self.worker.as_ref().is_some_and(|w| w.post_message(&request).is_ok());
         if !posted {
             // No worker to solve it: the solve fails as soon as this edit has been handled,
             // rather than at its deadline.

@@ -39,10 +39,10 @@ pub struct ForPage {
     pub whole: String,
     /// For a report, the answer as the page reads it: every mode's shape cut to the samples its
     /// plot needs ([`crate::render::thin_shapes`]). `None` for an error, which is read as it is.
-    pub view: Option<String>,
+    pub thinned: Option<String>,
     /// For a report that is not long ([`drawn_here`]), the results and the one-line summary as
     /// the page draws them for the reader's `View` (the mode plotted, the sections left open):
-    /// the same markup the page would write from `view`, written here while the page draws the
+    /// the same markup the page would write from `thinned`, written here while the page draws the
     /// frame of the keystroke.
     pub drawn: Option<Drawn>,
 }
@@ -70,10 +70,22 @@ pub fn solve_for_page(scenario: &str, view: &View) -> ForPage {
                 results: crate::render::results_inner(Some(report), false, view),
                 summary: crate::render::summary_inner(Some(report), false),
             });
-            ForPage { whole, view: Some(write(&answer)), drawn }
+            ForPage { whole, thinned: Some(write(&answer)), drawn }
         }
-        Answer::Error(_) => ForPage { whole, view: None, drawn: None },
+        Answer::Error(_) => ForPage { whole, thinned: None, drawn: None },
     }
+}
+
+/// The reader's view as the page sends it to the worker, and the worker back with the results it
+/// drew: the mode plotted, and the `data-part` names of the sections left open (names without
+/// spaces) with one space between them.
+pub fn view_to_message(view: &View) -> (f64, String) {
+    (view.mode as f64, view.open.join(" "))
+}
+
+/// The reader's view from its message form ([`view_to_message`]).
+pub fn view_from_message(mode: f64, open: &str) -> View {
+    View { mode: mode as usize, open: open.split_whitespace().map(str::to_string).collect() }
 }
 
 /// Whether the worker draws a report's results for the page: unless the report is long (its
@@ -192,7 +204,7 @@ mod tests {
     #[test]
     fn the_drawn_answer_is_the_whole_one_with_fewer_samples() {
         let page = solve_for_page(BOOM, &View::default());
-        let (Ok(whole), Some(Ok(drawn))) = (read(&page.whole), page.view.as_deref().map(read)) else {
+        let (Ok(whole), Some(Ok(drawn))) = (read(&page.whole), page.thinned.as_deref().map(read)) else {
             panic!("the example solves")
         };
         assert_eq!(whole.modes.len(), drawn.modes.len());
@@ -216,7 +228,7 @@ mod tests {
         assert_eq!(same, drawn);
         // An error is read as it comes, and drawn by the page.
         let error = solve_for_page("{\"left\": ", &View::default());
-        assert_eq!((error.view, error.drawn), (None, None));
+        assert_eq!((error.thinned, error.drawn), (None, None));
     }
 
     /// What the worker draws is, character for character, what the page would draw from the
@@ -236,8 +248,10 @@ mod tests {
         ];
         for scenario in scenarios {
             for view in &views {
+                let (mode, open) = view_to_message(view);
+                assert_eq!(&view_from_message(mode, &open), view, "the view crosses unchanged");
                 let page = solve_for_page(scenario, view);
-                let (Some(Ok(report)), Some(drawn)) = (page.view.as_deref().map(read), page.drawn) else {
+                let (Some(Ok(report)), Some(drawn)) = (page.thinned.as_deref().map(read), page.drawn) else {
                     panic!("the example solves, and is drawn by the worker")
                 };
                 assert_eq!(drawn.results, crate::render::results_inner(Some(&report), false, view));

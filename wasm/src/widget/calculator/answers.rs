@@ -22,7 +22,7 @@ impl Calculator {
         };
         self.show_solving();
         // Only an answer that will be used is copied into the engine and read.
-        let (text, answer) = (&taken.view, taken.whole.clone());
+        let (text, answer) = (&taken.thinned, taken.whole.clone());
         match taken.verdict {
             // The example's report is what the page shows: keep it even if an edit overtook it,
             // so that an invalid edit still has results to show greyed.
