@@ -15,16 +15,19 @@ import init, { solveForPage } from "./modebench_solver.js";
 
 const ready = init();
 
-// After its first answer, the worker solves the same scenario again and again while the page
-// asks nothing of it. The browser runs new code as compiled quickly and compiles a function
-// again, optimised, once it has run enough (a function run once per solve, after a hundred solves
-// or so), on background threads that share the cores with the page and this worker: without the
-// warm-up that compiling, a second and a half of it for a documented example on the two-core
-// machine of docs/performance.md, fell on the reader's first hundred edits and slowed some of
-// them. One solve per task, so that an edit waits at most for the one under way; none once an
-// edit has come. The first solve also compiles the engine, so the warm-up starts only after a
-// first solve under FIRST_MS and goes on only while each solve takes under WARM_UP_MS, for at most
-// WARM_UPS solves and WARM_UP_TOTAL_MS in all: a large model is not warmed up.
+// After its first answer, the worker solves the newest scenario that gave a report again and
+// again, one solve per task, between the page's requests. The browser runs new code as compiled
+// quickly and compiles a function again, optimised, once it has run enough (a function run once
+// per solve, after a hundred solves or so), on background threads that share the cores with the
+// page and this worker: without the warm-up that compiling, a second and a half of it for a
+// documented example on the two-core machine of docs/performance.md, fell on the reader's first
+// hundred edits and slowed some of them. The warm-up goes on while the reader types, so that a
+// reader who types at once has it behind them after a few edits rather than a hundred: an edit
+// waits at most for the one solve under way. It solves the newest scenario that gave a report,
+// so the search of the next edit starts from the same frequencies as without it. The first
+// solve also compiles the engine, so the warm-up starts only after a first solve under FIRST_MS
+// and goes on only while each solve (its own, and each edit's) takes under WARM_UP_MS, for at
+// most WARM_UPS solves and WARM_UP_TOTAL_MS in all: a large model is not warmed up.
 const WARM_UPS = 120;
 const FIRST_MS = 500;
 const WARM_UP_MS = 25;
@@ -32,19 +35,23 @@ const WARM_UP_TOTAL_MS = 400;
 let warmUps = 0;
 let warmUpLeftMs = 0;
 let answered = false;
+// The newest request that gave a report: [scenario, mode, open].
+let newest = null;
 
-function warmUp(scenario, mode, open) {
+function warmUp() {
   setTimeout(() => {
-    if (warmUps <= 0 || warmUpLeftMs <= 0) {
+    if (warmUps <= 0 || warmUpLeftMs <= 0 || newest === null) {
       return;
     }
     warmUps -= 1;
     const start = performance.now();
-    solveForPage(scenario, mode, open);
+    solveForPage(...newest);
     const ms = performance.now() - start;
     warmUpLeftMs -= ms;
     if (ms < WARM_UP_MS) {
-      warmUp(scenario, mode, open);
+      warmUp();
+    } else {
+      warmUps = 0;
     }
   }, 0);
 }
@@ -55,7 +62,6 @@ self.addEventListener("message", async (event) => {
   const open = event.data.open ?? "";
   const first = !answered;
   answered = true;
-  warmUps = 0;
   try {
     await ready;
   } catch (error) {
@@ -65,9 +71,18 @@ self.addEventListener("message", async (event) => {
   const start = performance.now();
   const [answer, view, results, summary] = solveForPage(scenario, mode, open);
   self.postMessage({ id, answer, view, results, summary, mode, open });
-  if (first && answer.startsWith('{"report"') && performance.now() - start < FIRST_MS) {
+  const ms = performance.now() - start;
+  if (answer.startsWith('{"report"')) {
+    if (ms < (first ? FIRST_MS : WARM_UP_MS)) {
+      newest = [scenario, mode, open];
+    } else {
+      // A model too large to warm up on: the warm-up ends.
+      warmUps = 0;
+    }
+  }
+  if (first && newest !== null) {
     warmUps = WARM_UPS;
     warmUpLeftMs = WARM_UP_TOTAL_MS;
-    warmUp(scenario, mode, open);
+    warmUp();
   }
 });
