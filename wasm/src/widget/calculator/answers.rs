@@ -109,8 +109,9 @@ impl Calculator {
         self.drawn = Some(drawn);
         self.keep_answer(answer);
         self.error = None;
-        self.waiting_draw = true;
-        self.on_later();
+        // Drawn now, in place of an older answer's drawing still waiting for its task.
+        self.waiting_draw = false;
+        self.draw_results();
     }
 
     /// Draws the results left to draw by [`Calculator::solved`], if any (a newer answer may
@@ -138,6 +139,11 @@ impl Calculator {
             Ok(report) => self.last = Some(report),
             Err(error) => self.error = Some(error),
         }
+    }
+
+    /// Whether a report is on show, read or kept unread.
+    pub(super) fn has_report(&self) -> bool {
+        self.last.is_some() || self.unread.is_some()
     }
 
     /// Makes `report` the report on show, in place of any answer kept unread.

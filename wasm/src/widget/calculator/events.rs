@@ -151,7 +151,7 @@ impl Calculator {
         if self.saved.is_none() {
             self.store();
         }
-        if self.last.is_some() || self.unread.is_some() || self.error.is_some() {
+        if self.has_report() || self.error.is_some() {
             self.draw_results();
             self.refocus(Some(("data-show-mode", mode.to_string())));
         }

@@ -286,7 +286,7 @@ impl Calculator {
                 (None, None)
             }
         };
-        if self.last.is_none() && self.unread.is_none() && self.built_results {
+        if !self.has_report() && self.built_results {
             self.show_built_results();
             self.mark_error();
             return;
