@@ -1,12 +1,12 @@
 // Solves the scenarios of one calculator, off the page's main thread. The page sends
 // { id, scenario, mode, open } with the scenario as JSON text and the reader's view (the mode
 // plotted; the `data-part` names of the sections left open, one space between them), and receives
-// { id, answer, view, results, summary, mode, open }: the answer as JSON text ({"report": …} or
+// { id, answer, thinned, results, summary, mode, open }: the answer as JSON text ({"report": …} or
 // {"error": …}), the answer the page reads (a report's every mode's shape cut to the samples its
 // plot needs; an error as it is), for a report that is not long the results and the one-line
 // summary as the page draws them (undefined otherwise), and the view they were drawn for; or
-// { id, failed } when the solver engine could not load. A solve that takes too long is not interrupted here: the page stops this worker and
-// starts a fresh one.
+// { id, failed } when the solver engine could not load. A solve that takes too long is not
+// interrupted here: the page stops this worker and starts a fresh one.
 //
 // A module worker from the site's own folder, so the pages' policy (scripts from 'self' only,
 // WebAssembly compilation allowed, nothing inline) admits it and the files it imports.
@@ -69,8 +69,8 @@ self.addEventListener("message", async (event) => {
     return;
   }
   const start = performance.now();
-  const [answer, view, results, summary] = solveForPage(scenario, mode, open);
-  self.postMessage({ id, answer, view, results, summary, mode, open });
+  const [answer, thinned, results, summary] = solveForPage(scenario, mode, open);
+  self.postMessage({ id, answer, thinned, results, summary, mode, open });
   const ms = performance.now() - start;
   if (answer.startsWith('{"report"')) {
     if (ms < (first ? FIRST_MS : WARM_UP_MS)) {

@@ -2,7 +2,7 @@
 // solver engine's glue (wasm-bindgen's
 // `no-modules` output, defining `wasm_bindgen`) comes before this, and SOLVER_BASE64, the
 // solver engine in base64, before that. It answers as `assets/solve-worker.js` does on the site:
-// { id, scenario, mode, open } in, { id, answer, view, results, summary, mode, open } or
+// { id, scenario, mode, open } in, { id, answer, thinned, results, summary, mode, open } or
 // { id, failed } out.
 
 const ready = (async () => {
@@ -24,6 +24,6 @@ self.addEventListener("message", async (event) => {
     self.postMessage({ id, failed: String(error) });
     return;
   }
-  const [answer, view, results, summary] = wasm_bindgen.solveForPage(scenario, mode, open);
-  self.postMessage({ id, answer, view, results, summary, mode, open });
+  const [answer, thinned, results, summary] = wasm_bindgen.solveForPage(scenario, mode, open);
+  self.postMessage({ id, answer, thinned, results, summary, mode, open });
 });

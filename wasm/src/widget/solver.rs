@@ -103,7 +103,7 @@ impl Solver {
         let id = Reflect::get(&data, &"id".into()).ok()?.as_f64()?;
         let whole = Reflect::get(&data, &"answer".into()).ok().filter(JsValue::is_string)?;
         // Sent with every answer; were it missing, reading it would say the answer is unreadable.
-        let thinned = Reflect::get(&data, &"view".into()).ok()?;
+        let thinned = Reflect::get(&data, &"thinned".into()).ok()?;
         let (verdict, next) = self.latest.answered(id as u32, dom::now());
         if let Some(job) = next {
             self.send(job);
