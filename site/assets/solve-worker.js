@@ -18,48 +18,94 @@ const ready = init();
 // After its first answer, the worker solves the newest scenario that gave a report again and
 // again, one solve per task, between the page's requests. The browser runs new code as compiled
 // quickly and compiles a function again, optimised, once it has run enough (a function run once
-// per solve, after a hundred solves or so), on background threads that share the cores with the
+// per solve, after a few hundred solves), on background threads that share the cores with the
 // page and this worker: without the warm-up that compiling, a second and a half of it for a
 // documented example on the two-core machine of docs/performance.md, fell on the reader's first
-// hundred edits and slowed some of them. The warm-up goes on while the reader types, so that a
-// reader who types at once has it behind them after a few edits rather than a hundred: an edit
-// waits at most for the one solve under way. It solves the newest scenario that gave a report,
-// so the search of the next edit starts from the same frequencies as without it. The first
-// solve also compiles the engine, so the warm-up starts only after a first solve under FIRST_MS
-// and goes on only while each solve (its own, and each edit's) takes under WARM_UP_MS, for at
-// most WARM_UPS solves and WARM_UP_TOTAL_MS in all: a large model is not warmed up.
+// hundred edits and slowed some of them. It solves the newest scenario that gave a report, so the
+// search of the next edit starts from the same frequencies as without it. The first solve also
+// compiles the engine, so the warm-up starts only after a first solve under FIRST_MS, and stops
+// for good at a solve (its own, or an edit's) of WARM_UP_MS or more: a large model is not warmed
+// up. It comes in two stretches:
+// - While the reader types: the first WARM_UPS solves, WARM_UP_TOTAL_MS at most, go on between
+//   the edits, so that a reader who types at once has most of the compiling behind them after
+//   a few edits rather than a hundred: an edit waits at most for the one solve under way.
+// - While the reader reads: READING_WARM_UPS more, READING_TOTAL_MS at most, run only once no
+//   request has come for QUIET_MS, back to back (a channel's message, not a timer, so that they are
+//   over sooner), and pause at the next request until the reader pauses again. They bring on the
+//   optimised compiling of the functions run once per solve (the results' markup, the frequency
+//   map, the design study), which the first stretch leaves for the edits that follow, and they
+//   never share the cores with an edit being typed.
 const WARM_UPS = 120;
+const WARM_UP_TOTAL_MS = 400;
+const READING_WARM_UPS = 280;
+const READING_TOTAL_MS = 1100;
+const QUIET_MS = 500;
 const FIRST_MS = 500;
 const WARM_UP_MS = 25;
-const WARM_UP_TOTAL_MS = 400;
-let warmUps = 0;
-let warmUpLeftMs = 0;
+const typing = { solves: 0, ms: 0 };
+const reading = { solves: 0, ms: 0 };
 let answered = false;
+let lastRequestMs = 0;
+// Whether a warm-up step is waiting to run (one at a time).
+let pending = false;
 // The newest request that gave a report: [scenario, mode, open].
 let newest = null;
 
-function warmUp() {
-  setTimeout(() => {
-    if (warmUps <= 0 || warmUpLeftMs <= 0 || newest === null) {
+const channel = new MessageChannel();
+channel.port1.onmessage = warmUpStep;
+
+function warmUp(afterMs = 0, soon = false) {
+  if (pending) {
+    return;
+  }
+  pending = true;
+  if (soon) {
+    channel.port2.postMessage(null);
+  } else {
+    setTimeout(warmUpStep, afterMs);
+  }
+}
+
+function warmUpStep() {
+  pending = false;
+  if (newest === null) {
+    return;
+  }
+  let stretch = null;
+  if (typing.solves > 0 && typing.ms > 0) {
+    stretch = typing;
+  } else if (reading.solves > 0 && reading.ms > 0) {
+    const quietMs = performance.now() - lastRequestMs;
+    if (quietMs < QUIET_MS) {
+      warmUp(QUIET_MS - quietMs);
       return;
     }
-    warmUps -= 1;
-    const start = performance.now();
-    solveForPage(...newest);
-    const ms = performance.now() - start;
-    warmUpLeftMs -= ms;
-    if (ms < WARM_UP_MS) {
-      warmUp();
-    } else {
-      warmUps = 0;
-    }
-  }, 0);
+    stretch = reading;
+  } else {
+    return;
+  }
+  stretch.solves -= 1;
+  const start = performance.now();
+  solveForPage(...newest);
+  const ms = performance.now() - start;
+  stretch.ms -= ms;
+  if (ms < WARM_UP_MS) {
+    warmUp(0, stretch === reading);
+  } else {
+    stopWarmUp();
+  }
+}
+
+function stopWarmUp() {
+  typing.solves = 0;
+  reading.solves = 0;
 }
 
 self.addEventListener("message", async (event) => {
   const { id, scenario } = event.data;
   const mode = event.data.mode ?? 0;
   const open = event.data.open ?? "";
+  lastRequestMs = performance.now();
   const first = !answered;
   answered = true;
   try {
@@ -72,17 +118,18 @@ self.addEventListener("message", async (event) => {
   const [answer, thinned, results, summary] = solveForPage(scenario, mode, open);
   self.postMessage({ id, answer, thinned, results, summary, mode, open });
   const ms = performance.now() - start;
+  lastRequestMs = performance.now();
   if (answer.startsWith('{"report"')) {
     if (ms < (first ? FIRST_MS : WARM_UP_MS)) {
       newest = [scenario, mode, open];
     } else {
       // A model too large to warm up on: the warm-up ends.
-      warmUps = 0;
+      stopWarmUp();
     }
   }
   if (first && newest !== null) {
-    warmUps = WARM_UPS;
-    warmUpLeftMs = WARM_UP_TOTAL_MS;
+    Object.assign(typing, { solves: WARM_UPS, ms: WARM_UP_TOTAL_MS });
+    Object.assign(reading, { solves: READING_WARM_UPS, ms: READING_TOTAL_MS });
     warmUp();
   }
 });

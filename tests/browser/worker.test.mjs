@@ -233,7 +233,7 @@ describe("solving off the main thread", () => {
     await context.close();
   });
 
-  test("the worker's warm-up after its first answer sends the page nothing and gives way to an edit", { timeout: TEST_TIMEOUT_MS }, async () => {
+  test("the worker's warm-up after its first answer sends the page nothing and gives way to edits, typed at once or after a pause", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context } = await isolatedContext(browser);
     // Every request to a worker and every message back, by id.
     await context.addInitScript(() => {
@@ -258,17 +258,25 @@ describe("solving off the main thread", () => {
     await page.goto(site.url + BOOM);
     await page.waitForSelector('.mb-calc[data-live="true"]');
     await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
-    const [expected] = await solveHere(page, [boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s))]);
+    const [expected, later] = await solveHere(page, [
+      boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s)),
+      boomWith((s) => ((s.attachments[0].mass = "3.3 kg"), s)),
+    ]);
+    const drawn = ([selector, hz, tolerance]) =>
+      Math.abs(Number(document.querySelector(selector)?.dataset.hz) - hz) <= tolerance * hz;
     // Typed at once, while the worker warms up on the page's example.
     await page.locator(TIP_MASS).fill("3.1 kg");
-    await page.waitForFunction(
-      ([selector, hz, tolerance]) => Math.abs(Number(document.querySelector(selector)?.dataset.hz) - hz) <= tolerance * hz,
-      [MODE_1, expected.hz, SAME],
-    );
-    // Long after any warm-up: one answer for every request, and none for anything else.
-    await page.waitForTimeout(1500);
+    await page.waitForFunction(drawn, [MODE_1, expected.hz, SAME]);
+    // Typed again after a pause, while the worker warms up again on the edited case.
+    await page.waitForTimeout(800);
+    await page.locator(TIP_MASS).fill("3.3 kg");
+    await page.waitForFunction(drawn, [MODE_1, later.hz, SAME]);
+    // Long after any warm-up (the second stretch pauses at each request and goes on after a
+    // pause of half a second, about a second of solving in all): one answer for every request,
+    // and none for anything else.
+    await page.waitForTimeout(3000);
     const { sent, answered } = await page.evaluate(() => ({ sent: window.__sent, answered: window.__answered }));
-    assert.ok(sent.length >= 2, `requests: ${sent}`);
+    assert.ok(sent.length >= 3, `requests: ${sent}`);
     assert.deepEqual(answered, sent, "the worker answered exactly what it was asked, in order");
     assert.deepEqual(problems, []);
     await context.close();
