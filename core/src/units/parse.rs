@@ -63,6 +63,14 @@ pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
             ),
         ));
     }
+    // A decimal comma ("1,5 kg") or a thousands separator ("1,500 mm") is neither read nor
+    // guessed at: which of the two was meant cannot be told from the text.
+    if s[length..].strip_prefix(',').is_some_and(|after| after.starts_with(|c: char| c.is_ascii_digit())) {
+        return Err(syntax(
+            "a comma cannot be read in a number: write decimals with a point, as in 1.5, and thousands \
+             with no separator, as in 1500",
+        ));
+    }
     let rest = s[length..].trim_start();
     let factors = if rest.is_empty() { Vec::new() } else { parse_units(rest)? };
     Ok(Parsed { number, number_text, factors })
