@@ -249,3 +249,21 @@ fn results_keep_the_mode_chosen_and_the_sections_opened() {
     assert!(html.contains("data-part=\"conversions\" open"));
     assert!(html.contains("Mode 3: "));
 }
+
+#[test]
+fn an_end_spring_left_empty_says_it_is_no_spring() {
+    // An elastic end's spring left out is 0 (the schema's default): its empty box says so,
+    // where a grounded spring's stiffness, which must be given, asks for a number.
+    let json = r#"{ "units": "SI", "left": { "type": "elastic", "rotational": "60000 N*m/rad" }, "right": "free",
+        "segments": [ { "length": "1.2 m", "section": { "shape": "round", "diameter": "40 mm" },
+                        "material": "steel" } ],
+        "attachments": [ { "type": "spring", "position": "0.6 m" } ] }"#;
+    let Ok(doc) = doc::read(json) else { panic!("the scenario is JSON") };
+    let live = render::editor_html(&doc, None, Editing::Live);
+    let hint = |field: &str| {
+        let tag = live.split("<input ").find(|tag| tag.contains(&format!("data-field=\"{field}\"")));
+        tag.and_then(|tag| attribute(&tag[..tag.find('>').unwrap_or(tag.len())], "placeholder"))
+    };
+    assert_eq!(hint("left.translational").as_deref(), Some("no spring if empty, or rigid"), "{live}");
+    assert_eq!(hint("attachments[0].stiffness").as_deref(), Some("a number, or rigid"), "{live}");
+}
