@@ -3,6 +3,10 @@
 // ones drawn (patched over the last drawing, exactly as if drawn whole), a stored case too slow
 // to solve leaves the page live on its example with the case offered back, and the worker runs
 // under the pages' content security policy.
+//
+// Longer than 400 lines on purpose: the tests share one served site, one browser and the
+// scenario builders and solving helpers above them, and a second file would copy those or add a
+// module for one file.
 
 import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
