@@ -1,8 +1,9 @@
 // The calculator solves in a Web Worker, so that no model can freeze its page: typing into a
 // model that is slow to solve leaves the main thread free, the newest edit's results are the
 // ones drawn (patched over the last drawing, exactly as if drawn whole), a stored case too slow
-// to solve leaves the page live on its example with the case offered back, and the worker runs
-// under the pages' content security policy.
+// to solve leaves the page live on its example with the case offered back, the worker's warm-up
+// sends the page nothing and gives way to edits, and the worker runs under the pages' content
+// security policy.
 //
 // Longer than 400 lines on purpose: the tests share one served site, one browser and the
 // scenario builders and solving helpers above them, and a second file would copy those or add a
