@@ -72,6 +72,12 @@ pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
         ));
     }
     let rest = s[length..].trim_start();
+    // "1 500 mm" (a space between thousands) or "2 1/2 in" (a whole and a fraction).
+    if rest.len() < s.len() - length && rest.starts_with(|c: char| c.is_ascii_digit()) {
+        return Err(syntax(
+            "a number cannot be read in parts: write it whole, with no space inside, as in 1500 or 2.5",
+        ));
+    }
     let factors = if rest.is_empty() { Vec::new() } else { parse_units(rest)? };
     Ok(Parsed { number, number_text, factors })
 }

@@ -209,6 +209,8 @@ fn errors_name_what_was_expected_and_what_was_given() {
         ("1,5 kg", Kind::Mass, ErrorKind::Syntax, "write decimals with a point, as in 1.5"),
         ("1,5", Kind::Mass, ErrorKind::Syntax, "a comma cannot be read in a number"),
         ("5, kg", Kind::Mass, ErrorKind::Syntax, "expected a unit symbol where ','"),
+        ("1 500 mm", Kind::Length, ErrorKind::Syntax, "no space inside, as in 1500"),
+        ("2 1/2 in", Kind::Length, ErrorKind::Syntax, "a number cannot be read in parts"),
         ("5 *m", Kind::Length, ErrorKind::Syntax, "expected a unit symbol"),
         ("5 m/", Kind::Length, ErrorKind::Syntax, "at the end"),
         ("5 m^5", Kind::SecondMoment, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
