@@ -167,6 +167,12 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
             });
         }
         let (unit, spelled) = table::lookup(&symbol).ok_or_else(|| unknown_unit(&symbol))?;
+        // A digit after a foot or inch mark starts a second length (4'6"), not a power.
+        if symbol.chars().all(table::is_mark) {
+            if let Some(c) = chars.peek().filter(|c| c.is_ascii_digit()) {
+                return Err(two_lengths(spelled, *c));
+            }
+        }
         let power = parse_power(&mut chars, spelled)?;
         factors.push(Factor { unit, symbol: spelled, power: if in_denominator { -power } else { power } });
         if factors.len() > MAX_FACTORS {
@@ -188,9 +194,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
             Some('*' | '·' | '⋅') => {}
             Some('/') => in_denominator = true,
             Some(c) if spaced && c.is_ascii_digit() && unit.dim == table::LENGTH => {
-                return Err(syntax(format!(
-                    "write a length in one unit, as 5.5 ft or 66 in, not two ({spelled} then {c}…)"
-                )));
+                return Err(two_lengths(spelled, c));
             }
             Some(c) if spaced && is_letter(c) => {
                 return Err(syntax(format!(
@@ -201,6 +205,11 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
         }
         while chars.next_if(|c| is_space(*c)).is_some() {}
     }
+}
+
+/// A length written in two units, as feet then inches.
+fn two_lengths(spelled: &str, next: char) -> Error {
+    syntax(format!("write a length in one unit, as 5.5 ft or 66 in, not two ({spelled} then {next}…)"))
 }
 
 /// Reads an optional exponent after a unit symbol: `^2`, `2` or a superscript digit.

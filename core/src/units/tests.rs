@@ -211,6 +211,13 @@ fn errors_name_what_was_expected_and_what_was_given() {
         ("5, kg", Kind::Mass, ErrorKind::Syntax, "expected a unit symbol where ','"),
         ("1 500 mm", Kind::Length, ErrorKind::Syntax, "no space inside, as in 1500"),
         ("2 1/2 in", Kind::Length, ErrorKind::Syntax, "a number cannot be read in parts"),
+        (
+            "4'6\"",
+            Kind::Length,
+            ErrorKind::Syntax,
+            "write a length in one unit, as 5.5 ft or 66 in, not two (' then 6…)",
+        ),
+        ("4\u{2032}6\u{2033}", Kind::Length, ErrorKind::Syntax, "not two (\u{2032} then 6…)"),
         ("5 *m", Kind::Length, ErrorKind::Syntax, "expected a unit symbol"),
         ("5 m/", Kind::Length, ErrorKind::Syntax, "at the end"),
         ("5 m^5", Kind::SecondMoment, ErrorKind::Syntax, "must be 1, 2, 3 or 4"),
