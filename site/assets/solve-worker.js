@@ -45,29 +45,18 @@ const WARM_UP_MS = 25;
 const typing = { solves: 0, ms: 0 };
 const reading = { solves: 0, ms: 0 };
 let answered = false;
+// When the page's last request was answered.
 let lastRequestMs = 0;
-// Whether a warm-up step is waiting to run (one at a time).
-let pending = false;
 // The newest request that gave a report: [scenario, mode, open].
 let newest = null;
 
 const channel = new MessageChannel();
 channel.port1.onmessage = warmUpStep;
 
-function warmUp(afterMs = 0, soon = false) {
-  if (pending) {
-    return;
-  }
-  pending = true;
-  if (soon) {
-    channel.port2.postMessage(null);
-  } else {
-    setTimeout(warmUpStep, afterMs);
-  }
-}
-
+// Each step schedules the next, so that one chain runs, started by the first answer: a timer for
+// the first stretch's steps and for the wait for a pause, a channel's message for the second
+// stretch's steps, back to back.
 function warmUpStep() {
-  pending = false;
   if (newest === null) {
     return;
   }
@@ -77,7 +66,7 @@ function warmUpStep() {
   } else if (reading.solves > 0 && reading.ms > 0) {
     const quietMs = performance.now() - lastRequestMs;
     if (quietMs < QUIET_MS) {
-      warmUp(QUIET_MS - quietMs);
+      setTimeout(warmUpStep, QUIET_MS - quietMs);
       return;
     }
     stretch = reading;
@@ -89,10 +78,12 @@ function warmUpStep() {
   solveForPage(...newest);
   const ms = performance.now() - start;
   stretch.ms -= ms;
-  if (ms < WARM_UP_MS) {
-    warmUp(0, stretch === reading);
-  } else {
+  if (ms >= WARM_UP_MS) {
     stopWarmUp();
+  } else if (stretch === reading) {
+    channel.port2.postMessage(null);
+  } else {
+    setTimeout(warmUpStep, 0);
   }
 }
 
@@ -105,7 +96,6 @@ self.addEventListener("message", async (event) => {
   const { id, scenario } = event.data;
   const mode = event.data.mode ?? 0;
   const open = event.data.open ?? "";
-  lastRequestMs = performance.now();
   const first = !answered;
   answered = true;
   try {
@@ -130,6 +120,6 @@ self.addEventListener("message", async (event) => {
   if (first && newest !== null) {
     Object.assign(typing, { solves: WARM_UPS, ms: WARM_UP_TOTAL_MS });
     Object.assign(reading, { solves: READING_WARM_UPS, ms: READING_TOTAL_MS });
-    warmUp();
+    setTimeout(warmUpStep, 0);
   }
 });

@@ -65,15 +65,16 @@ pub(crate) fn parse_text(text: &str) -> Result<Parsed<'_>, Error> {
     }
     // A decimal comma ("1,5 kg") or a thousands separator ("1,500 mm") is neither read nor
     // guessed at: which of the two was meant cannot be told from the text.
-    if s[length..].strip_prefix(',').is_some_and(|after| after.starts_with(|c: char| c.is_ascii_digit())) {
+    let after = &s[length..];
+    if after.strip_prefix(',').is_some_and(|t| t.starts_with(|c: char| c.is_ascii_digit())) {
         return Err(syntax(
             "a comma cannot be read in a number: write decimals with a point, as in 1.5, and thousands \
              with no separator, as in 1500",
         ));
     }
-    let rest = s[length..].trim_start();
+    let rest = after.trim_start();
     // "1 500 mm" (a space between thousands) or "2 1/2 in" (a whole and a fraction).
-    if rest.len() < s.len() - length && rest.starts_with(|c: char| c.is_ascii_digit()) {
+    if rest.len() < after.len() && rest.starts_with(|c: char| c.is_ascii_digit()) {
         return Err(syntax(
             "a number cannot be read in parts: write it whole, with no space inside, as in 1500 or 2.5",
         ));
