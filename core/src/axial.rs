@@ -167,13 +167,7 @@ mod tests {
 
     fn column(left: End, right: End, force: f64) -> Model {
         Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 2.0,
-                flexural_rigidity: 3.0,
-                mass_per_length: 1.5,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(2.0, 3.0, 1.5)],
             left,
             right,
             attachments: vec![],

@@ -222,7 +222,8 @@ fn add_restraint(s: &mut Station, held_w: &mut bool, held_theta: &mut bool, kt: 
     }
 }
 
-/// Sorts positions and merges those closer than `tolerance`, keeping the first of each group.
+/// Sorts positions and merges those closer than `tolerance`, keeping the first of each group (the
+/// caller ends the last span at the beam's length, whichever of its group was kept).
 fn merge_points(mut xs: Vec<f64>, tolerance: f64) -> Vec<f64> {
     crate::sort::floats(&mut xs);
     let mut out: Vec<f64> = Vec::with_capacity(xs.len());
@@ -232,7 +233,6 @@ fn merge_points(mut xs: Vec<f64>, tolerance: f64) -> Vec<f64> {
             _ => out.push(x),
         }
     }
-    // The far end must be exactly the beam's length.
     out
 }
 
@@ -242,13 +242,7 @@ mod tests {
     use crate::model::{End, ModelParts, Segment, Theory};
 
     fn model(attachments: Vec<Attachment>) -> Model {
-        let seg = |length| Segment {
-            length,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        };
+        let seg = |length| Segment::slender(length, 1.0, 1.0);
         Model::new(ModelParts {
             segments: vec![seg(1.0), seg(2.0)],
             left: End::Clamped,

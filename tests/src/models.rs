@@ -13,13 +13,7 @@ pub fn pinned_span_with_equal_masses(n: usize, total_mass: f64, total_rotary_ine
         })
         .collect();
     Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.0,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(1.0, 1.0, 1.0)],
         left: End::Pinned,
         right: End::Pinned,
         attachments: masses,

@@ -10,13 +10,7 @@ use serde_json::{json, Value};
 
 fn column(left: End, right: End, force: f64) -> Model {
     Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.8,
-            flexural_rigidity: 2.5e4,
-            mass_per_length: 12.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(1.8, 2.5e4, 12.0)],
         left,
         right,
         attachments: vec![],

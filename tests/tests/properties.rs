@@ -249,13 +249,7 @@ fn equivalent_system_reproduces_the_fundamental_and_the_tip_modal_mass() {
     // The equivalent mass of a cantilever's first mode at its tip is m·L/4 (the mode shape
     // normalised to 1 at the tip has ∫φ² dx = L/4 — a classical result, from memory).
     let model = Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 2.0,
-            flexural_rigidity: 3.0,
-            mass_per_length: 5.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(2.0, 3.0, 5.0)],
         left: End::Clamped,
         right: End::Free,
         attachments: vec![],

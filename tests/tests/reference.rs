@@ -11,13 +11,7 @@ use modebench_tests::{check, reference};
 
 fn unit_beam(left: End, right: End, attachments: Vec<Attachment>) -> Model {
     Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.0,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(1.0, 1.0, 1.0)],
         left,
         right,
         attachments,

@@ -18,16 +18,6 @@ const MODES: usize = 20;
 /// Relative accuracy each frequency is proved to by the reference's count.
 const PROVEN: f64 = 1e-10;
 
-fn segment(length: f64, ei: f64, m: f64) -> Segment {
-    Segment {
-        length,
-        flexural_rigidity: ei,
-        mass_per_length: m,
-        shear_rigidity: None,
-        rotary_inertia_per_length: 0.0,
-    }
-}
-
 fn model(segments: Vec<Segment>, left: End, right: End, attachments: Vec<Attachment>) -> Model {
     Model::new(ModelParts { segments, left, right, attachments, theory: Theory::EulerBernoulli })
         .expect("valid model")
@@ -50,7 +40,7 @@ fn large_models() -> Vec<(&'static str, Model)> {
         .collect();
     out.push((
         "pinned beam, 1000 equal masses",
-        model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, masses),
+        model(vec![Segment::slender(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, masses),
     ));
     let random_masses: Vec<Attachment> = positions(&mut rng, 999, 1.0)
         .into_iter()
@@ -62,7 +52,7 @@ fn large_models() -> Vec<(&'static str, Model)> {
         .collect();
     out.push((
         "pinned beam, 999 random masses with rotary inertia",
-        model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, random_masses),
+        model(vec![Segment::slender(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, random_masses),
     ));
     let springs: Vec<Attachment> = positions(&mut rng, 500, 2.0)
         .into_iter()
@@ -70,7 +60,7 @@ fn large_models() -> Vec<(&'static str, Model)> {
         .collect();
     out.push((
         "cantilever, 500 random grounded springs",
-        model(vec![segment(2.0, 3.0, 1.5)], End::Clamped, End::Free, springs),
+        model(vec![Segment::slender(2.0, 3.0, 1.5)], End::Clamped, End::Free, springs),
     ));
     let sprung: Vec<Attachment> = positions(&mut rng, 300, 1.0)
         .into_iter()
@@ -83,19 +73,19 @@ fn large_models() -> Vec<(&'static str, Model)> {
         .collect();
     out.push((
         "free–free beam, 300 sprung masses",
-        model(vec![segment(1.0, 1.0, 1.0)], End::Free, End::Free, sprung),
+        model(vec![Segment::slender(1.0, 1.0, 1.0)], End::Free, End::Free, sprung),
     ));
     let tapered: Vec<Segment> = (0..200)
         .map(|i| {
             let s = 1.0 - 0.6 * (i as f64 + 0.5) / 200.0;
-            segment(0.01, 5.0 * s.powi(3), 2.0 * s)
+            Segment::slender(0.01, 5.0 * s.powi(3), 2.0 * s)
         })
         .collect();
     out.push(("200-segment tapered cantilever", model(tapered, End::Clamped, End::Free, vec![])));
     let supports: Vec<Attachment> = (1..1000).map(|i| Attachment::Support { position: i as f64 }).collect();
     out.push((
         "1000 equal pinned spans",
-        model(vec![segment(1000.0, 1.0, 1.0)], End::Pinned, End::Pinned, supports),
+        model(vec![Segment::slender(1000.0, 1.0, 1.0)], End::Pinned, End::Pinned, supports),
     ));
     out
 }
@@ -155,7 +145,7 @@ fn large_models_keep_full_accuracy() {
 /// Two 0.4 point masses on a pinned–pinned unit beam (EI = m = 1), at 0.3 and 0.3 + d.
 fn pair(d: f64) -> Model {
     let at = |x| Attachment::Mass { position: x, mass: 0.4, rotary_inertia: 0.0 };
-    model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, vec![at(0.3), at(0.3 + d)])
+    model(vec![Segment::slender(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, vec![at(0.3), at(0.3 + d)])
 }
 
 #[test]
@@ -171,7 +161,7 @@ fn attachments_within_the_resolution_are_exactly_the_merged_model() {
     // Positions closer than a trillionth of the length are one station: the result is the merged
     // model's, bit for bit, and moving the second mass by less than that changes nothing.
     let merged = model(
-        vec![segment(1.0, 1.0, 1.0)],
+        vec![Segment::slender(1.0, 1.0, 1.0)],
         End::Pinned,
         End::Pinned,
         vec![Attachment::Mass { position: 0.3, mass: 0.8, rotary_inertia: 0.0 }],
@@ -235,7 +225,7 @@ fn a_mass_just_past_a_segment_joint_gives_the_right_answer() {
         .into_iter()
         .map(|d| {
             let mass = Attachment::Mass { position: 0.5 + d, mass: 0.5, rotary_inertia: 1e-4 };
-            let segments = vec![segment(0.5, 1.0, 1.0), segment(0.5, 1e6, 1.0)];
+            let segments = vec![Segment::slender(0.5, 1.0, 1.0), Segment::slender(0.5, 1e6, 1.0)];
             (format!("a mass {d:e} past the joint"), model(segments, End::Clamped, End::Free, vec![mass]))
         })
         .collect();
@@ -292,7 +282,7 @@ fn attachments_a_hair_from_a_support_give_the_right_answer() {
         for gap in [2e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-6] {
             for side in [1.0, -1.0] {
                 let attachments = vec![Attachment::Support { position: 0.4 }, make(0.4 + side * gap)];
-                let m = model(vec![segment(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, attachments);
+                let m = model(vec![Segment::slender(1.0, 1.0, 1.0)], End::Pinned, End::Pinned, attachments);
                 cases.push((format!("{name} {:e} from a support", side * gap), m));
             }
         }

@@ -274,13 +274,7 @@ mod tests {
         // phantom repeated frequency appeared beside it.
         let (length, ei, m) = (0.6940975879257381, 1.5583686139938904, 0.5894902331427984);
         let model = Model::new(ModelParts {
-            segments: vec![Segment {
-                length,
-                flexural_rigidity: ei,
-                mass_per_length: m,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(length, ei, m)],
             left: End::Guided,
             right: End::Free,
             attachments: vec![],
@@ -312,13 +306,7 @@ mod tests {
         // Two 0.4 masses on a unit pinned beam 1 µm apart, and a short stiff segment with a heavy
         // mass and a soft spring: both once took the search into an endless loop.
         let pair = Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 1.0,
-                flexural_rigidity: 1.0,
-                mass_per_length: 1.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(1.0, 1.0, 1.0)],
             left: End::Pinned,
             right: End::Pinned,
             attachments: vec![
@@ -333,22 +321,7 @@ mod tests {
         // The merged 0.8 mass gives 1.0839061 Hz (ω = 6.810379…); 1 µm apart is within 1e-6 of it.
         assert!((roots[0].omega / std::f64::consts::TAU - 1.0839061).abs() < 2e-6);
         let stiff = Model::new(ModelParts {
-            segments: vec![
-                Segment {
-                    length: 1.0,
-                    flexural_rigidity: 1.0e3,
-                    mass_per_length: 2.0,
-                    shear_rigidity: None,
-                    rotary_inertia_per_length: 0.0,
-                },
-                Segment {
-                    length: 1e-4,
-                    flexural_rigidity: 1.0e12,
-                    mass_per_length: 2.0,
-                    shear_rigidity: None,
-                    rotary_inertia_per_length: 0.0,
-                },
-            ],
+            segments: vec![Segment::slender(1.0, 1.0e3, 2.0), Segment::slender(1e-4, 1.0e12, 2.0)],
             left: End::Clamped,
             right: End::Free,
             attachments: vec![

@@ -232,13 +232,7 @@ mod tests {
         // ω = √(k/m), the beam at rest (a fact of the theory). The inverse iteration meets an
         // exactly vanishing pivot there and must still give a finite shape.
         let model = Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 2.0,
-                flexural_rigidity: 4.1e6,
-                mass_per_length: 36.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(2.0, 4.1e6, 36.0)],
             left: End::Clamped,
             right: End::Clamped,
             attachments: vec![Attachment::SprungMass { position: 0.0, mass: 180.0, stiffness: 9.0e5 }],

@@ -243,22 +243,7 @@ mod tests {
     fn static_response_matches_the_assembled_solve() {
         // The same loads through nalgebra's dense LU of the assembled K(ω) on the same stations.
         let model = Model::new(ModelParts {
-            segments: vec![
-                Segment {
-                    length: 1.2,
-                    flexural_rigidity: 3.0,
-                    mass_per_length: 1.5,
-                    shear_rigidity: None,
-                    rotary_inertia_per_length: 0.0,
-                },
-                Segment {
-                    length: 0.8,
-                    flexural_rigidity: 1.0,
-                    mass_per_length: 0.5,
-                    shear_rigidity: None,
-                    rotary_inertia_per_length: 0.0,
-                },
-            ],
+            segments: vec![Segment::slender(1.2, 3.0, 1.5), Segment::slender(0.8, 1.0, 0.5)],
             left: End::Elastic { translational: 40.0, rotational: 3.0 },
             right: End::Pinned,
             attachments: vec![

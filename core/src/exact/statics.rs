@@ -97,13 +97,7 @@ mod tests {
 
     fn beam(left: End, right: End, extra: &[f64]) -> (Model, System) {
         let model = Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 2.0,
-                flexural_rigidity: 3.0,
-                mass_per_length: 1.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(2.0, 3.0, 1.0)],
             left,
             right,
             attachments: vec![Attachment::Spring { position: 1.2, stiffness: 0.5 }],
@@ -121,13 +115,7 @@ mod tests {
         // beam tables — from memory). The spring at 1.2 is far stiffer than nothing but is
         // removed here by checking a model without it.
         let model = Model::new(ModelParts {
-            segments: vec![Segment {
-                length: 2.0,
-                flexural_rigidity: 3.0,
-                mass_per_length: 1.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(2.0, 3.0, 1.0)],
             left: End::Pinned,
             right: End::Pinned,
             attachments: vec![],

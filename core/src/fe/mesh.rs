@@ -343,13 +343,7 @@ mod tests {
     use crate::model::{ModelParts, Segment};
 
     fn model(attachments: Vec<Attachment>) -> Model {
-        let seg = |length| Segment {
-            length,
-            flexural_rigidity: 1.0,
-            mass_per_length: 1.0,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        };
+        let seg = |length| Segment::slender(length, 1.0, 1.0);
         Model::new(ModelParts {
             segments: vec![seg(1.0), seg(2.0)],
             left: End::Clamped,

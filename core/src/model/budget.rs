@@ -7,15 +7,12 @@ use super::{Attachment, End, Model, ModelParts, Segment, Theory};
 
 /// The budget beam with its ten attachments.
 pub fn budget_beam() -> Model {
-    let segment = |length, ei, m| Segment {
-        length,
-        flexural_rigidity: ei,
-        mass_per_length: m,
-        shear_rigidity: None,
-        rotary_inertia_per_length: 0.0,
-    };
     let parts = ModelParts {
-        segments: vec![segment(1.5, 4.0e6, 40.0), segment(2.0, 2.5e6, 32.0), segment(1.5, 4.0e6, 40.0)],
+        segments: vec![
+            Segment::slender(1.5, 4.0e6, 40.0),
+            Segment::slender(2.0, 2.5e6, 32.0),
+            Segment::slender(1.5, 4.0e6, 40.0),
+        ],
         left: End::Pinned,
         right: End::Elastic { translational: 5.0e6, rotational: 2.0e5 },
         attachments: vec![

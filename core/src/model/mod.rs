@@ -57,6 +57,19 @@ pub struct Segment {
     pub rotary_inertia_per_length: f64,
 }
 
+impl Segment {
+    /// A segment as the Euler–Bernoulli theory sees it: rigid in shear, without rotary inertia.
+    pub fn slender(length: f64, flexural_rigidity: f64, mass_per_length: f64) -> Self {
+        Self {
+            length,
+            flexural_rigidity,
+            mass_per_length,
+            shear_rigidity: None,
+            rotary_inertia_per_length: 0.0,
+        }
+    }
+}
+
 /// How an end of the beam is held.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub enum End {
@@ -302,13 +315,7 @@ mod tests {
 
     pub(crate) fn uniform(left: End, right: End) -> ModelParts {
         ModelParts {
-            segments: vec![Segment {
-                length: 1.0,
-                flexural_rigidity: 1.0,
-                mass_per_length: 1.0,
-                shear_rigidity: None,
-                rotary_inertia_per_length: 0.0,
-            }],
+            segments: vec![Segment::slender(1.0, 1.0, 1.0)],
             left,
             right,
             attachments: vec![],

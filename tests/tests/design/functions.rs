@@ -16,13 +16,7 @@ use std::f64::consts::TAU;
 /// A uniform beam of EI = p[0], m = p[1] with the given ends and attachments.
 fn beam(p: &[f64], left: End, right: End, attachments: Vec<Attachment>) -> Result<Model> {
     Model::new(ModelParts {
-        segments: vec![Segment {
-            length: 1.2,
-            flexural_rigidity: p[0],
-            mass_per_length: p[1],
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(1.2, p[0], p[1])],
         left,
         right,
         attachments,

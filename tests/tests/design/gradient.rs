@@ -119,13 +119,7 @@ fn the_gradient_of_a_pinned_beam_column_is_its_closed_form() {
     // from memory), so ∂ωₙ²/∂EI = (nπ/L)⁴/m, ∂ωₙ²/∂P = (nπ/L)²/m and ∂ωₙ²/∂m = −ωₙ²/m.
     let (length, ei, m, p) = (2.0, 3.0e4, 8.0, 5.0e4);
     let model = Model::new(ModelParts {
-        segments: vec![Segment {
-            length,
-            flexural_rigidity: ei,
-            mass_per_length: m,
-            shear_rigidity: None,
-            rotary_inertia_per_length: 0.0,
-        }],
+        segments: vec![Segment::slender(length, ei, m)],
         left: End::Pinned,
         right: End::Pinned,
         attachments: vec![],
