@@ -239,19 +239,7 @@ fn merge_points(mut xs: Vec<f64>, tolerance: f64) -> Vec<f64> {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::model::{End, ModelParts, Segment, Theory};
-
-    fn model(attachments: Vec<Attachment>) -> Model {
-        let seg = |length| Segment::slender(length, 1.0, 1.0);
-        Model::new(ModelParts {
-            segments: vec![seg(1.0), seg(2.0)],
-            left: End::Clamped,
-            right: End::Pinned,
-            attachments,
-            theory: Theory::EulerBernoulli,
-        })
-        .unwrap()
-    }
+    use crate::model::tests::two_spans as model;
 
     #[test]
     fn stations_merge_and_dofs_skip_held_values() {

@@ -340,19 +340,7 @@ fn misplaced(x: f64) -> Error {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::model::{ModelParts, Segment};
-
-    fn model(attachments: Vec<Attachment>) -> Model {
-        let seg = |length| Segment::slender(length, 1.0, 1.0);
-        Model::new(ModelParts {
-            segments: vec![seg(1.0), seg(2.0)],
-            left: End::Clamped,
-            right: End::Pinned,
-            attachments,
-            theory: Theory::EulerBernoulli,
-        })
-        .unwrap()
-    }
+    use crate::model::tests::two_spans as model;
 
     #[test]
     fn close_attachments_share_a_node_and_restraints_always_get_one() {

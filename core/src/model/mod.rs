@@ -309,11 +309,23 @@ impl Model {
 }
 
 #[cfg(test)]
-mod tests {
+pub(crate) mod tests {
     use super::*;
     use crate::error::ErrorKind;
 
-    pub(crate) fn uniform(left: End, right: End) -> ModelParts {
+    /// Clamped at 0, pinned at 3 m: unit segments of 1 and 2 m carrying `attachments`.
+    pub(crate) fn two_spans(attachments: Vec<Attachment>) -> Model {
+        Model::new(ModelParts {
+            segments: vec![Segment::slender(1.0, 1.0, 1.0), Segment::slender(2.0, 1.0, 1.0)],
+            left: End::Clamped,
+            right: End::Pinned,
+            attachments,
+            theory: Theory::EulerBernoulli,
+        })
+        .unwrap()
+    }
+
+    fn uniform(left: End, right: End) -> ModelParts {
         ModelParts {
             segments: vec![Segment::slender(1.0, 1.0, 1.0)],
             left,
