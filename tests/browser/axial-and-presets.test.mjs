@@ -5,11 +5,10 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, TABLETS, TEST_TIMEOUT_MS, closeAll, launch, openLive, settled, startSite } from "./support.mjs";
+import { BROKEN_NUMBER, TABLETS, TEST_TIMEOUT_MS, closeAll, launch, mode1, openLive, settled, startSite } from "./support.mjs";
 
 const HOT = "hot-line-between-anchors.html"; // 6 in sch 40 steel, 11 m, clamped–clamped, 45 °C rise
 const PUMP = "pump-discharge-valve.html"; // 4 in sch 40 steel, water, US units
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 const RISE = '[data-field="segments[0].temperature_change"]';
 
 let site;
@@ -21,10 +20,6 @@ before(async () => {
 });
 
 after(closeAll);
-
-async function mode1(page) {
-  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
-}
 
 async function type(page, selector, text) {
   await page.locator(selector).fill(text);

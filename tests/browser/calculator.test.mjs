@@ -4,11 +4,10 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, pages, same, startSite } from "./support.mjs";
+import { BROKEN_NUMBER, MODE_1, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, mode1, openLive, pages, same, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 
 // Native and WebAssembly builds use different implementations of sin, cosh and friends, so the
 // last bits of a frequency may differ; one part in 10⁹ is far below any digit shown.
@@ -23,10 +22,6 @@ before(async () => {
 });
 
 after(closeAll);
-
-async function mode1(page) {
-  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
-}
 
 // Types into a field and waits until the first frequency has been recomputed.
 async function typeAndWait(page, field, text) {

@@ -6,11 +6,10 @@ import { readFile, mkdtemp, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { TEST_TIMEOUT_MS, allSame, closeAll, same, isolatedContext, launch, openLive, settled, startSite, watchedPage } from "./support.mjs";
+import { TEST_TIMEOUT_MS, allSame, closeAll, isolatedContext, launch, mode1, openLive, same, settled, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 const TITLE = '.mb-cases [data-field="title"]';
 
 let site;
@@ -39,10 +38,6 @@ async function openCase(page) {
     const stored = JSON.parse(localStorage.getItem(key));
     return stored.cases.find((c) => c.id === stored.open);
   });
-}
-
-async function mode1(page) {
-  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
 }
 
 // An edited case: a title of its own and a heavier tip, typed as a reader would.

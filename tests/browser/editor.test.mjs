@@ -5,11 +5,10 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { TABLETS, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, openLive, pages, settled, startSite } from "./support.mjs";
+import { TABLETS, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, mode1, openLive, pages, settled, startSite } from "./support.mjs";
 
 const FAN = "fan-floor-beam.html"; // a US-inch case: 16 ft I-beam, a 540 lb fan at 6.5 ft
 const BOOM = "sensor-boom.html";
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 
 let site;
 let browser;
@@ -20,10 +19,6 @@ before(async () => {
 });
 
 after(closeAll);
-
-async function mode1(page) {
-  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
-}
 
 async function type(page, selector, text) {
   await page.locator(selector).fill(text);

@@ -3,10 +3,9 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
+import { MODE_1, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 
 let site;
 let browser;

@@ -10,12 +10,11 @@ import { join } from "node:path";
 import { pathToFileURL } from "node:url";
 import { after, before, describe, test } from "node:test";
 import { deflateRawSync } from "node:zlib";
-import { ROOT, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, openLive, settled } from "./support.mjs";
+import { MODE_1, ROOT, TEST_TIMEOUT_MS, axeProblems, closeAll, launch, openLive, settled } from "./support.mjs";
 
 const FILE = process.env.MODEBENCH_SINGLE_FILE ?? join(ROOT, "build", "single", "modebench-calculator.html");
 const URL_OF_FILE = pathToFileURL(FILE).href;
 const TIP_MASS = '[data-field="attachments[0].mass"]';
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 
 // A simply supported uniform beam: f₁ = (π/2)·√(EI/(m·L⁴)), textbook Euler–Bernoulli (as in
 // embed.test.mjs), and f₂ = 4·f₁ (the n² law of the pinned–pinned beam).

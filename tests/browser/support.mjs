@@ -342,6 +342,14 @@ export async function untilKept(target, dist = DIST) {
   );
 }
 
+// The first natural frequency in a calculator's mode table, and its value in hertz as the page
+// holds it (the cell's `data-hz`, in full, not as rounded for show).
+export const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
+
+export async function mode1(page) {
+  return Number(await page.locator(MODE_1).first().getAttribute("data-hz"));
+}
+
 // Words that mean a number went wrong somewhere between the engine and the page.
 export const BROKEN_NUMBER = /\b(NaN|undefined|Infinity)\b/;
 

@@ -13,11 +13,10 @@ import assert from "node:assert/strict";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { after, before, describe, test } from "node:test";
-import { DIST, SAME, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, same, startSite, watchedPage } from "./support.mjs";
+import { DIST, MODE_1, SAME, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, same, startSite, watchedPage } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
-const MODE_1 = 'table.mb-modes tr[data-mode="1"] td[data-hz]';
 const OFFER = '.mb-calc [data-action="reopen"]';
 // The Long Tasks API reports every task of the main thread that runs longer than this, ms; a
 // frame that long is a visible stall (the RAIL model's 50 ms, common practice).
