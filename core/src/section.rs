@@ -270,6 +270,7 @@ pub fn properties(input: &SectionInput, poisson: f64) -> Result<SectionProps, Er
     Ok(props)
 }
 
+/// A section without a bore to carry contents and without a round outside: the figures as given.
 fn solid(area: f64, second_moment: f64, depth: f64, shear_coefficient: f64) -> SectionProps {
     SectionProps {
         area,
@@ -330,15 +331,7 @@ fn i_beam(h: f64, b: f64, t_f: f64, t_w: f64, axis: BendingAxis, poisson: f64) -
             shear::i_weak_axis(poisson, flange_area, area),
         ),
     };
-    SectionProps {
-        area,
-        second_moment,
-        depth,
-        shear_coefficient,
-        outer_diameter: None,
-        bore_area: 0.0,
-        conversions: Vec::new(),
-    }
+    solid(area, second_moment, depth, shear_coefficient)
 }
 
 /// h³ − hᵢ³ for 0 < hᵢ = h − gap, without cancellation: gap·(h² + h·hᵢ + hᵢ²), with the gap

@@ -145,6 +145,20 @@ fn calibration_recovers_a_published_tip_mass_ratio() {
     assert!((c.fitted[0] - 1.0).abs() < 1e-3, "μ = {:?}", c.fitted);
 }
 
+/// The fan floor beam (US customary) on a drive from 600 to 900 rpm, with the motor's pull at
+/// twice line frequency, to be kept 15 % clear: mode 1 must stay above the fan, mode 2 off
+/// 120 Hz, so two ranges of depth are feasible.
+fn fan_on_its_drives() -> Value {
+    let mut doc: Value =
+        serde_json::from_str(include_str!("../../../docs/scenarios/fan-floor-beam-us.json")).expect("JSON");
+    doc["excitations"] = json!([
+        { "label": "fan", "frequency": "600 rpm", "up_to": "900 rpm" },
+        { "label": "motor, twice line frequency", "frequency": "60 Hz", "orders": [2] },
+    ]);
+    doc["margin"] = json!("15 %");
+    doc
+}
+
 /// Whether every mode of a report clears every excitation, judged as the report judges it.
 fn clear(doc: &Value) -> bool {
     solve(doc).modes.iter().all(|m| m.nearest_excitation.as_ref().is_none_or(|s| !s.too_close))
@@ -152,15 +166,7 @@ fn clear(doc: &Value) -> bool {
 
 #[test]
 fn resizing_a_floor_beam_reports_intervals_whose_edges_re_solve_as_it_says() {
-    let mut doc: Value =
-        serde_json::from_str(include_str!("../../../docs/scenarios/fan-floor-beam-us.json")).expect("JSON");
-    // A fan on a drive from 600 to 900 rpm and the motor's pull at twice line frequency: mode 1
-    // must stay above the fan, mode 2 off 120 Hz, so two ranges of depth are feasible.
-    doc["excitations"] = json!([
-        { "label": "fan", "frequency": "600 rpm", "up_to": "900 rpm" },
-        { "label": "motor, twice line frequency", "frequency": "60 Hz", "orders": [2] },
-    ]);
-    doc["margin"] = json!("15 %");
+    let mut doc = fan_on_its_drives();
     doc["resize"] =
         json!({ "field": "segments[0].section.depth", "from": "6 in", "to": "20 in", "points": 60 });
     let r = solve(&doc).design.resize.expect("a resizing");
@@ -302,13 +308,7 @@ fn resizing_within_tolerance_bands_reports_intervals_whose_edges_re_solve_on_the
     // interval's ends and middle the scenario re-solved with its tolerances clears every margin,
     // and just outside an end a margin fails; and each interval lies inside one found without
     // the tolerances (a band holds its nominal frequency).
-    let mut doc: Value =
-        serde_json::from_str(include_str!("../../../docs/scenarios/fan-floor-beam-us.json")).expect("JSON");
-    doc["excitations"] = json!([
-        { "label": "fan", "frequency": "600 rpm", "up_to": "900 rpm" },
-        { "label": "motor, twice line frequency", "frequency": "60 Hz", "orders": [2] },
-    ]);
-    doc["margin"] = json!("15 %");
+    let mut doc = fan_on_its_drives();
     doc["tolerances"] = json!([
         { "field": "segments[0].material.youngs_modulus", "plus_minus": "5 %" },
         { "field": "attachments[0].mass", "plus_minus": "10 %" },
