@@ -69,14 +69,7 @@ impl Calculator {
         let Some((doc, mode)) = self.saved.take() else { return };
         self.doc = doc;
         self.view.mode = mode;
-        match outcome {
-            Ok(report) => {
-                self.set_last(report);
-                self.keep_answer(answer);
-                self.error = None;
-            }
-            Err(error) => self.error = Some(error),
-        }
+        self.adopt(outcome, answer);
         self.draw_all();
     }
 
@@ -86,6 +79,16 @@ impl Calculator {
     /// before the drawing, the newer is drawn.
     fn solved(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         let long = outcome.as_ref().is_ok_and(|r| !message::drawn_here(r));
+        self.adopt(outcome, answer);
+        self.waiting_draw = true;
+        if !long || !self.draw_later() {
+            self.on_later();
+        }
+    }
+
+    /// Makes a solved answer the one on show: its report and the worker's answer kept, or its
+    /// error.
+    fn adopt(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         match outcome {
             Ok(report) => {
                 self.set_last(report);
@@ -93,10 +96,6 @@ impl Calculator {
                 self.error = None;
             }
             Err(error) => self.error = Some(error),
-        }
-        self.waiting_draw = true;
-        if !long || !self.draw_later() {
-            self.on_later();
         }
     }
 
