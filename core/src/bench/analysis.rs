@@ -383,17 +383,20 @@ fn run(
         .taps
         .iter()
         .zip(&used)
-        .map(|(t, &u)| TapReport {
+        .enumerate()
+        .map(|(k, (t, &u))| TapReport {
             time_s: t.onset as f64 / rate,
             level_db: t.level_db,
             kept_s: (t.end - t.onset) as f64 / rate,
             used: u,
+            // A tap's `cut_short` says the next one struck while it still rang: the note goes
+            // on the tap that struck, as the warning counts it.
             note: if let Some(d) = t.double_hit {
                 Some(format!(
                     "double hit: a second impact {} ms after the first",
                     number((d * 1000.0).round())
                 ))
-            } else if t.cut_short {
+            } else if k > 0 && plan.taps[k - 1].cut_short {
                 Some("struck while the part still rang from the tap before".to_string())
             } else {
                 None

@@ -214,6 +214,28 @@ fn a_double_hit_is_found_and_left_out_of_the_average() {
 }
 
 #[test]
+fn a_tap_struck_while_the_part_still_rings_is_the_one_named() {
+    // 200 Hz at ζ = 0.002 decays by 1/e in 0.4 s (τ = 1/(ζω)). A light tap, then a hard one
+    // 0.5 s later, when the first still rings some 45 dB over the noise (and 19 dB under the
+    // new tap, so that it is told apart); the third comes 3 s after the second, which has died
+    // away by then. The second tap is the one struck into a ring.
+    let modes = [ringdown::Mode { hz: 200.0, zeta: 0.002, amplitude: 0.5, phase: 0.3 }];
+    let taps = [(0.2, 0.4), (0.7, 1.0), (3.7, 1.0)];
+    let record = ringdown::record(&mut Rng::new(81), 8_000.0, 5.5, &modes, &taps, 2e-4, true);
+    let report = analyse(&record);
+    let notes: Vec<Option<&str>> = report.taps.iter().map(|t| t.note.as_deref()).collect();
+    assert_eq!(
+        notes,
+        [None, Some("struck while the part still rang from the tap before"), None],
+        "{:?}",
+        report.taps
+    );
+    let warned: Vec<&str> =
+        report.warnings.iter().filter(|w| w.kind == "still-ringing").map(|w| w.message.as_str()).collect();
+    assert!(warned.len() == 1 && warned[0].starts_with("one tap came"), "{:?}", report.warnings);
+}
+
+#[test]
 fn a_clipped_record_is_flagged() {
     let modes = [ringdown::Mode { hz: 440.0, zeta: 0.005, amplitude: 1.6, phase: 0.0 }];
     let mut record = ringdown::record(&mut Rng::new(78), 16_000.0, 1.5, &modes, &[(0.2, 1.0)], 1e-3, true);
