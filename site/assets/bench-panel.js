@@ -66,6 +66,18 @@ function button(text, action) {
   return element("button", { type: "button", class: "mb-button", "data-bench-action": action }, text);
 }
 
+// The caution, above the controls that start a record: it is read before the part is tapped.
+function caution() {
+  const p = element("p", { class: "mb-caution mb-bench-caution" });
+  p.append(
+    element("strong", {}, "Take care."),
+    " Keep clear of rotating or energised parts while tapping: stop and isolate the machine first. A tap test " +
+      "checks the model; it does not replace the acceptance test of the applicable code, and where resonance " +
+      "could cause a fatigue failure a qualified engineer must judge the result.",
+  );
+  return p;
+}
+
 // The panel's markup, built once per calculator.
 function build(index) {
   const panel = element("details", { class: "mb-bench", "data-bench-for": String(index) });
@@ -79,6 +91,7 @@ function build(index) {
         "tablet's microphone (held a few centimetres from the part) or its motion sensor (the tablet " +
         "fixed to the part), or open a recording. The peaks found are set beside the predicted modes above.",
     ),
+    caution(),
     element(
       "p",
       { class: "mb-bench-private" },
@@ -131,15 +144,6 @@ function build(index) {
   const keep = element("p", { class: "mb-bench-keep" });
   keep.append(button("Use as measured", "keep"), button("Clear the case's measured frequencies", "clear"));
   body.append(keep);
-  body.append(
-    element(
-      "p",
-      { class: "mb-note mb-bench-caution" },
-      "A tap test checks the model; it does not replace the acceptance test of the applicable code. Keep " +
-        "clear of rotating or energised parts while tapping, and where resonance could cause a fatigue " +
-        "failure have a qualified engineer judge the result.",
-    ),
-  );
   panel.append(body);
   return panel;
 }

@@ -124,7 +124,8 @@ pub fn pair(peaks: &mut [MeasuredPeak], predicted: &Predicted, range_hz: [f64; 2
             };
             if let Some(j) = peak {
                 let p = &mut peaks[j];
-                let diff = (p.undamped_hz - m.hz) / m.hz * 100.0;
+                // The model's error, as the calculator states it beside a measured frequency.
+                let diff = (m.hz - p.undamped_hz) / p.undamped_hz * 100.0;
                 p.mode = Some(m.number);
                 p.predicted_hz = Some(m.hz);
                 p.difference_percent = Some(diff);

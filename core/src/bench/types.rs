@@ -95,7 +95,7 @@ pub struct MeasuredPeak {
     pub mode: Option<usize>,
     /// That mode's predicted frequency, Hz.
     pub predicted_hz: Option<f64>,
-    /// (measured undamped − predicted) / predicted, %.
+    /// (predicted − measured undamped) / measured undamped, %: positive when the model is high.
     pub difference_percent: Option<f64>,
 }
 
@@ -110,7 +110,7 @@ pub struct ModeMatch {
     pub peak: Option<usize>,
     /// Measured undamped frequency, Hz, when matched.
     pub measured_hz: Option<f64>,
-    /// (measured − predicted) / predicted, %, when matched.
+    /// (predicted − measured) / measured, %, when matched.
     pub difference_percent: Option<f64>,
     /// Why it may be absent or was not matched.
     pub note: Option<String>,

@@ -219,9 +219,13 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
     for (i, p) in report.peaks.iter().enumerate() {
         let mode = match (p.mode, p.predicted_hz, p.difference_percent) {
             (Some(m), Some(hz), Some(d)) => {
-                format!("<td>{m}</td><td>{}</td><td>{}</td>", significant(hz, 5), signed_percent(d))
+                format!(
+                    "<td>{m}</td><td>{}</td><td data-difference>{}</td>",
+                    significant(hz, 5),
+                    signed_percent(d)
+                )
             }
-            _ => "<td>—</td><td>—</td><td>—</td>".to_string(),
+            _ => "<td>—</td><td>—</td><td data-difference>—</td>".to_string(),
         };
         let half = match &p.half_power_note {
             Some(note) => {
@@ -231,11 +235,11 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
         };
         let _ = write!(
             rows,
-            "<tr data-peak=\"{}\"><td>{}</td><td data-hz=\"{}\">{}</td><td>{}</td><td>{half}</td><td>{}</td><td>{}</td>{mode}</tr>",
+            "<tr data-peak=\"{}\"><td>{}</td><td data-hz=\"{}\">{}</td>{mode}<td>{}</td><td>{half}</td><td>{}</td><td>{}</td></tr>",
             i + 1,
             i + 1,
             p.frequency_hz,
-            significant(p.frequency_hz, 6),
+            significant(p.frequency_hz, 5),
             percent(p.damping_fit),
             quality(p.quality),
             significant(p.over_floor_db, 3),
@@ -254,17 +258,34 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
     } else {
         format!("<p class=\"mb-note\">* The half-power figure is less certain:</p><ul class=\"mb-bench-notes\">{}</ul>", notes.concat())
     };
-    let lacking = if predicted {
-        ""
+    // What the comparison and "Use as measured" take: each matched peak's undamped frequency,
+    // not the damped one listed.
+    let undamped: Vec<String> = report
+        .peaks
+        .iter()
+        .filter(|p| p.mode.is_some())
+        .map(|p| format!("{} Hz", significant(p.undamped_hz, 5)))
+        .collect();
+    let lacking = if !predicted {
+        "<p class=\"mb-note\">No predicted modes to match: the calculator has no results yet.</p>".to_string()
+    } else if undamped.is_empty() {
+        String::new()
     } else {
-        "<p class=\"mb-note\">No predicted modes to match: the calculator has no results yet.</p>"
+        format!(
+            "<p class=\"mb-note\">The peaks are listed as they rang, damped. Each mode is compared with its \
+             peak's undamped frequency, f/√(1 − ζ²) with ζ the fitted damping, which is what <b>Use as \
+             measured</b> keeps: {}. Predicted − measured is a percentage of that measured frequency: \
+             positive when the model is high.</p>",
+            undamped.join(", ")
+        )
     };
     format!(
         "<div class=\"mb-table-wrap\" tabindex=\"0\" role=\"region\" aria-label=\"Measured peaks\"><table class=\"mb-bench-peaks\"><caption>Measured peaks</caption><thead><tr>\
-         <th scope=\"col\">Peak</th><th scope=\"col\">Frequency, Hz</th><th scope=\"col\">Damping (fit)</th>\
-         <th scope=\"col\">Damping (half-power)</th><th scope=\"col\">Fit quality (0–1)</th>\
-         <th scope=\"col\">Over floor, dB</th><th scope=\"col\">Mode</th><th scope=\"col\">Predicted, Hz</th>\
-         <th scope=\"col\">Measured − predicted</th></tr></thead><tbody>{rows}</tbody></table></div>{notes}{lacking}"
+         <th scope=\"col\">Peak</th><th scope=\"col\">Frequency, Hz</th><th scope=\"col\">Mode</th>\
+         <th scope=\"col\">Predicted, Hz</th><th scope=\"col\">Predicted − measured</th>\
+         <th scope=\"col\">Damping (fit)</th><th scope=\"col\">Damping (half-power)</th>\
+         <th scope=\"col\">Fit quality (0–1)</th><th scope=\"col\">Over floor, dB</th></tr></thead>\
+         <tbody>{rows}</tbody></table></div>{lacking}{notes}"
     )
 }
 
