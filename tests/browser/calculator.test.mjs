@@ -211,6 +211,29 @@ describe("the live calculator", () => {
     });
   }
 
+  test("typed faster than it solves, a refused value greys the results of the value just before it", { timeout: TEST_TIMEOUT_MS }, async () => {
+    // "12", "12 lb", "12 lbf" in one task: the first goes to the worker, the second waits and
+    // the third takes its place, so "12 lb" is never solved on its way; "12 lbf" is a force and
+    // refused. The results greyed under the refusal are those of 12 lb, not of 3 kg typed before.
+    const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
+    await typeAndWait(page, TIP_MASS, "12 lb");
+    const pounds = await mode1(page);
+    await typeAndWait(page, TIP_MASS, "3 kg");
+    assert.notEqual(await mode1(page), pounds);
+    await page.evaluate((field) => {
+      const input = document.querySelector(field);
+      for (const text of ["12", "12 lb", "12 lbf"]) {
+        input.value = text;
+        input.dispatchEvent(new Event("input", { bubbles: true }));
+      }
+    }, TIP_MASS);
+    await page.locator('.mb-field-error[data-for="attachments[0].mass"]').waitFor({ state: "visible", timeout: 5000 });
+    await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
+    await page.waitForSelector(".mb-results.mb-stale");
+    assert.ok(same(await mode1(page), pounds), `greyed ${await mode1(page)} Hz against 12 lb's ${pounds} Hz`);
+    await context.close();
+  });
+
   test("a reload keeps what was typed", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
     await typeAndWait(page, TIP_MASS, "3.1 kg");

@@ -95,6 +95,14 @@ impl Solver {
         }
     }
 
+    /// After the newest edit was refused, asks for the edit before it to be solved again if its
+    /// answer was never drawn ([`Latest::earlier`]).
+    pub(super) fn submit_earlier(&mut self, view: &View) {
+        if let Some(text) = self.latest.earlier() {
+            self.submit(Purpose::Earlier, text, view);
+        }
+    }
+
     /// Takes a worker's message ([`Answer`]), or `None` when the worker reports that it could
     /// not load its engine (the caller then calls [`Solver::fail`]). Hands the worker the next
     /// scenario, if one waits.

@@ -4,8 +4,11 @@
 //! One scenario is with the worker at a time. An edit made meanwhile waits; a later edit takes
 //! its place, so at most one waits, whatever the reader types. An answer that an edit made after
 //! it has overtaken is not drawn. A solve that runs past the budget is given up (the page stops
-//! the worker and starts a fresh one) and the waiting edit, if any, goes next. Pure logic with
-//! the clock passed in, so that it is tested natively.
+//! the worker and starts a fresh one) and the waiting edit, if any, goes next. When the newest
+//! edit is refused, the edit before it, if its answer was never drawn (it was replaced while it
+//! waited, or overtaken), is solved again, so that the results greyed under the refusal are
+//! those of the input just before it however fast it was typed, not of some keystroke further
+//! back. Pure logic with the clock passed in, so that it is tested natively.
 
 /// Why a scenario is sent to be solved; the calculator acts on its answer accordingly.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -16,6 +19,9 @@ pub enum Purpose {
     Restore,
     /// An edit, or a case the reader chose to open.
     Edit,
+    /// The edit before a refused one, solved again for the results shown greyed under the
+    /// refusal ([`Latest::earlier`]).
+    Earlier,
 }
 
 /// A scenario to hand to the worker.
@@ -60,6 +66,13 @@ struct Running {
     since_ms: f64,
 }
 
+/// An edit submitted, kept until two more have been, and whether its answer was drawn.
+#[derive(Debug)]
+struct Submitted {
+    job: Job,
+    drawn: bool,
+}
+
 /// The queue of one calculator's solves.
 #[derive(Debug)]
 pub struct Latest {
@@ -67,12 +80,14 @@ pub struct Latest {
     next_id: u32,
     running: Option<Running>,
     waiting: Option<Job>,
+    /// The newest edit submitted, and the one before it.
+    edits: [Option<Submitted>; 2],
 }
 
 impl Latest {
     /// An empty queue whose solves may each take `budget_ms`.
     pub fn new(budget_ms: f64) -> Latest {
-        Latest { budget_ms, next_id: 1, running: None, waiting: None }
+        Latest { budget_ms, next_id: 1, running: None, waiting: None, edits: [None, None] }
     }
 
     /// How long a solve may take, ms.
@@ -86,6 +101,16 @@ impl Latest {
         let id = self.next_id;
         self.next_id = self.next_id.wrapping_add(1);
         let job = Job { id, purpose, text };
+        match purpose {
+            Purpose::Edit => {
+                let newest = Some(Submitted { job: job.clone(), drawn: false });
+                self.edits = [newest, self.edits[0].take()];
+            }
+            // The edit before a refused one is solved again for the greyed results only.
+            Purpose::Earlier => {}
+            // A whole case replaces what was typed before it.
+            Purpose::Confirm | Purpose::Restore => self.edits = [None, None],
+        }
         if self.running.is_some() {
             self.waiting = Some(job);
             return None;
@@ -105,7 +130,19 @@ impl Latest {
         } else {
             Verdict::Current(running.purpose)
         };
+        if verdict == Verdict::Current(Purpose::Edit) {
+            for edit in self.edits.iter_mut().flatten().filter(|e| e.job.id == id) {
+                edit.drawn = true;
+            }
+        }
         (verdict, next)
+    }
+
+    /// Called when the newest edit was refused: the text of the edit submitted before it, if
+    /// that one's answer was never drawn, to be solved again as [`Purpose::Earlier`]. Each is
+    /// given once.
+    pub fn earlier(&mut self) -> Option<String> {
+        self.edits[1].take().filter(|e| !e.drawn).map(|e| e.job.text)
     }
 
     /// Gives up the solve under way if it has run for the budget by `now_ms`. The caller stops
@@ -179,6 +216,37 @@ mod tests {
         let last = next.map_or(0, |j| j.id);
         assert_eq!(q.answered(last, 60.0), (Verdict::Current(Purpose::Edit), None));
         assert!(!q.busy());
+    }
+
+    #[test]
+    fn a_refused_edit_brings_back_the_one_before_it_only_if_that_was_never_drawn() {
+        // Typed fast: "12 lb" waits, then "12 lbf" takes its place and is refused; the results
+        // greyed under the refusal must be those of "12 lb", not of "12" solved before it.
+        let mut q = Latest::new(BUDGET);
+        let first = q.submit(Purpose::Edit, "12".into(), 0.0).map_or(0, |j| j.id);
+        q.submit(Purpose::Edit, "12 lb".into(), 1.0);
+        q.submit(Purpose::Edit, "12 lbf".into(), 2.0);
+        let (_, next) = q.answered(first, 10.0);
+        let refused = next.map_or(0, |j| j.id);
+        assert_eq!(q.answered(refused, 20.0), (Verdict::Current(Purpose::Edit), None));
+        assert_eq!(q.earlier().as_deref(), Some("12 lb"));
+        assert_eq!(q.earlier(), None, "given once");
+        let again = q.submit(Purpose::Earlier, "12 lb".into(), 21.0).map_or(0, |j| j.id);
+        assert_eq!(q.answered(again, 30.0), (Verdict::Current(Purpose::Earlier), None));
+
+        // Typed slowly: the edit before the refused one was drawn, so nothing is solved again.
+        let mut q = Latest::new(BUDGET);
+        for (t, text) in [(0.0, "12 lb"), (100.0, "12 lbf")] {
+            let id = q.submit(Purpose::Edit, text.into(), t).map_or(0, |j| j.id);
+            assert_eq!(q.answered(id, t + 10.0), (Verdict::Current(Purpose::Edit), None));
+        }
+        assert_eq!(q.earlier(), None);
+
+        // A case opened in between: what was typed before it is not brought back.
+        let mut q = Latest::new(BUDGET);
+        q.submit(Purpose::Edit, "typed".into(), 0.0);
+        q.submit(Purpose::Restore, "saved".into(), 1.0);
+        assert_eq!(q.earlier(), None);
     }
 
     #[test]

@@ -36,6 +36,7 @@ impl Calculator {
                 Some(drawn) => self.solved_drawn(text.clone(), answer, drawn),
                 None => self.solved(read(text), answer),
             },
+            Verdict::Current(Purpose::Earlier) => self.earlier(read(text), answer),
             // Something newer is with the worker: this answer must not be drawn over it.
             Verdict::Overtaken(_) | Verdict::Unknown => {}
         }
@@ -83,6 +84,20 @@ impl Calculator {
         self.waiting_draw = true;
         if !long || !self.draw_later() {
             self.on_later();
+        }
+        if self.error.is_some() {
+            self.solver.submit_earlier(&self.view);
+            self.show_solving();
+        }
+    }
+
+    /// The edit before a refused one, solved again: its results replace the greyed ones while
+    /// the refusal stands. Refused too, it changes nothing.
+    fn earlier(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
+        if let (Ok(report), Some(_)) = (outcome, &self.error) {
+            self.set_last(report);
+            self.keep_answer(answer);
+            self.draw_results();
         }
     }
 
@@ -188,7 +203,7 @@ impl Calculator {
             return;
         }
         match expiry.purpose {
-            Purpose::Confirm => {}
+            Purpose::Confirm | Purpose::Earlier => {}
             Purpose::Restore => {
                 if let Some((doc, mode)) = self.saved.take() {
                     storage::set_aside(&self.key, &doc, mode);
