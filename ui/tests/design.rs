@@ -73,6 +73,13 @@ fn a_proposed_size_applied_clears_every_margin_as_the_sweep_said() {
     let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
     let Some((changes, what)) = design::resize_changes(&doc, &report) else { panic!("a proposal") };
     assert!(changes[0].text.ends_with(" in"), "{}", changes[0].text);
+    // The nearest feasible depth is the low edge of a window, 11.4945 in, which runs up to
+    // 11.7956 in: rounded up into it, 12 in falls outside and 11.5 in is the fewest figures in.
+    let Some(r) = report.design.resize.as_ref() else { panic!("a resizing") };
+    let (a, b) = r.intervals[0];
+    assert!((a / 0.0254 - 11.4945).abs() < 1e-4 && (b / 0.0254 - 11.7956).abs() < 1e-4, "{:?}", r.intervals);
+    assert_eq!(changes[0].text, "11.5 in");
+    assert!(changes[0].si > a && changes[0].si < b);
     // The undo's words name the input as the report does, its first letter lowered only.
     let Some(resize) = report.design.resize.as_ref() else { panic!("a resizing") };
     let label = &resize.input.label;

@@ -9,6 +9,7 @@
 
 use super::path;
 use modebench::design::inputs;
+use modebench::design::study::ResizeReport;
 use modebench::units::{display_unit, significant, Kind, UnitSystem};
 use modebench::{FieldPath, Report};
 use serde_json::Value;
@@ -51,16 +52,32 @@ pub fn fit_changes(doc: &Value, report: &Report) -> Option<(Vec<Change>, String)
     Some((changes, format!("use the fitted value{}", if c.fitted.len() > 1 { "s" } else { "" })))
 }
 
-/// The nearest feasible value of the report's resizing, with words for the undo control.
+/// The value a resizing puts into the model, SI. The feasible value nearest today's lies on an
+/// edge of its interval, where a mode just meets its margin, so it is rounded into the interval
+/// in the case's unit, to the fewest significant figures (two to six) that land inside, as a
+/// designer rounds a dimension: 64.2815 mm on the low edge of a range up to 80 mm puts 65 mm.
+/// Failing that (a very narrow interval) it is moved in by a little more than six figures'
+/// rounding.
+pub fn resize_value(r: &ResizeReport, system: UnitSystem) -> Option<f64> {
+    let nearest = r.nearest?;
+    let (a, b) = r.intervals.iter().copied().find(|(a, b)| nearest >= *a && nearest <= *b)?;
+    let inward = if nearest - a < b - nearest { 1.0 } else { -1.0 };
+    let per_si = display_unit(r.input.kind, system).per_si;
+    let shown = nearest * per_si;
+    let rounded = (2..=6).find_map(|digits| {
+        let unit = 10f64.powf(shown.abs().log10().floor() + 1.0 - f64::from(digits));
+        let v = (shown / unit * inward).ceil() * inward * unit / per_si;
+        (v > a && v < b).then_some(v)
+    });
+    let step = (1e-4 * (b - a)).max(1e-5 * nearest.abs()).min(0.5 * (b - a));
+    Some(rounded.unwrap_or(nearest + inward * step))
+}
+
+/// The value the report's resizing puts into the model, with words for the undo control.
 pub fn resize_changes(doc: &Value, report: &Report) -> Option<(Vec<Change>, String)> {
     let r = report.design.resize.as_ref()?;
-    let nearest = r.nearest?;
-    // The nearest value lies on an edge of its interval; written to six figures it could fall
-    // just outside, so it is moved into the interval by a little more than the rounding.
-    let (a, b) = r.intervals.iter().copied().find(|(a, b)| nearest >= *a && nearest <= *b)?;
-    let step = (1e-4 * (b - a)).max(1e-5 * nearest.abs()).min(0.5 * (b - a));
-    let v = if nearest - a < b - nearest { nearest + step } else { nearest - step };
     let system = super::unit_system(doc);
+    let v = resize_value(r, system)?;
     let text = text_of(v, r.input.kind, system);
     // Only the label's capital first letter is lowered, in ASCII: a symbol in it ("modulus E")
     // keeps its case, and `str::to_lowercase` would bring Unicode's case tables (some 16 KB)

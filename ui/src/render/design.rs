@@ -238,18 +238,19 @@ fn resizing(report: &Report) -> String {
             ranges.join("; ")
         ));
     }
-    if let Some(v) = r.nearest {
+    if let (Some(v), Some(put)) = (r.nearest, crate::doc::design::resize_value(r, system)) {
         if r.clear_today {
             out.push_str("<p class=\"mb-note\">Today's value already clears every margin.</p>");
         } else {
             out.push_str(&format!(
                 "<p class=\"mb-note\">The feasible value nearest today's ({}) is <strong class=\"mb-nearest-value\">{}</strong>, \
-                 at the edge of its range: round it into the range and re-solve before relying on it.</p>\
+                 at the edge of its range, where a mode just meets its margin; rounded into the range, {}.</p>\
                  <p><button type=\"button\" class=\"mb-button mb-apply\" data-action=\"apply-resize\">Put {} into the \
                  model</button></p>",
                 r.input.value.map_or("rigid".to_string(), &q),
                 q(v),
-                q(v)
+                q(put),
+                q(put)
             ));
         }
     }
