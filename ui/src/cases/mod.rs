@@ -195,12 +195,33 @@ impl Cases {
 
     /// Starts a blank case in the example's units, and opens it.
     pub fn new_blank(&mut self, example: &Value) {
-        self.add(blank(example), 0);
+        let scenario = self.titled_apart(blank(example));
+        self.add(scenario, 0);
     }
 
     /// Starts a case from a copy of the page's example, and opens it.
     pub fn new_from_example(&mut self, example: &Value) {
-        self.add(example.clone(), 0);
+        let scenario = self.titled_apart(example.clone());
+        self.add(scenario, 0);
+    }
+
+    /// A new case's scenario, its title numbered when a case kept already has it ("Fan beam
+    /// (2)"), so that the list of cases never shows two alike.
+    fn titled_apart(&self, mut scenario: Value) -> Value {
+        let base = title_of(&scenario);
+        let taken = |title: &str| self.list.iter().any(|c| title_of(&c.scenario) == title);
+        let mut title = base.clone();
+        let mut n = 1usize;
+        while taken(&title) {
+            n += 1;
+            title = format!("{base} ({n})");
+        }
+        if n > 1 {
+            if let Some(m) = scenario.as_object_mut() {
+                m.insert("title".into(), Value::String(title));
+            }
+        }
+        scenario
     }
 
     /// Copies the open case under the title "… (copy)", and opens the copy.
@@ -211,6 +232,7 @@ impl Cases {
         if let Some(m) = scenario.as_object_mut() {
             m.insert("title".into(), Value::String(title));
         }
+        let scenario = self.titled_apart(scenario);
         let id = self.add(scenario, source.mode);
         if let Some(i) = self.find(id) {
             self.list[i].record = source.record;

@@ -56,6 +56,29 @@ fn cases_survive_storage_exactly_with_the_one_that_was_open() {
 }
 
 #[test]
+fn new_cases_are_numbered_apart_so_that_no_two_in_the_list_read_alike() {
+    let mut cases = Cases::load(None, &example());
+    cases.new_from_example(&example());
+    cases.new_from_example(&example());
+    cases.new_blank(&example());
+    cases.new_blank(&example());
+    cases.duplicate();
+    cases.duplicate();
+    assert_eq!(
+        names(&cases),
+        [
+            "Sensor boom",
+            "Sensor boom (2)",
+            "Sensor boom (3)",
+            "New case",
+            "New case (2)",
+            "New case (2) (copy)",
+            "New case (2) (copy) (copy)",
+        ]
+    );
+}
+
+#[test]
 fn a_blank_case_keeps_the_example_units_and_asks_for_every_field() {
     let mut cases = Cases::load(None, &example());
     cases.new_blank(&example());
