@@ -313,7 +313,8 @@ fn resolve_custom(
     })
 }
 
-/// Checks that a property lies in its plausible range, with a hint when it looks unit-less.
+/// Checks that a property lies in its plausible range, with a hint when it was typed without a
+/// unit and is too small, as a value meant in another unit but read in SI is.
 fn plausible(
     value: f64,
     quantity: &Quantity,
@@ -331,7 +332,10 @@ fn plausible(
     } else {
         format!("{what} must be greater than zero (between {} and {} {unit})", number(low), number(high))
     };
-    if value > 0.0 && value < low {
+    // Only a bare number was read in SI for want of a unit; a value typed with one ("0.0005 MPa",
+    // as the editor writes a number typed beside MPa) is simply too small, and the hint would
+    // contradict the unit the reader sees.
+    if value > 0.0 && value < low && !quantity.has_unit() {
         message.push_str(&format!("; a number without a unit is read in {unit}, so write the unit"));
     }
     Err(Error::new(ErrorKind::OutOfRange, message).at(field).with_value(quantity).with_si(value, unit))

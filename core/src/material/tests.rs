@@ -128,3 +128,37 @@ fn bad_materials_are_rejected_with_the_field_named() {
     let e = resolve(&custom("200", "7850", None, None)).unwrap_err();
     assert!(e.message.contains("write the unit"), "{}", e.message);
 }
+
+#[test]
+fn only_a_number_typed_without_a_unit_is_told_to_write_one() {
+    // Common practice, no source: the hint that a bare number is read in SI is true only of a
+    // bare number. The editor writes a number typed beside "MPa" as "0.0005 MPa"; telling its
+    // reader to write the unit would contradict the unit they see.
+    let custom = |e: &str, rho: &str, g: Option<&str>| MaterialInput::Custom {
+        youngs_modulus: e.into(),
+        density: rho.into(),
+        poisson: None,
+        shear_modulus: g.map(Quantity::from),
+        preset: None,
+        thermal_expansion: None,
+    };
+    let hint = "a number without a unit";
+    let cases = [
+        (custom("0.0005", "7850", None), "youngs_modulus", true),
+        (custom("0.0005 MPa", "7850", None), "youngs_modulus", false),
+        (custom("27.2 Pa", "7850", None), "youngs_modulus", false),
+        (custom("200 GPa", "0.5", None), "density", true),
+        (custom("200 GPa", "0.5 kg/m^3", None), "density", false),
+        (custom("200 GPa", "7850", Some("20")), "shear_modulus", true),
+        (custom("200 GPa", "7850", Some("20 Pa")), "shear_modulus", false),
+    ];
+    for (input, path, hinted) in cases {
+        let e = resolve(&input).expect_err(&format!("{input:?}"));
+        assert_eq!((e.kind, e.path.to_string().as_str()), (ErrorKind::OutOfRange, path), "{e}");
+        assert_eq!(e.message.contains(hint), hinted, "{e}");
+        assert!(e.message.contains("must lie between"), "{e} says the range");
+    }
+    // A value typed with a unit is named as typed and in SI.
+    let shown = resolve(&custom("0.0005 MPa", "7850", None)).unwrap_err().to_string();
+    assert!(shown.contains("got \"0.0005 MPa\" (500 Pa)"), "{shown}");
+}

@@ -182,3 +182,19 @@ pub(crate) fn examples(kind: Kind) -> Vec<&'static str> {
     }
     symbols
 }
+
+/// A value of `kind` written with a unit, for the example a message gives ("as in \"27.2 in\""):
+/// one that fields of the kind accept. 27.2 of the kind's first unit serves most kinds, but not
+/// a modulus (27.2 Pa is far below any material's), a ratio (Poisson's ratio and the shear
+/// coefficient are below 1) nor a coefficient of expansion (27.2 /K is no solid's).
+pub(crate) fn example(kind: Kind) -> String {
+    match kind {
+        // A length in the inch the scenarios' own examples use, not the first unit, the metre.
+        Kind::Length => "27.2 in".to_string(),
+        // The steel preset's modulus, Poisson's ratio and expansion (core::material).
+        Kind::Pressure => "200 GPa".to_string(),
+        Kind::Ratio => "0.3".to_string(),
+        Kind::ThermalExpansion => "12e-6 /K".to_string(),
+        _ => examples(kind).first().map_or_else(|| "27.2".to_string(), |unit| format!("27.2 {unit}")),
+    }
+}

@@ -232,11 +232,9 @@ fn parse_afresh(text: &str, kind: Kind) -> Result<Converted, Error> {
             let separator = if e.message.ends_with('?') { " " } else { ". " };
             e.message = format!("{}{separator}{capital} is written in units like {examples}", e.message);
         }
-        if kind != Kind::Length {
-            // The example is of the field's own kind: "27.2 Hz" for a frequency, not a length.
-            let example = display::examples(kind).first().map_or("27.2".to_string(), |u| format!("27.2 {u}"));
-            e.message = e.message.replace("\"27.2 in\"", &format!("\"{example}\""));
-        }
+        // The example is of the field's own kind, and a value such a field accepts: "27.2 Hz" for a
+        // frequency, not a length, and "200 GPa" for a modulus, not "27.2 Pa".
+        e.message = e.message.replace("\"27.2 in\"", &format!("\"{}\"", display::example(kind)));
         e.with_value(&shown)
     })?;
     if parsed.factors.is_empty() {

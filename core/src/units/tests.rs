@@ -372,6 +372,20 @@ fn a_value_without_its_number_is_answered_with_an_example_of_its_own_kind() {
     assert!(length.message.contains("as in \"27.2 in\""), "{length}");
     let empty = parse(" ", Kind::Mass).unwrap_err();
     assert!(empty.message.contains("as in \"27.2 kg\""), "{empty}");
+    // A modulus field refuses 27.2 Pa as implausible, and Poisson's ratio refuses 27.2.
+    let modulus = parse("abc", Kind::Pressure).unwrap_err();
+    assert!(modulus.message.contains("as in \"200 GPa\""), "{modulus}");
+    let ratio = parse("abc", Kind::Ratio).unwrap_err();
+    assert!(ratio.message.contains("as in \"0.3\""), "{ratio}");
+    for kind in Kind::ALL {
+        let example = display::example(kind);
+        let read = parse(&example, kind).unwrap_or_else(|e| panic!("{kind:?}: {example} is refused: {e}"));
+        assert!(read.si > 0.0, "{kind:?}: {example}");
+    }
+    let modulus = parse(&display::example(Kind::Pressure), Kind::Pressure).unwrap().si;
+    assert!(crate::schema::MODULUS.contains(modulus, false), "{modulus} Pa");
+    let expansion = parse(&display::example(Kind::ThermalExpansion), Kind::ThermalExpansion).unwrap().si;
+    assert!(crate::schema::MATERIAL_RECORD_FIELDS[1].range.contains(expansion, false), "{expansion} /K");
 }
 
 #[test]
