@@ -558,7 +558,18 @@ fn read_ratio(q: &Quantity) -> Result<f64> {
                         .with_value(t)
                     })
                     .map_err(at_margin)?,
-                None => units::parse(t, Kind::Ratio).map_err(at_margin)?.si,
+                None => {
+                    units::parse(t, Kind::Ratio)
+                        .map_err(|mut e| {
+                            // The ratio's reader names only a plain number; the margin takes a
+                            // percentage too, read above.
+                            if e.kind == ErrorKind::UnknownUnit {
+                                e.message.push_str(", or as a percentage, as in 20 %");
+                            }
+                            at_margin(e)
+                        })?
+                        .si
+                }
             }
         }
     };

@@ -236,7 +236,7 @@ fn a_value_outside_its_documented_range_is_echoed_as_typed_with_the_range() {
     // The allowed ranges are those docs/scenario-format.md gives for each field; every refusal
     // repeats the value as typed, unit and all, and says what is allowed.
     type Change = fn(&mut Value);
-    let cases: [(Change, &str, &str, &str); 13] = [
+    let cases: [(Change, &str, &str, &str); 14] = [
         (
             |s| s["segments"][0]["length"] = json!("0 ft"),
             "segments[0].length",
@@ -296,6 +296,12 @@ fn a_value_outside_its_documented_range_is_echoed_as_typed_with_the_range() {
             "greater than zero",
         ),
         (|s| s["margin"] = json!("150 %"), "margin", "150 %", "between 0 and 100 %"),
+        (
+            |s| s["margin"] = json!("12 furlongs"),
+            "margin",
+            "12 furlongs",
+            "written as a plain number, as in 0.3, or as a percentage, as in 20 %",
+        ),
         (
             |s| s["excitations"] = json!([{ "frequency": "1800 rpm", "up_to": "-10 Hz" }]),
             "excitations[0].up_to",

@@ -230,7 +230,14 @@ fn parse_afresh(text: &str, kind: Kind) -> Result<Converted, Error> {
                 .map(|c| c.to_ascii_uppercase().to_string() + sentence.as_str())
                 .unwrap_or_default();
             let separator = if e.message.ends_with('?') { " " } else { ". " };
-            e.message = format!("{}{separator}{capital} is written in units like {examples}", e.message);
+            // A ratio has no unit to list: an empty list would leave the sentence unfinished.
+            // Its reader takes no percentage either (the margin's own reader does, and says so).
+            let written = if examples.is_empty() {
+                format!("written as a plain number, as in {}", display::example(kind))
+            } else {
+                format!("written in units like {examples}")
+            };
+            e.message = format!("{}{separator}{capital} is {written}", e.message);
         }
         // The example is of the field's own kind, and a value such a field accepts: "27.2 Hz" for a
         // frequency, not a length, and "200 GPa" for a modulus, not "27.2 Pa".

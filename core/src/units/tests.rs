@@ -389,6 +389,21 @@ fn a_value_without_its_number_is_answered_with_an_example_of_its_own_kind() {
 }
 
 #[test]
+fn an_unknown_unit_in_a_ratio_is_answered_with_a_plain_number() {
+    // Common practice, no source: a ratio has no unit to list, so the message says how it is
+    // written instead of ending on an empty list. A percentage is not offered: the ratio's
+    // reader refuses one (only the margin's and the tolerance's own readers take it).
+    let e = parse("12 furlongs", Kind::Ratio).unwrap_err();
+    assert_eq!(e.kind, ErrorKind::UnknownUnit);
+    assert!(e.message.ends_with("A dimensionless ratio is written as a plain number, as in 0.3"), "{e}");
+    assert!(!e.message.contains("units like"), "{e}");
+    assert!(parse("15 %", Kind::Ratio).is_err(), "the ratio's reader takes no percentage");
+    // Kinds with units still list them.
+    let e = parse("12 furlongs", Kind::Pressure).unwrap_err();
+    assert!(e.message.contains("written in units like Pa, kPa, MPa, GPa"), "{e}");
+}
+
+#[test]
 fn a_text_read_again_gives_what_it_gave_the_first_time() {
     // The reader remembers texts it has read; reading one again (and after more than it
     // remembers) gives the same value and the same record, and a refused text is refused again.
