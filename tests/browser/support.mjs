@@ -51,13 +51,16 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // keystroke's frame, and the page draws that markup without reading the answer first. The
 // page's part of an edit's answer fell from 3.9 to 2.4 ms (camera boom) and 3.2 to 1.8 ms (fan
 // beam); docs/performance.md has the A/B. The solver loads after the page is live, so its
-// size delays no first view.
+// size delays no first view. On 2026-12-05 the page's engine guard rose from 390 to 391 KB for
+// three fixes found by using the calculator as a reader does (1.5 KB in all, 390,437 B): a value
+// refused after one typed too fast to be solved now greys that one's results, solved again; the
+// size a resizing puts is rounded into its range; new cases are numbered apart.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's
 // tap-test panel, by the panel's worker; built for size it weighed 525 KB on 2026-12-03, and its
 // budget leaves room for the panel to grow a little, not for another library.
 export const BUDGET = {
-  pageEngineBytes: 390_000,
+  pageEngineBytes: 391_000,
   solverEngineBytes: 716_000,
   benchEngineBytes: 560_000,
   pageGzipBytes: 200_000,
