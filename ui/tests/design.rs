@@ -95,3 +95,30 @@ fn a_proposed_size_applied_clears_every_margin_as_the_sweep_said() {
         assert!(s >= after.margin, "mode {} is {s} from an excitation", m.number);
     }
 }
+
+#[test]
+fn a_new_calibration_or_resizing_starts_on_an_input_that_keeps_the_camera_head_on_the_beam() {
+    // The camera boom: one segment 1450 mm long with the head at its tip. Its length comes first
+    // among the inputs, and a range from a quarter of it would put the head off the beam at
+    // once; a new request starts on the next input instead, and solves.
+    let Ok(mut doc) = doc::read(include_str!("../../docs/scenarios/sensor-boom.json")) else {
+        panic!("JSON")
+    };
+    let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    assert_eq!(report.design.inputs[0].path, "segments[0].length", "the length is listed first");
+    let calibrate = design::new_row(&doc, doc::List::Calibrate, Some(&report));
+    let resize = design::new_resize(&doc, Some(&report));
+    for row in [&calibrate, &resize] {
+        let field = row["field"].as_str().unwrap_or_default();
+        assert!(!field.ends_with(".length") && !field.ends_with(".position"), "{row}");
+    }
+    doc["measured"] = serde_json::json!([{ "mode": 1, "frequency": "10.6 Hz" }]);
+    doc["calibrate"] = serde_json::json!([calibrate]);
+    doc["resize"] = resize;
+    let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    let calibration =
+        report.design.calibration.as_ref().map(|c| c.problem.as_ref().map(|p| p.message.clone()));
+    assert_eq!(calibration, Some(None), "the calibration solves");
+    let resizing = report.design.resize.as_ref().map(|r| r.problem.as_ref().map(|p| p.message.clone()));
+    assert_eq!(resizing, Some(None), "the resizing solves");
+}

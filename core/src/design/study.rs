@@ -26,6 +26,22 @@ use serde_json::Value;
 
 pub use super::types::*;
 
+/// A search's failure, said as one: a model refused at a value tried (a field's error, with its
+/// path) means the range takes the model somewhere it cannot be solved, which the field's own
+/// words alone ("the position must lie on the beam") do not tell a reader who only set a range.
+fn unsolvable_in_range(e: Error) -> Error {
+    if e.path.is_empty() {
+        return e;
+    }
+    let message = format!(
+        "at some values in this range the model cannot be solved ({}: {}); narrow the range or choose \
+         another input",
+        crate::schema::words(&e.path),
+        e.message
+    );
+    Error { message, ..e }
+}
+
 fn echo(input: &Input) -> InputEcho {
     InputEcho {
         path: input.path.to_string(),
@@ -296,7 +312,7 @@ fn resizing(
                 report.x = x;
                 report.hz = hz;
             }
-            Err(e) => report.problem = Some(e),
+            Err(e) => report.problem = Some(unsolvable_in_range(e)),
         }
     }
     design.resize = Some(report);

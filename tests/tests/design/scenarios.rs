@@ -159,6 +159,32 @@ fn fan_on_its_drives() -> Value {
     doc
 }
 
+#[test]
+fn a_range_that_takes_the_model_where_it_cannot_be_solved_says_so_with_the_field_it_broke() {
+    // The camera boom's length calibrated or resized from a quarter of it: the head at 1450 mm
+    // is then off the beam. The answer says the range is the trouble and names what broke,
+    // for a calibration and a resizing alike.
+    let mut doc: Value =
+        serde_json::from_str(include_str!("../../../docs/scenarios/sensor-boom.json")).expect("JSON");
+    doc["measured"] = json!([{ "mode": 1, "frequency": "10.6 Hz" }]);
+    doc["calibrate"] = json!([{ "field": "segments[0].length", "from": "362.5 mm", "to": "5800 mm" }]);
+    doc["resize"] = json!({ "field": "segments[0].length", "from": "362.5 mm", "to": "5800 mm" });
+    let design = solve(&doc).design;
+    let problems = [
+        design.calibration.and_then(|c| c.problem).map(|p| p.message),
+        design.resize.and_then(|r| r.problem).map(|p| p.message),
+    ];
+    for problem in problems {
+        let problem = problem.expect("a problem");
+        assert!(
+            problem.starts_with(
+                "at some values in this range the model cannot be solved (Attachment 1, position: "
+            ) && problem.ends_with("; narrow the range or choose another input"),
+            "{problem}"
+        );
+    }
+}
+
 /// Whether every mode of a report clears every excitation, judged as the report judges it.
 fn clear(doc: &Value) -> bool {
     solve(doc).modes.iter().all(|m| m.nearest_excitation.as_ref().is_none_or(|s| !s.too_close))

@@ -9,7 +9,7 @@
 
 use super::path;
 use modebench::design::inputs;
-use modebench::design::study::ResizeReport;
+use modebench::design::study::{InputEcho, ResizeReport};
 use modebench::units::{display_unit, significant, Kind, UnitSystem};
 use modebench::{FieldPath, Report};
 use serde_json::Value;
@@ -145,12 +145,20 @@ pub fn owner(path: &str) -> String {
     }
 }
 
+/// The input a new design request starts with: the first that moves nothing else. A segment's
+/// length or an attachment's position shifts what lies beyond it, and a range over either soon
+/// takes an attachment off the beam; the reader can still choose them.
+fn first_input(last: Option<&Report>) -> Option<&InputEcho> {
+    let inputs = &last?.design.inputs;
+    inputs.iter().find(|i| !i.path.ends_with(".length") && !i.path.ends_with(".position")).or(inputs.first())
+}
+
 /// A new row of a design list, with values to start from: a tolerance of ± 5 % on the first
 /// input, the next mode's computed frequency as a measurement, a calibration range from a
-/// quarter to four times the first input's value.
+/// quarter to four times the first input's value ([`first_input`]).
 pub fn new_row(doc: &Value, list: super::List, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
-    let first = last.and_then(|r| r.design.inputs.first());
+    let first = first_input(last);
     let mut row = serde_json::Map::new();
     let text = |s: String| Value::String(s);
     match list {
@@ -213,11 +221,11 @@ pub fn choose_input(doc: &mut Value, parent: &str, value: &str, last: Option<&Re
     }
 }
 
-/// A new resizing request: the first input, from half to twice its value.
+/// A new resizing request: the first input ([`first_input`]), from half to twice its value.
 pub fn new_resize(doc: &Value, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
     let mut row = serde_json::Map::new();
-    if let Some(i) = last.and_then(|r| r.design.inputs.first()) {
+    if let Some(i) = first_input(last) {
         row.insert("field".into(), Value::String(i.path.clone()));
         if let Some(v) = i.value {
             row.insert("from".into(), Value::String(text_of(v / 2.0, i.kind, system)));

@@ -123,7 +123,10 @@ pub(super) fn calibration(
             report.alternatives = alternatives;
             report.notes = notes;
         }
-        Err(e) => report.problem = Some(e.at(FieldPath::item("calibrate", 0).key("from"))),
+        Err(e) => {
+            report.problem =
+                Some(super::unsolvable_in_range(e).at(FieldPath::item("calibrate", 0).key("from")))
+        }
     }
     design.calibration = Some(report);
     Ok(())
