@@ -247,4 +247,37 @@ mod tests {
         assert!(shape.deflection.iter().all(|w| w.is_finite() && w.abs() < 1e-9));
         assert!(shape.generalized_mass.is_finite() && (shape.generalized_mass - 180.0).abs() < 1e-6);
     }
+
+    #[test]
+    fn two_sprung_masses_on_one_held_point_each_vibrate_alone() {
+        // Two such oscillators on one support: each vibrates at its own √(k/m) with the other and
+        // the beam at rest (the same fact), and Rayleigh's quotient of each shape is its own
+        // k/m. The shapes' inverse iteration must load each mass with its own response, however
+        // the two are listed.
+        let (light, heavy) = ((0.17, 4.6e3), (0.38, 4.9e4));
+        let model = Model::new(ModelParts {
+            segments: vec![Segment::slender(1.0, 1.0e3, 1.0)],
+            left: End::Pinned,
+            right: End::Pinned,
+            attachments: vec![
+                Attachment::Support { position: 0.5 },
+                Attachment::SprungMass { position: 0.5, mass: heavy.0, stiffness: heavy.1 },
+                Attachment::SprungMass { position: 0.5, mass: light.0, stiffness: light.1 },
+            ],
+            theory: Theory::EulerBernoulli,
+        })
+        .unwrap();
+        let modes = crate::exact::modes(&model, 6).unwrap();
+        for (index, (m, k)) in [(2, light), (1, heavy)] {
+            let own = (k / m).sqrt();
+            let Some(mode) = modes.iter().find(|x| (x.omega - own).abs() < 1e-9 * own) else {
+                panic!("no mode at {own} rad/s: {:?}", modes.iter().map(|x| x.omega).collect::<Vec<_>>())
+            };
+            let quotient = mode.shape.rayleigh_quotient(&model).sqrt();
+            assert!((quotient / own - 1.0).abs() < 1e-9, "attachment {index}: √R = {quotient}, ω = {own}");
+            let moving: Vec<usize> =
+                mode.shape.sprung.iter().filter(|(_, d)| d.abs() > 1e-9).map(|(i, _)| *i).collect();
+            assert_eq!(moving, [index], "{:?}", mode.shape.sprung);
+        }
+    }
 }

@@ -20,7 +20,8 @@ pub(crate) struct Response {
     /// (left end x, the piece as a member of its own length, state (w, θ, Q, M) at its left end
     /// just right of the station).
     pub(crate) pieces: Vec<(f64, Member, [f64; 4])>,
-    /// (index of the attachment in the model, displacement) of each sprung mass.
+    /// (index of the attachment in the model, displacement) of each sprung mass, in the order of
+    /// the stations and of each station's `sprung`, the order [`StationLoad::sprung`] is given in.
     pub(crate) sprung: Vec<(usize, f64)>,
 }
 
@@ -136,7 +137,9 @@ pub(crate) fn respond(system: &System, pieces: &[usize], omega: f64, loads: &[St
                 let state: [f64; 4] =
                     std::array::from_fn(|row| after[row][0] * c[0] + after[row][1] * c[1] + particular[row]);
                 states.push(state);
-                for &(attachment, p, k, fd) in sprung {
+                // Backwards within the station too, so that the list reversed at the end runs in
+                // the stations' order and each station's own (the order its loads are given in).
+                for &(attachment, p, k, fd) in sprung.iter().rev() {
                     sprung_out.push((attachment, (fd + k * state[0]) / p));
                 }
                 c = match back {
