@@ -155,7 +155,7 @@ fn first_input(last: Option<&Report>) -> Option<&InputEcho> {
 
 /// A new row of a design list, with values to start from: a tolerance of ± 5 % on the first
 /// input, the next mode's computed frequency as a measurement, a calibration range from a
-/// quarter to four times the first input's value ([`first_input`]).
+/// quarter to four times the first input's value (the first that moves nothing else).
 pub fn new_row(doc: &Value, list: super::List, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
     let first = first_input(last);
@@ -221,7 +221,7 @@ pub fn choose_input(doc: &mut Value, parent: &str, value: &str, last: Option<&Re
     }
 }
 
-/// A new resizing request: the first input ([`first_input`]), from half to twice its value.
+/// A new resizing request: the first input that moves nothing else, from half to twice its value.
 pub fn new_resize(doc: &Value, last: Option<&Report>) -> Value {
     let system = super::unit_system(doc);
     let mut row = serde_json::Map::new();
