@@ -55,6 +55,7 @@ fn a_fit_applied_reproduces_the_measurements_and_undoes_in_one_step() {
     let Some((changes, what)) = design::fit_changes(&doc, &report) else { panic!("a fit") };
     assert_eq!(changes[0].path, "left.rotational");
     assert!(changes[0].text.ends_with("N·mm/rad"), "in the case's units: {}", changes[0].text);
+    assert_eq!((changes.len(), what.as_str()), (2, "use the fitted values"));
     let mut history = History::default();
     history.record(&doc, what);
     doc::apply(&mut doc, &Edit::Apply(changes), Some(&report));
@@ -121,4 +122,21 @@ fn a_new_calibration_or_resizing_starts_on_an_input_that_keeps_the_camera_head_o
     assert_eq!(calibration, Some(None), "the calibration solves");
     let resizing = report.design.resize.as_ref().map(|r| r.problem.as_ref().map(|p| p.message.clone()));
     assert_eq!(resizing, Some(None), "the resizing solves");
+}
+
+#[test]
+fn one_fitted_value_is_named_with_its_input_in_the_undo_words() {
+    // The root's stiffness calibrated alone: "Undo: set … to 3.1e6 N·mm/rad" says what changed.
+    let Ok(mut doc) = doc::read(BOOM) else { panic!("JSON") };
+    if let Some(rows) = doc["calibrate"].as_array_mut() {
+        rows.truncate(1);
+    }
+    let report = doc::solve(&doc).unwrap_or_else(|e| panic!("{e}"));
+    let Some((changes, what)) = design::fit_changes(&doc, &report) else { panic!("a fit") };
+    let label = &report.design.calibration.as_ref().map(|c| c.inputs[0].label.clone()).unwrap_or_default();
+    assert_eq!(changes.len(), 1);
+    assert_eq!(
+        what,
+        format!("set {}{} to {}", label[..1].to_ascii_lowercase(), &label[1..], changes[0].text)
+    );
 }

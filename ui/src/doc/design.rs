@@ -43,13 +43,29 @@ pub fn fit_changes(doc: &Value, report: &Report) -> Option<(Vec<Change>, String)
         return None;
     }
     let system = super::unit_system(doc);
-    let changes = c
+    let changes: Vec<Change> = c
         .inputs
         .iter()
         .zip(&c.fitted)
         .map(|(input, v)| Change { path: input.path.clone(), si: *v, text: text_of(*v, input.kind, system) })
         .collect();
-    Some((changes, format!("use the fitted value{}", if c.fitted.len() > 1 { "s" } else { "" })))
+    let what = match (&c.inputs[..], &changes[..]) {
+        ([input], [change]) => set_words(&input.label, &change.text),
+        _ => "use the fitted values".to_string(),
+    };
+    Some((changes, what))
+}
+
+/// Words for the undo control that name the input and its new value: "set head mass to 3.453 kg".
+fn set_words(label: &str, text: &str) -> String {
+    // Only the label's capital first letter is lowered, in ASCII: a symbol in it ("modulus E")
+    // keeps its case, and `str::to_lowercase` would bring Unicode's case tables (some 16 KB)
+    // into the page's engine.
+    let mut label = label.to_string();
+    if label.is_char_boundary(1) {
+        label[..1].make_ascii_lowercase();
+    }
+    format!("set {label} to {text}")
 }
 
 /// The value a resizing puts into the model, SI. The feasible value nearest today's lies on an
@@ -79,14 +95,7 @@ pub fn resize_changes(doc: &Value, report: &Report) -> Option<(Vec<Change>, Stri
     let system = super::unit_system(doc);
     let v = resize_value(r, system)?;
     let text = text_of(v, r.input.kind, system);
-    // Only the label's capital first letter is lowered, in ASCII: a symbol in it ("modulus E")
-    // keeps its case, and `str::to_lowercase` would bring Unicode's case tables (some 16 KB)
-    // into the page's engine.
-    let mut label = r.input.label.clone();
-    if label.is_char_boundary(1) {
-        label[..1].make_ascii_lowercase();
-    }
-    let what = format!("set {label} to {text}");
+    let what = set_words(&r.input.label, &text);
     Some((vec![Change { path: r.input.path.clone(), si: v, text }], what))
 }
 
