@@ -264,6 +264,6 @@ fn an_end_spring_left_empty_says_it_is_no_spring() {
         let tag = live.split("<input ").find(|tag| tag.contains(&format!("data-field=\"{field}\"")));
         tag.and_then(|tag| attribute(&tag[..tag.find('>').unwrap_or(tag.len())], "placeholder"))
     };
-    assert_eq!(hint("left.translational"), Some("no spring if empty, or rigid"), "{live}");
+    assert_eq!(hint("left.translational"), Some("none if empty, or rigid"), "{live}");
     assert_eq!(hint("attachments[0].stiffness"), Some("a number, or rigid"), "{live}");
 }

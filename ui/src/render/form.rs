@@ -103,8 +103,9 @@ impl<'a> Form<'a> {
             (Some(p), _) => p.to_string(),
             // The unit is beside the box; the placeholder says only what else the field takes.
             (None, Some(_)) => match (options.rigid, options.optional) {
-                // An end's spring left empty is no spring (0), which the box says.
-                (true, true) => "no spring if empty, or rigid".to_string(),
+                // An end's spring left empty is no spring (0), which the box says, in words short
+                // enough for the box on a tablet held upright.
+                (true, true) => "none if empty, or rigid".to_string(),
                 (true, false) => "a number, or rigid".to_string(),
                 (false, true) => "optional".to_string(),
                 (false, false) => String::new(),
