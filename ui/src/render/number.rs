@@ -28,11 +28,14 @@ pub(crate) fn percent(ratio: f64, significant: usize) -> String {
     format!("{} %", sig(ratio * 100.0, significant))
 }
 
-/// A signed ratio as a percentage with its sign: "−16.2 %", "+4 %", "0 %".
+/// A signed ratio as a percentage with its sign: "−16.2 %", "+4 %", "0 %" ("—" for none). A
+/// ratio under 1e-9, the accuracy the engine gives its frequencies, is rounding and reads "0 %"
+/// (a calibration that fits its measurements exactly comes out −6.7e-16, not "−6.7e-14 %").
 pub(crate) fn signed_percent(ratio: f64, significant: usize) -> String {
     match ratio {
-        r if r > 0.0 => format!("+{}", percent(r, significant)),
-        r if r < 0.0 => format!("−{}", percent(-r, significant)),
+        r if r > 1e-9 => format!("+{}", percent(r, significant)),
+        r if r < -1e-9 => format!("−{}", percent(-r, significant)),
+        r if r.is_nan() => MISSING.to_string(),
         _ => "0 %".to_string(),
     }
 }
@@ -72,5 +75,14 @@ mod tests {
         assert_eq!(percent(0.2, 3), "20 %");
         assert_eq!(exact(f64::NAN), None);
         assert_eq!(exact(0.1), Some("0.1".to_string()));
+    }
+
+    #[test]
+    fn a_signed_percentage_under_the_engines_accuracy_reads_zero() {
+        assert_eq!(signed_percent(0.0872, 3), "+8.72 %");
+        assert_eq!(signed_percent(-0.162, 3), "−16.2 %");
+        assert_eq!(signed_percent(-6.7e-16, 2), "0 %");
+        assert_eq!(signed_percent(3e-8, 2), "+3e-6 %");
+        assert_eq!(signed_percent(f64::NAN, 2), MISSING);
     }
 }
