@@ -25,6 +25,11 @@ fn the_results_show_the_map_what_moves_each_mode_and_the_fit() {
     assert_eq!(html.matches("class=\"mb-map-measured\"").count(), 2);
     let html = render::widget_html(FLOOR);
     assert!(html.contains("class=\"mb-sweep\"") && html.contains("data-action=\"apply-resize\""));
+    // Each mode's line is numbered at its end: labels 1, 2, … as many as the lines' modes.
+    let lines = (0..20).filter(|k| html.contains(&format!("data-mode-index=\"{k}\""))).count();
+    let labels = html.matches("dx=\"4\" dy=\"4\" fill=\"#2d6a8f\">").count();
+    assert!(lines >= 2 && labels == lines, "{labels} labels for {lines} modes");
+    assert!(html.contains("fill=\"#2d6a8f\">1</text>"));
     // Mode 1's band reaches into the fan's range: drawn in the warning colour.
     assert!(html.contains("mb-map-mode mb-map-close"));
     assert!(html.contains("Separation is (f − f<sub>e</sub>)/f<sub>e</sub>"));

@@ -244,7 +244,7 @@ fn resizing(report: &Report) -> String {
         } else {
             out.push_str(&format!(
                 "<p class=\"mb-note\">The feasible value nearest today's ({}) is <strong class=\"mb-nearest-value\">{}</strong>, \
-                 at the edge of its range, where a mode just meets its margin; rounded into the range, {}.</p>\
+                 where a mode just meets its margin; rounded into the range, {}.</p>\
                  <p><button type=\"button\" class=\"mb-button mb-apply\" data-action=\"apply-resize\">Put {} into the \
                  model</button></p>",
                 r.input.value.map_or("rigid".to_string(), &q),
@@ -336,6 +336,15 @@ fn sweep_svg(report: &Report, r: &ResizeReport) -> String {
                 run.join(" ")
             ));
         }
+        // Each line's mode number where its last stretch ends, as the mode table numbers it.
+        let number = report.modes.iter().filter(|m| !m.rigid_body).nth(k).map_or(k + 1, |m| m.number);
+        if let Some((x, y)) =
+            runs.iter().rev().find(|run| run.len() > 1).and_then(|run| run.last()?.split_once(','))
+        {
+            out.push_str(&format!(
+                "<text x=\"{x}\" y=\"{y}\" dx=\"4\" dy=\"4\" fill=\"#2d6a8f\">{number}</text>"
+            ));
+        }
     }
     let mut marker = |v: f64, class: &str, colour: &str, words: &str, lift: f64| {
         if v.is_finite() && v >= r.low && v <= r.high {
@@ -368,7 +377,7 @@ fn sweep_svg(report: &Report, r: &ResizeReport) -> String {
         n(X0 - 6.0)
     ));
     out.push_str(
-        "<p class=\"mb-plot-key\">Lines are the modes' frequencies as the input moves across its range; shaded \
+        "<p class=\"mb-plot-key\">Lines are the modes' frequencies (numbered) as the input moves across its range; shaded \
          horizontal bands are the frequencies the margins forbid; green columns are the values of the input where \
          every mode clears every band.</p>",
     );
