@@ -241,3 +241,61 @@ fn a_near_rigid_bounce_the_check_cannot_resolve_is_left_blank_not_compared() {
     modebench_tests::assert_fe_within_its_estimate(&report);
     assert!(report.modes[0].fe_frequency_hz.is_none(), "{:?}", report.modes[0]);
 }
+
+#[test]
+fn the_accuracy_warning_names_the_least_accurate_mode() {
+    // Four steps whose stiffness falls by four orders along the beam, and a spring of 1e12 N/m
+    // near the clamp (a model found by a random search outside the engine): modes 1 and 2 are
+    // both good to only a few parts in 10⁹, mode 2 the worse. The warning names the worst, as
+    // the figures beside each frequency show (common practice, no source: a warning points at
+    // the worst case, not the first).
+    let scenario = json!({
+        "modes": 6, "left": "free", "right": "clamped",
+        "segments": [
+            {
+                "length": 0.5315290989976769,
+                "flexural_rigidity": 9120570.813650783,
+                "mass_per_length": 0.5531367061011957,
+            },
+            {
+                "length": 1.4040426317954386,
+                "flexural_rigidity": 87179.10151938387,
+                "mass_per_length": 0.7166869398917571,
+            },
+            {
+                "length": 1.983359100788773,
+                "flexural_rigidity": 615.6658558333866,
+                "mass_per_length": 1.5646090221888134,
+            },
+            {
+                "length": 1.3559424388162422,
+                "flexural_rigidity": 1147.816402680518,
+                "mass_per_length": 9.410064207652738,
+            },
+        ],
+        "attachments": [
+            { "type": "spring", "position": 3.9189308315818883, "stiffness": 967029961356.4912 },
+            { "type": "spring", "position": 0.5315290989976769, "stiffness": 537475.9723604978 },
+        ],
+    });
+    let report = solve(&scenario);
+    let over: Vec<(usize, f64)> = report
+        .modes
+        .iter()
+        .filter_map(|m| m.accuracy.filter(|a| *a > modebench::analysis::TRUSTED).map(|a| (m.number, a)))
+        .collect();
+    assert!(over.len() >= 2, "{over:?}");
+    let worst = over.iter().copied().max_by(|a, b| a.1.total_cmp(&b.1)).map(|w| w.0);
+    let warned: Vec<&str> = report
+        .warnings
+        .iter()
+        .filter(|w| w.code == WarningCode::Accuracy)
+        .map(|w| w.message.as_str())
+        .collect();
+    assert_eq!(warned.len(), 1, "{warned:?}");
+    assert!(
+        worst.is_some_and(|n| warned[0].starts_with(&format!("Mode {n} is good to only"))),
+        "{worst:?}: {warned:?}"
+    );
+    assert_ne!(worst, over.first().map(|w| w.0), "the first over the line is not the worst here");
+}

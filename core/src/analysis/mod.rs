@@ -257,7 +257,12 @@ pub fn analyse_with_hints(model: &Model, options: &Options, hints: &[f64]) -> Re
     if let Some(close) = merged_points(model) {
         warnings.push(close);
     }
-    if let Some(m) = modes.iter().find(|m| m.accuracy.is_some_and(|a| a > TRUSTED)) {
+    // The least accurate mode is the one named: the first over the line may be the least of them.
+    let worst = modes
+        .iter()
+        .filter(|m| m.accuracy.is_some_and(|a| a > TRUSTED))
+        .max_by(|a, b| a.accuracy.unwrap_or(0.0).total_cmp(&b.accuracy.unwrap_or(0.0)));
+    if let Some(m) = worst {
         warnings.push(Warning {
             code: WarningCode::Accuracy,
             message: format!(
