@@ -1,4 +1,8 @@
 //! Tests of reading quantities: exact factors from NIST SP 811, grammar, and error messages.
+//!
+//! Longer than 400 lines on purpose: every test here reads through the one parser of this module
+//! and its message texts, which the tests of grammar and of messages both pin; split in two, each
+//! half would repeat the other's helpers.
 
 use super::*;
 use modebench_tests::{check, random::Rng};
