@@ -23,7 +23,8 @@ pub(crate) fn document(root: &Path, engine: bool) -> Result<String> {
     let title = escape("Modebench calculator");
     let boot = if engine {
         "<link rel=\"modulepreload\" href=\"assets/modebench_page.js\">\n\
-         <script type=\"module\" src=\"assets/boot.js\"></script>\n"
+         <script type=\"module\" src=\"assets/boot.js\"></script>\n\
+         <script src=\"assets/from-disk.js\" defer></script>\n"
     } else {
         ""
     };

@@ -36,7 +36,8 @@ pub(crate) fn document(page: &Page, body: &str, frame: &Frame<'_>) -> String {
     let boot = if frame.engine && body.contains("class=\"mb-calc\"") {
         "<link rel=\"modulepreload\" href=\"assets/modebench_page.js\">\n\
          <link rel=\"preload\" href=\"assets/modebench_page_bg.wasm\" as=\"fetch\" type=\"application/wasm\" crossorigin>\n\
-         <script type=\"module\" src=\"assets/boot.js\"></script>\n"
+         <script type=\"module\" src=\"assets/boot.js\"></script>\n\
+         <script src=\"assets/from-disk.js\" defer></script>\n"
     } else {
         ""
     };

@@ -3,7 +3,9 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { MODE_1, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
+import { join } from "node:path";
+import { pathToFileURL } from "node:url";
+import { DIST, MODE_1, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, openLive, startSite } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 
@@ -59,6 +61,20 @@ describe("a calculator without its engine", () => {
     assert.match(await page.locator(".mb-calc .mb-static-note").first().innerText(), /becomes editable/);
     await context.close();
   });
+
+  for (const file of [BOOM, "embed.html"]) {
+    test(`${file} opened from disk says at once that it cannot be edited, not that it soon will be`, { timeout: TEST_TIMEOUT_MS }, async () => {
+      // Browsers refuse a page's module scripts from file://; its classic script says so. A plain
+      // context: an isolated one's routing refuses file:// addresses.
+      const context = await browser.newContext();
+      const page = await context.newPage();
+      await page.goto(pathToFileURL(join(DIST, file)).href);
+      await page.waitForSelector('.mb-calc[data-engine="unavailable"]', { timeout: 5000 });
+      assert.deepEqual(await notes(page), { loading: false, unavailable: true });
+      assert.ok(Number(await page.locator(MODE_1).first().getAttribute("data-hz")) > 0, "the worked example shows");
+      await context.close();
+    });
+  }
 
   test("once live, neither note shows", { timeout: TEST_TIMEOUT_MS }, async () => {
     const { context, page } = await openLive(browser, site.url + BOOM, { settle: false });
