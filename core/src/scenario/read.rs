@@ -311,9 +311,9 @@ fn read_segment<'a>(r: &mut Reader<'a>, s: &'a SegmentInput, path: &FieldPath) -
                 let Some(alpha) = mat.thermal_expansion else {
                     return Err(Error::new(
                         ErrorKind::Conflict,
-                        "a temperature change needs the material's thermal expansion: choose a preset material \
-                         (each gives its α), give the material's `thermal_expansion`, or give the force \
-                         −E·A·α·ΔT as the axial force",
+                        "a temperature change needs the material's thermal expansion α: type it under the \
+                         material (as in 12e-6 /K; a preset material fills it in), or give the force −E·A·α·ΔT \
+                         as the axial force instead",
                     )
                     .at(field)
                     .with_value(q));

@@ -72,7 +72,11 @@ fn axial_inputs_that_cannot_apply_are_refused_with_the_field_named() {
     // A custom material has no α either.
     let mut custom = pipe(json!({ "temperature_change": "40 K" }));
     custom["segments"][0]["material"] = json!({ "youngs_modulus": "200 GPa", "density": "7850 kg/m^3" });
-    assert_eq!(read(&custom).unwrap_err().path.to_string(), "segments[0].temperature_change");
+    let e = read(&custom).unwrap_err();
+    assert_eq!(e.path.to_string(), "segments[0].temperature_change");
+    // Said in the editor's words, with an α a field accepts, not in the file's key names.
+    assert!(e.message.contains("thermal expansion α") && e.message.contains("12e-6 /K"), "{e}");
+    assert!(!e.message.contains('`'), "{e}");
     // A temperature is a change with a temperature unit, not a length.
     let e = read(&pipe(json!({ "temperature_change": "40 mm" }))).unwrap_err();
     assert_eq!(
