@@ -123,7 +123,7 @@ function build(index) {
       "p",
       { class: "mb-note" },
       "For low modes only: browsers report motion some 20 to 60 times a second, which serves modes up to " +
-        "about 10 to 25 Hz. The panel says the limit once the sensor runs. A tablet fixed to the part adds its mass:",
+        "about 8 to 24 Hz. The panel says the limit once the sensor runs. A tablet fixed to the part adds its mass:",
     ),
   );
   const sensorMass = element("label", {}, "Its mass ");
@@ -398,9 +398,11 @@ class Panel {
       values.push(z);
       if (times.length === 50) {
         const rate = (times.length - 1) / (times[times.length - 1] - times[0]);
+        // The limit the analysis gives afterwards too: 40 % of the rate, above which it warns that a
+        // peak lies too near half the rate to be read well (core's `NEAR_NYQUIST`).
         this.say(
           `The motion sensor reports about ${Math.round(rate)} times a second: modes up to about ` +
-            `${Math.floor(0.45 * rate)} Hz can be measured. Tap the part now; then press “Stop and analyse”.`,
+            `${Math.round(0.4 * rate)} Hz can be measured. Tap the part now; then press “Stop and analyse”.`,
         );
       }
       if (times.length > 0 && times[times.length - 1] - times[0] > LONGEST_S) {
