@@ -66,10 +66,12 @@ struct Running {
     since_ms: f64,
 }
 
-/// An edit submitted, kept until two more have been, and whether its answer was drawn.
+/// An edit submitted (its job's number and scenario), kept until two more have been, and whether
+/// its answer was drawn.
 #[derive(Debug)]
 struct Submitted {
-    job: Job,
+    id: u32,
+    text: String,
     drawn: bool,
 }
 
@@ -103,7 +105,7 @@ impl Latest {
         let job = Job { id, purpose, text };
         match purpose {
             Purpose::Edit => {
-                let newest = Some(Submitted { job: job.clone(), drawn: false });
+                let newest = Some(Submitted { id, text: job.text.clone(), drawn: false });
                 self.edits = [newest, self.edits[0].take()];
             }
             // The edit before a refused one is solved again for the greyed results only.
@@ -131,7 +133,7 @@ impl Latest {
             Verdict::Current(running.purpose)
         };
         if verdict == Verdict::Current(Purpose::Edit) {
-            for edit in self.edits.iter_mut().flatten().filter(|e| e.job.id == id) {
+            for edit in self.edits.iter_mut().flatten().filter(|e| e.id == id) {
                 edit.drawn = true;
             }
         }
@@ -142,7 +144,7 @@ impl Latest {
     /// that one's answer was never drawn, to be solved again as [`Purpose::Earlier`]. Each is
     /// given once.
     pub fn earlier(&mut self) -> Option<String> {
-        self.edits[1].take().filter(|e| !e.drawn).map(|e| e.job.text)
+        self.edits[1].take().filter(|e| !e.drawn).map(|e| e.text)
     }
 
     /// Gives up the solve under way if it has run for the budget by `now_ms`. The caller stops
