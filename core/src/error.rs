@@ -231,7 +231,8 @@ impl fmt::Display for Error {
 
 /// Whether `message` already shows the value `text`: "the wall (40 mm)" shows "40 mm" and
 /// "the web (51)" shows "51", but "1e20" does not show "0", nor does "between 0 and 100 %" show
-/// a typed 0: a bare number counts as shown only in brackets or quotes, as messages quote values.
+/// a typed 0: a bare number counts as shown only in brackets or quotes, as messages quote values,
+/// and so does any text inside quotes, where a message quotes one value whole.
 pub fn mentions(message: &str, text: &str) -> bool {
     let part_of_word = |c: Option<char>| c.is_some_and(|c| c.is_alphanumeric() || c == '.' || c == '-');
     let bare_number = crate::units::decimal(text).is_some();
@@ -239,7 +240,10 @@ pub fn mentions(message: &str, text: &str) -> bool {
         && message.match_indices(text).any(|(i, _)| {
             let before = message[..i].chars().next_back();
             let after = message[i + text.len()..].chars().next();
-            if bare_number {
+            // Inside quotes a message quotes one value whole: "kg" typed alone is not shown by
+            // the example "27.2 kg".
+            let quoted = message[..i].matches('"').count() % 2 == 1;
+            if bare_number || quoted {
                 matches!((before, after), (Some('('), Some(')')) | (Some('"'), Some('"')))
             } else {
                 !part_of_word(before) && !part_of_word(after)
@@ -312,6 +316,18 @@ mod tests {
         assert_eq!(e.to_string(), "the web (51) must be thinner");
         let e = Error::new(ErrorKind::Conflict, "the wall (40 mm) must be thinner").with_value("40 mm");
         assert_eq!(e.to_string(), "the wall (40 mm) must be thinner");
+        // A unit typed alone is not shown by a quoted example that ends in it.
+        let e = Error::new(
+            ErrorKind::Syntax,
+            "the number is missing: write it before the unit, as in \"27.2 kg\"",
+        )
+        .with_value("kg");
+        assert_eq!(
+            e.to_string(),
+            "the number is missing: write it before the unit, as in \"27.2 kg\"; got \"kg\""
+        );
+        let e = Error::new(ErrorKind::UnknownUnit, "unknown unit \"kgs\"").with_value("kgs");
+        assert_eq!(e.to_string(), "unknown unit \"kgs\"");
         // Without what was typed, the SI value is the echo.
         let e = Error::new(ErrorKind::OutOfRange, "too long").with_si(2e6, "m");
         assert_eq!(e.to_string(), "too long; got 2e6 m");
