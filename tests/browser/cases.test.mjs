@@ -168,13 +168,31 @@ describe("cases", () => {
     const reread = await fresh.$$eval("td[data-hz]", (c) => c.map((x) => Number(x.dataset.hz)));
     assert.ok(allSame(reread, shown), `${reread} against ${shown}`);
 
+    // A scenario with an input error opens too, as typed; the status line says where the error
+    // is, since its field may be out of view.
+    const wrong = join(dir, "heavier-head-in-lbf.json");
+    const typed = structuredClone(sent.scenario);
+    typed.title = "Head typed in lbf";
+    typed.attachments[0].mass = "7.5 lbf";
+    await writeFile(wrong, JSON.stringify(typed));
+    const [chooser2] = await Promise.all([fresh.waitForEvent("filechooser"), fresh.click('[data-action="open-file"]')]);
+    await chooser2.setFiles(wrong);
+    await fresh.waitForFunction(() => document.querySelector(".mb-case-note").textContent.includes("input error"));
+    assert.equal(
+      await fresh.textContent(".mb-case-note"),
+      "Opened the file as a new case. It has an input error at Attachment 1, mass, marked beside the field.",
+    );
+    assert.equal(await fresh.inputValue(TIP_MASS), "7.5 lbf");
+    assert.match(await fresh.textContent(".mb-field-error"), /lbf is pound-force/);
+    assert.equal((await caseNames(fresh)).length, 3);
+
     // A file that is not a scenario is refused with a message, and no case is added.
     const bad = join(dir, "not-a-scenario.json");
     await writeFile(bad, "[1, 2, 3]");
     const [again] = await Promise.all([fresh.waitForEvent("filechooser"), fresh.click('[data-action="open-file"]')]);
     await again.setFiles(bad);
     await fresh.waitForFunction(() => document.querySelector(".mb-case-note").textContent.startsWith("Not opened"));
-    assert.equal((await caseNames(fresh)).length, 2);
+    assert.equal((await caseNames(fresh)).length, 3);
     assert.deepEqual(problems, []);
     await other.context.close();
   });

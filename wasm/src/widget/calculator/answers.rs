@@ -80,12 +80,23 @@ impl Calculator {
     /// before the drawing, the newer is drawn.
     fn solved(&mut self, outcome: Result<Report, Error>, answer: JsValue) {
         let long = outcome.as_ref().is_ok_and(|r| !message::drawn_here(r));
+        let opened = std::mem::take(&mut self.opened);
         self.adopt(outcome, answer);
         self.waiting_draw = true;
         if !long || !self.draw_later() {
             self.on_later();
         }
-        if self.error.is_some() {
+        if let Some(error) = &self.error {
+            if opened {
+                // The field may be out of view: the status line says where the error is.
+                let place = modebench::schema::words(&error.path);
+                let note = if place.is_empty() {
+                    format!("{} It has an error, shown above the fields.", self.note)
+                } else {
+                    format!("{} It has an input error at {place}, marked beside the field.", self.note)
+                };
+                self.say(note.trim_start());
+            }
             self.solver.submit_earlier(&self.view);
             self.show_solving();
         }
@@ -121,6 +132,7 @@ impl Calculator {
     fn solved_drawn(&mut self, text: JsValue, answer: JsValue, drawn: (View, Drawn)) {
         self.unread = Some(text);
         self.drawn = Some(drawn);
+        self.opened = false;
         self.keep_answer(answer);
         self.error = None;
         // Drawn now, in place of an older answer's drawing still waiting for its task.

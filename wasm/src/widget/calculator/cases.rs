@@ -93,7 +93,7 @@ impl Calculator {
         self.show_sheet();
     }
 
-    fn say(&mut self, note: &str) {
+    pub(super) fn say(&mut self, note: &str) {
         self.note = note.to_string();
         if let Some(line) = dom::first(&self.root, ".mb-case-note") {
             line.set_text_content(Some(note));
@@ -114,6 +114,7 @@ impl Calculator {
         self.store();
         self.draw_all();
         self.refocus(Some(("data-action", focus.to_string())));
+        self.opened = true;
         self.start_over();
     }
 

@@ -45,6 +45,7 @@ impl Calculator {
         // later one to be kept.
         self.keep_open_sections();
         self.solver.submit(Purpose::Edit, text::write(&self.doc), &self.view);
+        self.opened = false;
         self.store();
         if edit.is_structural() {
             self.draw_editor(false);

@@ -86,6 +86,10 @@ pub(super) struct Calculator {
     draw_later: Option<js_sys::Function>,
     /// What the case bar's status line says.
     note: String,
+    /// Whether a case was just opened (from the list, a file or a link) and its first answer has
+    /// not come: if that answer is an input error, the status line says where it is, since the
+    /// field may be out of view.
+    opened: bool,
     /// The printed sheet's head as last drawn.
     sheet: String,
     /// The inside of the results element as last drawn by [`Calculator::draw_results`], from
@@ -126,6 +130,7 @@ impl Calculator {
             replies: None,
             answer: None,
             note: String::new(),
+            opened: false,
             sheet: String::new(),
             results_shown: None,
             summary_shown: None,
