@@ -114,8 +114,8 @@ impl Calculator {
         self.store();
         self.draw_all();
         self.refocus(Some(("data-action", focus.to_string())));
-        self.opened = true;
         self.start_over();
+        self.opened = true;
     }
 
     /// Opens another case from the list.

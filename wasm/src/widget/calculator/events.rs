@@ -254,6 +254,7 @@ impl Calculator {
     /// Hands a scenario that replaced the one on show to the worker; the results on show are
     /// greyed until its answer comes, as they belong to the other one.
     pub(super) fn start_over(&mut self) {
+        self.opened = false;
         if self.error.is_none() {
             self.mark_waiting();
             self.solver.submit(Purpose::Edit, text::write(&self.doc), &self.view);
