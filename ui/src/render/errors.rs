@@ -33,15 +33,39 @@ pub fn placement<'a>(error_path: &FieldPath, fields: &[&'a str]) -> Option<&'a s
 /// when the check was made in SI), without the field path (the position says it) and without
 /// JSON line numbers (the user typed into a field).
 pub fn message(error: &Error) -> String {
-    let mut text = strip_location(&error.message).to_string();
-    let typed = error.value.as_deref().filter(|v| !mentions(&text, v));
-    let si = error.si.as_deref().filter(|si| !mentions(&text, si) && Some(*si) != error.value.as_deref());
+    let plain = strip_location(&error.message);
+    let typed = error.value.as_deref().filter(|v| !mentions(plain, v));
+    let si = error.si.as_deref().filter(|si| !mentions(plain, si) && Some(*si) != error.value.as_deref());
+    let mut text = curly(plain);
     match (typed, si) {
         (Some(typed), Some(si)) => text.push_str(&format!(" (you typed “{typed}”, which is {si})")),
         (Some(typed), None) => text.push_str(&format!(" (you typed “{typed}”)")),
         _ => {}
     }
     text
+}
+
+/// The engine quotes values with straight quotes, as its messages also go to files and
+/// terminals; beside a field they are paired as the page's own “…” are. An odd count (an inch
+/// mark typed into a value the message repeats) is left as it is.
+fn curly(text: &str) -> String {
+    if text.matches('"').count() % 2 == 1 {
+        return text.to_string();
+    }
+    let mut open = false;
+    text.chars()
+        .map(|c| match c {
+            '"' => {
+                open = !open;
+                if open {
+                    '“'
+                } else {
+                    '”'
+                }
+            }
+            c => c,
+        })
+        .collect()
 }
 
 /// Serde ends its messages with "at line 1 column 230", which means nothing in a form.
@@ -124,6 +148,21 @@ mod tests {
         doc["attachments"][0]["position"] = serde_json::json!("2.1 m");
         let e = modebench::solve_value(&doc).unwrap_err();
         assert_eq!(message(&e), "the position must lie on the beam (0 to 1.45 m) (you typed “2.1 m”)");
+    }
+
+    #[test]
+    fn quotes_beside_a_field_are_paired_as_the_pages_own() {
+        let e = modebench::error::Error::new(
+            modebench::ErrorKind::Syntax,
+            "the number is missing: write it before the unit, as in \"27.2 kg\"",
+        )
+        .with_value("kg");
+        assert_eq!(
+            message(&e),
+            "the number is missing: write it before the unit, as in “27.2 kg” (you typed “kg”)"
+        );
+        // An inch mark typed and repeated leaves the quotes as they are.
+        assert_eq!(curly("unexpected '\"' after the unit in"), "unexpected '\"' after the unit in");
     }
 
     #[test]
