@@ -46,26 +46,35 @@ pub fn message(error: &Error) -> String {
 }
 
 /// The engine quotes values with straight quotes, as its messages also go to files and
-/// terminals; beside a field they are paired as the page's own “…” are. An odd count (an inch
-/// mark typed into a value the message repeats) is left as it is.
+/// terminals; beside a field they are paired as the page's own “…” are. Only quotation is
+/// changed: an opening quote after a space or a bracket, a closing one before a space or a
+/// punctuation mark. A message with any other straight quote (an inch mark typed and repeated) is
+/// left as it is.
 fn curly(text: &str) -> String {
-    if text.matches('"').count() % 2 == 1 {
+    let chars: Vec<char> = text.chars().collect();
+    let mut out = String::with_capacity(text.len() + 8);
+    let mut open = false;
+    for (i, &c) in chars.iter().enumerate() {
+        if c != '"' {
+            out.push(c);
+            continue;
+        }
+        let before = i.checked_sub(1).map(|j| chars[j]);
+        let after = chars.get(i + 1).copied();
+        let opens = !open && matches!(before, None | Some(' ' | '(')) && after.is_some_and(|a| a != ' ');
+        let closes = open
+            && before.is_some_and(|b| b != ' ')
+            && matches!(after, None | Some(' ' | ')' | ',' | ';' | ':' | '.'));
+        if !opens && !closes {
+            return text.to_string();
+        }
+        open = !open;
+        out.push(if open { '“' } else { '”' });
+    }
+    if open {
         return text.to_string();
     }
-    let mut open = false;
-    text.chars()
-        .map(|c| match c {
-            '"' => {
-                open = !open;
-                if open {
-                    '“'
-                } else {
-                    '”'
-                }
-            }
-            c => c,
-        })
-        .collect()
+    out
 }
 
 /// Serde ends its messages with "at line 1 column 230", which means nothing in a form.
@@ -161,8 +170,13 @@ mod tests {
             message(&e),
             "the number is missing: write it before the unit, as in “27.2 kg” (you typed “kg”)"
         );
+        assert_eq!(curly("unknown unit \"kgs\"; did you mean kg?"), "unknown unit “kgs”; did you mean kg?");
         // An inch mark typed and repeated leaves the quotes as they are.
-        assert_eq!(curly("unexpected '\"' after the unit in"), "unexpected '\"' after the unit in");
+        for text in
+            ["unexpected '\"' after the unit \"", "not two (\" then 3…)", "unknown unit \"4\"\"", "a \"b"]
+        {
+            assert_eq!(curly(text), text);
+        }
     }
 
     #[test]
