@@ -180,7 +180,7 @@ describe("cases", () => {
     await fresh.waitForFunction(() => document.querySelector(".mb-case-note").textContent.includes("input error"));
     assert.equal(
       await fresh.textContent(".mb-case-note"),
-      "Opened the file as a new case. It has an input error at Attachment 1, mass, marked beside the field.",
+      "Opened the file as a new case. It has an input error at Attachment 1, mass; its message is in the form below.",
     );
     assert.equal(await fresh.inputValue(TIP_MASS), "7.5 lbf");
     assert.match(await fresh.textContent(".mb-field-error"), /lbf is pound-force/);

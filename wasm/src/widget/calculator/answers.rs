@@ -88,13 +88,12 @@ impl Calculator {
         }
         if let Some(error) = &self.error {
             if opened {
-                // The field may be out of view: the status line says where the error is.
+                // The field may be out of view: the status line (above the form, where the
+                // message is, beside its field or above them all) says where the error is.
                 let place = modebench::schema::words(&error.path);
-                let note = if place.is_empty() {
-                    format!("{} It has an error, shown above the fields.", self.note)
-                } else {
-                    format!("{} It has an input error at {place}, marked beside the field.", self.note)
-                };
+                let at = if place.is_empty() { place } else { format!(" at {place}") };
+                let note =
+                    format!("{} It has an input error{at}; its message is in the form below.", self.note);
                 self.say(note.trim_start());
             }
             self.solver.submit_earlier(&self.view);
