@@ -171,7 +171,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
         // A digit after a foot or inch mark starts a second length (4'6"), not a power.
         if symbol.chars().all(table::is_mark) {
             if let Some(c) = chars.peek().filter(|c| c.is_ascii_digit()) {
-                return Err(two_lengths(spelled, *c));
+                return Err(two_lengths(unit.symbols[0], *c));
             }
         }
         let power = parse_power(&mut chars, spelled)?;
@@ -195,7 +195,7 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
             Some('*' | '·' | '⋅') => {}
             Some('/') => in_denominator = true,
             Some(c) if spaced && c.is_ascii_digit() && unit.dim == table::LENGTH => {
-                return Err(two_lengths(spelled, c));
+                return Err(two_lengths(unit.symbols[0], c));
             }
             Some(c) if spaced && is_letter(c) => {
                 return Err(syntax(format!(
@@ -208,9 +208,10 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
     }
 }
 
-/// A length written in two units, as feet then inches.
-fn two_lengths(spelled: &str, next: char) -> Error {
-    syntax(format!("write a length in one unit, as 5.5 ft or 66 in, not two ({spelled} then {next}…)"))
+/// A length written in two units, as feet then inches; the first is named by its symbol, a mark
+/// (4'6") being no clearer in the message than the value typed.
+fn two_lengths(symbol: &str, next: char) -> Error {
+    syntax(format!("write a length in one unit, as 5.5 ft or 66 in, not two ({symbol} then {next}…)"))
 }
 
 /// Reads an optional exponent after a unit symbol: `^2`, `2` or a superscript digit.
