@@ -129,8 +129,9 @@ fn missing_number(s: &str) -> Error {
             "the value must be a finite number with an optional unit, as in \"27.2 in\"",
         );
     }
+    // "in" alone is a unit without its number; "abc" is no unit, and is told what a value is.
     match s.chars().next() {
-        Some(c) if is_letter(c) => {
+        Some(c) if is_letter(c) && parse_units(s.trim_end()).is_ok() => {
             syntax("the number is missing: write it before the unit, as in \"27.2 in\"")
         }
         _ => syntax("the value must start with a number, as in \"27.2 in\""),
@@ -202,7 +203,8 @@ fn parse_units(s: &str) -> Result<Vec<Factor>, Error> {
                     "a space between units is not a product: write {spelled}*{c}… or {spelled}·{c}…"
                 )));
             }
-            Some(c) => return Err(syntax(format!("unexpected '{c}' after the unit {spelled}"))),
+            // Named by its symbol: after an inch mark, "the unit \"" would read as a stray quote.
+            Some(c) => return Err(syntax(format!("unexpected '{c}' after the unit {}", unit.symbols[0]))),
         }
         while chars.next_if(|c| is_space(*c)).is_some() {}
     }
