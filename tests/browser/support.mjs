@@ -60,7 +60,7 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // Later that day 3.5 KB came back: the engines are bound without wasm-bindgen's `name` and
 // `producers` sections, which no browser reads (`xtask/src/engine.rs`); the page's engine, with
 // a case opened with an input error now saying where the error is and the quotes of a field's
-// message paired (about 0.9 KB together) and three clearer unit messages, stood at 388,613 B, and
+// message paired (about 0.9 KB together) and three clearer unit messages, stood at 388,539 B, and
 // its guard came down to 389 KB.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's

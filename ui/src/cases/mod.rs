@@ -195,28 +195,30 @@ impl Cases {
 
     /// Starts a blank case in the example's units, and opens it.
     pub fn new_blank(&mut self, example: &Value) {
-        let scenario = self.titled_apart(blank(example));
+        let scenario = blank(example);
+        let title = title_of(&scenario);
+        let scenario = self.titled_apart(scenario, title);
         self.add(scenario, 0);
     }
 
     /// Starts a case from a copy of the page's example, and opens it.
     pub fn new_from_example(&mut self, example: &Value) {
-        let scenario = self.titled_apart(example.clone());
+        let scenario = self.titled_apart(example.clone(), title_of(example));
         self.add(scenario, 0);
     }
 
-    /// A new case's scenario, its title numbered when a case kept already has it ("Fan beam
-    /// (2)"), so that the list of cases never shows two alike.
-    fn titled_apart(&self, mut scenario: Value) -> Value {
-        let base = title_of(&scenario);
+    /// A new case's scenario under the title `wanted`, numbered when a case kept already has it
+    /// ("Fan beam (2)"), so that the list of cases never shows two alike. The title is written
+    /// only when it differs from the scenario's own.
+    fn titled_apart(&self, mut scenario: Value, wanted: String) -> Value {
         let taken = |title: &str| self.list.iter().any(|c| title_of(&c.scenario) == title);
-        let mut title = base.clone();
+        let mut title = wanted.clone();
         let mut n = 1usize;
         while taken(&title) {
             n += 1;
-            title = format!("{base} ({n})");
+            title = format!("{wanted} ({n})");
         }
-        if n > 1 {
+        if title != title_of(&scenario) {
             if let Some(m) = scenario.as_object_mut() {
                 m.insert("title".into(), Value::String(title));
             }
@@ -227,12 +229,8 @@ impl Cases {
     /// Copies the open case under the title "… (copy)", and opens the copy.
     pub fn duplicate(&mut self) {
         let source = self.open_case().clone();
-        let mut scenario = source.scenario;
-        let title = format!("{} (copy)", title_of(&scenario));
-        if let Some(m) = scenario.as_object_mut() {
-            m.insert("title".into(), Value::String(title));
-        }
-        let scenario = self.titled_apart(scenario);
+        let title = format!("{} (copy)", title_of(&source.scenario));
+        let scenario = self.titled_apart(source.scenario, title);
         let id = self.add(scenario, source.mode);
         if let Some(i) = self.find(id) {
             self.list[i].record = source.record;
