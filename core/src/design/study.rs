@@ -126,6 +126,11 @@ pub fn study(scenario: &Scenario, doc: &Value, solved: &Solved<'_>) -> Result<De
 /// The inputs that carry tolerances, with their spreads.
 type Tolerated = Vec<(Input, Spread)>;
 
+// This step and the other requests' (`resizing`, `measured`, `calibration`) are kept out of the
+// study's own function: each runs only when the scenario asks for it, and a browser compiles a
+// hot WebAssembly function whole, optimised. Inlined, they made the study one function of 28 KB
+// in the solver's engine, whose optimised compiling took 50 ms during a reader's edits.
+#[inline(never)]
 fn tolerances(
     scenario: &Scenario,
     doc: &Value,
@@ -217,6 +222,8 @@ fn tolerances(
     Ok(chosen.into_iter().zip(spreads.into_iter().flatten()).collect())
 }
 
+// Out of the study's own function: see `tolerances`.
+#[inline(never)]
 fn resizing(
     scenario: &Scenario,
     doc: &Value,

@@ -12,6 +12,8 @@ use crate::path::FieldPath;
 use crate::scenario::{RangeInput, Scenario};
 use serde_json::Value;
 
+// Out of the study's own function: see `tolerances` in study.rs.
+#[inline(never)]
 pub(super) fn measured(
     scenario: &Scenario,
     solved: &Solved<'_>,
@@ -54,6 +56,8 @@ pub(super) fn measured(
     Ok(out)
 }
 
+// Out of the study's own function: see `tolerances` in study.rs.
+#[inline(never)]
 pub(super) fn calibration(
     scenario: &Scenario,
     doc: &Value,
