@@ -28,13 +28,17 @@ const ready = init();
 // up. It comes in two stretches:
 // - While the reader types: the first WARM_UPS solves, WARM_UP_TOTAL_MS at most, go on between
 //   the edits, so that a reader who types at once has most of the compiling behind them after
-//   a few edits rather than a hundred: an edit waits at most for the one solve under way.
+//   a few edits rather than a hundred: an edit waits at most for the one solve under way. They
+//   solve without writing the results' markup (`solveForPage`'s last argument): the markup's
+//   functions, run once per solve, would otherwise turn hot a few dozen edits later and be
+//   compiled during them (the results' 24–34 ms and the frequency map's 21–22 ms on the machine
+//   of docs/performance.md), while run as compiled quickly they cost an edit 0.3–0.4 ms, about
+//   0.1 ms more than optimised.
 // - While the reader reads: READING_WARM_UPS more, READING_TOTAL_MS at most, run only once no
 //   request has come for QUIET_MS, back to back (a channel's message, not a timer, so that they are
-//   over sooner), and pause at the next request until the reader pauses again. They bring on the
-//   optimised compiling of the functions run once per solve (the results' markup, the frequency
-//   map, the design study), which the first stretch leaves for the edits that follow, and they
-//   never share the cores with an edit being typed.
+//   over sooner), and pause at the next request until the reader pauses again. They solve and
+//   write the markup, and so bring on the optimised compiling of the functions run once per solve
+//   (the results' markup, the frequency map, the design study) while no edit is being typed.
 const WARM_UPS = 120;
 const WARM_UP_TOTAL_MS = 400;
 const READING_WARM_UPS = 280;
@@ -75,7 +79,7 @@ function warmUpStep() {
   }
   stretch.solves -= 1;
   const start = performance.now();
-  solveForPage(...newest);
+  solveForPage(...newest, stretch === reading);
   const ms = performance.now() - start;
   stretch.ms -= ms;
   if (ms >= WARM_UP_MS) {

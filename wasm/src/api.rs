@@ -167,12 +167,14 @@ pub fn solve_scenario(scenario: &str) -> String {
 /// long, the inside of the results element and of the one-line summary as the page draws them
 /// (`undefined` otherwise). The solving worker's whole job: it posts them all, and the page draws
 /// the markup, reads the second text when it needs the report, and keeps the first for the
-/// results file and the tap-test panel. It never throws.
+/// results file and the tap-test panel. With `draw` false the markup is not written (the two
+/// last values are `undefined`): the worker's warm-up while the reader types. It never throws.
 #[cfg(feature = "solver")]
 #[wasm_bindgen(js_name = solveForPage)]
-pub fn solve_for_page(scenario: &str, mode: f64, open: &str) -> js_sys::Array {
+pub fn solve_for_page(scenario: &str, mode: f64, open: &str, draw: Option<bool>) -> js_sys::Array {
     use crate::worker::message;
-    let page = message::solve_for_page(scenario, &message::view_from_message(mode, open));
+    let view = message::view_from_message(mode, open);
+    let page = message::solve_for_page(scenario, draw.unwrap_or(true).then_some(&view));
     let whole = JsValue::from_str(&page.whole);
     let read = page.thinned.map_or_else(|| whole.clone(), |v| JsValue::from_str(&v));
     let (results, summary) = match page.drawn {

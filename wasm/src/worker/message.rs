@@ -56,17 +56,20 @@ pub struct Drawn {
     pub summary: String,
 }
 
-/// Solves a scenario given as JSON text for the page, drawn for `view` ([`ForPage`]). This is
-/// the worker's whole job; the page never calls it. The page reads only the thinned answer: a
+/// Solves a scenario given as JSON text for the page, drawn for `view` ([`ForPage`]), or not
+/// drawn at all without one (the worker's warm-up while the reader types: the solve's own code
+/// made hot, the drawing's left for a pause). This is the worker's whole job; the page never
+/// calls it. The page reads only the thinned answer: a
 /// long model's whole answer is over a megabyte, most of it shapes that the plot draws to the
 /// same tenth of a unit with a few dozen samples each.
-pub fn solve_for_page(scenario: &str, view: &View) -> ForPage {
+pub fn solve_for_page(scenario: &str, view: Option<&View>) -> ForPage {
     let mut answer = answer(scenario);
     let whole = write(&answer);
     match &mut answer {
         Answer::Report(report) => {
             crate::render::thin_shapes(report);
-            let drawn = drawn_here(report).then(|| Drawn {
+            let view = view.filter(|_| drawn_here(report));
+            let drawn = view.map(|view| Drawn {
                 results: crate::render::results_inner(Some(report), false, view),
                 summary: crate::render::summary_inner(Some(report), false),
             });
@@ -203,7 +206,7 @@ mod tests {
     /// shows (the bound itself is checked in the plot's own tests).
     #[test]
     fn the_drawn_answer_is_the_whole_one_with_fewer_samples() {
-        let page = solve_for_page(BOOM, &View::default());
+        let page = solve_for_page(BOOM, Some(&View::default()));
         let (Ok(whole), Some(Ok(drawn))) = (read(&page.whole), page.thinned.as_deref().map(read)) else {
             panic!("the example solves")
         };
@@ -227,7 +230,7 @@ mod tests {
         same.modes = drawn.modes.clone();
         assert_eq!(same, drawn);
         // An error is read as it comes, and drawn by the page.
-        let error = solve_for_page("{\"left\": ", &View::default());
+        let error = solve_for_page("{\"left\": ", Some(&View::default()));
         assert_eq!((error.thinned, error.drawn), (None, None));
     }
 
@@ -250,13 +253,33 @@ mod tests {
             for view in &views {
                 let (mode, open) = view_to_message(view);
                 assert_eq!(&view_from_message(mode, &open), view, "the view crosses unchanged");
-                let page = solve_for_page(scenario, view);
+                let page = solve_for_page(scenario, Some(view));
                 let (Some(Ok(report)), Some(drawn)) = (page.thinned.as_deref().map(read), page.drawn) else {
                     panic!("the example solves, and is drawn by the worker")
                 };
                 assert_eq!(drawn.results, crate::render::results_inner(Some(&report), false, view));
                 assert_eq!(drawn.summary, crate::render::summary_inner(Some(&report), false));
             }
+        }
+    }
+
+    /// Without a view (the warm-up while the reader types) nothing is drawn, and the answer is
+    /// a drawn solve's: the same modes, to the engine's accuracy (the second solve starts from
+    /// the first's frequencies, so the last digits may differ).
+    #[test]
+    fn a_solve_without_a_view_draws_nothing() {
+        let drawn = solve_for_page(BOOM, Some(&View::default()));
+        let bare = solve_for_page(BOOM, None);
+        assert!(drawn.drawn.is_some());
+        assert_eq!(bare.drawn, None);
+        let hz = |text: Option<String>| match text.as_deref().map(read) {
+            Some(Ok(report)) => report.modes.iter().map(|m| m.frequency_hz).collect::<Vec<_>>(),
+            _ => panic!("the example solves"),
+        };
+        let (a, b) = (hz(drawn.thinned), hz(bare.thinned));
+        assert_eq!(a.len(), b.len());
+        for (a, b) in a.iter().zip(&b) {
+            assert!((a - b).abs() <= 1e-12 * a, "{a} Hz drawn, {b} Hz bare");
         }
     }
 
