@@ -30,8 +30,14 @@ fn warn(kind: &'static str, message: String) -> Warning {
     Warning { kind, message }
 }
 
-fn list(hz: &[f64]) -> String {
-    hz.iter().map(|f| format!("{} Hz", number(*f))).collect::<Vec<_>>().join(", ")
+/// A measured frequency as the panel's table of peaks shows it (five significant figures), so
+/// that a warning names a peak by the figure the reader sees beside it.
+fn hz(f: f64) -> String {
+    crate::units::significant(f, 5)
+}
+
+fn list(frequencies: &[f64]) -> String {
+    frequencies.iter().map(|f| format!("{} Hz", hz(*f))).collect::<Vec<_>>().join(", ")
 }
 
 /// Every warning that applies, in a stable order.
@@ -166,8 +172,8 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
                 "overlapping-peaks",
                 format!(
                     "the peaks at {} and {} Hz overlap: each one's damping is less certain",
-                    number(peaks[i - 1].frequency_hz),
-                    number(peaks[i].frequency_hz)
+                    hz(peaks[i - 1].frequency_hz),
+                    hz(peaks[i].frequency_hz)
                 ),
             ));
         }
