@@ -42,7 +42,9 @@ pub mod wav;
 
 pub use analysis::{analyse_csv, analyse_file, analyse_samples, analyse_timed, analyse_wav};
 pub use matching::{Predicted, PredictedMode};
-pub use types::{BenchOptions, BenchReport, MeasuredPeak, ModeMatch, SourceKind, TapReport, Warning};
+pub use types::{
+    shown_hz, BenchOptions, BenchReport, MeasuredPeak, ModeMatch, SourceKind, TapReport, Warning,
+};
 
 /// The longest recording analysed: 30 minutes. Longer ones are refused with a message.
 pub const MAX_SECONDS: f64 = 1800.0;

@@ -62,6 +62,12 @@ pub struct TapReport {
     pub note: Option<String>,
 }
 
+/// A measured frequency, Hz, as the reader is shown it wherever a peak is named (its table, its
+/// mark on the spectrum, a warning): five significant figures, so that each names it alike.
+pub fn shown_hz(hz: f64) -> String {
+    crate::units::significant(hz, 5)
+}
+
 /// One peak of the spectrum, measured.
 #[derive(Clone, Debug, PartialEq, serde::Serialize)]
 pub struct MeasuredPeak {

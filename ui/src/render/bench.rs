@@ -5,7 +5,7 @@
 //! number comes from the core's report.
 
 use super::escape;
-use modebench::bench::BenchReport;
+use modebench::bench::{shown_hz, BenchReport};
 use modebench::units::significant;
 use std::fmt::Write;
 
@@ -174,7 +174,7 @@ fn spectrum_svg(report: &BenchReport) -> String {
             axes.x(p.frequency_hz),
             axes.y(near),
             i + 1,
-            significant(p.frequency_hz, 5)
+            shown_hz(p.frequency_hz)
         );
     }
     svg.push_str("</svg>");
@@ -239,7 +239,7 @@ fn peaks_table(report: &BenchReport, predicted: bool) -> String {
             i + 1,
             i + 1,
             p.frequency_hz,
-            significant(p.frequency_hz, 5),
+            shown_hz(p.frequency_hz),
             percent(p.damping_fit),
             quality(p.quality),
             significant(p.over_floor_db, 3),

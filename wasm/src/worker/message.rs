@@ -68,8 +68,7 @@ pub fn solve_for_page(scenario: &str, view: Option<&View>) -> ForPage {
     match &mut answer {
         Answer::Report(report) => {
             crate::render::thin_shapes(report);
-            let view = view.filter(|_| drawn_here(report));
-            let drawn = view.map(|view| Drawn {
+            let drawn = view.filter(|_| drawn_here(report)).map(|view| Drawn {
                 results: crate::render::results_inner(Some(report), false, view),
                 summary: crate::render::summary_inner(Some(report), false),
             });

@@ -3,7 +3,7 @@
 
 use super::super::peaks::Peak;
 use super::super::taps::{Tap, WEAK_DB};
-use super::super::types::{MeasuredPeak, SourceKind, Warning};
+use super::super::types::{shown_hz, MeasuredPeak, SourceKind, Warning};
 use crate::error::number;
 
 /// Below this a microphone's response falls away (common practice, no source: phone and tablet
@@ -30,14 +30,10 @@ fn warn(kind: &'static str, message: String) -> Warning {
     Warning { kind, message }
 }
 
-/// A measured frequency as the panel's table of peaks shows it (five significant figures), so
-/// that a warning names a peak by the figure the reader sees beside it.
-fn hz(f: f64) -> String {
-    crate::units::significant(f, 5)
-}
-
+/// Measured frequencies as the panel's table of peaks shows them, so that a warning names a peak
+/// by the figure the reader sees beside it.
 fn list(frequencies: &[f64]) -> String {
-    frequencies.iter().map(|f| format!("{} Hz", hz(*f))).collect::<Vec<_>>().join(", ")
+    frequencies.iter().map(|f| format!("{} Hz", shown_hz(*f))).collect::<Vec<_>>().join(", ")
 }
 
 /// Every warning that applies, in a stable order.
@@ -172,8 +168,8 @@ pub(super) fn collect(c: &Context, peaks: &[MeasuredPeak]) -> Vec<Warning> {
                 "overlapping-peaks",
                 format!(
                     "the peaks at {} and {} Hz overlap: each one's damping is less certain",
-                    hz(peaks[i - 1].frequency_hz),
-                    hz(peaks[i].frequency_hz)
+                    shown_hz(peaks[i - 1].frequency_hz),
+                    shown_hz(peaks[i].frequency_hz)
                 ),
             ));
         }
