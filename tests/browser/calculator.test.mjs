@@ -4,7 +4,20 @@
 
 import assert from "node:assert/strict";
 import { after, before, describe, test } from "node:test";
-import { BROKEN_NUMBER, MODE_1, TEST_TIMEOUT_MS, closeAll, isolatedContext, launch, mode1, openLive, pages, same, startSite } from "./support.mjs";
+import {
+  BROKEN_NUMBER,
+  MODE_1,
+  TABLETS,
+  TEST_TIMEOUT_MS,
+  closeAll,
+  isolatedContext,
+  launch,
+  mode1,
+  openLive,
+  pages,
+  same,
+  startSite,
+} from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
@@ -95,6 +108,44 @@ describe("the live calculator", () => {
     assert.ok(Math.abs(liveHeight - fixedHeight) <= 1, `the editor was ${fixedHeight} px tall fixed, ${liveHeight} px live`);
     assert.deepEqual(problems, []);
     await context.close();
+  });
+
+  // The browser reports every move of something on screen that no input caused (a layout
+  // shift). The results' sections out of view are laid out only as they come into view, and a
+  // section laid out late must not push what the reader is looking at.
+  test("going live, and scrolling through the page and its results, moves nothing on screen", { timeout: TEST_TIMEOUT_MS }, async () => {
+    for (const viewport of [{ width: 1280, height: 720 }, { width: 1920, height: 1080 }, ...TABLETS]) {
+      const { context } = await isolatedContext(browser, { viewport, hasTouch: viewport.width < 1280 });
+      await context.addInitScript(() => {
+        window.modebenchShifts = [];
+        new PerformanceObserver((list) => {
+          for (const shift of list.getEntries()) {
+            if (!shift.hadRecentInput) {
+              const moved = shift.sources.map((s) => s.node?.className ?? s.node?.nodeName ?? "?");
+              window.modebenchShifts.push(`${shift.value.toFixed(4)} at ${Math.round(shift.startTime)} ms: ${moved.join(", ")}`);
+            }
+          }
+        }).observe({ type: "layout-shift", buffered: true });
+      });
+      const { page, problems } = await openLive(browser, site.url + BOOM, { context });
+      const frame = () => page.evaluate(() => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))));
+      const height = await page.evaluate(() => document.documentElement.scrollHeight);
+      for (let y = 0; y < height; y += viewport.height / 2) {
+        await page.evaluate((y) => window.scrollTo(0, y), y);
+        await frame();
+      }
+      // On a wide screen the results are a column of their own beside the editor.
+      await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
+      const column = await page.evaluate(() => document.querySelector(".mb-results").scrollHeight);
+      for (let y = 0; y < column; y += viewport.height / 2) {
+        await page.evaluate((y) => (document.querySelector(".mb-results").scrollTop = y), y);
+        await frame();
+      }
+      const size = `${viewport.width}×${viewport.height}`;
+      assert.deepEqual(await page.evaluate(() => window.modebenchShifts), [], `moves at ${size}`);
+      assert.deepEqual(problems, [], size);
+      await context.close();
+    }
   });
 
   test("before the engine, the calculator's body is held back for half a second at most, and printed in full", { timeout: TEST_TIMEOUT_MS }, async () => {
