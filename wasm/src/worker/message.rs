@@ -59,9 +59,9 @@ pub struct Drawn {
 /// Solves a scenario given as JSON text for the page, drawn for `view` ([`ForPage`]), or not
 /// drawn at all without one (the worker's warm-up while the reader types: the solve's own code
 /// made hot, the drawing's left for a pause). This is the worker's whole job; the page never
-/// calls it. The page reads only the thinned answer: a
-/// long model's whole answer is over a megabyte, most of it shapes that the plot draws to the
-/// same tenth of a unit with a few dozen samples each.
+/// calls it. The page reads only the thinned answer: a long model's whole answer is over a
+/// megabyte, most of it shapes that the plot draws to the same tenth of a unit with a few dozen
+/// samples each.
 pub fn solve_for_page(scenario: &str, view: Option<&View>) -> ForPage {
     let mut answer = answer(scenario);
     let whole = write(&answer);
