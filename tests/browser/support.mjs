@@ -61,13 +61,15 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // `producers` sections, which no browser reads (`xtask/src/engine.rs`); the page's engine, with
 // a case opened with an input error now saying where the error is and the quotes of a field's
 // message paired (about 0.9 KB together) and three clearer unit messages, stood at 388,539 B, and
-// its guard came down to 389 KB.
+// its guard came down to 389 KB. That afternoon it rose again to 390 KB (389,087 B): the page
+// may start each calculator's worker through a function of its own, which solves a model quick
+// to solve on the page itself (`boot.js`), 0.55 KB.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's
 // tap-test panel, by the panel's worker; built for size it weighed 525 KB on 2026-12-03, and its
 // budget leaves room for the panel to grow a little, not for another library.
 export const BUDGET = {
-  pageEngineBytes: 389_000,
+  pageEngineBytes: 390_000,
   solverEngineBytes: 717_000,
   benchEngineBytes: 560_000,
   pageGzipBytes: 200_000,

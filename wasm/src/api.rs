@@ -142,11 +142,19 @@ pub fn list_units() -> Result<JsValue, JsValue> {
 /// looked for at `assets/solve-worker.js` from the page. `io` is what the calculators ask of the
 /// browser to share and save cases (`assets/case-io.js`: `link`, `download`, `pickFile` and the
 /// `incoming` case of a link); without it they keep cases but cannot share or save them.
+/// `start`, when given, starts each worker instead of `new Worker(worker, {type: "module"})`:
+/// called with the URL, it returns an object with a worker's `postMessage`, `terminate`,
+/// `onmessage` and `onerror` (the site's `boot.js` passes one that solves a model quick to solve
+/// on the page itself, with its own copy of the solver engine, and the rest in the worker).
 #[cfg(feature = "page")]
 #[wasm_bindgen(js_name = mountAll)]
-pub fn mount_all(worker: Option<String>, io: Option<js_sys::Object>) -> usize {
+pub fn mount_all(
+    worker: Option<String>,
+    io: Option<js_sys::Object>,
+    start: Option<js_sys::Function>,
+) -> usize {
     let io = io.map(JsValue::from).unwrap_or(JsValue::UNDEFINED);
-    crate::widget::mount_all(worker.as_deref().unwrap_or("assets/solve-worker.js"), &io)
+    crate::widget::mount_all(worker.as_deref().unwrap_or("assets/solve-worker.js"), &io, start)
 }
 
 /// Solves a scenario given as JSON text and returns the answer as JSON text: `{"report": …}`

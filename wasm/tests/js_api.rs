@@ -138,5 +138,5 @@ fn lists_describe_sections_materials_and_units() {
     assert!(units.iter().any(|u| get(&u, "symbol").as_string().as_deref() == Some("lbf")));
     assert!(!api::version().is_empty());
     // Outside a browser there is no document, and mounting finds nothing rather than failing.
-    assert_eq!(api::mount_all(None, None), 0);
+    assert_eq!(api::mount_all(None, None, None), 0);
 }

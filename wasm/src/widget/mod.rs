@@ -17,9 +17,9 @@ use wasm_bindgen::JsCast;
 use web_sys::{Event, MessageEvent};
 
 /// Starts every calculator that is not live yet, each with a worker running the script at
-/// `worker_url`, sharing and saving cases through `io` (see [`io::Io`]); returns how many were
-/// started.
-pub(crate) fn mount_all(worker_url: &str, io: &JsValue) -> usize {
+/// `worker_url` (started by `start` when given, see `solver::new_worker`), sharing and saving
+/// cases through `io` (see [`io::Io`]); returns how many were started.
+pub(crate) fn mount_all(worker_url: &str, io: &JsValue, start: Option<js_sys::Function>) -> usize {
     let Some(document) = web_sys::window().and_then(|w| w.document()) else { return 0 };
     let Ok(roots) = document.query_selector_all(".mb-calc[data-modebench]") else { return 0 };
     let budget = solver::budget_ms();
@@ -28,7 +28,7 @@ pub(crate) fn mount_all(worker_url: &str, io: &JsValue) -> usize {
         if root.get_attribute("data-live").as_deref() == Some("true") {
             continue;
         }
-        if mount(root, index, worker_url, budget, io::Io::new(io)) {
+        if mount(root, index, worker_url, start.clone(), budget, io::Io::new(io)) {
             started += 1;
         }
     }
@@ -56,9 +56,17 @@ fn callback<A: FromWasmAbi + 'static>(calculator: &Shared, act: fn(&mut Calculat
 }
 
 /// Takes over one calculator: draws its controls, starts its worker and listens.
-fn mount(root: web_sys::Element, index: usize, worker_url: &str, budget_ms: f64, io: io::Io) -> bool {
+fn mount(
+    root: web_sys::Element,
+    index: usize,
+    worker_url: &str,
+    start: Option<js_sys::Function>,
+    budget_ms: f64,
+    io: io::Io,
+) -> bool {
     let calculator = Rc::new(RefCell::new(Calculator::new(root.clone(), index, worker_url, budget_ms, io)));
     let callbacks = solver::Callbacks {
+        start,
         message: callback(&calculator, |c, event: MessageEvent| c.on_answer(&event)),
         error: callback(&calculator, |c, _: JsValue| c.on_worker_error()),
         deadline: callback(&calculator, |c, _: JsValue| c.on_deadline()),

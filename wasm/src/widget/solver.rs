@@ -6,7 +6,7 @@ use crate::render::View;
 use crate::worker::latest::{Expiry, Job, Latest, Purpose, Verdict};
 use crate::worker::message::{self, Drawn};
 use js_sys::{Function, Object, Reflect};
-use wasm_bindgen::JsValue;
+use wasm_bindgen::{JsCast, JsValue};
 use web_sys::{MessageEvent, Worker, WorkerOptions, WorkerType};
 
 use super::dom;
@@ -15,8 +15,11 @@ use super::dom;
 /// earlier input, ms: a documented scenario answers well within it, so quick edits never flicker.
 pub(super) const GREY_AFTER_MS: i32 = 300;
 
-/// The callbacks a worker and its timers call; they live as long as the page.
+/// What starts a calculator's worker, and the callbacks the worker and its timers call; they live
+/// as long as the page.
 pub(super) struct Callbacks {
+    /// What starts the worker in place of `new Worker`, if the page gave that ([`new_worker`]).
+    pub(super) start: Option<Function>,
     /// Takes a worker's `message` event.
     pub(super) message: Function,
     /// Takes a worker's `error` event.
@@ -167,9 +170,7 @@ impl Solver {
         if self.worker.is_some() {
             return;
         }
-        let options = WorkerOptions::new();
-        options.set_type(WorkerType::Module);
-        if let Ok(worker) = Worker::new_with_options(&self.url, &options) {
+        if let Ok(worker) = new_worker(&self.url, callbacks.start.as_ref()) {
             worker.set_onmessage(Some(&callbacks.message));
             worker.set_onerror(Some(&callbacks.error));
             self.worker = Some(worker);
@@ -200,6 +201,24 @@ impl Solver {
         later(&callbacks.deadline, (self.latest.budget_ms() + 1.0).min(f64::from(i32::MAX)) as i32);
         if job.purpose == Purpose::Edit {
             later(&callbacks.slow, GREY_AFTER_MS);
+        }
+    }
+}
+
+/// A worker for the script at `url`, started by `start` when the page gave one: called with the
+/// URL, it returns an object with a worker's methods (`postMessage`, `terminate`) and handlers
+/// (`onmessage`, `onerror`), whose answers come as a worker's would, in a later task or
+/// microtask, never from inside `postMessage`. Otherwise a module worker.
+fn new_worker(url: &str, start: Option<&Function>) -> Result<Worker, JsValue> {
+    match start {
+        Some(start) => match start.call1(&JsValue::NULL, &url.into()) {
+            Ok(worker) if worker.is_object() => Ok(worker.unchecked_into()),
+            other => Err(other.unwrap_or_else(|error| error)),
+        },
+        None => {
+            let options = WorkerOptions::new();
+            options.set_type(WorkerType::Module);
+            Worker::new_with_options(url, &options)
         }
     }
 }
