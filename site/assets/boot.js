@@ -3,9 +3,10 @@
 // The script is a deferred module, so it runs once the page is parsed; waiting for that
 // explicitly keeps it correct should it ever be loaded `async`.
 //
-// The page's engine (`modebench_page`) edits, stores and draws; it never solves. Each
-// calculator solves in a Web Worker running `solve-worker.js` beside this script, which loads
-// the solver engine (`modebench_solver`), so that no model, however slow, can freeze the page.
+// The page's engine (`modebench_page`) edits, stores and draws. Each calculator solves in a Web
+// Worker running `solve-worker.js` beside this script, which loads the solver engine
+// (`modebench_solver`), so that no model, however slow, can freeze the page (but see
+// `startSolver`).
 // `globalThis.modebenchSolveBudgetMs`, when set before this script runs, replaces the time a
 // solve may take before the worker is stopped (3000 ms); the browser tests use it. Once the
 // calculators are live, `bench-panel.js` adds a tap-test panel under each.
@@ -32,7 +33,7 @@ async function boot() {
   // shows the reader's edits rather than the link's case again.
   const incoming = await io.incomingCase(window.location);
   // Resolved against this script, so the site works under any sub-path of a host.
-  engine.mountAll(new URL("solve-worker.js", import.meta.url).href, io.caseIo(incoming));
+  engine.mountAll(new URL("solve-worker.js", import.meta.url).href, io.caseIo(incoming), startSolver);
   if (incoming) {
     history.replaceState(null, "", window.location.pathname + window.location.search);
   }
@@ -57,6 +58,51 @@ async function boot() {
       { once: true },
     );
   }
+}
+
+// Each calculator's worker as its engine sees it. Once a reader edits and a worker has solved a
+// model in QUICK_MS (half a frame at 60 Hz), the page loads solve-here.js, which then solves
+// the edits of a quick model that keep its shape. `link.last`: the last scenario solved;
+// `link.answer`: its answer, with the solve's `ms`, wherever it ran.
+const QUICK_MS = 8;
+const quick = (link) => link.answer?.ms <= QUICK_MS;
+const links = [];
+let [here, editing] = [null, false];
+
+function startSolver(url) {
+  const worker = new Worker(url, { type: "module" });
+  const link = { onmessage: null, onerror: null };
+  link.terminate = () => (worker.terminate(), links.splice(links.indexOf(link), 1));
+  worker.onmessage = (event) => {
+    link.answer = event.data;
+    loadHere();
+    link.onmessage?.(event);
+  };
+  worker.onerror = (event) => link.onerror?.(event);
+  link.postMessage = (request) => {
+    // Solved here, the worker is only told that the reader is typing: its warm-up waits.
+    const solved = here?.take?.(link, request);
+    worker.postMessage(solved ? { edited: true } : request);
+    link.last = solved ? link.last : request;
+  };
+  links.push(link);
+  return link;
+}
+
+// Should the page's solver not load, every scenario goes on to the worker.
+function loadHere() {
+  const ready = links.find((link) => quick(link) && link.answer.answer?.startsWith('{"report"'));
+  if (here === null && editing && ready) {
+    here = {};
+    import("./solve-here.js")
+      .then((module) => module.start(ready.last, quick))
+      .then((taker) => (here = taker))
+      .catch((error) => console.warn("Modebench: the page's own solver did not load.", error));
+  }
+}
+
+for (const kind of ["focusin", "input"]) {
+  document.addEventListener(kind, () => ((editing = true), loadHere()), { once: true, capture: true });
 }
 
 try {

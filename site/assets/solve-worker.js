@@ -1,10 +1,12 @@
 // Solves the scenarios of one calculator, off the page's main thread. The page sends
 // { id, scenario, mode, open } with the scenario as JSON text and the reader's view (the mode
 // plotted; the `data-part` names of the sections left open, one space between them), and receives
-// { id, answer, thinned, results, summary, mode, open }: the answer as JSON text ({"report": …} or
-// {"error": …}), the answer the page reads (a report's every mode's shape cut to the samples its
+// { id, answer, thinned, results, summary, mode, open, ms }: the answer as JSON text ({"report": …}
+// or {"error": …}), the answer the page reads (a report's every mode's shape cut to the samples its
 // plot needs; an error as it is), for a report that is not long the results and the one-line
-// summary as the page draws them (undefined otherwise), and the view they were drawn for; or
+// summary as the page draws them (undefined otherwise), the view they were drawn for, and how
+// long the solve took here, ms (the page solves a model quick to solve itself, see boot.js, and
+// then sends only { edited: true }, which is not answered: the warm-up below waits for a pause); or
 // { id, failed } when the solver engine could not load. A solve that takes too long is not
 // interrupted here: the page stops this worker and starts a fresh one.
 //
@@ -97,6 +99,11 @@ function stopWarmUp() {
 }
 
 self.addEventListener("message", async (event) => {
+  if (event.data.edited) {
+    // The page solved an edit itself (boot.js): the reader is typing, as after a request.
+    lastRequestMs = performance.now();
+    return;
+  }
   const { id, scenario } = event.data;
   const mode = event.data.mode ?? 0;
   const open = event.data.open ?? "";
@@ -110,8 +117,8 @@ self.addEventListener("message", async (event) => {
   }
   const start = performance.now();
   const [answer, thinned, results, summary] = solveForPage(scenario, mode, open);
-  self.postMessage({ id, answer, thinned, results, summary, mode, open });
   const ms = performance.now() - start;
+  self.postMessage({ id, answer, thinned, results, summary, mode, open, ms });
   lastRequestMs = performance.now();
   if (answer.startsWith('{"report"')) {
     if (ms < (first ? FIRST_MS : WARM_UP_MS)) {

@@ -148,7 +148,8 @@ async function designFrames(browser, url) {
 // reader at the bench would have it, rather than the calculator's top.
 async function editTimes(browser, url, pause, settle = 0, viewport = null) {
   // Where the page's own thread spends each edit, beside the round trip: the calculator's
-  // handling of the keystroke (stored and posted), its handling of the worker's answer (read
+  // handling of the keystroke (stored and posted, or solved on the page for a model quick to
+  // solve, see boot.js), its handling of the answer (read
   // and drawn; a long model's drawing comes in a zero-delay task after, timed too), and the
   // style and layout the browser then does before the results can be seen.
   const { context } = await isolatedContext(browser, viewport ? { viewport, hasTouch: true } : {});
@@ -181,6 +182,9 @@ async function editTimes(browser, url, pause, settle = 0, viewport = null) {
         return onmessage.get.call(this);
       },
     });
+    // An edit the page solved itself is answered in a microtask (boot.js), timed as an answer.
+    const queueMicrotask = window.queueMicrotask;
+    window.queueMicrotask = (f) => queueMicrotask(timed(f, true));
     const setTimeout = window.setTimeout;
     window.setTimeout = (f, ms, ...rest) => setTimeout(ms ? f : timed(f), ms, ...rest);
   });
@@ -326,8 +330,8 @@ try {
       }
       // The page's own share of each edit (the rest is the worker's solve and the messages).
       for (const [part, words] of [
-        ["input", "keystroke handled (stored, posted)"],
-        ["worker", "worker (solve, messages)"],
+        ["input", "keystroke handled (stored; posted, or solved here)"],
+        ["worker", "worker (solve, messages; 0 if solved here)"],
         ["answer", "answer handled (read, drawn)"],
         ["layout", "then style and layout"],
       ]) {

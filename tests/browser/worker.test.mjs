@@ -1,4 +1,5 @@
-// The calculator solves in a Web Worker, so that no model can freeze its page: typing into a
+// The calculator solves in a Web Worker, so that no model can freeze its page (a quick model's
+// edits that keep its shape are solved on the page, as the worker would): typing into a
 // model that is slow to solve leaves the main thread free, the newest edit's results are the
 // ones drawn (patched over the last drawing, exactly as if drawn whole), a stored case too slow
 // to solve leaves the page live on its example with the case offered back, the worker's warm-up
@@ -86,6 +87,62 @@ async function solveHere(page, scenarios) {
     });
   }, scenarios.map((s) => JSON.stringify(s)));
 }
+
+describe("solving a quick model on the page", () => {
+  test("an edit that keeps a quick model's shape is solved on the page, as the worker solves it; a count or a value a decade away goes to the worker", { timeout: TEST_TIMEOUT_MS }, async () => {
+    const { context } = await isolatedContext(browser);
+    // How many scenarios went to a worker.
+    await context.addInitScript(() => {
+      window.__posted = 0;
+      const post = Worker.prototype.postMessage;
+      Worker.prototype.postMessage = function (message, ...rest) {
+        window.__posted += message?.scenario === undefined ? 0 : 1;
+        return post.call(this, message, ...rest);
+      };
+    });
+    const { page, problems } = await watchedPage(context);
+    await page.goto(site.url + BOOM);
+    await page.waitForSelector('.mb-calc[data-live="true"]');
+    const idle = () => !document.querySelector(".mb-calc").hasAttribute("data-solving");
+    await page.waitForFunction(idle);
+    const hz = () => page.$$eval("table.mb-modes td[data-hz]", (cells) => cells.map((c) => Number(c.dataset.hz)));
+    // Types `text` into `field`, waits until `drawn` holds and no solve is under way, and says
+    // how many scenarios went to the worker meanwhile.
+    const edit = async (field, text, drawn, argument) => {
+      const before = await page.evaluate(() => window.__posted);
+      await page.locator(field).fill(text);
+      await page.waitForFunction(drawn, argument);
+      await page.waitForFunction(idle);
+      return (await page.evaluate(() => window.__posted)) - before;
+    };
+    const changed = async (field, text) => {
+      const old = await page.locator(MODE_1).getAttribute("data-hz");
+      return edit(field, text, ([cell, hz]) => document.querySelector(cell)?.dataset.hz !== hz, [MODE_1, old]);
+    };
+    // The page loads its own copy of the solver once the worker has found the model quick, and
+    // warms it up for about half a second; edits go to the worker until then.
+    let tries = 0;
+    while ((await changed(TIP_MASS, `${(2 + (tries % 10) / 10).toFixed(1)} kg`)) > 0) {
+      tries += 1;
+      assert.ok(tries < 60, "the page never solved an edit itself");
+      await page.waitForTimeout(100);
+    }
+    assert.equal(await changed(TIP_MASS, "3.3 kg"), 0, "a value in the same decade is solved on the page");
+    const onPage = await hz();
+    // A count changes the model's shape: to the worker, and back again.
+    const rows = (n) => document.querySelectorAll("table.mb-modes tr[data-mode]").length === n;
+    assert.equal(await edit('[data-field="modes"]', "5", rows, 5), 1, "a count goes to the worker");
+    assert.equal(await edit('[data-field="modes"]', "4", rows, 4), 1);
+    const fromWorker = await hz();
+    assert.equal(onPage.length, 4);
+    onPage.forEach((f, i) => assert.ok(same(f, fromWorker[i]), `mode ${i + 1}: ${f} Hz on the page, ${fromWorker[i]} Hz in the worker`));
+    // A value a decade away goes to the worker; the next in its decade is solved on the page.
+    assert.equal(await changed(TIP_MASS, "33 kg"), 1, "a value ten times larger goes to the worker");
+    assert.equal(await changed(TIP_MASS, "34 kg"), 0, "and the next edit in its decade is solved on the page");
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+});
 
 describe("solving off the main thread", () => {
   test("typing into a model slow to solve leaves the page responsive", { timeout: TEST_TIMEOUT_MS }, async () => {
@@ -264,16 +321,17 @@ describe("solving off the main thread", () => {
     await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
     const [expected, later] = await solveHere(page, [
       boomWith((s) => ((s.attachments[0].mass = "3.1 kg"), s)),
-      boomWith((s) => ((s.attachments[0].mass = "3.3 kg"), s)),
+      boomWith((s) => ((s.attachments[0].mass = "13 kg"), s)),
     ]);
     const drawn = ([selector, hz, tolerance]) =>
       Math.abs(Number(document.querySelector(selector)?.dataset.hz) - hz) <= tolerance * hz;
     // Typed at once, while the worker warms up on the page's example.
     await page.locator(TIP_MASS).fill("3.1 kg");
     await page.waitForFunction(drawn, [MODE_1, expected.hz, SAME]);
-    // Typed again after a pause, while the worker warms up again on the edited case.
+    // Typed again after a pause, while the worker warms up again on the edited case: a value a
+    // decade away, which the page hands to the worker even once it could solve the model itself.
     await page.waitForTimeout(800);
-    await page.locator(TIP_MASS).fill("3.3 kg");
+    await page.locator(TIP_MASS).fill("13 kg");
     await page.waitForFunction(drawn, [MODE_1, later.hz, SAME]);
     // Long after any warm-up (the second stretch pauses at each request and goes on after a
     // pause of half a second, about a second of solving in all): one answer for every request,
