@@ -16,13 +16,14 @@ export const shape = (text) =>
     return number ? `"${Math.floor(Math.log10(Math.abs(number[1])))}${number[2]}"` : quoted;
   });
 
-// Loads the engine (the worker's copy is in the browser's cache by then) and runs `warm`, a
-// scenario request that gave a report quickly, again and again, a solve per task, as the worker
+// Loads the engine (the worker's copy is in the browser's cache by then) and runs `link`'s last
+// scenario, which the worker solved quickly, again and again, a solve per task, as the worker
 // does (solve-worker.js): the browser compiles hot code again, optimised, and this has that done
 // before the first edit solved here rather than during it. The first half solves without writing
 // the results' markup, the second with it; a solve of WARM_UP_MS or more ends it early. Resolves
 // to what boot.js asks: `take(link, request)`, true when it solved the request here.
-export async function start(warm, quick) {
+export async function start(link, quick) {
+  const warm = link.answered;
   await init();
   const [WARM_UPS, WARM_UP_MS, TOTAL_MS] = [120, 25, 500];
   let [done, total] = [0, 0];
