@@ -63,9 +63,9 @@ async function boot() {
 // Each calculator's worker as its engine sees it. Once a reader edits and a worker has solved a
 // model in QUICK_MS, the page loads solve-here.js, which then solves the edits of a quick model
 // that keep its shape. QUICK_MS keeps the page's first solves, run before the browser has
-// optimised them (some ten times slower), under the 50 ms of a visible stall. `link.last`: the last scenario solved;
-// `link.answer`: the last answer, with the solve's `ms`, wherever it ran; `link.answered`: its
-// scenario.
+// optimised them (some ten times slower), under the 50 ms of a visible stall. `link.last`: the
+// last scenario solved; `link.answer`: the last answer, with the solve's `ms`, wherever it ran;
+// `link.answered`: its scenario.
 const QUICK_MS = 4;
 const quick = (link) => link.answer?.ms <= QUICK_MS;
 const links = [];

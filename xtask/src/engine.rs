@@ -6,8 +6,9 @@
 //! the widget, the editor and the drawing of results. It never calls the solver, so the linker
 //! leaves the solver out and the page downloads less before it is live. `modebench_solver`
 //! (feature `solver`) runs in the calculator's Web Worker (`assets/solve-worker.js`): it solves,
-//! and writes the results' markup that the page draws; the page loads a second copy once the
-//! worker has found a model quick to solve, for that model's edits (`assets/boot.js`).
+//! and writes the results' markup that the page draws; the page loads a second copy once a
+//! reader edits a model the worker found quick to solve, for that model's edits
+//! (`assets/boot.js`).
 //! `modebench_bench` (feature `bench`) runs in the bench worker (`assets/bench-worker.js`),
 //! started only when a calculator's tap-test panel is opened: the core's signal analysis and
 //! its readers, which neither of the others carries.
