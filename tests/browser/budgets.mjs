@@ -149,9 +149,9 @@ async function designFrames(browser, url) {
 async function editTimes(browser, url, pause, settle = 0, viewport = null) {
   // Where the page's own thread spends each edit, beside the round trip: the calculator's
   // handling of the keystroke (stored and posted, or solved on the page for a model quick to
-  // solve, see boot.js), its handling of the answer (read
-  // and drawn; a long model's drawing comes in a zero-delay task after, timed too), and the
-  // style and layout the browser then does before the results can be seen.
+  // solve, see boot.js), its handling of the answer (read and drawn; a long model's drawing
+  // comes in a zero-delay task after, timed too), and the style and layout the browser then does
+  // before the results can be seen.
   const { context } = await isolatedContext(browser, viewport ? { viewport, hasTouch: true } : {});
   await context.addInitScript(() => {
     const spent = { input: 0, answer: 0, posted: 0, arrived: 0 };
