@@ -85,7 +85,7 @@ function startSolver(url) {
     // Solved here, the worker is only told that the reader is typing: its warm-up waits.
     const solved = here?.take?.(link, request);
     worker.postMessage(solved ? { edited: true } : request);
-    link.last = solved ? link.last : request;
+    if (!solved) link.last = request;
   };
   links.push(link);
   return link;

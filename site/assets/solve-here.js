@@ -49,7 +49,7 @@ export async function start(link, quick) {
         const begun = performance.now();
         const [answer, thinned, results, summary] = solveForPage(scenario, mode, open);
         const data = { id, answer, thinned, results, summary, mode, open, ms: performance.now() - begun };
-        Object.assign(link, { last: request, answer: data });
+        Object.assign(link, { last: request, answer: data, answered: request });
         // Handed over as the worker's message would be: after the keystroke's handler returns.
         queueMicrotask(() => link.onmessage?.(new MessageEvent("message", { data })));
         return true;

@@ -61,9 +61,9 @@ export const SCREENSHOTS = join(ROOT, "build", "screenshots");
 // `producers` sections, which no browser reads (`xtask/src/engine.rs`); the page's engine, with
 // a case opened with an input error now saying where the error is and the quotes of a field's
 // message paired (about 0.9 KB together) and three clearer unit messages, stood at 388,539 B, and
-// its guard came down to 389 KB. That afternoon it rose again to 390 KB (389,087 B): the page
+// its guard came down to 389 KB. That afternoon it rose again to 390 KB (389,138 B): the page
 // may start each calculator's worker through a function of its own, which solves a model quick
-// to solve on the page itself (`boot.js`), 0.55 KB.
+// to solve on the page itself (`boot.js`), 0.6 KB.
 //
 // The tap test's engine (`modebench_bench`) is fetched only when a reader opens a calculator's
 // tap-test panel, by the panel's worker; built for size it weighed 525 KB on 2026-12-03, and its

@@ -6,7 +6,7 @@
 //!   worker solves next (the newest edit wins). Plain Rust, tested natively.
 //! - In WebAssembly only: the JS API and the live widget (the DOM, the worker, storage). What a
 //!   build exports depends on its features: `page` the widget (`mountAll`), which never solves
-//!   (the site's `boot.js` solves a quick model's edits on the page with a `solver` build);
+//!   (the site's `solve-here.js` solves a quick model's edits on the page with a `solver` build);
 //!   `solver` the worker's entry point (`solveForPage`); `api` (the
 //!   default) adds `solveScenario`, `solve`, `parseQuantity`, `listSections`, `listMaterials` and `listUnits` for
 //!   integrators; `bench` the tap-test panel's engine ([`bench`]: `analyseFile`, `analyseSamples`,

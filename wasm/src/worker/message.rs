@@ -18,10 +18,12 @@ enum Answer {
 }
 
 thread_local! {
-    /// The frequencies (Hz) of the last report this worker sent. A worker serves one
+    /// The frequencies (Hz) of the last report this engine sent. A worker serves one
     /// calculator, so they are the case's before the edit now being solved, and the search
-    /// starts from them; the count still certifies every frequency. A worker stopped for running
-    /// past its budget takes them with it, and its replacement starts cold.
+    /// starts from them; the count still certifies every frequency. The page's own copy (the
+    /// site's `solve-here.js`) serves every calculator on its page, so there they may be another
+    /// calculator's: a poorer start, never a missed mode. A worker stopped for running past its
+    /// budget takes them with it, and its replacement starts cold.
     static LAST: RefCell<Vec<f64>> = const { RefCell::new(Vec::new()) };
 }
 
@@ -58,8 +60,9 @@ pub struct Drawn {
 
 /// Solves a scenario given as JSON text for the page, drawn for `view` ([`ForPage`]), or not
 /// drawn at all without one (the worker's warm-up while the reader types: the solve's own code
-/// made hot, the drawing's left for a pause). This is the worker's whole job; the page never
-/// calls it. The page reads only the thinned answer: a long model's whole answer is over a
+/// made hot, the drawing's left for a pause). This is the worker's whole job, and that of the
+/// page's own copy for a quick model's edits (the site's `solve-here.js`); the page's engine
+/// never calls it. The page reads only the thinned answer: a long model's whole answer is over a
 /// megabyte, most of it shapes that the plot draws to the same tenth of a unit with a few dozen
 /// samples each.
 pub fn solve_for_page(scenario: &str, view: Option<&View>) -> ForPage {
