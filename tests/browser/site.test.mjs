@@ -1,5 +1,6 @@
 // The built site as a reader on a tablet meets it: every page loads cleanly at both tablet
-// sizes, asks nothing of any other host, fits the screen, and leaves a screenshot for review.
+// sizes, asks nothing of any other host, fits the screen, and leaves a screenshot for review;
+// on a wide screen, its calculators show their mode tables whole beside the editor.
 
 import assert from "node:assert/strict";
 import { cpSync, mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
@@ -100,6 +101,35 @@ describe("every page", () => {
       });
     }
   }
+
+  // A wide screen sets editor and results side by side; the calculator then spans more than the
+  // prose, so that the results' column shows the mode table whole, as a tablet does.
+  test("on wide screens every calculator's mode table shows every column beside the editor", { timeout: TEST_TIMEOUT_MS }, async () => {
+    for (const viewport of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+      const { context } = await isolatedContext(browser, { viewport });
+      const page = await context.newPage();
+      for (const file of pages()) {
+        await page.goto(site.url + file, { waitUntil: "load" });
+        await settle(page);
+        const where = `${file} at ${viewport.width}×${viewport.height}`;
+        const layout = await page.evaluate(() => ({
+          overflow: document.documentElement.scrollWidth - window.innerWidth,
+          clipped: [...document.querySelectorAll(".mb-calc .mb-table-wrap:has(> .mb-modes)")]
+            .filter((wrap) => wrap.scrollWidth > wrap.clientWidth + 1)
+            .map((wrap) => `${wrap.scrollWidth} px of table in ${wrap.clientWidth} px`),
+          // Side by side: the results' column starts right of the editor's, on the same line.
+          beside: [...document.querySelectorAll(".mb-calc")].every((calc) => {
+            const [editor, results] = [calc.querySelector(".mb-editor"), calc.querySelector(".mb-results")];
+            return !editor || !results || results.getBoundingClientRect().left >= editor.getBoundingClientRect().right;
+          }),
+        }));
+        assert.ok(layout.overflow <= 0, `${where}: the page scrolls sideways by ${layout.overflow} px`);
+        assert.deepEqual(layout.clipped, [], `${where}: mode table wider than its column`);
+        assert.ok(layout.beside, `${where}: editor and results are not side by side`);
+      }
+      await context.close();
+    }
+  });
 });
 
 describe("the site as files", () => {
