@@ -41,7 +41,8 @@ export async function start(link, quick) {
   let working = true;
   return {
     take(link, request) {
-      if (!working || !quick(link) || !link.last || shape(request.scenario) !== shape(link.last.scenario)) {
+      const form = shape(request.scenario);
+      if (!working || !quick(link) || !link.last || form !== shape(link.last.scenario) || form === link.slowHere) {
         return false;
       }
       const { id, scenario, mode, open } = request;
@@ -50,6 +51,9 @@ export async function start(link, quick) {
         const [answer, thinned, results, summary] = solveForPage(scenario, mode, open);
         const data = { id, answer, thinned, results, summary, mode, open, ms: performance.now() - begun };
         Object.assign(link, { last: request, answer: data, answered: request });
+        // A shape the page solved slowly stays with the worker, which may solve it quickly (its
+        // thread less busy, its copy more optimised): the two would otherwise take turns.
+        link.slowHere = quick(link) ? null : form;
         // Handed over as the worker's message would be: after the keystroke's handler returns.
         queueMicrotask(() => link.onmessage?.(new MessageEvent("message", { data })));
         return true;
