@@ -127,7 +127,18 @@ describe("solving a quick model on the page", () => {
       assert.ok(tries < 60, "the page never solved an edit itself");
       await page.waitForTimeout(100);
     }
-    assert.equal(await changed(TIP_MASS, "3.3 kg"), 0, "a value in the same decade is solved on the page");
+    // Types values into the tip mass until one is solved on the page; says how many went to the
+    // worker first. An edit of the same shape may: the calculator's last solve must have taken
+    // 4 ms or less, and on a busy machine the first solve after a change can take longer.
+    const untilHere = async (values) => {
+      for (const [i, value] of values.entries()) {
+        if ((await changed(TIP_MASS, value)) === 0) {
+          return i;
+        }
+      }
+      return values.length;
+    };
+    assert.ok((await untilHere(["3.3 kg", "3.4 kg", "3.5 kg", "3.6 kg"])) < 4, "a value in the same decade is solved on the page");
     const onPage = await hz();
     // A count changes the model's shape: to the worker, and back again.
     const rows = (n) => document.querySelectorAll("table.mb-modes tr[data-mode]").length === n;
@@ -138,7 +149,7 @@ describe("solving a quick model on the page", () => {
     onPage.forEach((f, i) => assert.ok(same(f, fromWorker[i]), `mode ${i + 1}: ${f} Hz on the page, ${fromWorker[i]} Hz in the worker`));
     // A value a decade away goes to the worker; the next in its decade is solved on the page.
     assert.equal(await changed(TIP_MASS, "33 kg"), 1, "a value ten times larger goes to the worker");
-    assert.equal(await changed(TIP_MASS, "34 kg"), 0, "and the next edit in its decade is solved on the page");
+    assert.ok((await untilHere(["34 kg", "35 kg", "36 kg", "37 kg"])) < 4, "and the next edits in its decade are solved on the page");
     assert.deepEqual(problems, []);
 
     // The page's thread slowed tenfold (the worker's is not): the page's next solve of the shape
@@ -147,7 +158,7 @@ describe("solving a quick model on the page", () => {
     const cdp = await context.newCDPSession(page);
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 10 });
     let posted = 0;
-    for (const kg of ["35", "36", "37", "38", "39", "41", "42", "43"]) {
+    for (const kg of ["41", "42", "43", "44", "45", "46", "47", "48"]) {
       posted += await changed(TIP_MASS, `${kg} kg`);
     }
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 1 });
