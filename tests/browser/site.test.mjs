@@ -52,6 +52,16 @@ async function settle(page) {
   }
 }
 
+// How far the page scrolls sideways, and each mode table of a calculator wider than its box.
+function sideways(page) {
+  return page.evaluate(() => ({
+    overflow: document.documentElement.scrollWidth - window.innerWidth,
+    clipped: [...document.querySelectorAll(".mb-table-wrap:has(> .mb-modes)")]
+      .filter((wrap) => wrap.scrollWidth > wrap.clientWidth + 1)
+      .map((wrap) => `${wrap.scrollWidth} px of table in ${wrap.clientWidth} px`),
+  }));
+}
+
 describe("every page", () => {
   for (const file of pages()) {
     for (const tablet of TABLETS) {
@@ -68,7 +78,7 @@ describe("every page", () => {
         assert.deepEqual(problems, [], "console errors, exceptions or failed requests");
         assert.deepEqual(external, [], "requests that would leave 127.0.0.1");
 
-        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+        const { overflow, clipped } = await sideways(page);
         assert.ok(overflow <= 0, `the page scrolls sideways by ${overflow} px`);
 
         const small = await page.evaluate(() => {
@@ -83,11 +93,6 @@ describe("every page", () => {
         assert.deepEqual(small, [], "touch targets shorter than 44 px");
 
         // The mode table, separation margin included, is read without scrolling sideways.
-        const clipped = await page.evaluate(() =>
-          [...document.querySelectorAll(".mb-table-wrap:has(> .mb-modes)")]
-            .filter((wrap) => wrap.scrollWidth > wrap.clientWidth + 1)
-            .map((wrap) => `${wrap.scrollWidth} px of table in ${wrap.clientWidth} px`),
-        );
         assert.deepEqual(clipped, [], "mode table wider than the calculator");
 
         const text = await page.evaluate(() => document.body.innerText);
@@ -112,20 +117,17 @@ describe("every page", () => {
         await page.goto(site.url + file, { waitUntil: "load" });
         await settle(page);
         const where = `${file} at ${viewport.width}×${viewport.height}`;
-        const layout = await page.evaluate(() => ({
-          overflow: document.documentElement.scrollWidth - window.innerWidth,
-          clipped: [...document.querySelectorAll(".mb-calc .mb-table-wrap:has(> .mb-modes)")]
-            .filter((wrap) => wrap.scrollWidth > wrap.clientWidth + 1)
-            .map((wrap) => `${wrap.scrollWidth} px of table in ${wrap.clientWidth} px`),
-          // Side by side: the results' column starts right of the editor's, on the same line.
-          beside: [...document.querySelectorAll(".mb-calc")].every((calc) => {
+        const { overflow, clipped } = await sideways(page);
+        // Side by side: the results' column starts right of the editor's, on the same line.
+        const beside = await page.evaluate(() =>
+          [...document.querySelectorAll(".mb-calc")].every((calc) => {
             const [editor, results] = [calc.querySelector(".mb-editor"), calc.querySelector(".mb-results")];
             return !editor || !results || results.getBoundingClientRect().left >= editor.getBoundingClientRect().right;
           }),
-        }));
-        assert.ok(layout.overflow <= 0, `${where}: the page scrolls sideways by ${layout.overflow} px`);
-        assert.deepEqual(layout.clipped, [], `${where}: mode table wider than its column`);
-        assert.ok(layout.beside, `${where}: editor and results are not side by side`);
+        );
+        assert.ok(overflow <= 0, `${where}: the page scrolls sideways by ${overflow} px`);
+        assert.deepEqual(clipped, [], `${where}: mode table wider than its column`);
+        assert.ok(beside, `${where}: editor and results are not side by side`);
       }
       await context.close();
     }
