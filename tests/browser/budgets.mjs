@@ -9,7 +9,7 @@ import { readFileSync, statSync } from "node:fs";
 import { cpus } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
-import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, median, openLive, pageWeight, startSite } from "./support.mjs";
+import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, drawn, isolatedContext, launch, median, openLive, pageWeight, startSite } from "./support.mjs";
 
 // Kilobytes are 1000 bytes here, the stricter reading of each budget.
 const KB = 1000;
@@ -196,7 +196,7 @@ async function editTimes(browser, url, pause, settle = 0, viewport = null) {
   // A reader edits a calculator they can see, once its worker has confirmed the page's results.
   await page.waitForFunction(() => !document.querySelector(".mb-calc").hasAttribute("data-solving"));
   await page.locator(viewport ? `.mb-calc ${TYPED_FIELD}` : ".mb-calc").first().scrollIntoViewIfNeeded();
-  await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+  await drawn(page, { note: (what) => console.log(`  (${what})`) });
   await page.waitForTimeout(settle);
   const times = [];
   const parts = { input: [], worker: [], answer: [], layout: [] };

@@ -10,6 +10,7 @@ import {
   TABLETS,
   TEST_TIMEOUT_MS,
   closeAll,
+  drawn,
   isolatedContext,
   launch,
   mode1,
@@ -17,6 +18,7 @@ import {
   pages,
   same,
   startSite,
+  within,
 } from "./support.mjs";
 
 const BOOM = "sensor-boom.html";
@@ -113,9 +115,11 @@ describe("the live calculator", () => {
   // The browser reports every move of something on screen that no input caused (a layout
   // shift). The results' sections out of view are laid out only as they come into view, and a
   // section laid out late must not push what the reader is looking at.
-  test("going live, and scrolling through the page and its results, moves nothing on screen", { timeout: TEST_TIMEOUT_MS }, async () => {
+  test("going live, and scrolling through the page and its results, moves nothing on screen", { timeout: TEST_TIMEOUT_MS }, async (t) => {
     for (const viewport of [{ width: 1280, height: 720 }, { width: 1920, height: 1080 }, ...TABLETS]) {
-      const { context } = await isolatedContext(browser, { viewport, hasTouch: viewport.width < 1280 });
+      const size = `${viewport.width}×${viewport.height}`;
+      const step = (what, promise) => within(30_000, `${what} at ${size}`, promise);
+      const { context } = await step("a new context", isolatedContext(browser, { viewport, hasTouch: viewport.width < 1280 }));
       await context.addInitScript(() => {
         window.modebenchShifts = [];
         new PerformanceObserver((list) => {
@@ -127,28 +131,28 @@ describe("the live calculator", () => {
           }
         }).observe({ type: "layout-shift", buffered: true });
       });
-      const { page, problems } = await openLive(browser, site.url + BOOM, { context });
-      const frame = () => page.evaluate(() => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))));
-      const height = await page.evaluate(() => document.documentElement.scrollHeight);
+      const { page, problems } = await step("going live", openLive(browser, site.url + BOOM, { context }));
+      const frame = () => drawn(page, { note: (what) => t.diagnostic(`${size}: ${what}`) });
+      const scroll = (to, y) => step(`scrolling ${to} to ${y} px`, page.evaluate(to, y));
+      const height = await step("reading the page's height", page.evaluate(() => document.documentElement.scrollHeight));
       for (let y = 0; y < height; y += viewport.height / 2) {
-        await page.evaluate((y) => window.scrollTo(0, y), y);
+        await scroll((y) => window.scrollTo(0, y), y);
         await frame();
       }
       // On a wide screen the results are a column of their own beside the editor.
-      await page.locator(".mb-calc").first().scrollIntoViewIfNeeded();
-      const column = await page.evaluate(() => document.querySelector(".mb-results").scrollHeight);
+      await scroll(() => document.querySelector(".mb-calc").scrollIntoView(), 0);
+      const column = await step("reading the results' height", page.evaluate(() => document.querySelector(".mb-results").scrollHeight));
       for (let y = 0; y < column; y += viewport.height / 2) {
-        await page.evaluate((y) => (document.querySelector(".mb-results").scrollTop = y), y);
+        await scroll((y) => (document.querySelector(".mb-results").scrollTop = y), y);
         await frame();
       }
-      const size = `${viewport.width}×${viewport.height}`;
-      assert.deepEqual(await page.evaluate(() => window.modebenchShifts), [], `moves at ${size}`);
+      assert.deepEqual(await step("reading the moves", page.evaluate(() => window.modebenchShifts)), [], `moves at ${size}`);
       assert.deepEqual(problems, [], size);
-      await context.close();
+      await step("closing the context", context.close());
     }
   });
 
-  test("before the engine, the calculator's body is held back for half a second at most, and printed in full", { timeout: TEST_TIMEOUT_MS }, async () => {
+  test("before the engine, the calculator's body is held back for half a second at most, and printed in full", { timeout: TEST_TIMEOUT_MS }, async (t) => {
     const { context } = await isolatedContext(browser);
     // The page's script never arrives, so only the style sheet decides what shows.
     await context.route("**/assets/boot.js", (route) => route.abort());
@@ -184,7 +188,7 @@ describe("the live calculator", () => {
       null,
       { timeout: 5000 },
     );
-    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    await drawn(page, { note: (what) => t.diagnostic(what) });
     assert.deepEqual(await state(), { body: "auto", table: true, head: true }, "let through: the worked example shows");
     const hz = await page.locator(MODE_1).first().getAttribute("data-hz");
     assert.ok(Number(hz) > 0, `prerendered first frequency ${hz}`);
