@@ -9,7 +9,8 @@ import { readFileSync, statSync } from "node:fs";
 import { cpus } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
-import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, drawn, isolatedContext, launch, median, openLive, pageWeight, startSite } from "./support.mjs";
+import { BUDGET, DIST, ENGINES, SETTLE_MS, TABLETS, isolatedContext, launch, median, openLive, pageWeight, startSite } from "./support.mjs";
+import { drawn } from "./waits.mjs";
 
 // Kilobytes are 1000 bytes here, the stricter reading of each budget.
 const KB = 1000;

@@ -10,7 +10,6 @@ import {
   TABLETS,
   TEST_TIMEOUT_MS,
   closeAll,
-  drawn,
   isolatedContext,
   launch,
   mode1,
@@ -18,8 +17,8 @@ import {
   pages,
   same,
   startSite,
-  within,
 } from "./support.mjs";
+import { drawn, within } from "./waits.mjs";
 
 const BOOM = "sensor-boom.html";
 const TIP_MASS = '[data-field="attachments[0].mass"]';
