@@ -132,17 +132,17 @@ describe("the live calculator", () => {
       });
       const { page, problems } = await step("going live", openLive(browser, site.url + BOOM, { context }));
       const frame = () => drawn(page, { note: (what) => t.diagnostic(`${size}: ${what}`) });
-      const scroll = (to, y) => step(`scrolling ${to} to ${y} px`, page.evaluate(to, y));
+      const scroll = (what, to, y) => step(`scrolling ${what}`, page.evaluate(to, y));
       const height = await step("reading the page's height", page.evaluate(() => document.documentElement.scrollHeight));
       for (let y = 0; y < height; y += viewport.height / 2) {
-        await scroll((y) => window.scrollTo(0, y), y);
+        await scroll(`the page to ${y} px`, (y) => window.scrollTo(0, y), y);
         await frame();
       }
       // On a wide screen the results are a column of their own beside the editor.
-      await scroll(() => document.querySelector(".mb-calc").scrollIntoView(), 0);
+      await scroll("the page to the calculator", () => document.querySelector(".mb-calc").scrollIntoView());
       const column = await step("reading the results' height", page.evaluate(() => document.querySelector(".mb-results").scrollHeight));
       for (let y = 0; y < column; y += viewport.height / 2) {
-        await scroll((y) => (document.querySelector(".mb-results").scrollTop = y), y);
+        await scroll(`the results to ${y} px`, (y) => (document.querySelector(".mb-results").scrollTop = y), y);
         await frame();
       }
       assert.deepEqual(await step("reading the moves", page.evaluate(() => window.modebenchShifts)), [], `moves at ${size}`);
